@@ -1,0 +1,159 @@
+/**
+ * Note cells: Markdown text with `{expression}` placeholders that show live values.
+ * A literal brace is written `\{`. The note's value is its text with every placeholder
+ * replaced by its value (what the command line prints); the view renders the Markdown with
+ * the live parts. A placeholder that fails keeps its source in the text, and its error is in
+ * the parts, so the rest of the note still reads.
+ */
+import type { Cell } from '../../src/doc/document.ts';
+import type { CellAnalysis, CellKind } from '../../src/graph/cell-kind.ts';
+import { namesRead, type Expr, type NameUse } from '../../src/lang/ast.ts';
+import { LangError } from '../../src/lang/errors.ts';
+import { evaluate } from '../../src/lang/evaluate.ts';
+import { formatInline } from '../../src/lang/format.ts';
+import { parseExpression } from '../../src/lang/parser.ts';
+import { errorValue, isError, type ErrorValue, type Value } from '../../src/lang/values.ts';
+
+/** A piece of a note: literal Markdown or a placeholder. */
+export type NotePiece =
+  | { readonly type: 'text'; readonly text: string; readonly from: number }
+  | {
+      readonly type: 'placeholder';
+      /** The expression's source, braces excluded. */
+      readonly source: string;
+      /** The placeholder as written, braces included. */
+      readonly raw: string;
+      /** Range of the whole placeholder, braces included, in the note's text. */
+      readonly from: number;
+      readonly to: number;
+      readonly expr: Expr | null;
+      readonly error: ErrorValue | null;
+    };
+
+/** Splits a note into literal text and placeholders; never throws. */
+export function splitNote(text: string): NotePiece[] {
+  const pieces: NotePiece[] = [];
+  let lit = '';
+  let litFrom = 0;
+  let i = 0;
+  while (i < text.length) {
+    const c = text[i]!;
+    if (c === '\\' && text[i + 1] === '{') {
+      // keep the backslash: Markdown renders \{ as a brace
+      lit += '\\{';
+      i += 2;
+      continue;
+    }
+    if (c !== '{') {
+      lit += c;
+      i++;
+      continue;
+    }
+    const end = placeholderEnd(text, i + 1);
+    if (end < 0) {
+      // an unclosed brace: report it as a placeholder with an error, keep the rest as text
+      if (lit) pieces.push({ type: 'text', text: lit, from: litFrom });
+      const lineEnd = text.indexOf('\n', i);
+      const to = lineEnd < 0 ? text.length : lineEnd;
+      pieces.push({
+        type: 'placeholder',
+        source: text.slice(i + 1, to),
+        raw: text.slice(i, to),
+        from: i,
+        to,
+        expr: null,
+        error: errorValue('This { is never closed: end the placeholder with }, or write \\{ for a brace.', i, i + 1),
+      });
+      lit = '';
+      i = to;
+      litFrom = i;
+      continue;
+    }
+    if (lit) pieces.push({ type: 'text', text: lit, from: litFrom });
+    lit = '';
+    const source = text.slice(i + 1, end);
+    const offset = i + 1;
+    let expr: Expr | null = null;
+    let error: ErrorValue | null = null;
+    try {
+      expr = parseExpression(source);
+    } catch (err) {
+      if (!(err instanceof LangError)) throw err;
+      error = errorValue(err.message, err.from + offset, Math.max(err.to, err.from + 1) + offset);
+    }
+    pieces.push({ type: 'placeholder', source, raw: text.slice(i, end + 1), from: i, to: end + 1, expr, error });
+    i = end + 1;
+    litFrom = i;
+  }
+  if (lit) pieces.push({ type: 'text', text: lit, from: litFrom });
+  return pieces;
+}
+
+/** The index of the `}` closing a placeholder opened before `start`, skipping quoted text. */
+function placeholderEnd(text: string, start: number): number {
+  let inText = false;
+  for (let j = start; j < text.length; j++) {
+    const c = text[j];
+    if (c === '\n' && !inText) {
+      // a placeholder may span lines, but a blank line ends the search
+      if (text[j + 1] === '\n') return -1;
+    }
+    if (inText) {
+      if (c === '\\') j++;
+      else if (c === '"') inText = false;
+      continue;
+    }
+    if (c === '"') inText = true;
+    else if (c === '}') return j;
+    else if (c === '{') return -1;
+  }
+  return -1;
+}
+
+function shift(uses: NameUse[], offset: number): NameUse[] {
+  return uses.map((u) => ({ name: u.name, from: u.from + offset, to: u.to + offset }));
+}
+
+/** The note kind. */
+export const noteKind: CellKind = {
+  kind: 'note',
+  analyse(cell: Cell): CellAnalysis {
+    const text = cell.body;
+    const pieces = splitNote(text);
+    const reads: NameUse[] = [];
+    for (const p of pieces) {
+      if (p.type === 'placeholder' && p.expr !== null) reads.push(...shift(namesRead(p.expr), p.from + 1));
+    }
+    return {
+      defines: null,
+      reads,
+      problem: null,
+      evaluates: true,
+      evaluate(env) {
+        const parts: Value[] = [];
+        let out = '';
+        for (const p of pieces) {
+          if (p.type === 'text') {
+            out += p.text;
+            continue;
+          }
+          let v: Value;
+          if (p.error !== null) v = p.error;
+          else {
+            try {
+              v = evaluate(p.expr!, env);
+            } catch (err) {
+              if (!(err instanceof LangError)) throw err;
+              const offset = p.from + 1;
+              v = errorValue(err.message, err.from + offset, err.to + offset, err.upstream);
+            }
+          }
+          parts.push(v);
+          // a failed placeholder stays as written; its error is in `parts`
+          out += isError(v) ? p.raw : formatInline(v);
+        }
+        return { value: out.replace(/(\r?\n)+$/, ''), parts };
+      },
+    };
+  },
+};

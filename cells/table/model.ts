@@ -1,0 +1,142 @@
+/**
+ * Table cells: a CSV body (or a CSV file beside the document) read into a table value.
+ * A column is numeric when every non-empty field reads as a decimal number; booleans when
+ * every non-empty field is true or false; text otherwise. An empty field is missing. The
+ * decimal text of each number is kept for exact work (language.md section 5).
+ */
+import { parseMarker, type Cell } from '../../src/doc/document.ts';
+import { CsvError, parseCsv, type CsvGrid } from '../../src/doc/csv.ts';
+import type { AnalyseEnv, CellAnalysis, CellKind } from '../../src/graph/cell-kind.ts';
+import { isPlainName } from '../../src/lang/lexer.ts';
+import { msg } from '../../src/lang/messages.ts';
+import {
+  booleanColumn,
+  errorValue,
+  numberColumn,
+  table,
+  textColumn,
+  type Column,
+  type ErrorValue,
+  type Table,
+} from '../../src/lang/values.ts';
+
+/** A decimal number as typed: sign, digits, optional fraction, optional exponent. */
+export const DECIMAL = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+
+/** The type a column of fields reads as. */
+export function columnTypeOf(fields: readonly string[]): 'number' | 'boolean' | 'text' {
+  let numbers = true;
+  let booleans = true;
+  for (const raw of fields) {
+    const f = raw.trim();
+    if (f === '') continue;
+    if (numbers && !DECIMAL.test(f)) numbers = false;
+    if (booleans && f !== 'true' && f !== 'false') booleans = false;
+    if (!numbers && !booleans) return 'text';
+  }
+  return numbers ? 'number' : booleans ? 'boolean' : 'text';
+}
+
+/** Builds one column from its fields. */
+export function columnFromFields(name: string, fields: readonly string[]): Column {
+  const n = fields.length;
+  const missing = new Uint8Array(n);
+  const type = columnTypeOf(fields);
+  if (type === 'number') {
+    const values = new Float64Array(n);
+    const decimals: string[] = new Array<string>(n);
+    for (let i = 0; i < n; i++) {
+      const f = fields[i]!.trim();
+      decimals[i] = f;
+      if (f === '') {
+        missing[i] = 1;
+        values[i] = NaN;
+      } else values[i] = Number(f);
+    }
+    return numberColumn(values, missing, name, decimals);
+  }
+  if (type === 'boolean') {
+    const values = new Uint8Array(n);
+    for (let i = 0; i < n; i++) {
+      const f = fields[i]!.trim();
+      if (f === '') missing[i] = 1;
+      else values[i] = f === 'true' ? 1 : 0;
+    }
+    return booleanColumn(values, missing, name);
+  }
+  const values: string[] = new Array<string>(n);
+  for (let i = 0; i < n; i++) {
+    const f = fields[i]!;
+    if (f.trim() === '') {
+      missing[i] = 1;
+      values[i] = '';
+    } else values[i] = f;
+  }
+  return textColumn(values, missing, name);
+}
+
+/** Builds a table value from a CSV grid. */
+export function tableFromGrid(grid: CsvGrid): Table {
+  const cols: Column[] = grid.header.map((name, j) =>
+    columnFromFields(
+      name,
+      grid.rows.map((r) => r[j]!),
+    ),
+  );
+  return table(grid.header, cols);
+}
+
+/** A table cell read: the grid and value, or the error that stopped it. */
+export interface TableRead {
+  readonly name: string | null;
+  readonly file: string | null;
+  readonly grid: CsvGrid | null;
+  readonly value: Table | null;
+  readonly error: ErrorValue | null;
+}
+
+/** True when a file name a document gives stays in the document's own folder. */
+export function isSafeFileName(file: string): boolean {
+  return !/[\\/:\0]/.test(file) && file !== '.' && file !== '..' && !file.startsWith('.') && file.length <= 255;
+}
+
+/** Reads a table cell (body or CSV file). */
+export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
+  const m = parseMarker(cell.marker);
+  const name = m.name;
+  const fail = (e: ErrorValue): TableRead => ({ name, file: m.file, grid: null, value: null, error: e });
+  if (name === null) return fail(errorValue(msg.missingTableName(), 0, 0));
+  if (!isPlainName(name)) return fail(errorValue(msg.badTableName(name), 0, 0));
+  let text = cell.body;
+  if (m.file !== null) {
+    if (!isSafeFileName(m.file)) return fail(errorValue(msg.csvFileUnsafe(m.file), 0, 0));
+    const t = env.files.read(m.file);
+    if (t === undefined) return fail(errorValue(msg.csvFileMissing(m.file), 0, 0));
+    text = t;
+  }
+  try {
+    const grid = parseCsv(text);
+    return { name, file: m.file, grid, value: tableFromGrid(grid), error: null };
+  } catch (err) {
+    if (!(err instanceof CsvError)) throw err;
+    // ranges point into the body; for a file they would point into another text
+    return m.file === null
+      ? fail(errorValue(err.message, err.from, err.to))
+      : fail(errorValue(`In ${m.file}: ${err.message}`, 0, 0));
+  }
+}
+
+/** The table kind. */
+export const tableKind: CellKind = {
+  kind: 'table',
+  analyse(cell: Cell, env: AnalyseEnv): CellAnalysis {
+    const r = readTable(cell, env);
+    return {
+      defines: r.name !== null && isPlainName(r.name) ? { name: r.name, from: -1, to: -1 } : null,
+      reads: [],
+      problem: r.error,
+      evaluates: true,
+      evaluate: () => ({ value: r.value! }),
+    };
+  },
+};

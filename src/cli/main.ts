@@ -1,0 +1,195 @@
+/**
+ * The command line: `furrow run FILE [--json]` evaluates a document and prints every cell
+ * (language.md section 9). Exit status: 0 when every cell evaluated, 1 when any cell holds
+ * an error (all cells are still printed), 2 when the file cannot be read as a document.
+ */
+import { readFileSync, statSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { documentTitle, headerFields, parseMarker, type Document } from '../doc/document.ts';
+import { DocumentError, readDocument } from '../doc/format.ts';
+import { BUILTINS } from '../functions/index.ts';
+import { Engine, type CellState } from '../graph/engine.ts';
+import { toJson } from '../lang/json.ts';
+import { typeOf } from '../lang/values.ts';
+import { valueText } from './text.ts';
+import { isSafeFileName } from '../../cells/table/model.ts';
+
+const USAGE = `Usage: furrow run FILE [--json]
+
+  run FILE          evaluate a .furrow document and print every cell
+  run FILE --json   the same, as one JSON object (see the README)
+
+Exit status: 0 when every cell evaluated, 1 when a cell holds an error,
+2 when the file cannot be read as a document.`;
+
+/** A failure that ends the command with status 2 and one line on standard error. */
+class CliFailure extends Error {}
+
+interface Output {
+  out: (s: string) => void;
+  err: (s: string) => void;
+}
+
+/** Reads a UTF-8 text file, with one-line messages for what can go wrong. */
+function readText(path: string, what: string): string {
+  let bytes: Buffer;
+  try {
+    if (statSync(path).isDirectory()) throw new CliFailure(`${what} ${path} is a folder, not a file.`);
+    bytes = readFileSync(path);
+  } catch (err) {
+    if (err instanceof CliFailure) throw err;
+    const code = (err as { code?: string }).code;
+    if (code === 'ENOENT') throw new CliFailure(`${what} ${path} does not exist.`);
+    if (code === 'EACCES') throw new CliFailure(`${what} ${path} cannot be read (permission denied).`);
+    throw new CliFailure(`${what} ${path} cannot be read: ${(err as Error).message}`);
+  }
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw new CliFailure(`${what} ${path} is not UTF-8 text, so it is not a Furrow document.`);
+  }
+}
+
+/** Loads a document and the CSV files its tables name. */
+export function loadDocument(path: string): { doc: Document; engine: Engine; warnings: string[] } {
+  const text = readText(path, 'The file');
+  let doc: Document;
+  const warnings: string[] = [];
+  try {
+    const r = readDocument(text);
+    doc = r.document;
+    for (const w of r.warnings) warnings.push(`line ${w.line}: ${w.message}`);
+  } catch (err) {
+    if (err instanceof DocumentError) throw new CliFailure(`${path}: ${err.message}`);
+    throw err;
+  }
+  const engine = new Engine({ registry: BUILTINS });
+  for (const cell of doc.cells) {
+    const m = parseMarker(cell.marker);
+    if (m.kind !== 'table' || m.file === null) continue;
+    if (!isSafeFileName(m.file)) continue; // the table cell itself reports this
+    const csvPath = join(dirname(path), m.file);
+    try {
+      engine.setFile(m.file, readText(csvPath, `The CSV file`));
+    } catch (err) {
+      if (err instanceof CliFailure) {
+        throw new CliFailure(`${path}: table ${m.name ?? ''} names ${m.file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
+      }
+      throw err;
+    }
+  }
+  engine.update(doc);
+  return { doc, engine, warnings };
+}
+
+/** Where each cell's body starts in the file (1-based line of the marker). */
+function markerLines(doc: Document): number[] {
+  let line = 1 + (doc.firstEol === '' ? 0 : 1) + count(doc.header, '\n');
+  return doc.cells.map((c) => {
+    const at = line;
+    line += (c.eol === '' ? 0 : 1) + count(c.body, '\n');
+    return at;
+  });
+}
+
+function count(s: string, ch: string): number {
+  let n = 0;
+  for (let i = s.indexOf(ch); i >= 0; i = s.indexOf(ch, i + 1)) n++;
+  return n;
+}
+
+function position(body: string, offset: number, markerLine: number): string {
+  const before = body.slice(0, Math.max(0, offset));
+  const line = markerLine + 1 + count(before, '\n');
+  const col = offset - (before.lastIndexOf('\n') + 1) + 1;
+  return `line ${line}, column ${col}`;
+}
+
+function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], o: Output): void {
+  o.out(`${documentTitle(doc)}  (${basename(path)})`);
+  const caution = headerFields(doc).get('caution');
+  if (caution) o.out(`Caution: ${caution}`);
+  for (const w of warnings) o.out(`  warning, ${w}`);
+  o.out('');
+  const lines = markerLines(doc);
+  const where = (i: number, e: { from: number; to: number }): string =>
+    e.from === 0 && e.to === 0 && doc.cells[i]!.marker.startsWith('table') ? `line ${lines[i]}` : position(doc.cells[i]!.body, e.from, lines[i]!);
+  states.forEach((s, i) => {
+    const label = s.kind === 'table' ? `table ${s.name ?? ''}` : s.name !== null ? `${s.kind} ${s.name}` : s.kind;
+    const v = s.value;
+    const e = s.error;
+    if (s.status === 'inert') {
+      o.out(`[${i + 1}] ${label}: kept as it is, not evaluated`);
+    } else if (e !== null && e === v) {
+      o.out(`[${i + 1}] ${label}: ${s.status === 'upstream' ? 'depends on an error' : 'error'} at ${where(i, e)}`);
+      o.out(`    ${e.message}`);
+    } else {
+      o.out(`[${i + 1}] ${label}`);
+      for (const l of valueText(v, '    ')) o.out(l);
+      for (const p of s.parts ?? []) {
+        if (typeof p === 'object' && p.kind === 'error') o.out(`    placeholder error at ${where(i, p)}: ${p.message}`);
+      }
+    }
+    for (const w of s.warnings) o.out(`    note: ${w}`);
+    o.out('');
+  });
+  const bad = states.filter((s) => s.status === 'error' || s.status === 'upstream').length;
+  o.out(bad === 0 ? `${states.length} cells, all evaluated.` : `${states.length} cells, ${bad} with an error.`);
+}
+
+function jsonReport(states: CellState[]): string {
+  const cells = states.map((s, i) => {
+    const v = s.value;
+    const isErr = typeof v === 'object' && v.kind === 'error';
+    const err = s.error;
+    const fields = [
+      `"index":${i}`,
+      `"kind":${JSON.stringify(s.kind)}`,
+      `"name":${s.name === null ? 'null' : JSON.stringify(s.name)}`,
+      `"type":${JSON.stringify(isErr ? 'error' : typeOf(v))}`,
+      `"value":${isErr ? 'null' : toJson(v)}`,
+      `"error":${err ? toJson(err) : 'null'}`,
+    ];
+    if (s.warnings.length > 0) fields.push(`"warnings":${JSON.stringify(s.warnings)}`);
+    return `{${fields.join(',')}}`;
+  });
+  return `{"furrow":1,"cells":[${cells.join(',\n')}]}`;
+}
+
+/** Runs the command line with arguments; returns the exit status. */
+export function main(argv: readonly string[], o: Output): number {
+  const args = argv.filter((a) => a !== '--json');
+  const json = argv.includes('--json');
+  if (args.length === 0 || args[0] === 'help' || args[0] === '--help' || args[0] === '-h') {
+    o.out(USAGE);
+    return args.length === 0 ? 2 : 0;
+  }
+  const unknownFlag = args.find((a) => a.startsWith('-'));
+  if (unknownFlag !== undefined) {
+    o.err(`furrow: unknown option ${unknownFlag}\n\n${USAGE}`);
+    return 2;
+  }
+  const [command, file, ...rest] = args;
+  if (command !== 'run') {
+    o.err(`furrow: unknown command "${command}". ${['seal', 'verify', 'report'].includes(command!) ? 'This command is not available yet.' : ''}\n\n${USAGE}`);
+    return 2;
+  }
+  if (file === undefined || rest.length > 0) {
+    o.err(`furrow: run takes one file.\n\n${USAGE}`);
+    return 2;
+  }
+  try {
+    const { doc, engine, warnings } = loadDocument(file);
+    const states = engine.states();
+    if (json) o.out(jsonReport(states));
+    else humanReport(file, doc, states, warnings, o);
+    if (json) for (const w of warnings) o.err(`furrow: warning, ${w}`);
+    return states.some((s) => s.status === 'error' || s.status === 'upstream') ? 1 : 0;
+  } catch (err) {
+    if (err instanceof CliFailure) {
+      o.err(`furrow: ${err.message}`);
+      return 2;
+    }
+    throw err;
+  }
+}

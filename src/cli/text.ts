@@ -1,0 +1,88 @@
+/**
+ * Human-readable text of values for the command line: numbers with sensible precision,
+ * tables as aligned columns, analysis-of-variance tables in the trade's layout, records
+ * as labelled fields.
+ */
+import { formatNumber, formatP } from '../lang/format.ts';
+import { elementAt, isColumn, isRecord, isTable, type Table, type Value } from '../lang/values.ts';
+
+const MAX_ROWS = 30;
+
+/** A scalar as text. */
+function scalar(v: Value, column = ''): string {
+  if (typeof v === 'number') return column === 'p' ? formatP(v) : formatNumber(v);
+  if (typeof v === 'string') return v;
+  if (typeof v === 'boolean') return v ? 'true' : 'false';
+  if (typeof v === 'object' && v.kind === 'missing') return '·';
+  return '';
+}
+
+/** A table as aligned text columns; numbers right-aligned. */
+export function tableText(t: Table, indent = ''): string[] {
+  const shown = Math.min(t.rows, MAX_ROWS);
+  const cells: string[][] = t.names.map((name, j) => {
+    const col = t.columns[j]!;
+    const out = [name];
+    // typed numbers print as typed (21.0 stays 21.0); computed ones with sensible precision
+    const typed = col.type === 'number' ? col.decimals : null;
+    for (let i = 0; i < shown; i++) out.push(typed?.[i] || scalar(elementAt(col, i), name));
+    return out;
+  });
+  const widths = cells.map((c) => Math.max(...c.map((s) => s.length)));
+  const lines: string[] = [];
+  for (let i = 0; i <= shown; i++) {
+    const row = cells.map((c, j) => {
+      const s = c[i]!;
+      const numeric = t.columns[j]!.type === 'number';
+      return numeric ? s.padStart(widths[j]!) : s.padEnd(widths[j]!);
+    });
+    lines.push(indent + row.join('  ').trimEnd());
+    if (i === 0) lines.push(indent + widths.map((w) => '─'.repeat(w)).join('  '));
+  }
+  if (t.rows > shown) lines.push(`${indent}… ${t.rows - shown} more rows (${t.rows} in all)`);
+  return lines;
+}
+
+/** A value as lines of text. */
+export function valueText(v: Value, indent = ''): string[] {
+  if (isTable(v)) return tableText(v, indent);
+  if (isColumn(v)) {
+    const n = v.values.length;
+    const shown: string[] = [];
+    for (let i = 0; i < Math.min(n, 20); i++) shown.push(scalar(elementAt(v, i)));
+    return [`${indent}[${shown.join(', ')}${n > 20 ? `, … ${n} in all` : ''}]`];
+  }
+  if (isRecord(v)) {
+    const lines: string[] = [];
+    for (const [k, x] of v.fields) {
+      if (isTable(x) || isRecord(x)) {
+        lines.push(`${indent}${k}:`);
+        lines.push(...valueText(x, `${indent}  `));
+      } else if (isColumn(x)) {
+        lines.push(`${indent}${k}: ${valueText(x)[0]}`);
+      } else {
+        lines.push(`${indent}${k}: ${k === 'p' ? formatP(x as number) : inline(x)}`);
+      }
+    }
+    return lines;
+  }
+  return inline(v)
+    .split('\n')
+    .map((l) => indent + l);
+}
+
+function inline(v: Value): string {
+  if (typeof v === 'object') {
+    switch (v.kind) {
+      case 'chart':
+        return `(chart) ${v.caption}`;
+      case 'claim':
+        return `${v.holds ? 'HOLDS' : 'DOES NOT HOLD'}: ${v.statement}`;
+      case 'error':
+        return `error: ${v.message}`;
+      default:
+        return scalar(v);
+    }
+  }
+  return scalar(v);
+}

@@ -1,0 +1,99 @@
+/**
+ * The document model: what a `.furrow` file holds, kept so that writing gives back the
+ * bytes that were read (language.md section 1).
+ *
+ * A document is a value. Edits (src/doc/edits.ts) make a new document and never change an
+ * old one, which gives undo, autosave and the worker bridge a single shape to pass around.
+ */
+
+/** One cell as the file holds it. */
+export interface Cell {
+  /** Identity within a session (not written to the file): "c1", "c2", ... */
+  readonly id: string;
+  /** The marker line after "--- ": "note", "table trees", "table plots from plots.csv", "formula". */
+  readonly marker: string;
+  /** The marker line's terminator: "\n", "\r\n", or "" when the file ends on it. */
+  readonly eol: string;
+  /** The body text, unescaped, with its line terminators (and the blank lines that follow it). */
+  readonly body: string;
+}
+
+/** A whole document. */
+export interface Document {
+  /** The file began with a UTF-8 byte order mark. */
+  readonly bom: boolean;
+  /** Line 1 without its terminator: "furrow 1". */
+  readonly firstLine: string;
+  readonly firstEol: string;
+  /** The header lines (key: value, blank lines) with their terminators, as read. */
+  readonly header: string;
+  readonly cells: readonly Cell[];
+}
+
+/** The kinds of cell the engine evaluates. Other kinds are kept and written back untouched. */
+export const KNOWN_KINDS = ['note', 'table', 'formula', 'sealed'] as const;
+
+/** What the marker line of a cell says. */
+export interface Marker {
+  /** The first word: "note", "table", "formula", or an unknown kind. */
+  readonly kind: string;
+  /** For tables: the name. */
+  readonly name: string | null;
+  /** For tables read from a CSV file beside the document: the file name. */
+  readonly file: string | null;
+  /** Words the kind does not use. */
+  readonly extra: readonly string[];
+}
+
+/** Reads a marker line's words. */
+export function parseMarker(marker: string): Marker {
+  const words = marker.split(/[ \t]+/).filter((w) => w.length > 0);
+  const kind = words[0] ?? '';
+  if (kind === 'table') {
+    const name = words[1] ?? null;
+    if (words[2] === 'from') {
+      // the file name is the rest of the line, so a name with spaces still works
+      const rest = marker.replace(/^\s*table\s+\S+\s+from\s+/, '');
+      return { kind, name, file: rest.trim() === '' ? null : rest.trim(), extra: [] };
+    }
+    return { kind, name, file: null, extra: words.slice(2) };
+  }
+  return { kind, name: null, file: null, extra: words.slice(1) };
+}
+
+/** Writes a marker line's words. */
+export function formatMarker(kind: string, name: string | null = null, file: string | null = null): string {
+  if (kind === 'table') return file ? `table ${name ?? ''} from ${file}` : `table ${name ?? ''}`;
+  return kind;
+}
+
+/** The header's `key: value` pairs, first occurrence of each key. */
+export function headerFields(doc: Document): Map<string, string> {
+  const out = new Map<string, string>();
+  for (const line of doc.header.split('\n')) {
+    const m = /^([A-Za-z_][A-Za-z0-9_-]*):[ \t]?(.*?)\r?$/.exec(line);
+    if (m && !out.has(m[1]!)) out.set(m[1]!, m[2]!);
+  }
+  return out;
+}
+
+/** The document's title, or "Untitled trial". */
+export function documentTitle(doc: Document): string {
+  return headerFields(doc).get('title')?.trim() || 'Untitled trial';
+}
+
+/** A new empty document. */
+export function emptyDocument(title = 'Untitled trial'): Document {
+  return { bom: false, firstLine: 'furrow 1', firstEol: '\n', header: `title: ${title}\n\n`, cells: [] };
+}
+
+/** The document's text for a cell body written fresh: text, one newline, one blank line. */
+export function freshBody(text: string): string {
+  const trimmed = text.replace(/\s+$/, '');
+  return trimmed === '' ? '\n' : `${trimmed}\n\n`;
+}
+
+/** The body as a user sees it: without the trailing blank lines that separate cells. */
+export function visibleBody(cell: Cell): string {
+  return cell.body.replace(/(\r?\n)+$/, '');
+}

@@ -1,0 +1,106 @@
+/**
+ * Edits of a document, as values. Applying an edit gives a new document and the edit that
+ * undoes it, so undo and redo need nothing else, and the same edits travel to the worker
+ * that evaluates and to the autosave store.
+ */
+import { parseMarker, type Cell, type Document } from './document.ts';
+
+export type Edit =
+  | { readonly type: 'body'; readonly id: string; readonly body: string }
+  | { readonly type: 'marker'; readonly id: string; readonly marker: string }
+  | { readonly type: 'insert'; readonly index: number; readonly cell: Cell }
+  | { readonly type: 'delete'; readonly id: string }
+  | { readonly type: 'move'; readonly id: string; readonly index: number }
+  | { readonly type: 'header'; readonly header: string }
+  /** Several edits as one step of undo. */
+  | { readonly type: 'batch'; readonly edits: readonly Edit[] };
+
+/** An edit that cannot apply to this document (an unknown cell, a marker with a newline). */
+export class EditError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'EditError';
+  }
+}
+
+function indexOf(doc: Document, id: string): number {
+  const i = doc.cells.findIndex((c) => c.id === id);
+  if (i < 0) throw new EditError(`no cell with id ${id}`);
+  return i;
+}
+
+/** Applies an edit; returns the new document and the edit that reverses it. */
+export function applyEdit(doc: Document, edit: Edit): { document: Document; inverse: Edit } {
+  switch (edit.type) {
+    case 'body': {
+      const i = indexOf(doc, edit.id);
+      const old = doc.cells[i]!;
+      const cells = doc.cells.slice();
+      cells[i] = { ...old, body: edit.body };
+      return { document: { ...doc, cells }, inverse: { type: 'body', id: edit.id, body: old.body } };
+    }
+    case 'marker': {
+      if (/[\r\n]/.test(edit.marker)) throw new EditError('a cell line cannot hold a line break');
+      const i = indexOf(doc, edit.id);
+      const old = doc.cells[i]!;
+      const cells = doc.cells.slice();
+      cells[i] = { ...old, marker: edit.marker, eol: old.eol === '' ? '\n' : old.eol };
+      return { document: { ...doc, cells }, inverse: { type: 'marker', id: edit.id, marker: old.marker } };
+    }
+    case 'insert': {
+      if (doc.cells.some((c) => c.id === edit.cell.id)) throw new EditError(`cell id ${edit.cell.id} is taken`);
+      if (/[\r\n]/.test(edit.cell.marker)) throw new EditError('a cell line cannot hold a line break');
+      const index = Math.max(0, Math.min(edit.index, doc.cells.length));
+      const cells = doc.cells.slice();
+      cells.splice(index, 0, edit.cell);
+      return { document: { ...doc, cells }, inverse: { type: 'delete', id: edit.cell.id } };
+    }
+    case 'delete': {
+      const i = indexOf(doc, edit.id);
+      const cells = doc.cells.slice();
+      const [old] = cells.splice(i, 1);
+      return { document: { ...doc, cells }, inverse: { type: 'insert', index: i, cell: old! } };
+    }
+    case 'move': {
+      const i = indexOf(doc, edit.id);
+      const cells = doc.cells.slice();
+      const [c] = cells.splice(i, 1);
+      const to = Math.max(0, Math.min(edit.index, cells.length));
+      cells.splice(to, 0, c!);
+      return { document: { ...doc, cells }, inverse: { type: 'move', id: edit.id, index: i } };
+    }
+    case 'header':
+      return { document: { ...doc, header: edit.header }, inverse: { type: 'header', header: doc.header } };
+    case 'batch': {
+      let d = doc;
+      const inverses: Edit[] = [];
+      for (const e of edit.edits) {
+        const r = applyEdit(d, e);
+        d = r.document;
+        inverses.unshift(r.inverse);
+      }
+      return { document: d, inverse: { type: 'batch', edits: inverses } };
+    }
+  }
+}
+
+/** A cell id not used in the document. */
+export function freshCellId(doc: Document, prefix = 'n'): string {
+  const used = new Set(doc.cells.map((c) => c.id));
+  for (let k = doc.cells.length + 1; ; k++) {
+    const id = `${prefix}${k}`;
+    if (!used.has(id)) return id;
+  }
+}
+
+/** Replaces the title line of the header, or adds one. */
+export function withTitle(header: string, title: string): string {
+  const clean = title.replace(/[\r\n]+/g, ' ').trim();
+  if (/^title:.*$/m.test(header)) return header.replace(/^title:.*$/m, `title: ${clean}`);
+  return `title: ${clean}\n${header}`;
+}
+
+/** The names that table cells of a document define (for renaming checks). */
+export function tableNames(doc: Document): string[] {
+  return doc.cells.map((c) => parseMarker(c.marker)).filter((m) => m.kind === 'table' && m.name).map((m) => m.name!);
+}

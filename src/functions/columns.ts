@@ -1,0 +1,113 @@
+/**
+ * Preparing columns for the statistics: dropping missing values (and saying how many were
+ * dropped), the exact decimal shift of section 5, and integer level codes for factors.
+ * The statistics code (src/stats) sees only complete typed arrays.
+ */
+import { UsageError } from '../lang/errors.ts';
+import { formatNumber } from '../lang/format.ts';
+import { plural } from '../lang/messages.ts';
+import type { Column, NumberColumn } from '../lang/values.ts';
+import { shiftDecimals } from '../stats/decimal/index.ts';
+import type { CallContext } from './registry.ts';
+
+/** A factor as the statistics see it. */
+export interface Factor {
+  readonly name: string;
+  readonly codes: Int32Array;
+  readonly levels: string[];
+}
+
+/** A response ready for sums of squares: shifted values and the exact offset. */
+export interface Response {
+  readonly y: Float64Array;
+  readonly offset: number;
+}
+
+/** The level name of element i of a column (numbers as typed, when the text is kept). */
+export function levelName(c: Column, i: number): string {
+  switch (c.type) {
+    case 'text':
+      return c.values[i]!;
+    case 'boolean':
+      return c.values[i] === 1 ? 'true' : 'false';
+    case 'number':
+      return c.decimals?.[i] || formatNumber(c.values[i]!, 15);
+  }
+}
+
+/** Integer codes of a column's levels, in first-seen order, for the rows kept. */
+export function factorOf(c: Column, rows: Int32Array | null, fallbackName: string): Factor {
+  const n = rows === null ? c.values.length : rows.length;
+  const codes = new Int32Array(n);
+  const index = new Map<string, number>();
+  const levels: string[] = [];
+  for (let k = 0; k < n; k++) {
+    const i = rows === null ? k : rows[k]!;
+    const name = levelName(c, i);
+    let code = index.get(name);
+    if (code === undefined) {
+      code = levels.length;
+      index.set(name, code);
+      levels.push(name);
+    }
+    codes[k] = code;
+  }
+  return { name: c.name ?? fallbackName, codes, levels };
+}
+
+/** The values of a number column at the rows kept, shifted exactly when their text is kept. */
+export function responseOf(c: NumberColumn, rows: Int32Array | null): Response {
+  const n = rows === null ? c.values.length : rows.length;
+  if (c.decimals !== null) {
+    const texts: string[] = new Array<string>(n);
+    for (let k = 0; k < n; k++) texts[k] = c.decimals[rows === null ? k : rows[k]!]!;
+    try {
+      const s = shiftDecimals(texts);
+      return { y: s.shifted, offset: s.offset };
+    } catch {
+      // fall through to the binary values (a text that is not plain decimal)
+    }
+  }
+  const y = new Float64Array(n);
+  for (let k = 0; k < n; k++) y[k] = c.values[rows === null ? k : rows[k]!]!;
+  return { y, offset: 0 };
+}
+
+/** The complete values of a number column (missing ones left out and counted in a warning). */
+export function completeValues(c: NumberColumn, ctx: CallContext): Response & { kept: Int32Array | null } {
+  const rows = completeRows([c], ctx);
+  return { ...responseOf(c, rows), kept: rows };
+}
+
+/** A response shifted back to plain values. */
+export function plainValues(r: Response): Float64Array {
+  if (r.offset === 0) return r.y;
+  const out = new Float64Array(r.y.length);
+  for (let i = 0; i < out.length; i++) out[i] = r.y[i]! + r.offset;
+  return out;
+}
+
+/**
+ * The rows where none of the columns is missing, or null when all are complete. Columns must
+ * have one length (checked, with the names in the message). Warns with the count dropped.
+ */
+export function completeRows(cols: readonly Column[], ctx: CallContext, names?: readonly string[]): Int32Array | null {
+  const n = cols[0]!.values.length;
+  cols.forEach((c, j) => {
+    if (c.values.length !== n) {
+      const a = names?.[0] ?? cols[0]!.name ?? 'the first column';
+      const b = names?.[j] ?? c.name ?? `column ${j + 1}`;
+      throw new UsageError(`${a} has ${n} values but ${b} has ${c.values.length}; they must be the same length.`);
+    }
+  });
+  if (cols.every((c) => c.missing === null)) return null;
+  const keep: number[] = [];
+  for (let i = 0; i < n; i++) {
+    let ok = true;
+    for (const c of cols) if (c.missing !== null && c.missing[i] === 1) ok = false;
+    if (ok) keep.push(i);
+  }
+  const dropped = n - keep.length;
+  if (dropped > 0) ctx.warn(`${plural(dropped, 'row')} with a missing value ${dropped === 1 ? 'was' : 'were'} left out.`);
+  return Int32Array.from(keep);
+}

@@ -1,0 +1,64 @@
+/**
+ * Elementwise maths: each works on a number or on every element of a column of numbers,
+ * leaving missing elements missing.
+ */
+import { mapNumbers } from '../lang/elementwise.ts';
+import type { Builtin } from './registry.ts';
+
+function unary(name: string, f: (x: number) => number, doc: string, example: string): Builtin {
+  return {
+    name,
+    category: 'maths',
+    params: [{ name: 'x', type: 'numeric', doc: 'A number or a column of numbers.' }],
+    returns: 'a number, or a column of the same length',
+    doc,
+    example,
+    run: (args) => mapNumbers(args.get('x')!, f),
+  };
+}
+
+/** Rounds half away from zero at `digits` decimals, on the decimal digits of the shortest text. */
+export function roundDecimal(x: number, digits: number): number {
+  if (!Number.isFinite(x)) return x;
+  if (digits > 15 || digits < -15) return x;
+  // Round on the shortest decimal text of x, so that 2.675 rounds to 2.68 as it reads,
+  // not to 2.67 as its binary value (2.67499999...) would.
+  const [mant, expPart] = x.toExponential().split('e') as [string, string];
+  const exp = Number(expPart);
+  const neg = mant.startsWith('-');
+  const digitsOnly = mant.replace('-', '').replace('.', '');
+  // value = 0.d1d2d3... * 10^(exp+1)
+  const pointPos = exp + 1; // digits before the decimal point
+  const keep = pointPos + digits; // how many leading digits to keep
+  if (keep < 0) return neg ? -0 : 0;
+  if (keep >= digitsOnly.length) return x;
+  const head = digitsOnly.slice(0, keep) || '0';
+  const next = digitsOnly.charCodeAt(keep) - 48;
+  let n = BigInt(head);
+  if (next >= 5) n += 1n;
+  const text = `${neg ? '-' : ''}${n.toString()}e${pointPos - keep}`;
+  return Number(text);
+}
+
+export const MATHS: readonly Builtin[] = [
+  unary('sqrt', Math.sqrt, 'Square root. The square root of a negative number is NaN.', 'sqrt(fit.mse)'),
+  unary('ln', Math.log, 'Natural logarithm (base e). ln(0) is -∞; negative numbers give NaN.', 'ln(plots.count + 1)'),
+  unary('log10', Math.log10, 'Logarithm to base 10.', 'log10(plots.colonies)'),
+  unary('exp', Math.exp, 'The exponential function, e to the power x.', 'exp(fit.means.mean)'),
+  unary('abs', Math.abs, 'Absolute value.', 'abs(fit.residuals)'),
+  {
+    name: 'round',
+    category: 'maths',
+    params: [
+      { name: 'x', type: 'numeric', doc: 'A number or a column of numbers.' },
+      { name: 'digits', type: 'integer', default: 0, doc: 'Decimal places to keep; negative values round to tens, hundreds, ...' },
+    ],
+    returns: 'a number, or a column of the same length',
+    doc: 'Rounds to a number of decimal places, half away from zero, on the number as it reads in decimal (so 2.675 rounds to 2.68).',
+    example: 'round(gain.estimate, 1)',
+    run: (args) => {
+      const d = args.get('digits') as number;
+      return mapNumbers(args.get('x')!, (x) => roundDecimal(x, d));
+    },
+  },
+];

@@ -1,0 +1,527 @@
+/**
+ * The reactive graph: the heart of the engine.
+ *
+ *   document text -> cells -> analysis (names defined and read) -> dependency graph
+ *     -> evaluation in dependency order -> values -> views
+ *
+ * 1. Analyse: each cell is parsed once per change of its text (cached by marker and body).
+ * 2. Resolve: every name read is matched to the one cell that defines it; names defined
+ *    twice and cells in a cycle are found here and marked.
+ * 3. Order: cells are sorted so that every cell comes after the cells it reads.
+ * 4. Evaluate: a cell runs only when its own text changed or when a value it read has a
+ *    new version. Every cell's value carries a version that moves only when the value
+ *    really changed (compared structurally), so an edit that gives the same result stops
+ *    the wave there. Errors are values and stay where they arise.
+ *
+ * The engine touches no DOM; it runs in Node, in the page and in a Web Worker.
+ */
+import { CELL_KINDS } from '../../cells/kinds.ts';
+import type { Cell, Document } from '../doc/document.ts';
+import { parseMarker } from '../doc/document.ts';
+import type { Registry } from '../functions/registry.ts';
+import type { NameUse } from '../lang/ast.ts';
+import { LangError } from '../lang/errors.ts';
+import type { EvalEnv, Lookup, Scope } from '../lang/evaluate.ts';
+import { msg } from '../lang/messages.ts';
+import { MISSING, errorValue, isError, sameValue, type ErrorValue, type Value } from '../lang/values.ts';
+import type { CellAnalysis, CellKind, FileSource } from './cell-kind.ts';
+
+/** How a cell stands, at a glance. */
+export type CellStatus = 'ok' | 'error' | 'upstream' | 'inert';
+
+/** What the engine knows about one cell after an update. */
+export interface CellState {
+  readonly id: string;
+  readonly kind: string;
+  /** The name the cell defines, if any. */
+  readonly name: string | null;
+  readonly value: Value;
+  /** For notes: each placeholder's value. */
+  readonly parts: readonly Value[] | null;
+  readonly warnings: readonly string[];
+  readonly status: CellStatus;
+  /** The error that decides the status: the value itself, or a note's first failed placeholder. */
+  readonly error: ErrorValue | null;
+  /** Moves each time the value changes. */
+  readonly version: number;
+  /** How many times this cell has been evaluated since it was loaded. */
+  readonly evaluations: number;
+}
+
+/** Options of an engine. */
+export interface EngineOptions {
+  readonly registry: Registry;
+  readonly kinds?: ReadonlyMap<string, CellKind>;
+  /** Reports progress of a long evaluation: the cell and a fraction from 0 to 1. */
+  readonly onProgress?: (cellId: string, fraction: number) => void;
+}
+
+interface Slot {
+  cell: Cell;
+  key: string;
+  analysis: CellAnalysis;
+  analysisVersion: number;
+  value: Value;
+  parts: readonly Value[] | null;
+  warnings: string[];
+  version: number;
+  signature: string | null;
+  evaluations: number;
+  /** Set during resolution. */
+  problem: ErrorValue | null;
+}
+
+const INERT: CellAnalysis = {
+  defines: null,
+  reads: [],
+  problem: null,
+  evaluates: false,
+  evaluate: () => ({ value: MISSING }),
+};
+
+/** The evaluation engine for one document. */
+export class Engine {
+  private readonly registry: Registry;
+  private readonly kinds: ReadonlyMap<string, CellKind>;
+  private readonly onProgress: ((cellId: string, fraction: number) => void) | undefined;
+  private readonly slots = new Map<string, Slot>();
+  private order: string[] = [];
+  private definers = new Map<string, string[]>();
+  private cycleOf = new Map<string, string[]>();
+  private readonly files = new Map<string, { text: string; version: number }>();
+  private fileVersion = 0;
+  private doc: Document | null = null;
+  /** Total evaluations since the engine was made (tests count them). */
+  evaluations = 0;
+
+  constructor(options: EngineOptions) {
+    this.registry = options.registry;
+    this.kinds = options.kinds ?? CELL_KINDS;
+    this.onProgress = options.onProgress;
+  }
+
+  /** Makes a CSV file available to tables that name it (or removes it with undefined). */
+  setFile(name: string, text: string | undefined): void {
+    if (text === undefined) this.files.delete(name);
+    else if (this.files.get(name)?.text !== text) this.files.set(name, { text, version: ++this.fileVersion });
+  }
+
+  /** The current document. */
+  get document(): Document | null {
+    return this.doc;
+  }
+
+  /**
+   * Brings the engine to a new version of the document and evaluates what the change
+   * touches. Returns the ids of the cells that were evaluated, in the order they ran.
+   */
+  update(doc: Document): string[] {
+    this.doc = doc;
+    const fileSource: FileSource = { read: (name) => this.files.get(name)?.text };
+    // 1. analyse changed cells
+    const present = new Set<string>();
+    for (const cell of doc.cells) {
+      present.add(cell.id);
+      const m = parseMarker(cell.marker);
+      const fileKey = m.file !== null ? `#${this.files.get(m.file)?.version ?? 'none'}` : '';
+      const key = `${cell.marker}\u0000${fileKey}\u0000${cell.body}`;
+      const slot = this.slots.get(cell.id);
+      if (slot !== undefined && slot.key === key) {
+        slot.cell = cell;
+        continue;
+      }
+      const kind = this.kinds.get(m.kind);
+      const analysis = kind === undefined ? INERT : safeAnalyse(kind, cell, { files: fileSource });
+      if (slot === undefined) {
+        this.slots.set(cell.id, {
+          cell,
+          key,
+          analysis,
+          analysisVersion: 1,
+          value: MISSING,
+          parts: null,
+          warnings: [],
+          version: 0,
+          signature: null,
+          evaluations: 0,
+          problem: null,
+        });
+      } else {
+        slot.cell = cell;
+        slot.key = key;
+        slot.analysis = analysis;
+        slot.analysisVersion++;
+      }
+    }
+    for (const id of [...this.slots.keys()]) if (!present.has(id)) this.slots.delete(id);
+
+    // 2. resolve names, 3. order
+    this.resolve(doc);
+
+    // 4. evaluate what changed
+    const ran: string[] = [];
+    for (const id of this.order) {
+      const slot = this.slots.get(id)!;
+      const sig = this.signature(slot);
+      if (sig === slot.signature) continue;
+      slot.signature = sig;
+      this.evaluate(slot);
+      ran.push(id);
+    }
+    return ran;
+  }
+
+  private resolve(doc: Document): void {
+    const definers = new Map<string, string[]>();
+    for (const cell of doc.cells) {
+      const d = this.slots.get(cell.id)!.analysis.defines;
+      if (d === null) continue;
+      const list = definers.get(d.name);
+      if (list === undefined) definers.set(d.name, [cell.id]);
+      else list.push(cell.id);
+    }
+    this.definers = definers;
+    // edges: definer -> reader, for names with exactly one definer
+    const ids = doc.cells.map((c) => c.id);
+    const index = new Map<string, number>();
+    ids.forEach((id, i) => index.set(id, i));
+    const succ: number[][] = ids.map(() => []);
+    const pred: number[][] = ids.map(() => []);
+    ids.forEach((id, i) => {
+      const seen = new Set<string>();
+      for (const use of this.slots.get(id)!.analysis.reads) {
+        if (seen.has(use.name)) continue;
+        seen.add(use.name);
+        const defs = definers.get(use.name);
+        if (defs === undefined || defs.length !== 1) continue;
+        const j = index.get(defs[0]!)!;
+        succ[j]!.push(i);
+        pred[i]!.push(j);
+      }
+    });
+    // cycles: strongly connected components with more than one cell, or a cell reading itself
+    const comp = tarjan(succ);
+    const members = new Map<number, number[]>();
+    comp.forEach((c, i) => {
+      const list = members.get(c);
+      if (list === undefined) members.set(c, [i]);
+      else list.push(i);
+    });
+    this.cycleOf = new Map();
+    for (const list of members.values()) {
+      const self = list.length === 1 && succ[list[0]!]!.includes(list[0]!);
+      if (list.length > 1 || self) {
+        const set = new Set(list);
+        for (const i of list) this.cycleOf.set(ids[i]!, cyclePath(i, succ, set).map((k) => ids[k]!));
+      }
+    }
+    // order: Kahn's algorithm, stable in document order, cycle cells last
+    const indeg = pred.map((p) => p.length);
+    const order: number[] = [];
+    const ready: number[] = [];
+    for (let i = 0; i < ids.length; i++) if (indeg[i] === 0) ready.push(i);
+    // a binary heap keeps document order among ready cells without sorting each time
+    const heap = new MinHeap(ready);
+    while (heap.size > 0) {
+      const i = heap.pop();
+      order.push(i);
+      for (const j of succ[i]!) if (--indeg[j]! === 0) heap.push(j);
+    }
+    const placed = new Set(order);
+    for (let i = 0; i < ids.length; i++) if (!placed.has(i)) order.push(i);
+    this.order = order.map((i) => ids[i]!);
+    // problems found by resolution
+    for (const id of ids) {
+      const slot = this.slots.get(id)!;
+      const d = slot.analysis.defines;
+      slot.problem = null;
+      if (d !== null && (definers.get(d.name)?.length ?? 0) > 1) {
+        slot.problem = errorValue(msg.duplicateDefinition(d.name, definers.get(d.name)!.length), Math.max(0, d.from), Math.max(0, d.to));
+      } else if (this.cycleOf.has(id)) {
+        const path = this.cycleOf.get(id)!;
+        const names = path.map((p) => this.slots.get(p)!.analysis.defines?.name ?? p);
+        const next = this.slots.get(path[1] ?? id)!.analysis.defines?.name;
+        const use = slot.analysis.reads.find((u) => u.name === next);
+        slot.problem = errorValue(msg.cycle(names), use?.from ?? 0, use?.to ?? 0);
+      }
+    }
+  }
+
+  /** What a cell's value depends on, as one string: its text and the versions it reads. */
+  private signature(slot: Slot): string {
+    let sig = `${slot.analysisVersion}`;
+    if (slot.problem !== null) sig += `|!${slot.problem.message}`;
+    const seen = new Set<string>();
+    for (const use of slot.analysis.reads) {
+      if (seen.has(use.name)) continue;
+      seen.add(use.name);
+      sig += `|${use.name}=${this.resolution(use.name)}`;
+    }
+    return sig;
+  }
+
+  private resolution(name: string): string {
+    const defs = this.definers.get(name);
+    if (defs === undefined) return '?';
+    if (defs.length > 1) return '*';
+    const id = defs[0]!;
+    if (this.cycleOf.has(id)) return '@';
+    return `${id}#${this.slots.get(id)!.version}`;
+  }
+
+  private scopeFor(): Scope {
+    return {
+      lookup: (name: string): Lookup => {
+        const defs = this.definers.get(name);
+        if (defs === undefined) return { kind: 'unknown' };
+        if (defs.length > 1) return { kind: 'problem', message: msg.duplicateUpstream(name) };
+        if (this.cycleOf.has(defs[0]!)) return { kind: 'problem', message: msg.cycleUpstream(name) };
+        return { kind: 'value', value: this.slots.get(defs[0]!)!.value };
+      },
+      names: () => this.definers.keys(),
+    };
+  }
+
+  private evaluate(slot: Slot): void {
+    slot.evaluations++;
+    this.evaluations++;
+    const warnings: string[] = [];
+    let value: Value;
+    let parts: readonly Value[] | null = null;
+    if (!slot.analysis.evaluates) value = MISSING;
+    else if (slot.problem !== null) value = slot.problem;
+    else if (slot.analysis.problem !== null) value = slot.analysis.problem;
+    else {
+      const env: EvalEnv = {
+        scope: this.scopeFor(),
+        registry: this.registry,
+        warn: (m) => {
+          if (!warnings.includes(m)) warnings.push(m);
+        },
+        progress: (f) => this.onProgress?.(slot.cell.id, f),
+      };
+      try {
+        const out = slot.analysis.evaluate(env);
+        value = out.value;
+        parts = out.parts ?? null;
+      } catch (err) {
+        value = toErrorValue(err);
+      }
+    }
+    if (!sameValue(value, slot.value)) slot.version++;
+    slot.value = value;
+    slot.parts = parts;
+    slot.warnings = warnings;
+  }
+
+  /** The state of one cell. */
+  state(id: string): CellState | undefined {
+    const slot = this.slots.get(id);
+    if (slot === undefined) return undefined;
+    const m = parseMarker(slot.cell.marker);
+    const v = slot.value;
+    const failure = isError(v) ? v : (slot.parts?.find(isError) as ErrorValue | undefined);
+    const status: CellStatus = !slot.analysis.evaluates
+      ? 'inert'
+      : failure === undefined
+        ? 'ok'
+        : failure.upstream !== null
+          ? 'upstream'
+          : 'error';
+    return {
+      id,
+      kind: m.kind,
+      name: slot.analysis.defines?.name ?? null,
+      value: v,
+      parts: slot.parts,
+      warnings: slot.warnings,
+      status,
+      error: failure ?? null,
+      version: slot.version,
+      evaluations: slot.evaluations,
+    };
+  }
+
+  /** The states of every cell, in document order. */
+  states(): CellState[] {
+    return (this.doc?.cells ?? []).map((c) => this.state(c.id)!);
+  }
+
+  /** The names a cell reads (for the page's dependency display and completion). */
+  reads(id: string): readonly NameUse[] {
+    return this.slots.get(id)?.analysis.reads ?? [];
+  }
+
+  /** Every name defined in the document. */
+  definedNames(): string[] {
+    return [...this.definers.keys()];
+  }
+
+  /** The current value of a name, if exactly one cell defines it. */
+  valueOf(name: string): Value | undefined {
+    const defs = this.definers.get(name);
+    if (defs === undefined || defs.length !== 1) return undefined;
+    return this.slots.get(defs[0]!)!.value;
+  }
+
+  /** The cells that read a cell, directly or not (what an edit of it would re-evaluate). */
+  dependents(id: string): string[] {
+    const out: string[] = [];
+    const name = this.slots.get(id)?.analysis.defines?.name;
+    if (name === undefined) return out;
+    const seen = new Set<string>([id]);
+    const queue = [name];
+    while (queue.length > 0) {
+      const n = queue.shift()!;
+      for (const other of this.order) {
+        if (seen.has(other)) continue;
+        const s = this.slots.get(other)!;
+        if (s.analysis.reads.some((u) => u.name === n)) {
+          seen.add(other);
+          out.push(other);
+          const d = s.analysis.defines?.name;
+          if (d !== undefined) queue.push(d);
+        }
+      }
+    }
+    return out;
+  }
+}
+
+function safeAnalyse(kind: CellKind, cell: Cell, env: { files: FileSource }): CellAnalysis {
+  try {
+    return kind.analyse(cell, env);
+  } catch (err) {
+    return { ...INERT, evaluates: true, problem: toErrorValue(err) };
+  }
+}
+
+function toErrorValue(err: unknown): ErrorValue {
+  if (err instanceof LangError) return errorValue(err.message, err.from, err.to, err.upstream);
+  const detail = err instanceof Error ? err.message : String(err);
+  return errorValue(msg.internal('evaluation', detail), 0, 0);
+}
+
+/** Tarjan's strongly connected components, iteratively (no recursion on long chains). */
+function tarjan(succ: readonly (readonly number[])[]): number[] {
+  const n = succ.length;
+  const index = new Int32Array(n).fill(-1);
+  const low = new Int32Array(n);
+  const onStack = new Uint8Array(n);
+  const comp = new Array<number>(n).fill(-1);
+  const stack: number[] = [];
+  let counter = 0;
+  let compCount = 0;
+  const work: { v: number; i: number }[] = [];
+  for (let s = 0; s < n; s++) {
+    if (index[s] !== -1) continue;
+    work.push({ v: s, i: 0 });
+    index[s] = low[s] = counter++;
+    stack.push(s);
+    onStack[s] = 1;
+    while (work.length > 0) {
+      const top = work[work.length - 1]!;
+      const edges = succ[top.v]!;
+      if (top.i < edges.length) {
+        const w = edges[top.i++]!;
+        if (index[w] === -1) {
+          index[w] = low[w] = counter++;
+          stack.push(w);
+          onStack[w] = 1;
+          work.push({ v: w, i: 0 });
+        } else if (onStack[w]) low[top.v] = Math.min(low[top.v]!, index[w]!);
+        continue;
+      }
+      work.pop();
+      if (work.length > 0) {
+        const parent = work[work.length - 1]!.v;
+        low[parent] = Math.min(low[parent]!, low[top.v]!);
+      }
+      if (low[top.v] === index[top.v]) {
+        for (;;) {
+          const w = stack.pop()!;
+          onStack[w] = 0;
+          comp[w] = compCount;
+          if (w === top.v) break;
+        }
+        compCount++;
+      }
+    }
+  }
+  return comp;
+}
+
+/** A shortest cycle from `start` back to itself inside one component, as cell indices. */
+function cyclePath(start: number, succ: readonly (readonly number[])[], inComp: ReadonlySet<number>): number[] {
+  const prev = new Map<number, number>();
+  const queue: number[] = [start];
+  let found = false;
+  while (queue.length > 0 && !found) {
+    const v = queue.shift()!;
+    for (const w of succ[v]!) {
+      if (!inComp.has(w)) continue;
+      if (w === start) {
+        prev.set(start, v);
+        found = true;
+        break;
+      }
+      if (!prev.has(w)) {
+        prev.set(w, v);
+        queue.push(w);
+      }
+    }
+  }
+  // walk back from start's predecessor to start; edges are definer -> reader, so the
+  // path read backwards is "reader needs definer": start reads prev(start) ...
+  const path: number[] = [start];
+  let v = prev.get(start);
+  while (v !== undefined && v !== start) {
+    path.push(v);
+    v = prev.get(v);
+  }
+  path.push(start);
+  return path;
+}
+
+/** A small binary min-heap of numbers. */
+class MinHeap {
+  private readonly a: number[];
+  constructor(items: number[]) {
+    this.a = [];
+    for (const x of items) this.push(x);
+  }
+  get size(): number {
+    return this.a.length;
+  }
+  push(x: number): void {
+    const a = this.a;
+    a.push(x);
+    let i = a.length - 1;
+    while (i > 0) {
+      const p = (i - 1) >> 1;
+      if (a[p]! <= a[i]!) break;
+      [a[p], a[i]] = [a[i]!, a[p]!];
+      i = p;
+    }
+  }
+  pop(): number {
+    const a = this.a;
+    const top = a[0]!;
+    const last = a.pop()!;
+    if (a.length > 0) {
+      a[0] = last;
+      let i = 0;
+      for (;;) {
+        const l = 2 * i + 1;
+        const r = l + 1;
+        let m = i;
+        if (l < a.length && a[l]! < a[m]!) m = l;
+        if (r < a.length && a[r]! < a[m]!) m = r;
+        if (m === i) break;
+        [a[m], a[i]] = [a[i]!, a[m]!];
+        i = m;
+      }
+    }
+    return top;
+  }
+}

@@ -1,0 +1,134 @@
+/**
+ * Every message the language, the graph and the document reader show to a user, in one
+ * catalogue, so that wording changes in one place and tests can refer to these builders.
+ * Messages are plain words: what is wrong, where, and what to do about it.
+ */
+
+/** Shows a piece of source text in a message, shortened when long. */
+export function quote(text: string, max = 40): string {
+  const one = text.replace(/\s+/g, ' ');
+  return one.length > max ? `"${one.slice(0, max - 1)}…"` : `"${one}"`;
+}
+
+/** Joins words as "a, b and c". */
+export function listWords(words: readonly string[], conj = 'and'): string {
+  if (words.length <= 1) return words.join('');
+  return `${words.slice(0, -1).join(', ')} ${conj} ${words[words.length - 1]}`;
+}
+
+/** "1 thing" / "2 things". */
+export function plural(n: number, one: string, many = `${one}s`): string {
+  return `${n.toLocaleString('en-US')} ${n === 1 ? one : many}`;
+}
+
+export const msg = {
+  // ---- lexer ---------------------------------------------------------------------------
+  unterminatedText: () => 'This text is never closed: add a closing double quote (") before the end of the line.',
+  badEscape: (seq: string) =>
+    `Unknown escape ${seq} in text: inside double quotes only \\" (a quote) and \\\\ (a backslash) are escapes.`,
+  singleQuote: () => "Text goes in double quotes (\"like this\"), not single quotes.",
+  unexpectedCharacter: (ch: string) => `The character ${quote(ch)} has no meaning in a formula.`,
+  badNumber: (text: string) => `${quote(text)} is not a number: write numbers like 12, 0.5 or 1e-3.`,
+  formulaTooLong: (length: number, limit: number) =>
+    `This formula is ${plural(length, 'character')} long; formulas are limited to ${limit.toLocaleString('en-US')}. Put large data in a table cell instead.`,
+
+  // ---- parser --------------------------------------------------------------------------
+  emptyFormula: () => 'This formula cell is empty: write an expression, or NAME = EXPRESSION to name a value.',
+  expectedExpression: (found: string) => `A value was expected here, but the formula has ${found}.`,
+  expectedAfterOperator: (op: string) => `The operator ${quote(op)} needs a value after it.`,
+  unclosed: (open: string, close: string) => `This ${quote(open)} is never closed: add a matching ${quote(close)}.`,
+  unmatchedClose: (close: string) => `This ${quote(close)} has no matching opening bracket.`,
+  expectedCloseAfter: (close: string, what: string) => `Expected ${quote(close)} to close the ${what} here.`,
+  chainedComparison: () => 'Comparisons cannot be chained: write (a < b) and (b < c) instead of a < b < c.',
+  notNeedsBrackets: () => 'Put "not ..." in brackets here, for example -(not x) or (not a) == b.',
+  trailingInput: (found: string) =>
+    `The formula should end here, but it goes on with ${found}. A formula cell holds one statement.`,
+  tooDeep: (limit: number) =>
+    `This formula is nested more than ${limit} levels deep. Split it into several cells with names.`,
+  callOnlyNames: () => 'Only built-in functions can be called, by name, as in mean(x).',
+  namedBeforePositional: (name: string) =>
+    `The argument after ${quote(`${name}:`)} has no name: positional arguments come before named ones.`,
+  duplicateNamedArgument: (name: string) => `The argument ${quote(name)} is given twice.`,
+  memberNeedsName: () => 'A field or column name is expected after the dot.',
+  assignToNonName: () => 'Only a name can be defined: write NAME = EXPRESSION.',
+  reservedName: (name: string) => `${quote(name)} is a reserved word and cannot be used as a name.`,
+  singleEquals: () => 'A single = defines a name and may appear only once, at the start (NAME = ...). To compare, write ==.',
+
+  // ---- evaluation ----------------------------------------------------------------------
+  unknownName: (name: string, suggestion: string | null) =>
+    `There is no cell or table called ${quote(name)}.${suggestion ? ` Did you mean ${suggestion}?` : ''}`,
+  functionAsValue: (name: string) => `${quote(name)} is a built-in function: call it, as in ${name}(...).`,
+  unknownFunction: (name: string, suggestion: string | null) =>
+    `There is no function called ${quote(name)}.${suggestion ? ` Did you mean ${suggestion}?` : ''}`,
+  notAFunction: (name: string) => `${quote(name)} is a cell's value, not a function: only built-in functions can be called.`,
+  upstream: (name: string) => `This cell reads ${quote(name)}, which has an error.`,
+  duplicateUpstream: (name: string) => `${quote(name)} is defined by more than one cell, so this cell cannot tell which to read.`,
+  cycleUpstream: (name: string) => `${quote(name)} is part of a cycle, so it has no value.`,
+  duplicateDefinition: (name: string, count: number) =>
+    `The name ${quote(name)} is defined by ${count} cells. Give each a different name.`,
+  cycle: (path: readonly string[]) =>
+    `These cells depend on each other in a cycle (${path.join(' → ')}), so none of them can be computed. Break the cycle by changing one of them.`,
+  lengthMismatch: (op: string, a: number, b: number) =>
+    `The two sides of ${quote(op)} are columns of different lengths (${a} and ${b}); element by element work needs equal lengths.`,
+  operatorTypes: (op: string, left: string, right: string) =>
+    `${quote(op)} cannot combine ${left} with ${right}.`,
+  operatorType: (op: string, operand: string) => `${quote(op)} cannot be applied to ${operand}.`,
+  compareTypes: (left: string, right: string) => `Cannot compare ${left} with ${right}.`,
+  noField: (name: string, fields: readonly string[], suggestion: string | null) =>
+    `This record has no field ${quote(name)}.${suggestion ? ` Did you mean ${suggestion}?` : ''} Its fields are: ${fields.join(', ')}.`,
+  noColumn: (table: string, name: string, suggestion: string | null) =>
+    `The table${table ? ` ${quote(table)}` : ''} has no column ${quote(name)}.${suggestion ? ` Did you mean ${suggestion}?` : ''}`,
+  memberOf: (what: string) => `${what} has no fields or columns to pick with a dot.`,
+  indexOutOfRange: (i: number, n: number) =>
+    `Position ${i} is outside this column, which has ${plural(n, 'element')} (positions count from 1).`,
+  indexNotWhole: (i: number) => `Positions are whole numbers counted from 1; ${i} is not one.`,
+  maskLength: (mask: number, n: number) =>
+    `The condition has ${plural(mask, 'element')} but the values it picks from have ${n}; they must be the same length.`,
+  cannotIndex: (what: string, by: string) => `Cannot pick from ${what} with ${by}.`,
+  mixedList: () => 'A list holds values of one kind: all numbers, all texts or all booleans.',
+  listElement: (what: string) => `A list can hold numbers, texts or booleans, not ${what}.`,
+  missingCondition: () => 'The condition is missing, so it is neither true nor false.',
+
+  // ---- calls ---------------------------------------------------------------------------
+  tooManyArguments: (fn: string, max: number, given: number, params: readonly string[]) =>
+    `${fn} takes at most ${plural(max, 'argument')} (${params.join(', ')}), but ${given} were given.`,
+  missingArgument: (fn: string, param: string, signature: string) =>
+    `${fn} needs the argument ${quote(param)}: ${signature}.`,
+  unknownArgument: (fn: string, name: string, params: readonly string[], suggestion: string | null) =>
+    `${fn} has no argument called ${quote(name)}.${suggestion ? ` Did you mean ${suggestion}?` : ''} Its arguments are ${params.join(', ')}.`,
+  argumentTwice: (fn: string, name: string) => `${fn}: the argument ${quote(name)} is given both by position and by name.`,
+  /** `got` is a noun phrase ("a text"), or a whole clause when it starts with "the column". */
+  wrongType: (fn: string, param: string, expected: string, got: string) =>
+    got.startsWith('the column ') ? `${fn}: ${param} must be ${expected}, but ${got}.` : `${fn}: ${param} must be ${expected}, but it is ${got}.`,
+  internal: (fn: string, detail: string) =>
+    `${fn} failed unexpectedly (${detail}). This is a fault in Furrow, not in the document; please report it.`,
+
+  // ---- tables --------------------------------------------------------------------------
+  raggedRow: (row: number, got: number, expected: number) =>
+    `Row ${row} has ${plural(got, 'field')}, but the header has ${expected}. Every row needs one field per column.`,
+  duplicateHeader: (name: string, first: number, again: number) =>
+    `The header names the column ${quote(name)} twice (columns ${first} and ${again}). Give each column its own name.`,
+  emptyHeader: (column: number) => `Column ${column} has no name in the header row.`,
+  emptyTable: () => 'This table has no header row.',
+  csvQuote: (row: number) => `Row ${row} has a quoted field that is never closed.`,
+  csvProblem: (row: number, detail: string) => `Row ${row} cannot be read as CSV: ${detail}.`,
+  badTableName: (name: string) =>
+    `${quote(name)} cannot name a table: a name starts with a letter or _, followed by letters, digits or _.`,
+  missingTableName: () => 'This table has no name: write --- table NAME.',
+  csvFileMissing: (file: string) => `The CSV file ${quote(file)} that this table names is not beside the document.`,
+  csvFileUnsafe: (file: string) =>
+    `The CSV file name ${quote(file)} is not allowed: a table may only name a file in the document's own folder.`,
+  notNumbers: (column: string, row: number, text: string) =>
+    `the column ${quote(column)} holds text: row ${row} is ${quote(text)}, which is not a number`,
+  notNumbersUnnamed: (row: number, text: string) =>
+    `the column holds text: element ${row} is ${quote(text)}, which is not a number`,
+
+  // ---- documents -----------------------------------------------------------------------
+  notADocument: () => 'This is not a Furrow document: its first line must be "furrow 1".',
+  wrongVersion: (version: string) =>
+    `This document is in format version ${version}; this version of Furrow reads version 1.`,
+  unknownCellKind: (kind: string) => `Unknown cell kind ${quote(kind)}: the cell is kept as it is and not evaluated.`,
+  unknownHeaderKey: (key: string) => `Unknown header key ${quote(key)}: kept as it is.`,
+  headerLine: (line: number) => `Line ${line} of the header is not of the form key: value; it is kept as it is.`,
+  badMarker: (marker: string) => `The cell line ${quote(`--- ${marker}`)} has extra words; they are kept but ignored.`,
+} as const;

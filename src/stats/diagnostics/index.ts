@@ -1,0 +1,10 @@
+/** Residual diagnostics: normality, equal spread across groups, and large residuals. */
+export {
+  shapiroWilk,
+  shapiroWilkCoefficients,
+  type ShapiroWilkResult,
+  SHAPIRO_WILK_MIN_N,
+  SHAPIRO_WILK_MAX_N,
+} from './shapiro_wilk.ts';
+export { brownForsythe, type BrownForsytheResult } from './brown_forsythe.ts';
+export { studentizedFlags, type ResidualFlags } from './flags.ts';

@@ -1,0 +1,114 @@
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { main } from '../../src/cli/main.ts';
+
+function cli(...args: string[]): { code: number; out: string; err: string } {
+  const out: string[] = [];
+  const err: string[] = [];
+  const code = main(args, { out: (s) => out.push(s), err: (s) => err.push(s) });
+  return { code, out: out.join('\n'), err: err.join('\n') };
+}
+
+function scratch(files: Record<string, string | Buffer>): string {
+  const dir = mkdtempSync(join(tmpdir(), 'furrow-cli-'));
+  for (const [name, text] of Object.entries(files)) writeFileSync(join(dir, name), text);
+  return dir;
+}
+
+const GOOD = 'furrow 1\ntitle: t\n\n--- table plots from plots.csv\n--- formula\nm = mean(plots.y)\n\n--- note\nmean {m}\n';
+
+describe('furrow run', () => {
+  it('runs every sample without errors', () => {
+    const samples = readdirSync('samples').filter((f) => f.endsWith('.furrow'));
+    expect(samples.length).toBeGreaterThan(0);
+    for (const s of samples) {
+      const r = cli('run', join('samples', s));
+      expect(r.err, s).toBe('');
+      expect(r.code, `${s}\n${r.out}`).toBe(0);
+    }
+  });
+  it('prints the JSON of the contract', () => {
+    const dir = scratch({ 'd.furrow': GOOD, 'plots.csv': 'y,g\n1,a\n2,b\n,c\n' });
+    const r = cli('run', join(dir, 'd.furrow'), '--json');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.furrow).toBe(1);
+    expect(j.cells).toEqual([
+      { index: 0, kind: 'table', name: 'plots', type: 'table', value: { y: [1, 2, null], g: ['a', 'b', 'c'] }, error: null },
+      { index: 1, kind: 'formula', name: 'm', type: 'number', value: 1.5, error: null, warnings: ['1 row with a missing value was left out.'] },
+      { index: 2, kind: 'note', name: null, type: 'text', value: 'mean 1.5', error: null },
+    ]);
+  });
+  it('writes non-finite numbers as texts and errors with their range; exits 1', () => {
+    const dir = scratch({ 'd.furrow': 'furrow 1\n--- formula\na = 0 / 0\n--- formula\nb = [1 / 0, -1 / 0]\n--- formula\nc = nope\n' });
+    const r = cli('run', join(dir, 'd.furrow'), '--json');
+    expect(r.code).toBe(1);
+    const j = JSON.parse(r.out);
+    expect(j.cells[0].value).toBe('NaN');
+    expect(j.cells[1].value).toEqual(['Infinity', '-Infinity']);
+    expect(j.cells[2]).toEqual({
+      index: 2,
+      kind: 'formula',
+      name: 'c',
+      type: 'error',
+      value: null,
+      error: { message: 'There is no cell or table called "nope".', from: 4, to: 8 },
+    });
+  });
+  it('prints readable text, with the file line of each error', () => {
+    const dir = scratch({ 'd.furrow': 'furrow 1\ntitle: Readable\n\n--- formula\nx = 2 * 3\n\n--- formula\ny = x +\n' });
+    const r = cli('run', join(dir, 'd.furrow'));
+    expect(r.code).toBe(1);
+    expect(r.out).toContain('Readable');
+    expect(r.out).toContain('[1] formula x\n    6');
+    expect(r.out).toContain('[2] formula y: error at line 8, column 7');
+    expect(r.out).toContain('2 cells, 1 with an error.');
+  });
+  it('exits 2 with one clear line for a missing file', () => {
+    const r = cli('run', 'no/such/file.furrow');
+    expect(r.code).toBe(2);
+    expect(r.err).toBe('furrow: The file no/such/file.furrow does not exist.');
+    expect(r.out).toBe('');
+  });
+  it('exits 2 for a file that is not a document', () => {
+    const dir = scratch({ 'data.csv': 'a,b\n1,2\n', 'bin.furrow': Buffer.from([0xff, 0xfe, 0x00, 0x41]) });
+    const r = cli('run', join(dir, 'data.csv'));
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/data\.csv: This is not a Furrow document: its first line must be "furrow 1"\.$/);
+    expect(r.err.split('\n')).toHaveLength(1);
+    const b = cli('run', join(dir, 'bin.furrow'));
+    expect(b.code).toBe(2);
+    expect(b.err).toMatch(/is not UTF-8 text/);
+    expect(cli('run', dir).err).toMatch(/is a folder, not a file/);
+  });
+  it('exits 2 when a CSV file a table names is not there', () => {
+    const dir = scratch({ 'd.furrow': GOOD });
+    const r = cli('run', join(dir, 'd.furrow'));
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/d\.furrow: table plots names plots\.csv, but the CSV file .*plots\.csv does not exist\.$/);
+  });
+  it('refuses a CSV file outside the document folder, on the table cell', () => {
+    const dir = scratch({ 'd.furrow': 'furrow 1\n--- table t from ../etc/passwd\n' });
+    const r = cli('run', join(dir, 'd.furrow'), '--json');
+    expect(r.code).toBe(1);
+    expect(JSON.parse(r.out).cells[0].error.message).toMatch(/not allowed: a table may only name a file in the document's own folder/);
+  });
+  it('explains its usage', () => {
+    expect(cli().code).toBe(2);
+    expect(cli('--help').out).toMatch(/Usage: furrow run FILE/);
+    expect(cli('frobnicate', 'x').err).toMatch(/unknown command "frobnicate"/);
+    expect(cli('run', 'a', '--fast').err).toMatch(/unknown option --fast/);
+  });
+  it('works as `npx furrow` through the package bin', () => {
+    const out = execFileSync('npx', ['furrow', 'run', 'samples/adhesive-cure.furrow', '--json'], { encoding: 'utf8' });
+    const j = JSON.parse(out);
+    expect(j.furrow).toBe(1);
+    expect(j.cells.length).toBeGreaterThan(3);
+    const bad = spawnSync('npx', ['furrow', 'run', 'missing.furrow'], { encoding: 'utf8' });
+    expect(bad.status).toBe(2);
+    expect(bad.stderr.trim()).toBe('furrow: The file missing.furrow does not exist.');
+  }, 60_000);
+});
