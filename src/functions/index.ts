@@ -5,6 +5,7 @@ import { DISTRIBUTIONS } from './distributions.ts';
 import { MATHS } from './maths.ts';
 import { Registry } from './registry.ts';
 import { SUMMARIES } from './summaries.ts';
+import { TWO_GROUPS } from './two_groups.ts';
 
 /** All built-ins of the language. */
-export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS]);
+export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS]);

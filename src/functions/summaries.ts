@@ -47,12 +47,12 @@ export const SUMMARIES: readonly Builtin[] = [
     'variance(plots.yield)',
     (x, ctx) => S.variance(completeValues(x, ctx).y),
   ),
-  summary('sd', 'The sample standard deviation, the square root of variance.', 'sd(plots.yield)', (x, ctx) => S.sd(completeValues(x, ctx).y)),
-  summary('min', 'The smallest value.', 'min(plots.yield)', (x, ctx) => {
+  summary('sd', 'The sample standard deviation: the square root of the sample variance (divisor n - 1).', 'sd(plots.yield)', (x, ctx) => S.sd(completeValues(x, ctx).y)),
+  summary('min', 'The smallest value that is not missing.', 'min(plots.yield)', (x, ctx) => {
     const r = completeValues(x, ctx);
     return r.y.length === 0 ? NaN : S.min(plainValues(r));
   }),
-  summary('max', 'The largest value.', 'max(plots.yield)', (x, ctx) => {
+  summary('max', 'The largest value that is not missing.', 'max(plots.yield)', (x, ctx) => {
     const r = completeValues(x, ctx);
     return r.y.length === 0 ? NaN : S.max(plainValues(r));
   }),
