@@ -35,7 +35,18 @@ export function levelName(c: Column, i: number): string {
   }
 }
 
-/** Integer codes of a column's levels, in first-seen order, for the rows kept. */
+/** The number a level name starts with (8500, 60C, 2.5mm), or NaN. */
+function leadingNumber(name: string): number {
+  const m = /^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?/.exec(name);
+  return m === null ? NaN : Number(m[0]);
+}
+
+/**
+ * Integer codes of a column's levels for the rows kept. Levels are in the order they first
+ * appear, except when every level starts with a number (8500, 8700; 60C, 70C; block 1, 2,
+ * ... 10): then in the order of those numbers, so that a randomized field order does not
+ * scramble the means table.
+ */
 export function factorOf(c: Column, rows: Int32Array | null, fallbackName: string): Factor {
   const n = rows === null ? c.values.length : rows.length;
   const codes = new Int32Array(n);
@@ -51,6 +62,16 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
       levels.push(name);
     }
     codes[k] = code;
+  }
+  const numbers = levels.map(leadingNumber);
+  if (levels.length > 1 && numbers.every((x) => !Number.isNaN(x))) {
+    const order = levels.map((_, j) => j).sort((a, b) => numbers[a]! - numbers[b]! || (levels[a]! < levels[b]! ? -1 : levels[a]! > levels[b]! ? 1 : 0));
+    const recode = new Int32Array(levels.length);
+    order.forEach((old, j) => {
+      recode[old] = j;
+    });
+    for (let k = 0; k < n; k++) codes[k] = recode[codes[k]!]!;
+    return { name: c.name ?? fallbackName, codes, levels: order.map((j) => levels[j]!) };
   }
   return { name: c.name ?? fallbackName, codes, levels };
 }

@@ -1,6 +1,8 @@
 /**
  * The registry of every built-in, assembled from the category files.
  */
+import { CLAIMS } from './claims.ts';
+import { DESIGNS } from './designs.ts';
 import { DISTRIBUTIONS } from './distributions.ts';
 import { MATHS } from './maths.ts';
 import { Registry } from './registry.ts';
@@ -8,4 +10,4 @@ import { SUMMARIES } from './summaries.ts';
 import { TWO_GROUPS } from './two_groups.ts';
 
 /** All built-ins of the language. */
-export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS]);
+export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...CLAIMS]);

@@ -129,6 +129,10 @@ export const TYPES = {
     description: 'a column of texts, such as ["a", "b"]',
     check: (v) => (isColumn(v) && v.type === 'text' ? accept(v) : reject(v)),
   },
+  level_name: {
+    description: 'a level, as text or a number',
+    check: (v) => (typeof v === 'string' || typeof v === 'number' ? accept(v) : reject(v)),
+  },
   levels: {
     description: 'a list of levels, such as ["a", "b"] or [1, 2]',
     check: (v) => (isColumn(v) && v.type !== 'boolean' ? accept(v) : reject(v)),

@@ -1,0 +1,342 @@
+/**
+ * The note cell's view: Markdown rendered through a sanitizer, with `{expression}`
+ * placeholders showing live values. Double-click (or Enter on the focused note) opens the
+ * text for editing; leaving the editor shows the rendered note again.
+ *
+ * A note from someone else's document is data: the Markdown is rendered by marked and
+ * then sanitized by DOMPurify (scripts, event handlers, javascript: links and remote
+ * images removed) before it reaches the page; values are put in afterwards as text.
+ */
+import DOMPurify from 'dompurify';
+import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
+import { unsafeHTML } from 'lit/directives/unsafe-html.js';
+import { marked } from 'marked';
+import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
+import { formatInline } from '../../src/lang/format.ts';
+import { isError, type Value } from '../../src/lang/values.ts';
+import { shared } from '../../src/app/theme.ts';
+import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
+import { splitNote } from './model.ts';
+
+const SLOT_OPEN = '\uE000';
+const SLOT_CLOSE = '\uE001';
+const SLOT = /\uE000(\d+)\uE001/g;
+
+let hooksInstalled = false;
+function installHooks(): void {
+  if (hooksInstalled) return;
+  hooksInstalled = true;
+  DOMPurify.addHook('afterSanitizeAttributes', (node) => {
+    if (node instanceof Element && node.tagName === 'A') {
+      const href = node.getAttribute('href') ?? '';
+      if (!/^(https?:|mailto:|#)/i.test(href)) node.removeAttribute('href');
+      node.setAttribute('target', '_blank');
+      node.setAttribute('rel', 'noopener noreferrer');
+    }
+    if (node instanceof Element && node.tagName === 'IMG') {
+      // a document may carry its own pictures, but never makes the page fetch anything
+      const src = node.getAttribute('src') ?? '';
+      if (!/^data:image\/(png|jpeg|gif|webp);base64,/i.test(src)) node.removeAttribute('src');
+    }
+  });
+}
+
+/**
+ * Markdown to sanitized HTML, with each placeholder replaced by an empty slot element that
+ * the view fills with text. Exported for tests.
+ */
+export function renderNoteHtml(text: string): { html: string; slots: number } {
+  installHooks();
+  const pieces = splitNote(text);
+  let md = '';
+  let slots = 0;
+  for (const p of pieces) {
+    if (p.type === 'text') md += p.text;
+    else md += `${SLOT_OPEN}${slots++}${SLOT_CLOSE}`;
+  }
+  const raw = marked.parse(md, { async: false, gfm: true }) as string;
+  const clean = DOMPurify.sanitize(raw, {
+    FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe', 'object', 'embed', 'svg', 'math'],
+    FORBID_ATTR: ['style'],
+  });
+  // our own markup, added after sanitizing: an index only, filled with text later
+  const withSlots = clean.replace(SLOT, (_m, i: string) => `<span class="slot" data-slot="${Number(i)}"></span>`);
+  return { html: withSlots, slots };
+}
+
+/** `<furrow-note-cell>`: a Markdown note with live values. */
+export class NoteCellView extends LitElement {
+  static override properties = {
+    cell: { attribute: false },
+    state: { attribute: false },
+    catalogue: { attribute: false },
+    editing: { state: true },
+  };
+
+  declare cell: Cell;
+  declare state: CellViewState | null;
+  declare catalogue: NameCatalogue;
+  declare editing: boolean;
+
+  private rendered: { body: string; html: string } | null = null;
+
+  constructor() {
+    super();
+    this.state = null;
+    this.editing = false;
+  }
+
+  static override styles = [
+    shared,
+    css`
+      :host {
+        display: block;
+      }
+      .prose {
+        font-family: var(--font-text);
+        font-size: 1.06rem;
+        line-height: 1.55;
+        color: var(--ink);
+        padding: 0.15rem 0;
+        cursor: text;
+        min-height: 1.4em;
+      }
+      .prose :first-child {
+        margin-top: 0;
+      }
+      .prose :last-child {
+        margin-bottom: 0;
+      }
+      .prose h1,
+      .prose h2,
+      .prose h3 {
+        font-family: var(--font-text);
+        font-weight: 600;
+        line-height: 1.25;
+        margin: 0.9em 0 0.4em;
+      }
+      .prose h1 {
+        font-size: 1.5rem;
+      }
+      .prose h2 {
+        font-size: 1.25rem;
+      }
+      .prose h3 {
+        font-size: 1.08rem;
+      }
+      .prose p {
+        margin: 0.5em 0;
+      }
+      .prose code {
+        font-family: var(--font-code);
+        font-size: 0.88em;
+        background: var(--paper);
+        padding: 0 0.2em;
+        border-radius: 2px;
+      }
+      .prose table {
+        border-collapse: collapse;
+        font-variant-numeric: tabular-nums;
+      }
+      .prose th,
+      .prose td {
+        border-bottom: 1px solid var(--rule);
+        padding: 0.2em 0.6em;
+      }
+      .prose a {
+        color: var(--accent);
+      }
+      .slot {
+        font-variant-numeric: tabular-nums lining-nums;
+        font-weight: 600;
+        color: var(--accent);
+        background: var(--accent-soft);
+        border-radius: 3px;
+        padding: 0 0.18em;
+      }
+      .slot.failed {
+        color: var(--error);
+        background: var(--error-soft);
+        font-weight: 400;
+        font-family: var(--font-code);
+        font-size: 0.85em;
+      }
+      .slot.upstream {
+        color: var(--upstream);
+        background: var(--upstream-soft);
+      }
+      .slot.pending {
+        opacity: 0.55;
+      }
+      .empty {
+        color: var(--muted);
+        font-style: italic;
+      }
+      textarea {
+        box-sizing: border-box;
+        width: 100%;
+        min-height: 6rem;
+        font-family: var(--font-code);
+        font-size: 0.9rem;
+        line-height: 1.5;
+        color: var(--ink);
+        background: var(--sheet);
+        border: 1px solid var(--rule-strong);
+        border-radius: var(--radius);
+        padding: 0.5rem 0.6rem;
+        resize: vertical;
+      }
+      textarea:focus {
+        outline: 2px solid var(--accent-soft);
+        border-color: var(--accent);
+      }
+      .hint {
+        font-size: 0.75rem;
+        color: var(--muted);
+        margin-top: 0.2rem;
+      }
+      .problems {
+        margin: 0.3rem 0 0;
+        padding: 0;
+        list-style: none;
+        font-size: 0.82rem;
+      }
+      .problems li {
+        color: var(--error);
+      }
+      .problems li.upstream {
+        color: var(--upstream);
+      }
+      @media print {
+        .hint {
+          display: none;
+        }
+        .slot {
+          background: none;
+        }
+      }
+    `,
+  ];
+
+  override render() {
+    const text = visibleBody(this.cell);
+    if (this.editing) {
+      return html`<textarea
+          aria-label="Note text (Markdown; {expression} shows a live value)"
+          @input=${this.onInput}
+          @keydown=${this.onKeydown}
+          @blur=${() => this.finishEditing()}
+        ></textarea>
+        <div class="hint">Markdown. <code>{expression}</code> shows a live value, <code>\\{</code> a brace. Escape or click outside to finish.</div>`;
+    }
+    if (this.rendered === null || this.rendered.body !== this.cell.body) {
+      this.rendered = { body: this.cell.body, html: renderNoteHtml(text).html };
+    }
+    const problems = (this.state?.parts ?? []).filter(isError);
+    return html`<div
+        class="prose"
+        tabindex="0"
+        role="document"
+        aria-label="Note; double-click or press Enter to edit"
+        @dblclick=${() => this.startEditing()}
+        @keydown=${(e: KeyboardEvent) => {
+          if (e.key === 'Enter' && e.target === e.currentTarget) {
+            e.preventDefault();
+            this.startEditing();
+          }
+        }}
+      >
+        ${text.trim() === '' ? html`<span class="empty">Empty note: double-click to write.</span>` : unsafeHTML(this.rendered.html) /* sanitized by renderNoteHtml */}
+      </div>
+      ${problems.length > 0
+        ? html`<ul class="problems">
+            ${problems.map((p) => html`<li class=${p.upstream ? 'upstream' : ''}>{${this.sourceAt(p.from)}}: ${p.message}</li>`)}
+          </ul>`
+        : nothing}`;
+  }
+
+  private sourceAt(offset: number): string {
+    for (const p of splitNote(this.cell.body)) if (p.type === 'placeholder' && offset >= p.from && offset <= p.to) return p.source;
+    return '…';
+  }
+
+  override updated(changed: PropertyValues): void {
+    super.updated(changed);
+    if (this.editing) return;
+    const parts = this.state?.parts ?? [];
+    const pending = this.state?.status === 'pending';
+    for (const el of this.renderRoot.querySelectorAll<HTMLElement>('[data-slot]')) {
+      const i = Number(el.dataset.slot);
+      const v: Value | undefined = parts[i];
+      el.classList.toggle('pending', pending);
+      if (v === undefined) {
+        el.textContent = '…';
+        el.classList.remove('failed', 'upstream');
+        continue;
+      }
+      if (isError(v)) {
+        el.textContent = `{${this.placeholderSource(i)}}`;
+        el.title = v.message;
+        el.classList.add('failed');
+        el.classList.toggle('upstream', v.upstream !== null);
+      } else {
+        el.textContent = formatInline(v);
+        el.removeAttribute('title');
+        el.classList.remove('failed', 'upstream');
+      }
+    }
+  }
+
+  private placeholderSource(i: number): string {
+    const ph = splitNote(this.cell.body).filter((p) => p.type === 'placeholder');
+    const p = ph[i];
+    return p && p.type === 'placeholder' ? p.source : '';
+  }
+
+  private startEditing(): void {
+    this.editing = true;
+    void this.updateComplete.then(() => {
+      // the text is set once, not bound: while typing, the textarea is the authority
+      const ta = this.renderRoot.querySelector('textarea');
+      if (ta) {
+        ta.value = visibleBody(this.cell);
+        ta.focus();
+      }
+    });
+  }
+
+  private finishEditing(): void {
+    this.editing = false;
+  }
+
+  private onInput(e: Event): void {
+    const text = (e.target as HTMLTextAreaElement).value;
+    emitEdit(this, { type: 'body', id: this.cell.id, body: freshBody(text) }, `body:${this.cell.id}`);
+  }
+
+  private onKeydown(e: KeyboardEvent): void {
+    if (e.key === 'Escape') {
+      e.preventDefault();
+      this.finishEditing();
+      return;
+    }
+    const mod = e.ctrlKey || e.metaKey;
+    if (mod && (e.key === 'z' || e.key === 'Z' || e.key === 'y')) {
+      // the document keeps one history for every edit; the textarea's own would fight it
+      e.preventDefault();
+      const redo = e.key === 'y' || e.shiftKey;
+      this.dispatchEvent(new CustomEvent(redo ? 'furrow-redo' : 'furrow-undo', { bubbles: true, composed: true }));
+    }
+  }
+
+  override willUpdate(changed: PropertyValues): void {
+    // an undo while editing: take the new text without emitting an edit
+    if (changed.has('cell') && this.editing) {
+      const ta = this.renderRoot.querySelector('textarea');
+      const text = visibleBody(this.cell);
+      if (ta && freshBody(ta.value) !== this.cell.body) ta.value = text;
+    }
+  }
+}
+
+if (!customElements.get('furrow-note-cell')) customElements.define('furrow-note-cell', NoteCellView);

@@ -1,0 +1,167 @@
+/**
+ * The page's side of the evaluation worker: sends each new version of the document, marks
+ * the cells an edit will recompute as 'pending' at once (so the page says which numbers are
+ * about to change), and folds the worker's results into per-cell states.
+ */
+import type { BuiltinInfo, CellViewState, NameCatalogue } from '../../cells/view-api.ts';
+import type { Document } from '../doc/document.ts';
+import type { FromWorker, ToWorker } from './protocol.ts';
+
+export interface BridgeEvents {
+  /** States changed (after a result, or when cells were marked pending). */
+  onStates(changed: ReadonlySet<string>): void;
+  /** The worker reported a fault it could not put on a cell. */
+  onFailure(message: string): void;
+}
+
+/** Creates the worker; separated so tests can give a fake. */
+export type WorkerFactory = () => Worker;
+
+const defaultWorker: WorkerFactory = () => new Worker(new URL('./worker.ts', import.meta.url), { type: 'module', name: 'furrow-evaluation' });
+
+export class EvaluationBridge {
+  private readonly worker: Worker;
+  private seq = 0;
+  private readonly states = new Map<string, CellViewState>();
+  private readers = new Map<string, readonly string[]>();
+  /** Cells marked pending, with the update that marked them. */
+  private readonly pending = new Map<string, number>();
+  private builtins: readonly BuiltinInfo[] = [];
+  private cellNames: NameCatalogue['cells'] = [];
+  private lastDoc: Document | null = null;
+  /** Milliseconds the worker took for the last update. */
+  lastMillis = 0;
+  /** Resolves each time a result arrives (tests and the performance check wait on it). */
+  private waiters: (() => void)[] = [];
+  private readonly events: BridgeEvents;
+
+  constructor(events: BridgeEvents, factory: WorkerFactory = defaultWorker) {
+    this.events = events;
+    this.worker = factory();
+    this.worker.onmessage = (e: MessageEvent<FromWorker>) => this.receive(e.data);
+    this.worker.onerror = (e) => events.onFailure(`The evaluation worker stopped: ${e.message || 'unknown error'}. Reload the page; your document is saved.`);
+  }
+
+  /** The state of a cell, if known. */
+  state(id: string): CellViewState | null {
+    return this.states.get(id) ?? null;
+  }
+
+  /** What completion may offer. */
+  catalogue(): NameCatalogue {
+    return { builtins: this.builtins, cells: this.cellNames };
+  }
+
+  /** True while an update has not come back. */
+  get busy(): boolean {
+    return this.pending.size > 0;
+  }
+
+  /** Sends CSV files that tables may name. */
+  files(files: ReadonlyArray<readonly [string, string | undefined]>): void {
+    this.post({ type: 'files', files });
+  }
+
+  /** Sends a new version of the document; `edited` are the cells whose text changed. */
+  update(doc: Document, edited: Iterable<string> | 'all' = 'all'): void {
+    const seq = ++this.seq;
+    const changed = new Set<string>();
+    const start = edited === 'all' ? doc.cells.map((c) => c.id) : [...edited];
+    // everything downstream of an edited cell may change: mark it at once
+    const queue = [...start];
+    const seen = new Set<string>();
+    while (queue.length > 0) {
+      const id = queue.pop()!;
+      if (seen.has(id)) continue;
+      seen.add(id);
+      for (const r of this.readers.get(id) ?? []) queue.push(r);
+    }
+    for (const id of seen) {
+      const old = this.states.get(id);
+      this.pending.set(id, seq);
+      this.states.set(id, { status: 'pending', value: old?.value ?? null, parts: old?.parts ?? null, warnings: old?.warnings ?? [], error: old?.error ?? null, progress: null });
+      changed.add(id);
+    }
+    this.lastDoc = doc;
+    this.post({ type: 'update', seq, doc });
+    if (changed.size > 0) this.events.onStates(changed);
+  }
+
+  /** Resolves when the worker has answered every update sent so far. */
+  settled(): Promise<void> {
+    if (this.pending.size === 0) return Promise.resolve();
+    return new Promise((resolve) => this.waiters.push(resolve));
+  }
+
+  private post(m: ToWorker): void {
+    this.worker.postMessage(m);
+  }
+
+  private previous = new Map<string, CellViewState>();
+
+  private receive(m: FromWorker): void {
+    switch (m.type) {
+      case 'ready':
+        this.builtins = m.builtins;
+        this.events.onStates(new Set());
+        return;
+      case 'progress': {
+        const s = this.states.get(m.id);
+        if (s !== undefined) {
+          this.states.set(m.id, { ...s, progress: m.fraction });
+          this.events.onStates(new Set([m.id]));
+        }
+        return;
+      }
+      case 'failure':
+        this.clearPending(m.seq, new Set());
+        this.events.onFailure(`Evaluation failed: ${m.message}`);
+        return;
+      case 'result': {
+        const changed = new Set<string>();
+        for (const r of m.results) {
+          const s: CellViewState = { status: r.status, value: r.value, parts: r.parts, warnings: r.warnings, error: r.error, progress: null };
+          this.previous.set(r.id, s);
+          // a later update may already have marked this cell again: keep it pending then
+          const mark = this.pending.get(r.id);
+          if (mark !== undefined && mark > m.seq) this.states.set(r.id, { ...s, status: 'pending' });
+          else {
+            this.states.set(r.id, s);
+            this.pending.delete(r.id);
+          }
+          changed.add(r.id);
+        }
+        this.readers = new Map(m.readers);
+        this.cellNames = m.cells;
+        this.lastMillis = m.millis;
+        this.clearPending(m.seq, changed);
+        // forget cells that left the document
+        if (this.lastDoc !== null) {
+          const ids = new Set(this.lastDoc.cells.map((c) => c.id));
+          for (const id of [...this.states.keys()]) if (!ids.has(id)) this.states.delete(id);
+        }
+        this.events.onStates(changed);
+        return;
+      }
+    }
+  }
+
+  /** Cells marked pending by updates up to `seq` that did not run: back to their last state. */
+  private clearPending(seq: number, changed: Set<string>): void {
+    for (const [id, mark] of [...this.pending]) {
+      if (mark > seq) continue;
+      this.pending.delete(id);
+      const prev = this.previous.get(id);
+      const s = this.states.get(id);
+      if (s !== undefined && s.status === 'pending') {
+        this.states.set(id, prev ?? { ...s, status: 'ok' });
+        changed.add(id);
+      }
+    }
+    if (this.pending.size === 0) {
+      const w = this.waiters;
+      this.waiters = [];
+      for (const f of w) f();
+    }
+  }
+}

@@ -1,0 +1,91 @@
+/**
+ * Opening and saving `.furrow` files: the File System Access API where the browser has it,
+ * an upload and a download otherwise.
+ */
+
+interface PickerWindow {
+  showOpenFilePicker?: (o: unknown) => Promise<FileSystemFileHandle[]>;
+  showSaveFilePicker?: (o: unknown) => Promise<FileSystemFileHandle>;
+}
+
+const TYPES = [{ description: 'Furrow documents', accept: { 'text/plain': ['.furrow'] } }];
+
+/** A file the user picked: its name and text. */
+export interface PickedFile {
+  readonly name: string;
+  readonly text: string;
+  readonly handle: FileSystemFileHandle | null;
+}
+
+/** Reads a File as UTF-8, refusing bytes that are not UTF-8 text. */
+export async function readFileText(file: Blob): Promise<string> {
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+}
+
+/** Asks for a file to open; null when the user cancels. */
+export async function pickFile(accept = '.furrow,text/plain'): Promise<PickedFile | null> {
+  const w = window as unknown as PickerWindow;
+  if (w.showOpenFilePicker && accept.includes('.furrow')) {
+    try {
+      const [handle] = await w.showOpenFilePicker({ types: TYPES, multiple: false });
+      if (!handle) return null;
+      const file = await handle.getFile();
+      return { name: file.name, text: await readFileText(file), handle };
+    } catch (e) {
+      if (e instanceof DOMException && e.name === 'AbortError') return null;
+      throw e;
+    }
+  }
+  return new Promise((resolve, reject) => {
+    const input = document.createElement('input');
+    input.type = 'file';
+    input.accept = accept;
+    input.addEventListener('change', () => {
+      const file = input.files?.[0];
+      if (!file) return resolve(null);
+      readFileText(file).then((text) => resolve({ name: file.name, text, handle: null }), reject);
+    });
+    input.addEventListener('cancel', () => resolve(null));
+    input.click();
+  });
+}
+
+/** Saves text to a file: to the handle it came from, a picked one, or as a download. */
+export async function saveText(text: string, name: string, handle: FileSystemFileHandle | null): Promise<FileSystemFileHandle | null> {
+  const w = window as unknown as PickerWindow;
+  let target = handle;
+  if (target === null && w.showSaveFilePicker) {
+    try {
+      target = await w.showSaveFilePicker({ suggestedName: name, types: TYPES });
+    } catch (e) {
+      if (e instanceof DOMException && e.name === 'AbortError') return handle;
+      target = null;
+    }
+  }
+  if (target !== null) {
+    const writable = await (target as FileSystemFileHandle & { createWritable(): Promise<FileSystemWritableFileStream> }).createWritable();
+    await writable.write(text);
+    await writable.close();
+    return target;
+  }
+  const url = URL.createObjectURL(new Blob([text], { type: 'text/plain;charset=utf-8' }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+  return null;
+}
+
+/** A file name for a document title. */
+export function fileNameFor(title: string): string {
+  const base = title
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 60);
+  return `${base || 'trial'}.furrow`;
+}

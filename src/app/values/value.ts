@@ -1,0 +1,413 @@
+/**
+ * `<furrow-value>`: any value of the cell language, drawn by its type. Numbers, texts,
+ * booleans and missing inline; columns and tables as grids; fits as an analysis of
+ * variance with its means; pairwise comparisons as their table; claims so that one that
+ * fails cannot be missed; charts through `<furrow-chart>`. What each table says is worked
+ * out in record-layout.ts and grid-model.ts; this file only draws it.
+ */
+import { css, html, LitElement, nothing, type TemplateResult } from 'lit';
+import { formatNumber } from '../../lang/format.ts';
+import { columnLength, missingCount, type Claim, type Column, type ErrorValue, type RecordValue, type Table, type Value } from '../../lang/values.ts';
+import { shared } from '../theme.ts';
+import './chart.ts';
+import './grid.ts';
+import { fitLayout, pairsLayout, recordLines, type ScalarLine, type ValueLine } from './record-layout.ts';
+import { tableStyles } from './styles.ts';
+
+/** A one-line description of a column's size ("24 numbers, 2 missing"). */
+export function columnSummary(c: Column): string {
+  const n = columnLength(c);
+  const noun = c.type === 'number' ? (n === 1 ? 'number' : 'numbers') : c.type === 'text' ? (n === 1 ? 'text' : 'texts') : n === 1 ? 'boolean' : 'booleans';
+  const m = missingCount(c);
+  return `${n.toLocaleString('en')} ${noun}${m > 0 ? `, ${m.toLocaleString('en')} missing` : ''}`;
+}
+
+/** A one-line description of a table's size ("24 rows, 3 columns"). */
+export function tableSummary(t: Table): string {
+  const cols = t.columns.length;
+  return `${t.rows.toLocaleString('en')} ${t.rows === 1 ? 'row' : 'rows'}, ${cols} ${cols === 1 ? 'column' : 'columns'}`;
+}
+
+/** One value, drawn by its type. */
+export class FurrowValue extends LitElement {
+  static override properties = {
+    value: { attribute: false },
+    name: { type: String },
+  };
+
+  /** The value to show. */
+  declare value: Value | null;
+  /** The name the value is known by in the document, if any (shown in field paths). */
+  declare name: string | null;
+
+  constructor() {
+    super();
+    this.value = null;
+    this.name = null;
+  }
+
+  static override styles = [
+    shared,
+    tableStyles,
+    css`
+      :host {
+        display: block;
+        font-size: 0.9rem;
+      }
+      .scalar {
+        font-size: 1.05rem;
+      }
+      .text {
+        white-space: pre-wrap;
+        font-family: var(--font-text);
+      }
+      .quiet,
+      .missing {
+        color: var(--muted);
+        font-style: italic;
+      }
+      .summary {
+        font-size: 0.75rem;
+        color: var(--muted);
+        margin: 0 0 0.2rem;
+      }
+      .error {
+        color: var(--error);
+      }
+      .error.upstream {
+        color: var(--upstream);
+      }
+      .claim {
+        display: flex;
+        gap: 0.6rem;
+        align-items: baseline;
+        padding: 0.45rem 0.7rem;
+        border-radius: var(--radius);
+        border-left: 4px solid var(--accent);
+        background: var(--accent-soft);
+      }
+      .claim .verdict {
+        font-weight: 700;
+        white-space: nowrap;
+        color: var(--accent);
+      }
+      .claim .statement {
+        font-family: var(--font-text);
+      }
+      .claim.fails {
+        border: 2px solid var(--error);
+        border-left-width: 8px;
+        background: var(--error-soft);
+      }
+      .claim.fails .verdict {
+        color: var(--error);
+        text-transform: uppercase;
+        letter-spacing: 0.04em;
+      }
+      .record,
+      .fit,
+      .pairs {
+        display: grid;
+        gap: 0.75rem;
+        justify-items: start;
+      }
+      .heading {
+        font-family: var(--font-text);
+        font-size: 1rem;
+        margin: 0;
+      }
+      .heading .design {
+        font-style: italic;
+      }
+      .balance {
+        margin: 0.1rem 0 0;
+        font-size: 0.8rem;
+        color: var(--ink-soft);
+      }
+      table.anova tr.total td,
+      table.anova tr.total th {
+        border-top: 1px solid var(--rule-strong);
+      }
+      table.anova tr.error th,
+      table.anova tr.total th {
+        color: var(--ink-soft);
+      }
+      th.group {
+        text-align: center;
+        border-bottom: 1px solid var(--rule);
+        font-weight: normal;
+        font-style: italic;
+      }
+      dl.fields {
+        display: grid;
+        grid-template-columns: max-content max-content;
+        column-gap: 1rem;
+        row-gap: 0.15rem;
+        margin: 0;
+      }
+      dl.fields dt {
+        color: var(--ink-soft);
+      }
+      dl.fields dt code {
+        font-family: var(--font-code);
+        font-size: 0.75rem;
+        color: var(--muted);
+        margin-left: 0.4rem;
+      }
+      dl.fields dd {
+        margin: 0;
+      }
+      .part {
+        display: grid;
+        gap: 0.2rem;
+        max-width: 100%;
+      }
+      .part > .label code {
+        font-family: var(--font-code);
+        text-transform: none;
+        letter-spacing: 0;
+      }
+      ul.notes {
+        margin: 0;
+        padding-left: 1.1rem;
+        font-size: 0.82rem;
+        color: var(--ink-soft);
+      }
+      details > summary {
+        cursor: pointer;
+        font-size: 0.82rem;
+        color: var(--ink-soft);
+      }
+      details[open] > summary {
+        margin-bottom: 0.3rem;
+      }
+      .wide {
+        max-width: 100%;
+        overflow-x: auto;
+      }
+      @media print {
+        details > summary {
+          list-style: none;
+        }
+        .wide {
+          overflow: visible;
+        }
+      }
+    `,
+  ];
+
+  private path(field: string): string {
+    return this.name ? `${this.name}.${field}` : field;
+  }
+
+  protected override render() {
+    const v = this.value;
+    if (v === null || v === undefined) return nothing;
+    switch (typeof v) {
+      case 'number':
+        return html`<span class="scalar num" title=${String(v)}>${formatNumber(v)}</span>`;
+      case 'string':
+        return v === '' ? html`<span class="quiet">empty text</span>` : html`<span class="text">${v}</span>`;
+      case 'boolean':
+        return html`<span class="scalar">${v ? 'true' : 'false'}</span>`;
+    }
+    switch (v.kind) {
+      case 'missing':
+        return html`<span class="missing">missing</span>`;
+      case 'column':
+        return this.renderColumn(v);
+      case 'table':
+        return this.renderTable(v);
+      case 'record':
+        if (v.tag === 'fit') return this.renderFit(v);
+        if (v.tag === 'pairs') return this.renderPairs(v);
+        return this.renderRecord(v);
+      case 'chart':
+        return html`<furrow-chart .value=${v}></furrow-chart>`;
+      case 'claim':
+        return this.renderClaim(v);
+      case 'error':
+        return this.renderError(v);
+    }
+  }
+
+  private renderColumn(c: Column): TemplateResult {
+    const header = c.name ?? this.name ?? 'value';
+    return html`<p class="summary">${columnSummary(c)}</p>
+      <furrow-grid .columns=${[c]} .names=${[header]} label=${header}></furrow-grid>`;
+  }
+
+  private renderTable(t: Table): TemplateResult {
+    return html`<p class="summary">${tableSummary(t)}</p>
+      <furrow-grid .columns=${t.columns} .names=${t.names} label=${this.name ?? 'table'}></furrow-grid>`;
+  }
+
+  private renderClaim(c: Claim): TemplateResult {
+    return c.holds
+      ? html`<div class="claim holds" role="status"><span class="verdict">✓ holds</span><span class="statement">${c.statement}</span></div>`
+      : html`<div class="claim fails" role="alert"><span class="verdict">✗ does not hold</span><span class="statement">${c.statement}</span></div>`;
+  }
+
+  private renderError(e: ErrorValue): TemplateResult {
+    return html`<p class="error ${e.upstream === null ? '' : 'upstream'}" style="margin:0">${e.message}</p>`;
+  }
+
+  private renderScalars(lines: readonly ScalarLine[]): TemplateResult | typeof nothing {
+    if (lines.length === 0) return nothing;
+    return html`<dl class="fields">
+      ${lines.map(
+        (l) => html`<dt>${l.label}${l.label !== l.field ? html`<code>${this.path(l.field)}</code>` : nothing}</dt>
+          <dd class=${/^[-\d.<>]/.test(l.text) ? 'num' : ''} style="text-align:left">${l.text}</dd>`,
+      )}
+    </dl>`;
+  }
+
+  private renderPart(line: ValueLine): TemplateResult {
+    return html`<div class="part">
+      <span class="label">${line.label}${line.label !== line.field ? html` <code>${this.path(line.field)}</code>` : nothing}</span>
+      <furrow-value .value=${line.value} name=${this.path(line.field)}></furrow-value>
+    </div>`;
+  }
+
+  private renderFolded(line: ValueLine): TemplateResult {
+    const v = line.value;
+    const size = typeof v === 'object' && v.kind === 'column' ? ` (${columnSummary(v)})` : '';
+    return html`<details>
+      <summary>${line.label}${size} <code style="font-family:var(--font-code);font-size:0.75rem;color:var(--muted)">${this.path(line.field)}</code></summary>
+      <furrow-value .value=${v} name=${this.path(line.field)}></furrow-value>
+    </details>`;
+  }
+
+  private renderFit(r: RecordValue): TemplateResult {
+    const f = fitLayout(r);
+    return html`<section class="fit" aria-label="analysis of variance">
+      <div>
+        <p class="heading">Analysis of variance${f.design === null ? nothing : html`: <span class="design">${f.design}</span>`}</p>
+        ${f.balance === null ? nothing : html`<p class="balance">${f.balance}</p>`}
+      </div>
+      ${f.anova === null
+        ? nothing
+        : html`<div class="wide">
+            <table class="anova">
+              <thead>
+                <tr>
+                  <th scope="col">Source</th>
+                  <th scope="col" class="num">df</th>
+                  <th scope="col" class="num">SS</th>
+                  <th scope="col" class="num">MS</th>
+                  <th scope="col" class="num">F</th>
+                  <th scope="col" class="num">p</th>
+                </tr>
+              </thead>
+              <tbody>
+                ${f.anova.map(
+                  (row) => html`<tr class=${row.role}>
+                    <th scope="row">${row.source}</th>
+                    <td class="num">${row.df}</td>
+                    <td class="num">${row.ss}</td>
+                    <td class="num">${row.ms}</td>
+                    <td class="num">${row.f}</td>
+                    <td class="num">${row.p}</td>
+                  </tr>`,
+                )}
+              </tbody>
+            </table>
+          </div>`}
+      ${f.means === null
+        ? nothing
+        : html`<div class="wide">
+            <table class="means">
+              <caption>${f.meansTitle}</caption>
+              <thead>
+                <tr>
+                  <th rowspan="2" scope="col">level</th>
+                  <th rowspan="2" scope="col" class="num">n</th>
+                  <th rowspan="2" scope="col" class="num">mean</th>
+                  <th rowspan="2" scope="col" class="num">se</th>
+                  <th colspan="2" scope="colgroup" class="group">${f.intervalHeader}</th>
+                </tr>
+                <tr>
+                  <th scope="col" class="num">low</th>
+                  <th scope="col" class="num">high</th>
+                </tr>
+              </thead>
+              <tbody>
+                ${f.means.map(
+                  (row) => html`<tr>
+                    <th scope="row">${row.level}</th>
+                    <td class="num">${row.n}</td>
+                    <td class="num">${row.mean}</td>
+                    <td class="num">${row.se}</td>
+                    <td class="num">${row.low}</td>
+                    <td class="num">${row.high}</td>
+                  </tr>`,
+                )}
+              </tbody>
+            </table>
+          </div>`}
+      ${this.renderScalars(f.scalars)}
+      ${f.notes.length === 0 ? nothing : html`<ul class="notes">${f.notes.map((n) => html`<li>${n}</li>`)}</ul>`}
+      ${f.others.map((o) => this.renderPart(o))} ${f.folded.map((o) => this.renderFolded(o))}
+    </section>`;
+  }
+
+  private renderPairs(r: RecordValue): TemplateResult {
+    const p = pairsLayout(r);
+    return html`<section class="pairs" aria-label="pairwise differences">
+      ${p.rows === null
+        ? html`<p class="heading">${p.title}</p>`
+        : html`<div class="wide">
+            <table class="pairs-table">
+              <caption>${p.title}</caption>
+              <thead>
+                <tr>
+                  <th rowspan="2" scope="col">pair</th>
+                  <th rowspan="2" scope="col" class="num">difference</th>
+                  <th rowspan="2" scope="col" class="num">se</th>
+                  <th colspan="2" scope="colgroup" class="group">${p.intervalHeader}</th>
+                  <th rowspan="2" scope="col" class="num">p</th>
+                  <th rowspan="2" scope="col">interval excludes 0</th>
+                </tr>
+                <tr>
+                  <th scope="col" class="num">low</th>
+                  <th scope="col" class="num">high</th>
+                </tr>
+              </thead>
+              <tbody>
+                ${p.rows.map(
+                  (row) => html`<tr>
+                    <th scope="row">${row.pair}</th>
+                    <td class="num">${row.estimate}</td>
+                    <td class="num">${row.se}</td>
+                    <td class="num">${row.low}</td>
+                    <td class="num">${row.high}</td>
+                    <td class="num">${row.p}</td>
+                    <td>${row.excludesZero}</td>
+                  </tr>`,
+                )}
+              </tbody>
+            </table>
+          </div>`}
+      ${this.renderScalars(p.scalars)} ${p.others.map((o) => this.renderPart(o))}
+    </section>`;
+  }
+
+  private renderRecord(r: RecordValue): TemplateResult {
+    const lines = recordLines(r);
+    const scalars: ScalarLine[] = [];
+    const parts: TemplateResult[] = [];
+    for (const l of lines) {
+      if (l.text !== null) scalars.push({ field: l.field, label: l.field, text: l.text });
+      else parts.push(this.renderPart({ field: l.field, label: l.field, value: l.value }));
+    }
+    return html`<section class="record">${this.renderScalars(scalars)} ${parts}</section>`;
+  }
+}
+
+if (!customElements.get('furrow-value')) customElements.define('furrow-value', FurrowValue);
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'furrow-value': FurrowValue;
+  }
+}

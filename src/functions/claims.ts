@@ -1,0 +1,54 @@
+/**
+ * Claims: statements about the numbers that are checked on every evaluation, so a
+ * conclusion written beside the numbers cannot silently stop being true.
+ */
+import { UsageError } from '../lang/errors.ts';
+import { formatP } from '../lang/format.ts';
+import { mapNumbers } from '../lang/elementwise.ts';
+import { isColumn, isMissing, textColumn, type Claim, type Value } from '../lang/values.ts';
+import type { Builtin } from './registry.ts';
+
+function holds(v: Value): boolean {
+  if (typeof v === 'boolean') return v;
+  if (isMissing(v)) throw new UsageError('the condition is missing, so the claim cannot be checked.');
+  if (isColumn(v) && v.type === 'boolean') {
+    if (v.missing !== null) throw new UsageError('part of the condition is missing, so the claim cannot be checked.');
+    for (let i = 0; i < v.values.length; i++) if (v.values[i] !== 1) return false;
+    return true;
+  }
+  throw new UsageError('the condition must be true or false (or a column of them, which holds when every element is true).');
+}
+
+export const CLAIMS: readonly Builtin[] = [
+  {
+    name: 'claim',
+    category: 'claims',
+    params: [
+      { name: 'condition', type: 'any', doc: 'true or false, or a column of them (the claim holds when every element is true).' },
+      { name: 'statement', type: 'text', doc: 'The claim in words, as a reviewer should read it.' },
+    ],
+    returns: 'a claim (holds or does not hold, with the statement)',
+    doc: 'A statement about the results that is checked every time the document is evaluated: it shows whether it holds, so a conclusion written beside the numbers cannot silently become false when the data change.',
+    example: 'claim(gain.low > 0, "curing at 80C is stronger than at 60C")',
+    run: (a): Claim => ({ kind: 'claim', holds: holds(a.get('condition')!), statement: a.get('statement') as string }),
+  },
+  {
+    name: 'p_text',
+    category: 'claims',
+    params: [{ name: 'p', type: 'numeric', doc: 'A p-value, or a column of them.' }],
+    returns: 'a text, or a column of texts',
+    doc: 'A p-value written as the trade writes it, for notes: "p = 0.0019" with four decimals, or "p < 0.0001" for smaller values.',
+    example: 'p_text(fit.table.p[1])',
+    run: (a) => {
+      const v = a.get('p')!;
+      const text = (x: number): string => {
+        const f = formatP(x);
+        return /^[<>]/.test(f) ? `p ${f}` : `p = ${f}`;
+      };
+      if (typeof v === 'number') return text(v);
+      const col = mapNumbers(v, (x) => x);
+      if (!isColumn(col) || col.type !== 'number') return text(NaN);
+      return textColumn(Array.from(col.values, text), col.missing);
+    },
+  },
+];
