@@ -1,0 +1,76 @@
+/**
+ * A linear contrast of one factor's means: sum of w_i mean_i with weights adding to zero.
+ */
+import { tCritical, tTwoSided } from '../dist/index.ts';
+import { DesignError } from '../designs/errors.ts';
+import { messages } from '../designs/messages.ts';
+import type { DesignFit } from '../designs/types.ts';
+import { checkLevel, comparisonBasis, meansCovariance } from './basis.ts';
+
+/** Result of {@link contrast}. */
+export interface ContrastResult {
+  /** Sum of w_i mean_i. */
+  estimate: number;
+  se: number;
+  df: number;
+  t: number;
+  /** Two-sided p-value. */
+  p: number;
+  low: number;
+  high: number;
+  level: number;
+  /** The weights, in the factor's level order. */
+  weights: number[];
+  levels: string[];
+}
+
+/** Weights may add up to zero only to rounding: this much of the sum of their sizes. */
+const SUM_TOLERANCE = 1e-9;
+
+/**
+ * A contrast of the means: estimate sum w_i m_i, standard error sqrt(mse w' V w) from the
+ * fit's covariance of the means, t on the error df, and a `level` interval.
+ *
+ * @param weights - one weight per level, in the factor's level order, adding up to zero.
+ * @param factor - which factor's levels (default: the fit's treatment factor).
+ * @throws DesignError when the count of weights is wrong, they do not add up to zero, they
+ *   are all zero or not finite, or the fit has no error df.
+ */
+export function contrast(fit: DesignFit, weights: readonly number[], level = 0.95, factor?: string): ContrastResult {
+  checkLevel(level);
+  const { means, mse, df } = comparisonBasis(fit, factor);
+  const k = means.levels.length;
+  if (weights.length !== k) throw new DesignError(messages.weightsCount(weights.length, k, means.factor));
+  let sum = 0;
+  let size = 0;
+  for (const w of weights) {
+    if (!Number.isFinite(w)) throw new DesignError(messages.weightsNotFinite());
+    sum += w;
+    size += Math.abs(w);
+  }
+  if (size === 0) throw new DesignError(messages.weightsZero());
+  if (Math.abs(sum) > SUM_TOLERANCE * size) throw new DesignError(messages.weightsSum(sum));
+  let estimate = 0;
+  let variance = 0;
+  for (let i = 0; i < k; i++) {
+    const wi = weights[i]!;
+    estimate += wi * means.shifted_mean[i]!;
+    if (means.covariance_form === 'diagonal') variance += wi * wi * meansCovariance(means, i, i);
+    else for (let j = 0; j < k; j++) variance += wi * weights[j]! * meansCovariance(means, i, j);
+  }
+  const se = Math.sqrt(mse * variance);
+  const t = estimate / se;
+  const half = tCritical(level, df) * se;
+  return {
+    estimate,
+    se,
+    df,
+    t,
+    p: tTwoSided(t, df),
+    low: estimate - half,
+    high: estimate + half,
+    level,
+    weights: [...weights],
+    levels: [...means.levels],
+  };
+}

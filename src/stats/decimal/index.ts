@@ -1,0 +1,10 @@
+/**
+ * Exact decimal shift of numeric columns (language.md, section 5): choose an exactly
+ * representable offset from a column's decimal texts and subtract it on the digits.
+ */
+export { shiftDecimals, DecimalTextError } from './shift.ts';
+export type { DecimalShift } from './shift.ts';
+export { decimalOfDouble, exactDecimalText, roundScaledInteger } from './exact.ts';
+export type { DecimalOfDouble } from './exact.ts';
+export { readDecimal, scanDecimal, newDecimalScan } from './scan.ts';
+export type { DecimalScan, ExactDecimal } from './scan.ts';
