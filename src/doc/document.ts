@@ -87,10 +87,15 @@ export function emptyDocument(title = 'Untitled trial'): Document {
   return { bom: false, firstLine: 'furrow 1', firstEol: '\n', header: `title: ${title}\n\n`, cells: [] };
 }
 
-/** The document's text for a cell body written fresh: text, one newline, one blank line. */
+/**
+ * The document's text for a cell body written fresh: text, one line end, one blank line.
+ * Text with CRLF line ends keeps them (a CSV body read by papaparse must not end a field
+ * with a stray line feed).
+ */
 export function freshBody(text: string): string {
+  const eol = text.includes('\r\n') ? '\r\n' : '\n';
   const trimmed = text.replace(/\s+$/, '');
-  return trimmed === '' ? '\n' : `${trimmed}\n\n`;
+  return trimmed === '' ? eol : `${trimmed}${eol}${eol}`;
 }
 
 /** The body as a user sees it: without the trailing blank lines that separate cells. */

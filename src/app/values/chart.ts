@@ -6,7 +6,7 @@
 import { css, html, LitElement, nothing, type PropertyValues } from 'lit';
 import type { Chart } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
-import { cleanSpec, collectingLogger, lockedLoader, safeEmbedOptions } from './chart-safety.ts';
+import { cleanSpec, collectingLogger, lockedLoader, safeEmbedOptions, type SpecObject } from './chart-safety.ts';
 
 type Phase = 'idle' | 'loading' | 'drawn' | 'failed';
 
@@ -31,8 +31,10 @@ export class FurrowChart extends LitElement {
   declare private failure: string | null;
 
   private embedded: Embedded | null = null;
+  /** The cleaned spec of the current value (null: none, or not drawable). */
+  private spec: SpecObject | null = null;
   // Each draw takes a number; a draw that finishes after a newer one began is thrown away.
-  private drawn = 0;
+  private ticket = 0;
 
   constructor() {
     super();
@@ -89,19 +91,39 @@ export class FurrowChart extends LitElement {
     `,
   ];
 
+  protected override willUpdate(changed: PropertyValues<this>): void {
+    // Reset in the same update that brings the new value, so the old chart's warnings and
+    // failure never stand under the new one.
+    if (changed.has('value')) {
+      this.ticket++;
+      this.release();
+      this.messages = [];
+      this.failure = null;
+      this.spec = this.value === null ? null : cleanSpec(this.value.spec);
+      if (this.value === null) this.phase = 'idle';
+      else if (this.spec === null) {
+        this.phase = 'failed';
+        this.failure = 'This chart cannot be drawn: its description is not plain data.';
+      } else this.phase = 'loading';
+    }
+  }
+
   protected override updated(changed: PropertyValues<this>): void {
-    if (changed.has('value')) void this.draw();
+    if (changed.has('value') && this.spec !== null) void this.draw(this.ticket, this.spec);
   }
 
   override connectedCallback(): void {
     super.connectedCallback();
     // Moved in the page (disconnected and connected again): draw afresh.
-    if (this.hasUpdated && this.embedded === null && this.value !== null) void this.draw();
+    if (this.hasUpdated && this.embedded === null && this.spec !== null) {
+      this.ticket++;
+      void this.draw(this.ticket, this.spec);
+    }
   }
 
   override disconnectedCallback(): void {
     super.disconnectedCallback();
-    this.drawn++;
+    this.ticket++;
     this.release();
   }
 
@@ -117,36 +139,19 @@ export class FurrowChart extends LitElement {
     }
   }
 
-  private async draw(): Promise<void> {
-    const ticket = ++this.drawn;
-    this.release();
-    this.messages = [];
-    this.failure = null;
-    const value = this.value;
-    if (value === null) {
-      this.phase = 'idle';
-      return;
-    }
-    const spec = cleanSpec(value.spec);
-    if (spec === null) {
-      this.phase = 'failed';
-      this.failure = 'This chart cannot be drawn: its description is not plain data.';
-      return;
-    }
-    this.phase = 'loading';
-    await this.updateComplete;
+  private async draw(ticket: number, spec: SpecObject): Promise<void> {
     const frame = this.renderRoot.querySelector<HTMLElement>('.frame');
-    if (frame === null || ticket !== this.drawn) return;
+    if (frame === null) return;
     try {
       const [embedModule, interpreter] = await Promise.all([import('vega-embed'), import('vega-interpreter')]);
-      if (ticket !== this.drawn) return;
+      if (ticket !== this.ticket) return;
       const logger = collectingLogger(() => {
-        if (ticket === this.drawn) this.messages = [...logger.messages];
+        if (ticket === this.ticket) this.messages = [...logger.messages];
       });
       const options = safeEmbedOptions(lockedLoader(embedModule.vega.loader()), logger, interpreter.expressionInterpreter);
       // The element itself, not a selector: selectors do not reach into shadow roots.
       const result = await embedModule.default(frame, spec as Parameters<typeof embedModule.default>[1], options);
-      if (ticket !== this.drawn) {
+      if (ticket !== this.ticket) {
         result.finalize();
         return;
       }
@@ -154,7 +159,7 @@ export class FurrowChart extends LitElement {
       this.messages = [...logger.messages];
       this.phase = 'drawn';
     } catch (err) {
-      if (ticket !== this.drawn) return;
+      if (ticket !== this.ticket) return;
       this.phase = 'failed';
       this.failure = `This chart could not be drawn: ${err instanceof Error ? err.message : String(err)}`;
     }

@@ -72,12 +72,9 @@ export interface FitLayout {
   readonly notes: readonly string[];
   /** Tables, records and short columns shown as values under their labels. */
   readonly others: readonly ValueLine[];
-  /** Long columns (fitted values, residuals), folded away behind a disclosure. */
+  /** Columns the length of the data (fitted values, residuals), folded away behind a disclosure. */
   readonly folded: readonly ValueLine[];
 }
-
-/** Columns longer than this are folded away rather than shown open in a record. */
-export const FOLD_LENGTH = 12;
 
 // Words for the fields the contract names (language.md section 8); other fields are shown
 // under their own name with underscores read as spaces.
@@ -97,6 +94,7 @@ const LABELS: ReadonlyMap<string, string> = new Map([
   ['fitted', 'fitted values'],
   ['residuals', 'residuals'],
   ['studentized_residuals', 'studentized residuals'],
+  ['studentized', 'studentized residuals'],
   ['leverage', 'leverages'],
   ['estimate', 'estimate'],
   ['se', 'standard error'],
@@ -248,14 +246,27 @@ function notesOf(v: Value | undefined): string[] | null {
   return null;
 }
 
-/** Tukey's nonadditivity record (ss f p) in one line, or null when it is not one. */
+/**
+ * Tukey's nonadditivity record (ss f p, with df1 df2 when given) in one line, or null when
+ * it is not one.
+ */
 export function nonadditivityText(v: Value): string | null {
   if (!isRecord(v)) return null;
   const ss = v.fields.get('ss');
   const f = v.fields.get('f');
   const p = v.fields.get('p');
+  const df1 = v.fields.get('df1');
+  const df2 = v.fields.get('df2');
   if (typeof ss !== 'number' || typeof f !== 'number' || typeof p !== 'number') return null;
-  return `SS ${formatNumber(ss)}, F ${formatNumber(f, 4)}, p ${pText(p) || 'NaN'}`;
+  const dfs = typeof df1 === 'number' && typeof df2 === 'number' ? `(${formatNumber(df1)}, ${formatNumber(df2)})` : '';
+  return `SS ${formatNumber(ss)}, F${dfs} ${formatNumber(f, 4)}, p ${pText(p) || 'NaN'}`;
+}
+
+/** A phrase as a sentence: capital first letter, full stop at the end. */
+function sentence(s: string): string {
+  const t = s.trim();
+  const cap = t.charAt(0).toUpperCase() + t.slice(1);
+  return /[.!?]$/.test(cap) ? cap : `${cap}.`;
 }
 
 // Fields that the fit layout draws in its own place.
@@ -279,12 +290,13 @@ export function fitLayout(r: RecordValue): FitLayout {
   const anova = table !== undefined && isTable(table) ? anovaRows(table) : null;
   const meanRows = means !== undefined && isTable(means) ? meansRows(means) : null;
 
+  const method = typeof ssMethod === 'string' && ssMethod.trim() !== '' ? sentence(ssMethod) : null;
   let balance: string | null = null;
   if (balanced === true) balance = 'Balanced: every cell has the same number of observations.';
   else if (balanced === false) {
-    balance = 'Not balanced: each sum of squares is adjusted for the other factors (fitted by least squares).';
+    balance = method === null ? 'Not balanced: each sum of squares is adjusted for the other factors (fitted by least squares).' : 'Not balanced (unequal or missing cells).';
   }
-  if (typeof ssMethod === 'string' && ssMethod !== '') balance = balance === null ? `Sums of squares: ${ssMethod}.` : `${balance} Sums of squares: ${ssMethod}.`;
+  if (method !== null) balance = balance === null ? method : `${balance} ${method}`;
 
   const scalars: ScalarLine[] = [];
   const others: ValueLine[] = [];
@@ -310,7 +322,8 @@ export function fitLayout(r: RecordValue): FitLayout {
       }
     }
     const line = { field, label: fieldLabel(field), value: v };
-    if (isColumn(v) && v.values.length > FOLD_LENGTH) folded.push(line);
+    // a fit's columns (fitted values, residuals) run the length of the data: fold them all
+    if (isColumn(v)) folded.push(line);
     else others.push(line);
   }
 

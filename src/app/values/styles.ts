@@ -31,6 +31,7 @@ export const tableStyles = css`
     padding-left: 0.15rem;
   }
   thead th {
+    vertical-align: bottom;
     font-weight: 600;
     font-size: 0.78rem;
     color: var(--ink-soft);

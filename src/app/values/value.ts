@@ -28,6 +28,9 @@ export function tableSummary(t: Table): string {
   return `${t.rows.toLocaleString('en')} ${t.rows === 1 ? 'row' : 'rows'}, ${cols} ${cols === 1 ? 'column' : 'columns'}`;
 }
 
+/** In a record, columns longer than this are folded behind a disclosure. */
+export const FOLD_COLUMN = 12;
+
 /** One value, drawn by its type. */
 export class FurrowValue extends LitElement {
   static override properties = {
@@ -124,12 +127,12 @@ export class FurrowValue extends LitElement {
         font-size: 0.8rem;
         color: var(--ink-soft);
       }
-      table.anova tr.total td,
-      table.anova tr.total th {
+      table.anova tr.role-total td,
+      table.anova tr.role-total th {
         border-top: 1px solid var(--rule-strong);
       }
-      table.anova tr.error th,
-      table.anova tr.total th {
+      table.anova tr.role-error th,
+      table.anova tr.role-total th {
         color: var(--ink-soft);
       }
       th.group {
@@ -161,6 +164,11 @@ export class FurrowValue extends LitElement {
         display: grid;
         gap: 0.2rem;
         max-width: 100%;
+      }
+      code.path {
+        font-family: var(--font-code);
+        font-size: 0.78rem;
+        color: var(--ink-soft);
       }
       .part > .label code {
         font-family: var(--font-code);
@@ -232,6 +240,7 @@ export class FurrowValue extends LitElement {
   }
 
   private renderColumn(c: Column): TemplateResult {
+    if (columnLength(c) === 0) return html`<span class="quiet">an empty column</span>`;
     const header = c.name ?? this.name ?? 'value';
     return html`<p class="summary">${columnSummary(c)}</p>
       <furrow-grid .columns=${[c]} .names=${[header]} label=${header}></furrow-grid>`;
@@ -263,8 +272,10 @@ export class FurrowValue extends LitElement {
   }
 
   private renderPart(line: ValueLine): TemplateResult {
+    // a field without words of its own is labelled by the name a formula reaches it by
+    const label = line.label === line.field ? html`<code class="path">${this.path(line.field)}</code>` : html`<span class="label">${line.label} <code>${this.path(line.field)}</code></span>`;
     return html`<div class="part">
-      <span class="label">${line.label}${line.label !== line.field ? html` <code>${this.path(line.field)}</code>` : nothing}</span>
+      ${label}
       <furrow-value .value=${line.value} name=${this.path(line.field)}></furrow-value>
     </div>`;
   }
@@ -272,8 +283,9 @@ export class FurrowValue extends LitElement {
   private renderFolded(line: ValueLine): TemplateResult {
     const v = line.value;
     const size = typeof v === 'object' && v.kind === 'column' ? ` (${columnSummary(v)})` : '';
+    const path = html`<code class="path">${this.path(line.field)}</code>`;
     return html`<details>
-      <summary>${line.label}${size} <code style="font-family:var(--font-code);font-size:0.75rem;color:var(--muted)">${this.path(line.field)}</code></summary>
+      <summary>${line.label === line.field ? html`${path}${size}` : html`${line.label}${size} ${path}`}</summary>
       <furrow-value .value=${v} name=${this.path(line.field)}></furrow-value>
     </details>`;
   }
@@ -301,7 +313,7 @@ export class FurrowValue extends LitElement {
               </thead>
               <tbody>
                 ${f.anova.map(
-                  (row) => html`<tr class=${row.role}>
+                  (row) => html`<tr class="role-${row.role}">
                     <th scope="row">${row.source}</th>
                     <td class="num">${row.df}</td>
                     <td class="num">${row.ss}</td>
@@ -397,8 +409,10 @@ export class FurrowValue extends LitElement {
     const scalars: ScalarLine[] = [];
     const parts: TemplateResult[] = [];
     for (const l of lines) {
+      const v = l.value;
       if (l.text !== null) scalars.push({ field: l.field, label: l.field, text: l.text });
-      else parts.push(this.renderPart({ field: l.field, label: l.field, value: l.value }));
+      else if (typeof v === 'object' && v.kind === 'column' && columnLength(v) > FOLD_COLUMN) parts.push(this.renderFolded({ field: l.field, label: l.field, value: v }));
+      else parts.push(this.renderPart({ field: l.field, label: l.field, value: v }));
     }
     return html`<section class="record">${this.renderScalars(scalars)} ${parts}</section>`;
   }

@@ -1,0 +1,64 @@
+/**
+ * What is wrong with a formula, as the view shows it: the parser's error (worked out in the
+ * page on every change, so it follows the typing) or else the error the worker reported for
+ * the last evaluation. Each problem has the character range it is about, so the editor can
+ * underline the exact characters, and a message in plain words for below the editor.
+ */
+import type { ErrorValue } from '../../src/lang/values.ts';
+import type { CellViewState } from '../view-api.ts';
+import { parseFormula } from './model.ts';
+
+/** One problem with a formula. */
+export interface FormulaProblem {
+  /** Character range in the visible text, clamped to it. */
+  readonly from: number;
+  readonly to: number;
+  readonly message: string;
+  /** 'parse': the text does not read; 'evaluation': it reads but fails; 'upstream': a name it reads failed. */
+  readonly source: 'parse' | 'evaluation' | 'upstream';
+}
+
+/** The name a formula defines and its parse error, for one text (the last one is kept). */
+export interface ParsedFormula {
+  readonly text: string;
+  readonly name: string | null;
+  readonly problem: FormulaProblem | null;
+}
+
+let lastParsed: ParsedFormula | null = null;
+
+function clampRange(from: number, to: number, length: number): { from: number; to: number } {
+  const f = Math.max(0, Math.min(length, Number.isFinite(from) ? Math.floor(from) : 0));
+  const t = Math.max(f, Math.min(length, Number.isFinite(to) ? Math.floor(to) : f));
+  return { from: f, to: t };
+}
+
+/**
+ * Parses a formula's visible text. The last result is kept: the editor's underline and the
+ * message below it ask about the same text after every keystroke.
+ */
+export function parseVisible(text: string): ParsedFormula {
+  if (lastParsed !== null && lastParsed.text === text) return lastParsed;
+  const { statement, error } = parseFormula(text);
+  const problem = error === null ? null : { ...clampRange(error.from, error.to, text.length), message: error.message, source: 'parse' as const };
+  lastParsed = { text, name: statement?.name ?? null, problem };
+  return lastParsed;
+}
+
+/**
+ * The problems to show for `text`.
+ *
+ * @param evaluated - the text the worker evaluated when it produced `state`, or null when
+ *   that is not known to be the text shown; the evaluation's error is shown only when it
+ *   was about this very text, since its offsets mean nothing in another.
+ */
+export function formulaProblems(text: string, state: CellViewState | null, evaluated: string | null): FormulaProblem[] {
+  // a cell still being written is not an error yet
+  if (text.trim() === '') return [];
+  const parsed = parseVisible(text);
+  if (parsed.problem !== null) return [parsed.problem];
+  if (state === null || evaluated !== text) return [];
+  const e: ErrorValue | null = state.error;
+  if (e === null || (state.status !== 'error' && state.status !== 'upstream')) return [];
+  return [{ ...clampRange(e.from, e.to, text.length), message: e.message, source: e.upstream === null && state.status !== 'upstream' ? 'evaluation' : 'upstream' }];
+}

@@ -1,0 +1,337 @@
+// @vitest-environment happy-dom
+import { afterEach, describe, expect, it } from 'vitest';
+import { EDIT_EVENT, type CellViewState, type EditEventDetail } from '../../../cells/view-api.ts';
+import { TableCellView } from '../../../cells/table/view.ts';
+import { gridMsg } from '../../../cells/table/grid-messages.ts';
+import { tableFromGrid } from '../../../cells/table/model.ts';
+import { parseCsv } from '../../../src/doc/csv.ts';
+import type { Cell } from '../../../src/doc/document.ts';
+import { msg } from '../../../src/lang/messages.ts';
+
+const TREES = 'row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n2,open,40.1\n\n';
+
+interface Mounted {
+  el: TableCellView;
+  edits: EditEventDetail[];
+  root: ShadowRoot;
+}
+
+async function mount(cell: Cell, state: CellViewState | null = null): Promise<Mounted> {
+  const el = document.createElement('furrow-table-cell');
+  const edits: EditEventDetail[] = [];
+  el.addEventListener(EDIT_EVENT, (e) => edits.push((e as CustomEvent<EditEventDetail>).detail));
+  el.cell = cell;
+  el.state = state;
+  el.catalogue = { builtins: [], cells: [{ name: 'fit', type: 'record', members: [] }] };
+  document.body.append(el);
+  await el.updateComplete;
+  return { el, edits, root: el.shadowRoot! };
+}
+
+/** Does what the shell does with an edit: hands the view the cell with the new body. */
+async function echo(m: Mounted, cell: Cell): Promise<Cell> {
+  const last = m.edits[m.edits.length - 1]!.edit;
+  const next = last.type === 'body' ? { ...cell, body: last.body } : last.type === 'marker' ? { ...cell, marker: last.marker } : cell;
+  m.el.cell = next;
+  await m.el.updateComplete;
+  return next;
+}
+
+function key(target: EventTarget, k: string, mods: KeyboardEventInit = {}): void {
+  target.dispatchEvent(new KeyboardEvent('keydown', { key: k, bubbles: true, composed: true, cancelable: true, ...mods }));
+}
+
+function fieldText(root: ShadowRoot, r: number, c: number): string | null {
+  return root.querySelector(`#f-${r}-${c}`)?.textContent ?? null;
+}
+
+afterEach(() => {
+  document.body.innerHTML = '';
+});
+
+describe('<furrow-table-cell>', () => {
+  it('shows the name, the counts and the fields, numbers right-aligned and missing as a dot', async () => {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: 'row,method,yield_kg\n1,open,41.20\n1,,38.9\n\n' });
+    expect(m.root.querySelector<HTMLInputElement>('.table-name')!.value).toBe('trees');
+    expect(m.root.querySelector('.counts')!.textContent).toBe('2 rows · 3 columns');
+    expect(fieldText(m.root, 0, 2)).toBe('41.20');
+    expect(m.root.querySelector('#f-0-2')!.classList.contains('num')).toBe(true);
+    expect(m.root.querySelector('#f-1-1')!.textContent).toBe('·');
+    expect(m.root.querySelector('#f-1-1')!.getAttribute('title')).toBe(gridMsg.missingField());
+  });
+
+  it('typing over a field and pressing Enter sends the new CSV as one body edit with a merge key', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowDown');
+    key(grid, 'ArrowRight');
+    key(grid, 'ArrowRight');
+    await m.el.updateComplete;
+    key(grid, '3');
+    await m.el.updateComplete;
+    const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+    expect(ta).not.toBeNull();
+    expect(ta.value).toBe('3');
+    ta.value = '39.5';
+    key(ta, 'Enter');
+    await m.el.updateComplete;
+    expect(m.edits).toHaveLength(1);
+    const d = m.edits[0]!;
+    expect(d.edit).toEqual({ type: 'body', id: 'c1', body: 'row,method,yield_kg\n1,open,41.2\n1,spindle,39.5\n2,open,40.1\n\n' });
+    expect(d.mergeKey).toBe('field:c1:1:2');
+    expect(m.root.querySelector('textarea.editor')).toBeNull();
+    // the shell hands the body back: shown as is, nothing sent again
+    await echo(m, cell);
+    expect(fieldText(m.root, 1, 2)).toBe('39.5');
+    expect(m.edits).toHaveLength(1);
+    // Enter moved the selection down
+    expect(m.root.querySelector('.at')!.id).toBe('f-2-2');
+  });
+
+  it('a field with a comma is quoted on write; a decimal comma is marked with its reason', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowRight');
+    key(grid, 'ArrowRight');
+    await m.el.updateComplete;
+    key(grid, 'F2');
+    await m.el.updateComplete;
+    const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+    expect(ta.value).toBe('41.2');
+    ta.value = '12,5';
+    key(ta, 'Tab');
+    await echo(m, cell);
+    expect((m.edits[0]!.edit as { body: string }).body).toBe('row,method,yield_kg\n1,open,"12,5"\n1,spindle,38.9\n2,open,40.1\n\n');
+    const f = m.root.querySelector('#f-0-2')!;
+    expect(f.classList.contains('bad')).toBe(true);
+    expect(f.getAttribute('title')).toBe('"12,5" is not a number; the column yield_kg holds numbers (use a point for decimals)');
+    expect(m.root.querySelector('#h-2 .bad-count')!.textContent).toBe('1 not a number');
+  });
+
+  it('Escape cancels an edit; Delete clears the selection', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'x');
+    await m.el.updateComplete;
+    key(m.root.querySelector('textarea.editor')!, 'Escape');
+    await m.el.updateComplete;
+    expect(m.edits).toHaveLength(0);
+    key(grid, 'ArrowRight', { shiftKey: true });
+    key(grid, 'ArrowDown', { shiftKey: true });
+    key(grid, 'Delete');
+    await m.el.updateComplete;
+    expect((m.edits[0]!.edit as { body: string }).body).toBe('row,method,yield_kg\n,,41.2\n,,38.9\n2,open,40.1\n\n');
+  });
+
+  it('pastes a three-column block from a spreadsheet as three columns, growing the table', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowDown', { ctrlKey: true });
+    await m.el.updateComplete;
+    const ev = new Event('paste', { bubbles: true, cancelable: true }) as ClipboardEvent;
+    Object.defineProperty(ev, 'clipboardData', { value: { getData: () => '3\tvase\t37.0\r\n3\topen\t42.8\r\n' } });
+    grid.dispatchEvent(ev);
+    await m.el.updateComplete;
+    expect((m.edits[0]!.edit as { body: string }).body).toBe('row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n3,vase,37.0\n3,open,42.8\n\n');
+    expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.pasted(2, 3, 1, 0));
+  });
+
+  it('copies the selection as tab-separated text', async () => {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: TREES });
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowRight', { shiftKey: true });
+    key(grid, 'ArrowDown', { shiftKey: true });
+    let copied = '';
+    const ev = new Event('copy', { bubbles: true, cancelable: true }) as ClipboardEvent;
+    Object.defineProperty(ev, 'clipboardData', { value: { setData: (_t: string, s: string) => (copied = s) } });
+    grid.dispatchEvent(ev);
+    expect(copied).toBe('1\topen\n1\tspindle');
+  });
+
+  it('renames a column through its name; a duplicate is refused in place with the reason', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowUp');
+    await m.el.updateComplete;
+    key(grid, 'F2');
+    await m.el.updateComplete;
+    const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+    expect(ta.value).toBe('row');
+    ta.value = 'method';
+    key(ta, 'Enter');
+    await m.el.updateComplete;
+    expect(m.edits).toHaveLength(0);
+    expect(m.root.querySelector('.editor-problem')!.textContent).toBe(gridMsg.columnNameTaken('method', 2));
+    const ta2 = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+    ta2.value = 'orchard_row';
+    key(ta2, 'Enter');
+    await m.el.updateComplete;
+    expect((m.edits[0]!.edit as { body: string }).body).toBe('orchard_row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n2,open,40.1\n\n');
+  });
+
+  it('renames the table with a marker edit, refusing a name that is not plain', async () => {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: TREES });
+    const input = m.root.querySelector<HTMLInputElement>('.table-name')!;
+    input.value = '2021 trial';
+    key(input, 'Enter');
+    await m.el.updateComplete;
+    expect(m.edits).toHaveLength(0);
+    expect(m.root.querySelector('.line.problem')!.textContent).toBe(msg.badTableName('2021 trial'));
+    input.value = 'fit';
+    key(input, 'Enter');
+    await m.el.updateComplete;
+    expect(m.root.querySelector('.line.problem')!.textContent).toBe(gridMsg.tableNameTaken('fit'));
+    input.value = 'pear_trees';
+    key(input, 'Enter');
+    expect(m.edits.map((d) => d.edit)).toEqual([{ type: 'marker', id: 'c1', marker: 'table pear_trees' }]);
+  });
+
+  it('adds rows and columns with the shortcuts, new columns named column_N', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: 'a,b\n1,2\n\n' };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowRight', { altKey: true, shiftKey: true });
+    const c1 = await echo(m, cell);
+    expect((m.edits[0]!.edit as { body: string }).body).toBe('a,column_2,b\n1,,2\n\n');
+    key(grid, 'ArrowDown', { altKey: true, shiftKey: true });
+    await echo(m, c1);
+    expect((m.edits[1]!.edit as { body: string }).body).toBe('a,column_2,b\n,,\n1,,2\n\n');
+  });
+
+  it('takes a new body from outside (undo) without sending anything, keeping its own echoes', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    m.el.cell = { ...cell, body: 'row,method,yield_kg\n9,vase,30\n\n' };
+    await m.el.updateComplete;
+    expect(fieldText(m.root, 0, 0)).toBe('9');
+    expect(m.root.querySelector('.counts')!.textContent).toBe('1 row · 3 columns');
+    expect(m.edits).toHaveLength(0);
+  });
+
+  it('an older edit of its own coming back late does not undo a newer one on screen', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowRight');
+    key(grid, 'ArrowRight');
+    await m.el.updateComplete;
+    for (const v of ['50', '51']) {
+      key(grid, v[0]!);
+      await m.el.updateComplete;
+      const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+      ta.value = v;
+      key(ta, 'Enter', { ctrlKey: true });
+      await m.el.updateComplete;
+    }
+    expect(m.edits).toHaveLength(2);
+    // the shell hands back the first body only now
+    m.el.cell = { ...cell, body: (m.edits[0]!.edit as { body: string }).body };
+    await m.el.updateComplete;
+    expect(fieldText(m.root, 0, 2)).toBe('51');
+    m.el.cell = { ...cell, body: (m.edits[1]!.edit as { body: string }).body };
+    await m.el.updateComplete;
+    expect(fieldText(m.root, 0, 2)).toBe('51');
+    expect(m.edits).toHaveLength(2);
+  });
+
+  it('sends undo and redo to the page and keeps the key from reaching it twice', async () => {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: TREES });
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    const seen: string[] = [];
+    document.addEventListener('furrow-undo', () => seen.push('undo'));
+    document.addEventListener('furrow-redo', () => seen.push('redo'));
+    let reachedWindow = 0;
+    const onWin = (): void => {
+      reachedWindow++;
+    };
+    window.addEventListener('keydown', onWin);
+    key(grid, 'z', { ctrlKey: true });
+    key(grid, 'z', { ctrlKey: true, shiftKey: true });
+    key(grid, 'y', { metaKey: true });
+    window.removeEventListener('keydown', onWin);
+    expect(seen).toEqual(['undo', 'redo', 'redo']);
+    expect(reachedWindow).toBe(0);
+  });
+
+  it('lets Tab leave the grid at its last field', async () => {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: 'a,b\n1,2\n\n' });
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowDown');
+    const first = new KeyboardEvent('keydown', { key: 'Tab', bubbles: true, cancelable: true });
+    grid.dispatchEvent(first);
+    expect(first.defaultPrevented).toBe(true);
+    const last = new KeyboardEvent('keydown', { key: 'Tab', bubbles: true, cancelable: true });
+    grid.dispatchEvent(last);
+    expect(last.defaultPrevented).toBe(false);
+  });
+
+  it('refuses to delete every column, saying why', async () => {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: 'a,b\n1,2\n\n' });
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'a', { ctrlKey: true });
+    key(grid, 'C', { altKey: true, shiftKey: true, code: 'KeyC' });
+    await m.el.updateComplete;
+    expect(m.edits).toHaveLength(0);
+    expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.lastColumn());
+    key(grid, 'R', { altKey: true, shiftKey: true, code: 'KeyR' });
+    expect((m.edits[0]!.edit as { body: string }).body).toBe('a,b\n\n');
+  });
+
+  it('shows a body that does not read as its text with the reason, and sends edits of the text', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: 'block,trt,y\n1,a,10\n1,b\n\n' };
+    const m = await mount(cell);
+    expect(m.root.querySelector('.scroller')).toBeNull();
+    const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.raw-text')!;
+    expect(ta.value).toBe('block,trt,y\n1,a,10\n1,b');
+    expect(m.root.querySelector('.raw .problem')!.textContent).toContain(msg.raggedRow(2, 2, 3));
+    expect(m.root.querySelector('.raw .problem code')!.textContent).toBe('1,b');
+    ta.value = 'block,trt,y\n1,a,10\n1,b,12';
+    ta.dispatchEvent(new Event('input', { bubbles: true }));
+    await m.el.updateComplete;
+    expect(m.edits[0]).toEqual({ edit: { type: 'body', id: 'c1', body: 'block,trt,y\n1,a,10\n1,b,12\n\n' }, mergeKey: 'text:c1' });
+    await echo(m, cell);
+    // still the text (the user is mending it), now saying it reads again
+    expect(m.root.querySelector('.raw .line')!.textContent).toBe(gridMsg.rawReadsAgain(2, 3));
+  });
+
+  it('shows a table read from a file read-only, from its value', async () => {
+    const value = tableFromGrid(parseCsv('plot,yield_kg\n1,41.20\n2,\n'));
+    const state: CellViewState = { status: 'ok', value, parts: null, warnings: [], error: null, progress: null };
+    const m = await mount({ id: 'c1', marker: 'table plots from plots.csv', eol: '\n', body: '' }, state);
+    expect(m.root.querySelector('.line.file')!.textContent).toBe(gridMsg.fileLine('plots.csv'));
+    expect(fieldText(m.root, 0, 1)).toBe('41.20');
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'x');
+    key(grid, 'Delete');
+    await m.el.updateComplete;
+    expect(m.edits).toHaveLength(0);
+    expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.readOnly('plots.csv'));
+  });
+
+  it('imports a CSV file when it reads as a table, and says why not otherwise', async () => {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: TREES });
+    await m.el.importFile(Object.assign(new Blob(['\uFEFFplot,y\r\n1,2\r\n1,3\r\n']), { name: 'bench.csv' }));
+    // the file's own line ends kept, with the blank line after it in the same line end
+    expect(m.edits[0]!.edit).toEqual({ type: 'body', id: 'c1', body: 'plot,y\r\n1,2\r\n1,3\r\n\r\n' });
+    expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.imported('bench.csv', 2, 2));
+    expect(fieldText(m.root, 1, 1)).toBe('3');
+    await m.el.importFile(Object.assign(new Blob(['plot,plot\n1,2\n']), { name: 'bad.csv' }));
+    expect(m.edits).toHaveLength(1);
+    expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.importFailed('bad.csv', msg.duplicateHeader('plot', 1, 2)));
+  });
+
+  it('draws only the rows in the window of a long table', async () => {
+    const lines = ['plot,y'];
+    for (let i = 0; i < 100_000; i++) lines.push(`${i + 1},${(i % 97) / 10}`);
+    const m = await mount({ id: 'c1', marker: 'table big', eol: '\n', body: `${lines.join('\n')}\n\n` });
+    const drawn = m.root.querySelectorAll('.rows .row').length;
+    expect(drawn).toBeGreaterThan(0);
+    expect(drawn).toBeLessThanOrEqual(60);
+    expect(m.root.querySelector<HTMLElement>('.body')!.style.height).toBe(`${100_000 * 26}px`);
+  });
+});
