@@ -17,7 +17,7 @@ import { DocumentError, readDocument, writeDocument } from '../doc/format.ts';
 import { isPlainName } from '../lang/lexer.ts';
 import { Autosaver, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
-import { fileNameFor, pickFile, saveText } from './files.ts';
+import { fileNameFor, pickFile, readFileText, saveText } from './files.ts';
 import { DocumentStore } from './store.ts';
 import { shared } from './theme.ts';
 
@@ -91,6 +91,16 @@ export class FurrowApp extends LitElement {
   private savedToFile = true;
   private saveProblem: string | null = null;
   private samples: ReadonlyMap<string, string> = new Map();
+  /**
+   * Cells on screen (or near it). A wave of new values renders these first; cells off
+   * screen keep the state they were last drawn with until the next frame, so that an edit
+   * in a long document shows its visible consequences at once.
+   */
+  private readonly onScreen = new Set<string>();
+  private readonly drawn = new Map<string, CellViewState | null>();
+  private catchUp = false;
+  private catchUpScheduled = false;
+  private observer: IntersectionObserver | null = null;
 
   constructor() {
     super();
@@ -155,6 +165,8 @@ export class FurrowApp extends LitElement {
     this.addEventListener('furrow-redo', this.onRedo);
     window.addEventListener('keydown', this.onKeydown);
     window.addEventListener('pagehide', this.onPageHide);
+    window.addEventListener('dragover', this.onDragOver);
+    window.addEventListener('drop', this.onDrop);
   }
 
   override disconnectedCallback(): void {
@@ -164,7 +176,39 @@ export class FurrowApp extends LitElement {
     this.removeEventListener('furrow-redo', this.onRedo);
     window.removeEventListener('keydown', this.onKeydown);
     window.removeEventListener('pagehide', this.onPageHide);
+    window.removeEventListener('dragover', this.onDragOver);
+    window.removeEventListener('drop', this.onDrop);
   }
+
+  private readonly onDragOver = (e: DragEvent): void => {
+    if (e.dataTransfer?.types.includes('Files')) e.preventDefault();
+  };
+
+  /** A dropped .furrow file opens (nothing is lost if it is not a document); a .csv is attached. */
+  private readonly onDrop = (e: DragEvent): void => {
+    const file = e.dataTransfer?.files[0];
+    if (file === undefined) return;
+    // a drop onto a table's grid is the grid's own import
+    if (e.composedPath().some((t) => t instanceof HTMLElement && t.tagName === 'FURROW-TABLE-CELL')) return;
+    e.preventDefault();
+    void readFileText(file).then(
+      (text) => {
+        if (/\.csv$/i.test(file.name)) {
+          this.files.set(file.name, text);
+          this.bridge.files([[file.name, text]]);
+          this.bridge.update(this.doc, this.doc.cells.filter((c) => parseMarker(c.marker).file === file.name).map((c) => c.id));
+          this.scheduleSave();
+          this.banner = { kind: 'info', text: `Attached ${file.name}.` };
+          return;
+        }
+        if (!this.confirmReplace()) return;
+        if (this.openText(text, file.name)) this.fileHandle = null;
+      },
+      () => {
+        this.banner = { kind: 'problem', text: `${file.name} was not opened: it is not UTF-8 text, so it is not a Furrow document. Nothing on the page was changed.` };
+      },
+    );
+  };
 
   private readonly onPageHide = (): void => {
     void this.autosaver.flush();
@@ -338,6 +382,56 @@ export class FurrowApp extends LitElement {
 
   private stateOf(cell: Cell): CellViewState | null {
     return this.bridge.state(cell.id);
+  }
+
+  /** The state to draw a cell with now (see `onScreen`). */
+  private drawState(cell: Cell): CellViewState | null {
+    const latest = this.bridge.state(cell.id);
+    if (this.catchUp || this.onScreen.has(cell.id) || !this.drawn.has(cell.id)) {
+      this.drawn.set(cell.id, latest);
+      return latest;
+    }
+    const old = this.drawn.get(cell.id)!;
+    if (old !== latest) this.scheduleCatchUp();
+    return old;
+  }
+
+  private scheduleCatchUp(): void {
+    if (this.catchUpScheduled) return;
+    this.catchUpScheduled = true;
+    // after this frame is painted, draw the rest
+    requestAnimationFrame(() =>
+      setTimeout(() => {
+        this.catchUpScheduled = false;
+        this.catchUp = true;
+        this.requestUpdate();
+        void this.updateComplete.then(() => {
+          this.catchUp = false;
+        });
+      }, 0),
+    );
+  }
+
+  override updated(): void {
+    if (this.observer === null) {
+      this.observer = new IntersectionObserver(
+        (entries) => {
+          for (const e of entries) {
+            const id = (e.target as HTMLElement).dataset.cell;
+            if (id === undefined) continue;
+            if (e.isIntersecting) {
+              this.onScreen.add(id);
+              if (this.drawn.get(id) !== this.bridge.state(id)) this.requestUpdate();
+            } else this.onScreen.delete(id);
+          }
+        },
+        { rootMargin: '300px 0px' },
+      );
+    }
+    for (const sec of this.renderRoot.querySelectorAll<HTMLElement>('section.cell:not([data-watched])')) {
+      sec.dataset.watched = '';
+      this.observer.observe(sec);
+    }
   }
 
   private summary(): string {
@@ -688,12 +782,12 @@ export class FurrowApp extends LitElement {
 
   private renderCell(cell: Cell, index: number, catalogue: ReturnType<EvaluationBridge['catalogue']>) {
     const m = parseMarker(cell.marker);
-    const state = this.stateOf(cell);
+    const state = this.drawState(cell);
     const status = state?.status ?? 'pending';
     const view = CELL_VIEWS.get(m.kind);
     const name = cellName(cell);
     const upstreamName = status === 'upstream' ? (state?.error?.upstream ?? null) : null;
-    return html`<section class="cell ${status}" data-cell=${cell.id} data-kind=${m.kind} data-status=${status} aria-label="${m.kind} ${name ?? ''}">
+    return html`<section class="cell ${status}" data-cell=${cell.id} data-kind=${m.kind} data-name=${name ?? ''} data-status=${status} aria-label="${m.kind} ${name ?? ''}">
       <div class="margin">
         <span class="kind">${m.kind || 'cell'}</span>
         ${m.kind === 'table' || m.kind === 'formula'

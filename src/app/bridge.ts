@@ -17,6 +17,9 @@ export interface BridgeEvents {
 /** Creates the worker; separated so tests can give a fake. */
 export type WorkerFactory = () => Worker;
 
+/** How long an evaluation may take before its cells are shown as re-evaluating. */
+export const PENDING_DELAY_MS = 80;
+
 const defaultWorker: WorkerFactory = () => new Worker(new URL('./worker.ts', import.meta.url), { type: 'module', name: 'furrow-evaluation' });
 
 export class EvaluationBridge {
@@ -65,7 +68,6 @@ export class EvaluationBridge {
   /** Sends a new version of the document; `edited` are the cells whose text changed. */
   update(doc: Document, edited: Iterable<string> | 'all' = 'all'): void {
     const seq = ++this.seq;
-    const changed = new Set<string>();
     const start = edited === 'all' ? doc.cells.map((c) => c.id) : [...edited];
     // everything downstream of an edited cell may change: mark it at once
     const queue = [...start];
@@ -76,15 +78,21 @@ export class EvaluationBridge {
       seen.add(id);
       for (const r of this.readers.get(id) ?? []) queue.push(r);
     }
-    for (const id of seen) {
-      const old = this.states.get(id);
-      this.pending.set(id, seq);
-      this.states.set(id, { status: 'pending', value: old?.value ?? null, parts: old?.parts ?? null, warnings: old?.warnings ?? [], error: old?.error ?? null, progress: null });
-      changed.add(id);
-    }
+    for (const id of seen) this.pending.set(id, seq);
     this.lastDoc = doc;
     this.post({ type: 'update', seq, doc });
-    if (changed.size > 0) this.events.onStates(changed);
+    // Say "re-evaluating" only when the answer is slow to come: a quick evaluation then
+    // shows its new values without the page flickering through a pending state first.
+    setTimeout(() => {
+      const changed = new Set<string>();
+      for (const id of seen) {
+        if (this.pending.get(id) !== seq) continue;
+        const old = this.states.get(id);
+        this.states.set(id, { status: 'pending', value: old?.value ?? null, parts: old?.parts ?? null, warnings: old?.warnings ?? [], error: old?.error ?? null, progress: null });
+        changed.add(id);
+      }
+      if (changed.size > 0) this.events.onStates(changed);
+    }, PENDING_DELAY_MS);
   }
 
   /** Resolves when the worker has answered every update sent so far. */

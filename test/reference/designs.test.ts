@@ -97,7 +97,7 @@ describe('a lost plot: least squares against Yates (references.md section 4; sta
     printed(ss[0], '172.2159');
     printed((col(t, 'f') as Float64Array)[0], '8.869');
     expect(fit.fields.get('balanced')).toBe(false);
-    const notes = Array.from((fit.fields.get('notes') as { values: string[] }).values).join(' ');
+    const notes = Array.from((fit.fields.get('notes') as unknown as { values: readonly string[] }).values).join(' ');
     expect(notes).toMatch(/no plot for treatment 8900/);
     expect(states[1]!.warnings.join(' ')).toMatch(/1 row with a missing value was left out/);
   });

@@ -1,0 +1,406 @@
+// The browser tests: the notebook in Debian's Chromium, driven as a user drives it.
+//   npm run e2e                 build, serve with vite preview, run every test
+//   npm run e2e -- --no-build   reuse dist/
+//   npm run e2e -- --json FILE  also write {passed, failed, results} to FILE
+import { readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
+import { cpus } from 'node:os';
+import { join } from 'node:path';
+import { gzipSync } from 'node:zlib';
+import { check, runTests } from './harness.mjs';
+
+const args = process.argv.slice(2);
+const jsonAt = args.indexOf('--json');
+const json = jsonAt >= 0 ? args[jsonAt + 1] : null;
+const build = !args.includes('--no-build');
+
+/** The text a cell shows, through shadow roots. */
+async function cellText(page, name) {
+  return page.evaluate((n) => {
+    const sec = document.querySelector('furrow-app').shadowRoot.querySelector(`section[data-name="${n}"]`);
+    if (!sec) return null;
+    const walk = (node) => {
+      let out = '';
+      for (const child of node.childNodes) {
+        if (child.nodeType === 3) out += child.textContent;
+        else if (child.nodeType === 1) {
+          if (child.shadowRoot) out += walk(child.shadowRoot);
+          out += walk(child);
+          if (/^(DIV|P|LI|TR|H\d|SECTION)$/.test(child.tagName)) out += '\n';
+          if (/^(TD|TH)$/.test(child.tagName)) out += ' ';
+        }
+      }
+      return out;
+    };
+    return walk(sec).replace(/[ \t]+/g, ' ');
+  }, name);
+}
+
+/** The text of the n-th note (0-based), through shadow roots. */
+async function noteText(page, index) {
+  return page.evaluate((i) => {
+    const notes = document.querySelector('furrow-app').shadowRoot.querySelectorAll('section[data-kind="note"] furrow-note-cell');
+    const el = notes[i];
+    return el ? el.shadowRoot.textContent.replace(/\s+/g, ' ') : null;
+  }, index);
+}
+
+async function statusOf(page, name) {
+  return page.evaluate((n) => document.querySelector('furrow-app').shadowRoot.querySelector(`section[data-name="${n}"]`)?.dataset.status ?? null, name);
+}
+
+/** Waits until the page says every cell is up to date (or has its error). */
+async function settled(page) {
+  await page.waitForFunction(() => document.querySelector('furrow-app')?.bridge !== undefined);
+  await page.evaluate(() => document.querySelector('furrow-app').settled());
+  await page.waitForFunction(() => {
+    const app = document.querySelector('furrow-app');
+    const secs = app?.shadowRoot?.querySelectorAll('section.cell');
+    return secs && secs.length > 0 && [...secs].every((s) => s.dataset.status !== 'pending');
+  });
+}
+
+/** The analysis-of-variance F of the first row, as shown in the fit cell. */
+async function shownF(page) {
+  return page.evaluate(() => {
+    const sec = document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="fit"]');
+    const value = sec.querySelector('furrow-formula-cell').shadowRoot.querySelector('furrow-value');
+    const tables = value.shadowRoot.querySelectorAll('table');
+    for (const t of tables) {
+      const head = [...t.querySelectorAll('th')].map((th) => th.textContent.trim());
+      const fi = head.indexOf('F');
+      if (fi >= 0) return t.querySelector('tbody tr').children[fi].textContent.trim();
+    }
+    return null;
+  });
+}
+
+/** A grid field of a table cell. */
+function field(page, table, r, c) {
+  return page.locator(`section[data-name="${table}"] furrow-table-cell [role="gridcell"][data-r="${r}"][data-c="${c}"]`);
+}
+
+async function openDocument(page, text, name = 'dropped.furrow') {
+  await page.evaluate(
+    ({ text, name }) => {
+      const dt = new DataTransfer();
+      dt.items.add(new File([text], name, { type: 'text/plain' }));
+      window.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    },
+    { text, name },
+  );
+}
+
+/** Figures measured on the way, written to test-output/e2e/measured.json. */
+const measured = {};
+
+const tests = [
+  {
+    name: 'opens the sample, every cell evaluated, first paint measured, screenshot saved',
+    async run({ context, base, out }) {
+      const page = await context.newPage();
+      const t0 = Date.now();
+      await page.goto(`${base}/`);
+      await page.locator('section[data-name="fit"] furrow-value').first().waitFor();
+      const visibleAt = Date.now() - t0;
+      await settled(page);
+      const paint = await page.evaluate(() => performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? null);
+      const title = await page.locator('furrow-app textarea.title').inputValue();
+      check(/lap-shear strength/.test(title), `title: ${title}`);
+      const statuses = await page.evaluate(() => [...document.querySelector('furrow-app').shadowRoot.querySelectorAll('section.cell')].map((s) => s.dataset.status));
+      check(statuses.length >= 10 && statuses.every((s) => s === 'ok'), `statuses: ${statuses.join(', ')}`);
+      check((await shownF(page)) === '18.24', `F shown: ${await shownF(page)}`);
+      check(/Caution/i.test(await page.locator('furrow-app .caution').innerText()), 'caution line shown');
+      await page.screenshot({ path: `${out}/sample-page.png`, fullPage: true });
+      await page.screenshot({ path: `${out}/sample-first-screen.png` });
+      // a measurement, printed and recorded, never a failure (tests assert behaviour, not speed)
+      measured.firstContentfulPaintMs = paint === null ? null : Math.round(paint);
+      measured.analysisVisibleMs = visibleAt;
+      console.log(`    measured: first contentful paint ${paint === null ? '?' : Math.round(paint)} ms; analysis visible after ${visibleAt} ms (target: first paint under 1500 ms)`);
+    },
+  },
+  {
+    name: 'an edited measurement moves the F value and the note that quotes it',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      const before = await shownF(page);
+      const noteBefore = await noteText(page, 1);
+      check(noteBefore.includes(`F = ${before}`), `note quotes F: ${noteBefore.slice(0, 120)}`);
+      // row 1 of the coupons, the shear_mpa column
+      await field(page, 'coupons', 0, 3).click();
+      await page.keyboard.type('26.9');
+      await page.keyboard.press('Enter');
+      await page.waitForFunction((b) => {
+        const sec = document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="fit"]');
+        return sec.dataset.status === 'ok' && !sec.querySelector('furrow-formula-cell').shadowRoot.querySelector('furrow-value').shadowRoot.textContent.includes(b);
+      }, before);
+      await settled(page);
+      const after = await shownF(page);
+      check(after !== before, `F did not change (${before})`);
+      const noteAfter = await noteText(page, 1);
+      // the note quotes round(F, 2)
+      const quoted = String(Math.round(Number(after) * 100) / 100);
+      check(noteAfter.includes(`F = ${quoted}`) && !noteAfter.includes(`F = ${before}`), `note follows (F shown ${after}): ${noteAfter.slice(0, 160)}`);
+      const shown = await field(page, 'coupons', 0, 3).innerText();
+      check(shown.trim() === '26.9', `field shows ${shown}`);
+    },
+  },
+  {
+    name: 'a broken formula errs on its own cell while the rest keeps its values',
+    async run({ context, base, out }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      const editor = page.locator('section[data-name="gain"] furrow-formula-cell');
+      // the editor is made when the cell comes into view; before that the formula is static text
+      await editor.locator('.static').first().click();
+      await editor.locator('.cm-content').waitFor();
+      await editor.locator('.cm-content').click();
+      await page.keyboard.press('Control+a');
+      // (the editor closes brackets and quotes as they are typed, so the fault is a dangling operator)
+      await page.keyboard.type('gain = difference(fit, "80C", "60C") *');
+      await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="gain"]').dataset.status === 'error');
+      await settled(page);
+      const gain = await cellText(page, 'gain');
+      check(/needs a value after it/.test(gain), `the error in words on the cell: ${gain}`);
+      // the exact characters are marked in the editor
+      const marked = await editor.locator('.cm-lintRange-error, .cm-lintRange').count();
+      check(marked > 0, 'the error is underlined in the editor');
+      check((await statusOf(page, 'fit')) === 'ok', 'fit still evaluates');
+      check((await shownF(page)) === '18.24', 'fit still shows its F');
+      check((await statusOf(page, 'stronger')) === 'upstream', `the claim that reads gain says so: ${await statusOf(page, 'stronger')}`);
+      check((await statusOf(page, 'warmest')) === 'ok', 'an unrelated comparison still evaluates');
+      await page.screenshot({ path: `${out}/broken-formula.png`, fullPage: false });
+    },
+  },
+  {
+    name: 'a three-column block pasted from a spreadsheet lands as three columns',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      await page.locator('furrow-app .add button', { hasText: '+ table' }).click();
+      const table = page.locator('section[data-kind="table"]').last();
+      await table.locator('[role="gridcell"][data-r="0"][data-c="0"]').click();
+      await table.locator('[role="grid"]').evaluate((grid) => {
+        const dt = new DataTransfer();
+        dt.setData('text/plain', '1\tA\t10.5\n1\tB\t11.25\n2\tA\t9.75\n');
+        grid.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true, composed: true }));
+      });
+      await page.waitForTimeout(200);
+      const body = await page.evaluate(() => {
+        const secs = document.querySelector('furrow-app').shadowRoot.querySelectorAll('section[data-kind="table"]');
+        return secs[secs.length - 1].querySelector('furrow-table-cell').cell.body;
+      });
+      const lines = body.trim().split('\n');
+      check(lines[0] === 'block,treatment,response', `header kept: ${lines[0]}`);
+      check(lines[1] === '1,A,10.5' && lines[2] === '1,B,11.25' && lines[3] === '2,A,9.75', `pasted rows: ${JSON.stringify(lines)}`);
+      const third = await table.locator('[role="gridcell"][data-r="1"][data-c="2"]').innerText();
+      check(third.trim() === '11.25', `third column shows ${third}`);
+    },
+  },
+  {
+    name: 'edits are still there after a reload',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      // a fresh browser context has nothing saved: the sample opens
+      await page.goto(`${base}/`);
+      await settled(page);
+      await field(page, 'coupons', 1, 3).click();
+      await page.keyboard.type('25.1');
+      await page.keyboard.press('Enter');
+      // a new note, typed
+      await page.locator('furrow-app .add button', { hasText: '+ note' }).click();
+      const note = page.locator('section[data-kind="note"]').last().locator('furrow-note-cell');
+      await note.locator('.prose').dblclick();
+      await note.locator('textarea').fill('Checked by the second shift: {round(fit.mse, 3)}.');
+      await note.locator('textarea').blur();
+      await settled(page);
+      await page.waitForTimeout(600); // autosave is debounced
+      await page.reload();
+      await settled(page);
+      const v = await field(page, 'coupons', 1, 3).innerText();
+      check(v.trim() === '25.1', `the edited field after reload: ${v}`);
+      const last = await page.evaluate(() => {
+        const notes = document.querySelector('furrow-app').shadowRoot.querySelectorAll('furrow-note-cell');
+        return notes[notes.length - 1].shadowRoot.textContent.replace(/\s+/g, ' ');
+      });
+      check(/Checked by the second shift: 0\.\d{3}\./.test(last), `the new note after reload: ${last}`);
+    },
+  },
+  {
+    name: 'script payloads in a note, a table and a formula run nothing',
+    async run({ context, base, out }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      const hostile = [
+        'furrow 1',
+        'title: <img src=x onerror="window.__pwned=\'title\'">',
+        '',
+        '--- note',
+        'Hello <img src=x onerror="window.__pwned=\'img\'"> and [a link](javascript:window.__pwned=\'link\') and',
+        '<script>window.__pwned = "script"</script> <a href="javascript:window.__pwned=\'a\'">raw link</a>',
+        '<svg onload="window.__pwned=\'svg\'"></svg> <iframe src="javascript:window.__pwned=\'iframe\'"></iframe>',
+        '<div style="background:url(javascript:window.__pwned=1)" onclick="window.__pwned=\'click\'">click me</div>',
+        'A value: {t.label[1]}',
+        '',
+        '--- table t',
+        'label,"<img src=x onerror=window.__pwned=\'header\'>"',
+        '"<img src=x onerror=window.__pwned=\'field\'>",1',
+        '"<script>window.__pwned=\'field2\'</script>",2',
+        '',
+        '--- formula',
+        'x = "<img src=x onerror=window.__pwned=\'formula\'>"',
+        '',
+      ].join('\n');
+      await openDocument(page, hostile, 'hostile.furrow');
+      await page.locator('section[data-name="t"] [role="gridcell"]').first().waitFor();
+      await settled(page);
+      // a user clicks around
+      const note = page.locator('section[data-kind="note"] furrow-note-cell .prose');
+      for (const text of ['a link', 'raw link', 'click me']) {
+        const target = note.getByText(text).first();
+        if ((await target.count()) > 0) await target.click({ force: true }).catch(() => {});
+      }
+      await page.waitForTimeout(500);
+      const pwned = await page.evaluate(() => window.__pwned ?? null);
+      check(pwned === null, `a payload ran: ${pwned}`);
+      const found = await page.evaluate(() => {
+        const bad = [];
+        const visit = (root) => {
+          for (const el of root.querySelectorAll('*')) {
+            for (const a of el.attributes) {
+              if (/^on/i.test(a.name)) bad.push(`${el.tagName} ${a.name}`);
+              if (/^\s*javascript:/i.test(a.value)) bad.push(`${el.tagName} ${a.name}=${a.value}`);
+            }
+            if (el.tagName === 'SCRIPT' && !el.src) bad.push('inline script');
+            if (el.shadowRoot) visit(el.shadowRoot);
+          }
+        };
+        visit(document);
+        return bad;
+      });
+      check(found.length === 0, `dangerous markup in the page: ${found.join('; ')}`);
+      // the text is still there, as text
+      const shown = await page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="t"] furrow-table-cell').shadowRoot.textContent);
+      check(shown.includes('<img src=x onerror='), 'the table shows the label as text');
+      await page.screenshot({ path: `${out}/hostile.png`, fullPage: true });
+    },
+  },
+  {
+    name: 'a file that is not a document is refused and nothing on the page is lost',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      await openDocument(page, 'batch,cure,shear\n1,60C,22\n', 'data.csv.txt');
+      await page.locator('furrow-app .banner.problem').waitFor();
+      const banner = await page.locator('furrow-app .banner.problem').innerText();
+      check(/not a Furrow document/.test(banner) && /Nothing on the page was changed/.test(banner), `banner: ${banner}`);
+      check((await shownF(page)) === '18.24', 'the document is still there');
+    },
+  },
+  {
+    name: 'undo and redo every edit, structural ones included',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      const count = () => page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelectorAll('section.cell').length);
+      const n0 = await count();
+      await page.locator('section[data-name="by_batch"]').hover();
+      await page.locator('section[data-name="by_batch"] .tools button[aria-label="Delete"]').click();
+      check((await count()) === n0 - 1, 'deleted');
+      await page.locator('furrow-app nav button', { hasText: 'Undo' }).click();
+      check((await count()) === n0, 'undo brings the cell back');
+      await settled(page);
+      check(/24\.3/.test(await cellText(page, 'by_batch')), 'with its value');
+      await page.locator('furrow-app nav button', { hasText: 'Redo' }).click();
+      check((await count()) === n0 - 1, 'redo deletes it again');
+    },
+  },
+  {
+    name: 'in a 200-cell document an edit updates the visible dependents (time measured)',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      const cells = ['--- table base', 'k,y', '1,10', '2,20', '3,30', ''];
+      for (let i = 1; i < 200; i++) cells.push('--- formula', i === 1 ? 'f1 = sum(base.y)' : `f${i} = f${i - 1} + 1`, '');
+      await openDocument(page, `furrow 1\ntitle: Two hundred cells\n\n${cells.join('\n')}`, 'many.furrow');
+      await page.locator('section[data-name="f5"] furrow-value').waitFor();
+      await settled(page);
+      const times = [];
+      for (let k = 0; k < 5; k++) {
+        const value = String(40 + k);
+        await field(page, 'base', 0, 1).click();
+        await page.keyboard.type(value);
+        // the clock starts at the Enter that commits the field (the event's own time stamp)
+        await page.evaluate(() => {
+          window.__t0 = null;
+          window.addEventListener('keydown', (e) => { if (e.key === 'Enter') window.__t0 = e.timeStamp; }, { capture: true, once: true });
+        });
+        const expected = String(Number(value) + 50 + 4); // f5 = sum(base.y) + 4
+        const waiting = page.evaluate(
+          (expect) =>
+            new Promise((resolve) => {
+              const app = document.querySelector('furrow-app').shadowRoot;
+              const read = () => app.querySelector('section[data-name="f5"] furrow-formula-cell')?.shadowRoot?.querySelector('furrow-value')?.shadowRoot?.textContent ?? '';
+              const tick = () => {
+                if (window.__t0 !== null && read().includes(expect)) resolve(performance.now() - window.__t0);
+                else requestAnimationFrame(tick);
+              };
+              tick();
+            }),
+          expected,
+        );
+        await page.keyboard.press('Enter');
+        const ms = await waiting;
+        times.push(ms);
+        await settled(page);
+      }
+      times.sort((a, b) => a - b);
+      const median = times[2];
+      measured.editToVisibleDependentMs = times.map((t) => Math.round(t * 10) / 10);
+      console.log(`    measured: edit to visible dependent ${times.map((t) => t.toFixed(1)).join(', ')} ms (median ${median.toFixed(1)}; target under 50 ms)`);
+    },
+  },
+];
+
+/** JavaScript needed for first paint: the entry and what it imports statically (gzipped). */
+function firstPaintBytes() {
+  const html = readFileSync('dist/index.html', 'utf8');
+  const files = [...html.matchAll(/(?:src|href)="\/(assets\/[^"]+\.js)"/g)].map((m) => m[1]);
+  const seen = new Set();
+  const queue = [...files];
+  let total = 0;
+  while (queue.length > 0) {
+    const f = queue.shift();
+    if (seen.has(f)) continue;
+    seen.add(f);
+    const code = readFileSync(join('dist', f));
+    total += gzipSync(code).length;
+    // static imports only: `import ... from "./x.js"` (dynamic import() chunks load later)
+    for (const m of code.toString('utf8').matchAll(/(?:^|[;\n}])\s*import\s*(?:[^'"()]*?from\s*)?["']\.\/([^"']+\.js)["']/g)) queue.push(`assets/${m[1]}`);
+  }
+  const all = readdirSync('dist/assets').filter((f) => f.endsWith('.js'));
+  return { total, files: [...seen], all: all.map((f) => `${f} ${(gzipSync(readFileSync(join('dist/assets', f))).length / 1024).toFixed(1)} kB`) };
+}
+
+tests.push({
+  name: 'the JavaScript for first paint is under 300 kB gzipped (vega and the worker load later)',
+  async run() {
+    const { total, files, all } = firstPaintBytes();
+    measured.firstPaintJsGzipKb = Math.round(total / 102.4) / 10;
+    console.log(`    first paint: ${(total / 1024).toFixed(1)} kB gzipped in ${files.join(', ')}; all chunks: ${all.join('; ')}`);
+    check(total < 300 * 1024, `${(total / 1024).toFixed(1)} kB`);
+    check(!files.some((f) => /embed|vega/.test(f)), 'vega is not in the first paint');
+    statSync('dist/index.html');
+  },
+});
+
+const { failed } = await runTests(tests, { build, json });
+writeFileSync(`test-output/e2e/measured.json`, `${JSON.stringify({ machine: cpus()[0]?.model ?? 'unknown', ...measured }, null, 2)}\n`);
+process.exit(failed === 0 ? 0 : 1);
