@@ -1,0 +1,2 @@
+export * from './central.ts';
+export * from './range.ts';

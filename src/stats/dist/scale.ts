@@ -1,0 +1,134 @@
+/**
+ * Integrals over the distribution of a sample standard deviation's scale factor.
+ *
+ * If X is chi-square with df degrees of freedom, s = sqrt(X / df) has density
+ *   f(s) = 2 (df/2)^(df/2) / Gamma(df/2) * s^(df-1) * exp(-df s^2 / 2),   s > 0.
+ * The studentized range and the noncentral t are both mixtures over s:
+ *   P = integral of f(s) g(s) ds
+ * with g a probability that is monotone in s. This module computes such integrals with
+ * Gauss-Legendre panels laid outward from a starting point, each panel about two local
+ * standard deviations of the integrand wide, until a panel adds less than 1e-17 of the
+ * running total. Because every node value is a positive probability weighted by a positive
+ * density, the sum keeps its relative accuracy when the result is tiny (far tails).
+ */
+import gammaln from '@stdlib/math-base-special-gammaln';
+import { gaussLegendre } from './quadrature.ts';
+
+const OUTER = gaussLegendre(12);
+const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
+
+/** Stirling's series remainder: lnGamma(x) - ((x - 1/2) ln x - x + ln sqrt(2 pi)). */
+export function stirlingRemainder(x: number): number {
+  if (x >= 10) {
+    const r = 1 / x;
+    const r2 = r * r;
+    // Abramowitz and Stegun 6.1.41.
+    return r * (1 / 12 - r2 * (1 / 360 - r2 * (1 / 1260 - r2 * (1 / 1680 - r2 / 1188))));
+  }
+  return gammaln(x) - ((x - 0.5) * Math.log(x) - x + LN_SQRT_2PI);
+}
+
+/**
+ * The constant part of ln f(s), written so that no large terms cancel when df is large:
+ * ln f(s) = c + df (ln s + (1 - s^2) / 2) - ln s, with c = ln sqrt(df / pi) - remainder(df/2).
+ */
+export function logScaleConstant(df: number): number {
+  return 0.5 * Math.log(df / Math.PI) - stirlingRemainder(df / 2);
+}
+
+/** ln f(s) for the scale s = sqrt(X / df) (see the module comment). */
+export function logScaleDensity(s: number, df: number, c: number): number {
+  if (s <= 0) return df < 1 ? Infinity : df === 1 ? c : -Infinity;
+  const e = s - 1;
+  // ln s + (1 - s^2)/2 = log1p(e) - e - e^2/2, accurate near s = 1 where large df lives.
+  return c + df * (Math.log1p(e) - e - 0.5 * e * e) - Math.log(s);
+}
+
+/**
+ * A function evaluated under the integral: it writes one or more values into `out`
+ * (out[0] drives the stopping rule; the others are integrated alongside on the same nodes).
+ */
+export type ScaleIntegrand = (s: number, out: Float64Array) => void;
+
+/**
+ * Computes integral of f(s) g_i(s) ds for each component i of the integrand, for the scale of
+ * a standard deviation on df degrees of freedom (df finite, df > 0).
+ *
+ * `center` should be near the mode of f(s) g_0(s); `curvature` bounds the curvature of
+ * -ln g_0 in s (for g = Phi(t s - d) it is about t^2), so that panels stay narrower than the
+ * integrand's features. `width` components are integrated; results go into `result`.
+ */
+export function integrateScale(
+  df: number,
+  g: ScaleIntegrand,
+  center: number,
+  curvature: number,
+  width: number,
+  result: Float64Array,
+): void {
+  const c = logScaleConstant(df);
+  const dfm1 = Math.max(df - 1, 0);
+  const integerDf = Number.isInteger(df);
+  const sigma = (s: number): number => 1 / Math.sqrt(df + dfm1 / (s * s) + curvature);
+  const out = new Float64Array(width);
+  const panel = new Float64Array(width);
+  for (let i = 0; i < width; i++) result[i] = 0;
+
+  const addPanel = (lo: number, hi: number): number => {
+    const half = 0.5 * (hi - lo);
+    const mid = 0.5 * (hi + lo);
+    for (let i = 0; i < width; i++) panel[i] = 0;
+    const nodes = OUTER.nodes;
+    const weights = OUTER.weights;
+    for (let j = 0; j < nodes.length; j++) {
+      const s = mid + half * (nodes[j] as number);
+      const dens = Math.exp(logScaleDensity(s, df, c));
+      if (dens === 0) continue;
+      g(s, out);
+      const wd = (weights[j] as number) * dens;
+      for (let i = 0; i < width; i++) panel[i] = (panel[i] as number) + wd * (out[i] as number);
+    }
+    for (let i = 0; i < width; i++) {
+      panel[i] = (panel[i] as number) * half;
+      result[i] = (result[i] as number) + (panel[i] as number);
+    }
+    return panel[0] as number;
+  };
+
+  const tiny = 1e-17;
+  const maxPanels = 2000;
+  let count = 0;
+  // Rightward from the center.
+  let a = Math.max(center, 0);
+  for (;;) {
+    const b = a + 2 * sigma(Math.max(a, 1e-300));
+    const add = addPanel(a, b);
+    a = b;
+    if (++count > maxPanels) break;
+    const total = result[0] as number;
+    if (add <= tiny * total && (add > 0 || total > 0)) break;
+    if (add === 0 && total === 0 && a > center + 60 / Math.sqrt(df + curvature)) break;
+  }
+  // Leftward from the center toward 0.
+  let b = Math.max(center, 0);
+  while (b > 0) {
+    let lo = b - 2 * sigma(b);
+    let last = false;
+    if (integerDf && df >= 1) {
+      // s^(df-1) is a polynomial: a panel may end at 0.
+      if (lo <= 0.1 * b) {
+        lo = 0;
+        last = true;
+      }
+    } else {
+      // s^(df-1) is not smooth at 0: shrink geometrically and stop by the size rule.
+      lo = Math.max(lo, 0.25 * b);
+    }
+    const add = addPanel(lo, b);
+    b = lo;
+    if (last || ++count > maxPanels) break;
+    const total = result[0] as number;
+    if (add <= tiny * total && total > 0) break;
+    if (b < 1e-300) break;
+  }
+}
