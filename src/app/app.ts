@@ -443,7 +443,11 @@ export class FurrowApp extends LitElement {
       if (s === 'pending') pending++;
     }
     const parts: string[] = [];
-    if (pending > 0) parts.push(`re-evaluating ${pending} ${pending === 1 ? 'cell' : 'cells'}…`);
+    const step = this.bridge.step;
+    if (step !== null && pending > 0) {
+      const cell = this.doc.cells.find((c) => c.id === step.id);
+      parts.push(`evaluating ${cell ? (cellName(cell) ?? 'a cell') : 'a cell'}: ${step.done} of ${step.total} cells checked…`);
+    } else if (pending > 0) parts.push(`re-evaluating ${pending} ${pending === 1 ? 'cell' : 'cells'}…`);
     else if (errors > 0) parts.push(`${errors} ${errors === 1 ? 'cell has' : 'cells have'} an error`);
     else parts.push('every cell up to date');
     parts.push(this.saveProblem ? `not kept in this browser (${this.saveProblem})` : 'kept in this browser');

@@ -34,6 +34,8 @@ export class EvaluationBridge {
   private lastDoc: Document | null = null;
   /** Milliseconds the worker took for the last update. */
   lastMillis = 0;
+  /** Where a long update stands, while it runs. */
+  step: { id: string; done: number; total: number } | null = null;
   /** Resolves each time a result arrives (tests and the performance check wait on it). */
   private waiters: (() => void)[] = [];
   private readonly events: BridgeEvents;
@@ -121,6 +123,14 @@ export class EvaluationBridge {
         }
         return;
       }
+      case 'step': {
+        this.step = { id: m.id, done: m.done, total: m.total };
+        const s = this.states.get(m.id);
+        // the running cell shows a progress bar with the share of the document done
+        this.states.set(m.id, { status: 'pending', value: s?.value ?? null, parts: s?.parts ?? null, warnings: s?.warnings ?? [], error: s?.error ?? null, progress: m.total > 0 ? m.done / m.total : null });
+        this.events.onStates(new Set([m.id]));
+        return;
+      }
       case 'failure':
         this.clearPending(m.seq, new Set());
         this.events.onFailure(`Evaluation failed: ${m.message}`);
@@ -140,6 +150,7 @@ export class EvaluationBridge {
           changed.add(r.id);
         }
         this.readers = new Map(m.readers);
+        this.step = null;
         this.cellNames = m.cells;
         this.lastMillis = m.millis;
         this.clearPending(m.seq, changed);

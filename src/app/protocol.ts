@@ -39,6 +39,8 @@ export type FromWorker =
       readonly millis: number;
     }
   | { readonly type: 'progress'; readonly id: string; readonly fraction: number }
+  /** A long update is under way: `done` of `total` cells checked, `id` running now. */
+  | { readonly type: 'step'; readonly id: string; readonly done: number; readonly total: number }
   | { readonly type: 'failure'; readonly seq: number; readonly message: string };
 
 /** A value without engine-only parts, ready to post. */

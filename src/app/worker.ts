@@ -23,6 +23,13 @@ const engine = new Engine({
       post({ type: 'progress', id, fraction });
     }
   },
+  onStep: (id, done, total) => {
+    const t = performance.now();
+    if (t - lastProgress > 50) {
+      lastProgress = t;
+      post({ type: 'step', id, done, total });
+    }
+  },
 });
 
 function members(v: Value): string[] {

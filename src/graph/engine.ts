@@ -54,6 +54,12 @@ export interface EngineOptions {
   readonly kinds?: ReadonlyMap<string, CellKind>;
   /** Reports progress of a long evaluation: the cell and a fraction from 0 to 1. */
   readonly onProgress?: (cellId: string, fraction: number) => void;
+  /**
+   * Reports the progress of a long update, cell by cell: called before a cell runs, once
+   * the update has taken more than `stepAfterMs` (so quick updates say nothing).
+   */
+  readonly onStep?: (cellId: string, done: number, total: number) => void;
+  readonly stepAfterMs?: number;
 }
 
 interface Slot {
@@ -84,6 +90,8 @@ export class Engine {
   private readonly registry: Registry;
   private readonly kinds: ReadonlyMap<string, CellKind>;
   private readonly onProgress: ((cellId: string, fraction: number) => void) | undefined;
+  private readonly onStep: ((cellId: string, done: number, total: number) => void) | undefined;
+  private readonly stepAfterMs: number;
   private readonly slots = new Map<string, Slot>();
   private order: string[] = [];
   private definers = new Map<string, string[]>();
@@ -98,6 +106,8 @@ export class Engine {
     this.registry = options.registry;
     this.kinds = options.kinds ?? CELL_KINDS;
     this.onProgress = options.onProgress;
+    this.onStep = options.onStep;
+    this.stepAfterMs = options.stepAfterMs ?? 150;
   }
 
   /** Makes a CSV file available to tables that name it (or removes it with undefined). */
@@ -160,11 +170,16 @@ export class Engine {
 
     // 4. evaluate what changed
     const ran: string[] = [];
+    const started = Date.now();
+    const total = this.order.length;
+    let done = 0;
     for (const id of this.order) {
+      done++;
       const slot = this.slots.get(id)!;
       const sig = this.signature(slot);
       if (sig === slot.signature) continue;
       slot.signature = sig;
+      if (this.onStep !== undefined && Date.now() - started > this.stepAfterMs) this.onStep(id, done - 1, total);
       this.evaluate(slot);
       ran.push(id);
     }

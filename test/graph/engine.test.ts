@@ -191,3 +191,21 @@ describe('documents keep every byte through evaluation', () => {
     expect(writeDocument(engine.document!)).toBe(text);
   });
 });
+
+describe('progress of a long update', () => {
+  it('reports each cell before it runs once the update is slow, and never for a quick one', () => {
+    const text = doc(...Array.from({ length: 30 }, (_, i) => ['--- formula', i === 0 ? 'v0 = 1' : `v${i} = v${i - 1} + 1`]).flat());
+    const steps: [string, number, number][] = [];
+    // a negative delay: every cell counts as late, so every one is reported
+    const engine = new Engine({ registry: BUILTINS, onStep: (id, done, total) => steps.push([id, done, total]), stepAfterMs: -1 });
+    const d = readDocument(text).document;
+    engine.update(d);
+    expect(steps).toHaveLength(30);
+    expect(steps[0]).toEqual([d.cells[0]!.id, 0, 30]);
+    expect(steps[29]).toEqual([d.cells[29]!.id, 29, 30]);
+    const quiet: unknown[] = [];
+    const e2 = new Engine({ registry: BUILTINS, onStep: (...a) => quiet.push(a), stepAfterMs: 60_000 });
+    e2.update(d);
+    expect(quiet).toHaveLength(0);
+  });
+});

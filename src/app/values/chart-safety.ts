@@ -1,172 +1,28 @@
 /**
- * Drawing a chart without letting it reach anything. Chart specs are built by the project
- * (src/charts), but a document can come from anyone and its values travel through the
- * worker, so the page treats every spec as data:
+ * Drawing a chart in the page without letting it reach anything. The parts that Node needs
+ * too (cleaning a spec, the locked loader, the collecting logger) live in
+ * src/charts/safety.ts and are re-exported here; this file adds the page's embedding
+ * options:
  *
- * - the spec is copied as plain JSON, and `usermeta` (which vega-embed would merge over the
- *   options given here, turning menus back on or fetching a config) and `$schema` are dropped;
- * - the loader refuses every load, link and image, so a `data.url` reads nothing;
  * - expressions run in vega's interpreter (`ast: true`), so the page needs no unsafe-eval;
- * - warnings go to a logger that the chart shows under itself, not to a console nobody reads.
- *
- * Nothing here imports vega at run time: the chart element loads it lazily and passes in
- * what is needed, so the first paint does not wait for it.
+ * - no actions menu, no config or patch fetched by URL, the locked loader always passed.
  */
 import type { Loader } from 'vega';
 import type { EmbedOptions } from 'vega-embed';
 import type { expressionInterpreter } from 'vega-interpreter';
+import { WARN, type ChartLogger } from '../../charts/safety.ts';
 
-/** A plain JSON object. */
-export type SpecObject = { [key: string]: unknown };
-
-/** Keys removed from the top of every spec before it is embedded. */
-export const STRIPPED_KEYS = ['usermeta', '$schema'] as const;
-
-/**
- * A deep copy of a spec as plain JSON, with {@link STRIPPED_KEYS} removed from the top
- * level and from every view nested in a composition (layer, concat, facet, repeat), where
- * vega-lite would carry them along. Returns null for anything that is not a JSON object
- * (a cycle, a function, an array, a primitive). Functions, symbols and undefined vanish in
- * the copy; NaN becomes null as in any JSON.
- */
-export function cleanSpec(spec: unknown): SpecObject | null {
-  let copy: unknown;
-  try {
-    const text = JSON.stringify(spec);
-    if (text === undefined) return null;
-    copy = JSON.parse(text);
-  } catch {
-    return null;
-  }
-  if (!isObject(copy)) return null;
-  stripViews(copy, 0);
-  return copy;
-}
-
-function isObject(v: unknown): v is SpecObject {
-  return typeof v === 'object' && v !== null && !Array.isArray(v);
-}
-
-// Where vega-lite nests whole views; data values are never under these keys.
-const VIEW_KEYS = ['layer', 'concat', 'hconcat', 'vconcat', 'spec'] as const;
-
-function stripViews(view: SpecObject, depth: number): void {
-  for (const k of STRIPPED_KEYS) delete view[k];
-  if (depth > 64) return;
-  for (const k of VIEW_KEYS) {
-    const inner = view[k];
-    if (Array.isArray(inner)) {
-      for (const v of inner) if (isObject(v)) stripViews(v, depth + 1);
-    } else if (isObject(inner)) stripViews(inner, depth + 1);
-  }
-}
-
-/** The error every refused load rejects with. */
-export class LoadRefused extends Error {
-  constructor(what: string) {
-    super(`charts in Furrow load nothing from outside the document (refused: ${what})`);
-    this.name = 'LoadRefused';
-  }
-}
-
-function describe(uri: unknown): string {
-  const s = typeof uri === 'string' ? uri : String(uri);
-  return s.length > 80 ? `${s.slice(0, 77)}...` : s;
-}
-
-/**
- * A loader that refuses everything: data files, URLs, images and links. Built from a loader
- * that vega made (`vega.loader()`), so it keeps whatever else vega expects of a loader, with
- * every way of reaching outside replaced.
- */
-export function lockedLoader(base: Loader): Loader {
-  const refuse = (uri: unknown): Promise<never> => Promise.reject(new LoadRefused(describe(uri)));
-  const locked: Loader & { fileAccess?: boolean } = Object.assign(Object.create(null) as object, base, {
-    load: (uri: string) => refuse(uri),
-    sanitize: (uri: string) => refuse(uri),
-    http: (uri: string) => refuse(uri),
-    file: (name: string) => refuse(name),
-    fileAccess: false,
-  });
-  return Object.freeze(locked);
-}
-
-/** The logger interface vega calls (vega-util's LoggerInterface). */
-export interface ChartLogger {
-  level(): number;
-  level(level: number): ChartLogger;
-  error(...args: unknown[]): ChartLogger;
-  warn(...args: unknown[]): ChartLogger;
-  info(...args: unknown[]): ChartLogger;
-  debug(...args: unknown[]): ChartLogger;
-}
-
-/** A logger that keeps what vega reports, for the chart to show. */
-export interface CollectingLogger extends ChartLogger {
-  /** Warnings and errors, in order, each as one line of text. */
-  readonly messages: readonly string[];
-}
-
-/** At most this many messages are kept; a runaway spec must not fill the page. */
-export const MAX_MESSAGES = 20;
-
-function lineOf(args: readonly unknown[]): string {
-  return args
-    .map((a) => (a instanceof Error ? a.message : typeof a === 'string' ? a : safeJson(a)))
-    .join(' ')
-    .slice(0, 300);
-}
-
-function safeJson(a: unknown): string {
-  try {
-    return JSON.stringify(a) ?? String(a);
-  } catch {
-    return String(a);
-  }
-}
-
-// vega-util's levels: None 0, Error 1, Warn 2, Info 3, Debug 4.
-const WARN = 2;
-
-/**
- * A logger that records warnings and errors (info and debug are dropped) and calls
- * `onMessage` after each, so the element can redraw its list.
- */
-export function collectingLogger(onMessage: () => void = () => {}): CollectingLogger {
-  const messages: string[] = [];
-  let level = WARN;
-  const keep = (args: unknown[]) => {
-    if (messages.length >= MAX_MESSAGES) return;
-    const line = lineOf(args);
-    if (!messages.includes(line)) {
-      messages.push(line);
-      onMessage();
-    }
-  };
-  const logger = {
-    messages,
-    level(value?: number) {
-      if (value === undefined) return level;
-      level = value;
-      return logger;
-    },
-    error(...args: unknown[]) {
-      if (level >= 1) keep(args);
-      return logger;
-    },
-    warn(...args: unknown[]) {
-      if (level >= WARN) keep(args);
-      return logger;
-    },
-    info() {
-      return logger;
-    },
-    debug() {
-      return logger;
-    },
-  } as CollectingLogger;
-  return logger;
-}
+export {
+  cleanSpec,
+  collectingLogger,
+  LoadRefused,
+  lockedLoader,
+  MAX_MESSAGES,
+  STRIPPED_KEYS,
+  type ChartLogger,
+  type CollectingLogger,
+  type SpecObject,
+} from '../../charts/safety.ts';
 
 /**
  * The options every chart is embedded with. The spec is always vega-lite (the project

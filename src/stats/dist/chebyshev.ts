@@ -59,7 +59,7 @@ function derivativeCoefficients(c: Float64Array): Float64Array {
 
 /**
  * Builds an approximant of f on [a, b]. `initialBreaks` (inside (a, b)) seed the partition;
- * `tol(value)` gives the allowed absolute error at a function value; pieces are halved up to
+ * `tol(value, x)` gives the allowed absolute error for function values of size `value` near x; pieces are halved up to
  * `maxDepth` times.
  */
 export function fitPiecewiseChebyshev(
@@ -68,7 +68,7 @@ export function fitPiecewiseChebyshev(
   b: number,
   initialBreaks: readonly number[],
   degree: number,
-  tol: (value: number) => number,
+  tol: (value: number, x: number) => number,
   maxDepth = 12,
 ): PiecewiseChebyshev {
   const m = degree + 1;
@@ -85,7 +85,7 @@ export function fitPiecewiseChebyshev(
       scale = Math.max(scale, Math.abs(v));
     }
     const c = chebCoefficients(values);
-    const allowed = tol(scale);
+    const allowed = tol(scale, Math.max(Math.abs(lo), Math.abs(hi)));
     let ok = Number.isFinite(scale);
     if (ok) {
       const tail = Math.max(

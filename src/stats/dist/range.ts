@@ -21,12 +21,12 @@
  */
 import erfc from '@stdlib/math-base-special-erfc';
 import { gaussLegendre } from './quadrature.ts';
-import { integrateScale, type ScaleIntegrand } from './scale.ts';
+import { evalChebyshev, evalChebyshevDerivative, fitPiecewiseChebyshev, type PiecewiseChebyshev } from './chebyshev.ts';
+import { bendOfLog, integrateScale, type ScaleIntegrand } from './scale.ts';
 import { normalQuantile, tCritical, tQuantile } from './central.ts';
 
 const INNER = gaussLegendre(12);
 const INV_SQRT_2PI = 1 / Math.sqrt(2 * Math.PI);
-const INV_2PI = 1 / (2 * Math.PI);
 
 /** P(Z > x) for a standard normal Z, accurate in relative terms for x > 0. */
 function upperNormal(x: number): number {
@@ -48,96 +48,170 @@ function rangeMedianGuess(k: number): number {
   return 2 * normalQuantile((k - 0.375) / (k + 0.25)) * 0.93;
 }
 
-/** Results of the inner integral: W(w), 1 - W(w) and the range density W'(w). */
-interface InnerOut {
+const LEG10 = gaussLegendre(10);
+
+/**
+ * P(a < Z <= b) for b - a <= 1, by a 10-point Gauss-Legendre rule on the normal density:
+ * relative accuracy near 1e-16 where the difference of two normal probabilities would cancel.
+ */
+function shortNormalInterval(a: number, b: number): number {
+  const half = 0.5 * (b - a);
+  const mid = 0.5 * (b + a);
+  let s = 0;
+  for (let i = 0; i < 10; i++) {
+    const x = mid + half * (LEG10.nodes[i] as number);
+    s += (LEG10.weights[i] as number) * Math.exp(-0.5 * x * x);
+  }
+  return s * half * INV_SQRT_2PI;
+}
+
+/**
+ * Direct evaluation of the inner integral at w > 0 for k groups.
+ * mode 'upper': P(range > w) by the upper-tail integrand (relative accuracy far out);
+ * mode 'lowerScaled': P(range <= w) / w^(k-1), by the window integrand with the window
+ * probability divided by w before it is raised to the power k - 1 (no underflow near 0).
+ */
+export function normalRangeDirect(w: number, k: number, mode: 'upper' | 'lowerScaled'): number {
+  const n = k - 1;
+  const c = 0.5 * w;
+  const useUpper = mode === 'upper';
+  const uMax = useUpper ? Math.min(c + 8.5, 10) : c + 8.5;
+  // The window probability raised to the power k - 1 narrows like 1/sqrt(k).
+  const h = Math.min(1, 2.2 / Math.sqrt(k));
+  const nodes = INNER.nodes;
+  const weights = INNER.weights;
+  const invW = 1 / w;
+  let total = 0;
+  for (let lo = 0; lo < uMax; lo += h) {
+    const hi = Math.min(lo + h, uMax);
+    const half = 0.5 * (hi - lo);
+    const mid = 0.5 * (hi + lo);
+    let sum = 0;
+    for (let j = 0; j < nodes.length; j++) {
+      const u = mid + half * (nodes[j] as number);
+      const a = u - c;
+      const b = u + c;
+      const pa = INV_SQRT_2PI * Math.exp(-0.5 * a * a);
+      const pb = INV_SQRT_2PI * Math.exp(-0.5 * b * b);
+      let v: number;
+      if (useUpper) {
+        // A = P(Z > a), Ac = P(Z <= a); B = P(Z > b) (b >= 0, so B <= 1/2).
+        let A: number;
+        let Ac: number;
+        if (a >= 0) {
+          A = upperNormal(a);
+          Ac = 1 - A;
+        } else {
+          Ac = upperNormal(-a);
+          A = 1 - Ac;
+        }
+        const B = upperNormal(b);
+        const Bc = 1 - B;
+        v = pa * powDiff(A, B, n, Math.pow(A, n)) + pb * powDiff(Bc, Ac, n, Math.pow(Bc, n));
+      } else {
+        let D: number;
+        if (w <= 1) D = shortNormalInterval(a, b);
+        else if (a >= 0) D = upperNormal(a) - upperNormal(b);
+        else D = 1 - upperNormal(b) - upperNormal(-a);
+        v = (pa + pb) * Math.pow(D * invW, n);
+      }
+      sum += (weights[j] as number) * v;
+    }
+    sum *= half;
+    total += sum;
+    if (sum <= 1e-17 * total && total > 0) break;
+  }
+  return k * total;
+}
+
+/** Results of {@link normalRange}: W(w), 1 - W(w) and the range density W'(w). */
+export interface NormalRangeOut {
   cdf: number;
   upper: number;
   density: number;
 }
 
+/** Largest w tabulated; beyond it 1 - W(w) < k^2 exp(-w^2 / 4) is below 1e-270. */
+const W_MAX = 50;
+
 /**
- * The distribution of the range of k standard normals at w: cdf, upper tail and density.
- * `wantDensity` adds the density (used by the quantile's Newton steps).
+ * The distribution of the range of k standard normals, tabulated once per k: piecewise
+ * Chebyshev approximations of rho(w) = ln(1 - W(w)) + w^2 / 4 on [0, 50] and of
+ * lambda(w) = ln(W(w) / w^(k-1)) below the median, both fitted to 1e-14 in absolute terms,
+ * so W and 1 - W keep about 1e-14 relative accuracy wherever they are representable.
  */
-export function normalRange(w: number, k: number, wantDensity: boolean, out: InnerOut): void {
+export interface RangeTable {
+  readonly groups: number;
+  readonly split: number;
+  readonly rho: PiecewiseChebyshev;
+  readonly lambda: PiecewiseChebyshev;
+}
+
+function buildTable(k: number): RangeTable {
+  const split = rangeMedianGuess(k);
+  const rho = fitPiecewiseChebyshev(
+    (w) => {
+      if (w <= 0) return 0;
+      const upper = w > split ? normalRangeDirect(w, k, 'upper') : 1 - normalRangeDirect(w, k, 'lowerScaled') * Math.pow(w, k - 1);
+      return Math.log(upper) + 0.25 * w * w;
+    },
+    0,
+    W_MAX,
+    [0.5, 1, 2, 3, 4, 6, 8, 12, 16, 24, 32],
+    24,
+    // rho is ln(1 - W) + w^2/4: the rounding of that sum (about 2e-16 w^2/4) sets a floor.
+    (v, w) => 1e-14 * Math.max(1, v) + 4e-16 * 0.25 * w * w,
+  );
+  const lambda = fitPiecewiseChebyshev(
+    (w) => Math.log(normalRangeDirect(Math.max(w, 1e-300), k, 'lowerScaled')),
+    0,
+    split,
+    [0.5, 1, 2, 3, 4],
+    24,
+    (v) => 1e-14 * Math.max(1, v),
+  );
+  return { groups: k, split, rho, lambda };
+}
+
+const tables = new Map<number, RangeTable>();
+const MAX_TABLES = 24;
+
+/** The (cached) table for k groups; building one takes some milliseconds. */
+export function rangeTable(k: number): RangeTable {
+  let t = tables.get(k);
+  if (t === undefined) {
+    t = buildTable(k);
+    if (tables.size >= MAX_TABLES) {
+      const oldest = tables.keys().next().value;
+      if (oldest !== undefined) tables.delete(oldest);
+    }
+    tables.set(k, t);
+  }
+  return t;
+}
+
+/**
+ * W(w), 1 - W(w) and W'(w) for the range of k standard normals, from the table.
+ */
+export function normalRange(w: number, table: RangeTable, out: NormalRangeOut): void {
+  const k = table.groups;
   if (!(w > 0)) {
     out.cdf = 0;
     out.upper = 1;
     out.density = k === 2 && w === 0 ? 2 * INV_SQRT_2PI * Math.SQRT1_2 : 0;
     return;
   }
-  if (w > 80) {
-    // 1 - W(w) < k^2 exp(-w^2/4) underflows.
+  if (w >= W_MAX) {
     out.cdf = 1;
     out.upper = 0;
     out.density = 0;
     return;
   }
-  const n = k - 1;
-  const c = 0.5 * w;
-  const useUpper = w > rangeMedianGuess(k);
-  const uMax = useUpper ? Math.min(c + 8.5, 10) : c + 8.5;
-  // Panel width: the window probability raised to the power k - 1 narrows like 1/sqrt(k).
-  const h = Math.min(1, 2.2 / Math.sqrt(k));
-  const nodes = INNER.nodes;
-  const weights = INNER.weights;
-  const expc2 = Math.exp(-c * c);
-  let total = 0;
-  let dtotal = 0;
-  for (let lo = 0; lo < uMax; lo += h) {
-    const hi = Math.min(lo + h, uMax);
-    const half = 0.5 * (hi - lo);
-    const mid = 0.5 * (hi + lo);
-    let sum = 0;
-    let dsum = 0;
-    for (let j = 0; j < nodes.length; j++) {
-      const u = mid + half * (nodes[j] as number);
-      const a = u - c;
-      const b = u + c;
-      // A = P(Z > a), Ac = P(Z <= a); B = P(Z > b), b > 0 so B <= 1/2.
-      let A: number;
-      let Ac: number;
-      if (a >= 0) {
-        A = upperNormal(a);
-        Ac = 1 - A;
-      } else {
-        Ac = upperNormal(-a);
-        A = 1 - Ac;
-      }
-      const B = upperNormal(b);
-      const Bc = 1 - B;
-      // D = P(a < Z <= b), taken from the side that does not cancel.
-      const D = a >= 0 ? A - B : Bc - Ac;
-      const pa = INV_SQRT_2PI * Math.exp(-0.5 * a * a);
-      const pb = INV_SQRT_2PI * Math.exp(-0.5 * b * b);
-      let v: number;
-      const Dn1 = n === 1 ? 1 : Math.pow(D, n - 1);
-      if (useUpper) {
-        const An = Math.pow(A, n);
-        const Bcn = Math.pow(Bc, n);
-        v = pa * powDiff(A, B, n, An) + pb * powDiff(Bc, Ac, n, Bcn);
-      } else {
-        v = (pa + pb) * Dn1 * D;
-      }
-      const wj = weights[j] as number;
-      sum += wj * v;
-      if (wantDensity) dsum += wj * Math.exp(-u * u) * Dn1;
-    }
-    sum *= half;
-    dsum *= half;
-    total += sum;
-    dtotal += dsum;
-    if (sum <= 1e-17 * total && total > 0 && (!wantDensity || dsum <= 1e-17 * dtotal)) break;
-  }
-  const value = k * total;
-  if (useUpper) {
-    out.upper = Math.min(value, 1);
-    out.cdf = 1 - out.upper;
-  } else {
-    out.cdf = Math.min(value, 1);
-    out.upper = 1 - out.cdf;
-  }
-  out.density = wantDensity ? 2 * k * n * INV_2PI * expc2 * dtotal : 0;
+  const quarter = 0.25 * w * w;
+  const upper = Math.exp(evalChebyshev(table.rho, w) - quarter);
+  out.upper = upper;
+  out.cdf = w <= table.split ? Math.exp(evalChebyshev(table.lambda, w) + (k - 1) * Math.log(w)) : 1 - upper;
+  out.density = upper * (0.5 * w - evalChebyshevDerivative(table.rho, w));
 }
 
 function validGroups(k: number): boolean {
@@ -148,32 +222,26 @@ function validDf(df: number): boolean {
   return df > 0; // NaN fails too; Infinity allowed
 }
 
-/** Cheap stand-in for ln of the integrand over s, used only to place the first panel. */
-function logProxy(s: number, q: number, k: number, df: number, upper: boolean): number {
-  const w = q * s;
-  let lg: number;
-  if (upper) {
-    lg = Math.min(0, Math.log(k * (k - 1)) + Math.log(upperNormal(w * Math.SQRT1_2)));
-  } else {
-    // W(w) ~ k w^(k-1) integral of phi^k for small w; 1 for large.
-    lg = Math.min(
-      0,
-      Math.log(k) + (k - 1) * Math.log(w) - 0.5 * (k - 1) * Math.log(2 * Math.PI) - 0.5 * Math.log(k),
-    );
-  }
-  return (df - 1) * Math.log(s) - 0.5 * df * s * s + lg;
+/** ln of the integrand's g(s) part at s: ln P(range > q s) or ln P(range <= q s). */
+function logG(s: number, q: number, table: RangeTable, upper: boolean): number {
+  normalRange(q * s, table, scratch);
+  return Math.log(upper ? scratch.upper : scratch.cdf);
 }
 
-/** Maximizer of logProxy over s > 0 by a geometric scan and golden-section refinement. */
-function proxyMode(q: number, k: number, df: number, upper: boolean): number {
+/**
+ * Maximizer over s > 0 of ln f(s) + ln g(s) (the outer integrand), by a geometric scan and
+ * golden-section refinement; it only places the first panel, so moderate precision suffices.
+ */
+function outerMode(q: number, table: RangeTable, df: number, upper: boolean): number {
+  const logh = (s: number): number => (df - 1) * Math.log(s) - 0.5 * df * s * s + logG(s, q, table, upper);
   let best = 1;
   let bestVal = -Infinity;
   const lo = -12;
   const hi = 3;
-  const steps = 60;
+  const steps = 45;
   for (let i = 0; i <= steps; i++) {
     const s = Math.exp(lo + ((hi - lo) * i) / steps);
-    const v = logProxy(s, q, k, df, upper);
+    const v = logh(s);
     if (v > bestVal) {
       bestVal = v;
       best = s;
@@ -185,32 +253,32 @@ function proxyMode(q: number, k: number, df: number, upper: boolean): number {
   const gr = (Math.sqrt(5) - 1) / 2;
   let x1 = b - gr * (b - a);
   let x2 = a + gr * (b - a);
-  let f1 = logProxy(Math.exp(x1), q, k, df, upper);
-  let f2 = logProxy(Math.exp(x2), q, k, df, upper);
-  for (let i = 0; i < 30; i++) {
+  let f1 = logh(Math.exp(x1));
+  let f2 = logh(Math.exp(x2));
+  for (let i = 0; i < 20; i++) {
     if (f1 > f2) {
       b = x2;
       x2 = x1;
       f2 = f1;
       x1 = b - gr * (b - a);
-      f1 = logProxy(Math.exp(x1), q, k, df, upper);
+      f1 = logh(Math.exp(x1));
     } else {
       a = x1;
       x1 = x2;
       f1 = f2;
       x2 = a + gr * (b - a);
-      f2 = logProxy(Math.exp(x2), q, k, df, upper);
+      f2 = logh(Math.exp(x2));
     }
   }
   return Math.exp(0.5 * (a + b));
 }
 
-const scratch: InnerOut = { cdf: 0, upper: 0, density: 0 };
+const scratch: NormalRangeOut = { cdf: 0, upper: 0, density: 0 };
 const twoSlots = new Float64Array(2);
 
 /**
- * Both tails (and optionally the density) of Q at q, integrated directly: `upper` selects
- * which tail drives the integration. Writes [probability, density] into result.
+ * One tail (and optionally the density) of Q at q, integrated directly: `upper` selects
+ * which tail. Writes [probability, density] into result.
  */
 function rangeIntegral(
   q: number,
@@ -220,20 +288,20 @@ function rangeIntegral(
   wantDensity: boolean,
   result: Float64Array,
 ): void {
+  const table = rangeTable(k);
   if (df === Infinity) {
-    normalRange(q, k, wantDensity, scratch);
+    normalRange(q, table, scratch);
     result[0] = upper ? scratch.upper : scratch.cdf;
     result[1] = scratch.density;
     return;
   }
   const g: ScaleIntegrand = (s, out) => {
-    normalRange(q * s, k, wantDensity, scratch);
+    normalRange(q * s, table, scratch);
     out[0] = upper ? scratch.upper : scratch.cdf;
     out[1] = wantDensity ? s * scratch.density : 0;
   };
-  const center = proxyMode(q, k, df, upper);
-  const curvature = upper ? 0.5 * q * q : 0.25 * q * q;
-  integrateScale(df, g, center, curvature, 2, result);
+  const center = outerMode(q, table, df, upper);
+  integrateScale(df, g, center, bendOfLog((s) => logG(s, q, table, upper)), 2, result);
 }
 
 /**
@@ -244,6 +312,13 @@ export function rangeCdf(q: number, groups: number, df: number): number {
   if (Number.isNaN(q) || !validGroups(groups) || !validDf(df)) return NaN;
   if (q <= 0) return 0;
   if (q === Infinity) return 1;
+  // Integrate whichever tail is the smaller (judged by the df = Infinity value): the other
+  // is then 1 minus a small number, which loses nothing.
+  normalRange(q, rangeTable(groups), scratch);
+  if (scratch.upper < 0.5) {
+    rangeIntegral(q, groups, df, true, false, twoSlots);
+    return Math.max(0, 1 - (twoSlots[0] as number));
+  }
   rangeIntegral(q, groups, df, false, false, twoSlots);
   return Math.min(1, twoSlots[0] as number);
 }

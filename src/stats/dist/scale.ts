@@ -51,25 +51,58 @@ export function logScaleDensity(s: number, df: number, c: number): number {
 export type ScaleIntegrand = (s: number, out: Float64Array) => void;
 
 /**
+ * The bending -(d/ds)^2 ln g(s) of a positive function, by a central second difference of
+ * its logarithm; 0 where the logarithm is not finite (g underflows, so the integrand is 0).
+ */
+export function bendOfLog(logg: (s: number) => number): (s: number) => number {
+  return (s: number): number => {
+    const h = 1e-3 * s;
+    const v = -(logg(s + h) - 2 * logg(s) + logg(s - h)) / (h * h);
+    return Number.isFinite(v) ? v : 0;
+  };
+}
+
+/**
  * Computes integral of f(s) g_i(s) ds for each component i of the integrand, for the scale of
  * a standard deviation on df degrees of freedom (df finite, df > 0).
  *
- * `center` should be near the mode of f(s) g_0(s); `curvature` bounds the curvature of
- * -ln g_0 in s (for g = Phi(t s - d) it is about t^2), so that panels stay narrower than the
- * integrand's features. `width` components are integrated; results go into `result`.
+ * `center` should be near the mode of f(s) g_0(s). Each panel is about two local standard
+ * deviations of the integrand wide, 2 / sqrt(-(ln f g_0)''), where -(ln f)'' = df + (df - 1)
+ * / s^2 and `bend(s)` gives -(ln g_0)''; the width is checked at the panel's middle and far
+ * end too, so a panel never runs into a sharper stretch. `width` components are integrated;
+ * results go into `result`.
  */
 export function integrateScale(
   df: number,
   g: ScaleIntegrand,
   center: number,
-  curvature: number,
+  bend: (s: number) => number,
   width: number,
   result: Float64Array,
 ): void {
   const c = logScaleConstant(df);
   const dfm1 = Math.max(df - 1, 0);
   const integerDf = Number.isInteger(df);
-  const sigma = (s: number): number => 1 / Math.sqrt(df + dfm1 / (s * s) + curvature);
+  const sigma = (s: number): number => {
+    const t = Math.max(s, 1e-150);
+    const power = dfm1 === 0 ? 0 : dfm1 / (t * t);
+    return 1 / Math.sqrt(df + power + Math.max(0, bend(t)));
+  };
+  // Panel width from `from` in direction dir (+1 right, -1 left), limited at 0: the local
+  // scale is sampled across the tentative panel, which shrinks until every sample allows it.
+  const panelWidth = (from: number, dir: number): number => {
+    let wd = 2 * sigma(from);
+    for (let r = 0; r < 6; r++) {
+      let next = wd;
+      for (const f of [0.25, 0.5, 0.75, 1]) {
+        const x = from + dir * f * wd;
+        if (x > 0) next = Math.min(next, 2 * sigma(x));
+      }
+      if (next >= wd) break;
+      wd = next;
+    }
+    return wd;
+  };
   const out = new Float64Array(width);
   const panel = new Float64Array(width);
   for (let i = 0; i < width; i++) result[i] = 0;
@@ -96,23 +129,24 @@ export function integrateScale(
   };
 
   const tiny = 1e-17;
-  const maxPanels = 2000;
+  const maxPanels = 4000;
   let count = 0;
+  const start = Math.max(center, 0);
   // Rightward from the center.
-  let a = Math.max(center, 0);
+  let a = start;
   for (;;) {
-    const b = a + 2 * sigma(Math.max(a, 1e-300));
+    const b = a + panelWidth(a, 1);
     const add = addPanel(a, b);
     a = b;
     if (++count > maxPanels) break;
     const total = result[0] as number;
     if (add <= tiny * total && (add > 0 || total > 0)) break;
-    if (add === 0 && total === 0 && a > center + 60 / Math.sqrt(df + curvature)) break;
+    if (add === 0 && total === 0 && a > start + 60 / Math.sqrt(df)) break;
   }
   // Leftward from the center toward 0.
-  let b = Math.max(center, 0);
+  let b = start;
   while (b > 0) {
-    let lo = b - 2 * sigma(b);
+    let lo = b - panelWidth(b, -1);
     let last = false;
     if (integerDf && df >= 1) {
       // s^(df-1) is a polynomial: a panel may end at 0.

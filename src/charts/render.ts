@@ -1,0 +1,48 @@
+/**
+ * Headless SVG of a chart, in Node (the command line's report) and anywhere else:
+ *
+ * ```
+ * spec --cleanSpec--> vega-lite --compile--> vega --parse (ast)--> View (renderer 'none',
+ *   locked loader, collecting logger, expression interpreter) --toSVG--> svg text
+ * ```
+ *
+ * The same locks as the page: the spec is copied as plain JSON without `usermeta`, the
+ * loader refuses every load, expressions run in vega's interpreter rather than as generated
+ * functions, and whatever vega-lite or vega warns about is returned, not printed.
+ */
+import * as vega from 'vega';
+import { expressionInterpreter } from 'vega-interpreter';
+import { compile, type TopLevelSpec } from 'vega-lite';
+import { cleanSpec, collectingLogger, lockedLoader } from './safety.ts';
+
+/** What {@link renderSvg} returns. */
+export interface Rendered {
+  /** The chart as a standalone SVG document fragment (`<svg ...>...</svg>`). */
+  readonly svg: string;
+  /** Warnings and errors that vega-lite and vega logged while drawing, one line each. */
+  readonly warnings: readonly string[];
+}
+
+/**
+ * Draws a vega-lite spec to SVG text without a DOM, a canvas or any loading.
+ *
+ * @throws Error when the spec is not a plain JSON object, or when vega-lite or vega reject it
+ */
+export async function renderSvg(spec: unknown): Promise<Rendered> {
+  const clean = cleanSpec(spec);
+  if (clean === null) throw new Error('a chart must be a plain JSON object');
+  const logger = collectingLogger();
+  const vg = compile(clean as unknown as TopLevelSpec, { logger: logger as unknown as vega.LoggerInterface }).spec;
+  const view = new vega.View(vega.parse(vg, undefined, { ast: true }), {
+    renderer: 'none',
+    loader: lockedLoader(vega.loader()),
+    logger: logger as unknown as vega.LoggerInterface,
+    expr: expressionInterpreter,
+  });
+  try {
+    const svg = await view.toSVG();
+    return { svg, warnings: [...logger.messages] };
+  } finally {
+    view.finalize();
+  }
+}

@@ -1,0 +1,51 @@
+/**
+ * The words and figures of chart titles and captions, in one place so that every chart
+ * says things the same way.
+ */
+import { formatNumber } from '../lang/format.ts';
+
+/** A figure for a caption: four significant digits. */
+export function fig(x: number, digits = 4): string {
+  return formatNumber(x, digits);
+}
+
+/** A count with thousands separated by commas (readable in a caption): 100,000. */
+export function count(n: number): string {
+  // by hand rather than toLocaleString: the same text in every runtime and locale
+  return String(Math.round(n)).replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+}
+
+/** `1 residual`, `23 residuals`. */
+export function counted(n: number, one: string, many = `${one}s`): string {
+  return `${count(n)} ${n === 1 ? one : many}`;
+}
+
+/** A p-value for a caption: two significant digits, and `p < 0.0001` below that. */
+export function pText(p: number): string {
+  if (Number.isNaN(p)) return 'p not available';
+  if (p < 0.0001) return 'p < 0.0001';
+  return `p = ${formatNumber(p, 2)}`;
+}
+
+/** A list of row numbers, the first few shown: `rows 3, 17 and 40`, `rows 3, 17, 40 and 12 more`. */
+export function rowList(rows: readonly number[], shown = 5): string {
+  if (rows.length === 0) return '';
+  const word = rows.length === 1 ? 'row' : 'rows';
+  if (rows.length <= shown) {
+    const list = rows.map(String);
+    const last = list.pop()!;
+    return `${word} ${list.length === 0 ? last : `${list.join(', ')} and ${last}`}`;
+  }
+  return `${word} ${rows.slice(0, shown).join(', ')} and ${count(rows.length - shown)} more`;
+}
+
+/** The line on studentized residuals beyond the cut-off. */
+export function flaggedWords(rows: readonly number[], cut: number): string {
+  if (rows.length === 0) return `none beyond ${cut} studentized units`;
+  return `${count(rows.length)} beyond ${cut} studentized units (${rowList(rows)})`;
+}
+
+/** A level as it reads in a title: the confidence level as a percentage. */
+export function percent(level: number): string {
+  return `${formatNumber(level * 100, 4)}%`;
+}
