@@ -644,22 +644,39 @@ export class FurrowApp extends LitElement {
         min-width: 0;
       }
       .tools {
-        position: absolute;
-        top: 0.35rem;
-        right: -0.2rem;
         display: flex;
+        justify-content: flex-end;
         gap: 0.2rem;
+        margin-top: 0.4rem;
         opacity: 0;
         transition: opacity 0.12s;
       }
-      .cell:hover .tools,
-      .cell:focus-within .tools {
-        opacity: 1;
-      }
       .tools button {
         padding: 0 0.35rem;
-        line-height: 1.3rem;
+        line-height: 1.25rem;
+        font-size: 0.72rem;
+      }
+      .insert {
+        position: absolute;
+        left: 8rem;
+        bottom: -0.75rem;
+        z-index: 2;
+        display: flex;
+        gap: 0.3rem;
+        opacity: 0;
+        transition: opacity 0.12s;
+      }
+      .insert button {
+        font-size: 0.72rem;
+        padding: 0 0.4rem;
+        line-height: 1.25rem;
         background: var(--paper);
+      }
+      .cell:hover .tools,
+      .cell:focus-within .tools,
+      .cell:hover .insert,
+      .cell:focus-within .insert {
+        opacity: 1;
       }
       .inert pre {
         font-family: var(--font-code);
@@ -702,6 +719,7 @@ export class FurrowApp extends LitElement {
         }
         .bar,
         .tools,
+        .insert,
         .add,
         .banner {
           display: none;
@@ -811,17 +829,19 @@ export class FurrowApp extends LitElement {
         ${STATUS_WORDS[status]
           ? html`<span class="state-word" title=${state?.error?.message ?? ''}>${STATUS_WORDS[status]}${upstreamName ? html`: <code>${upstreamName}</code>` : nothing}</span>`
           : nothing}
+        <span class="tools" role="toolbar" aria-label="Cell tools">
+          <button title="Move up" aria-label="Move up" ?disabled=${index === 0} @click=${() => this.moveCell(cell, -1)}>↑</button>
+          <button title="Move down" aria-label="Move down" ?disabled=${index === this.doc.cells.length - 1} @click=${() => this.moveCell(cell, 1)}>↓</button>
+          <button title="Delete this cell (undo brings it back)" aria-label="Delete" @click=${() => this.deleteCell(cell)}>✕</button>
+        </span>
       </div>
       <div class="body">
         ${view ? view(cell, state, catalogue) : html`<div class="inert"><pre>--- ${cell.marker}\n${cell.body}</pre></div>`}
       </div>
-      <div class="tools" role="toolbar" aria-label="Cell tools">
-        <button title="Move up" aria-label="Move up" ?disabled=${index === 0} @click=${() => this.moveCell(cell, -1)}>↑</button>
-        <button title="Move down" aria-label="Move down" ?disabled=${index === this.doc.cells.length - 1} @click=${() => this.moveCell(cell, 1)}>↓</button>
+      <div class="insert" role="toolbar" aria-label="Add a cell below">
         <button title="Add a note below" @click=${() => this.addCell('note', index + 1)}>+ note</button>
         <button title="Add a table below" @click=${() => this.addCell('table', index + 1)}>+ table</button>
         <button title="Add a formula below" @click=${() => this.addCell('formula', index + 1)}>+ formula</button>
-        <button title="Delete this cell" aria-label="Delete" @click=${() => this.deleteCell(cell)}>✕</button>
       </div>
     </section>`;
   }

@@ -1,0 +1,82 @@
+/**
+ * Pieces that several charts share: the zero line, the marking of residuals beyond the
+ * cut-off (shape and colour, never colour alone), row labels, tooltips, and the final
+ * assembly with the look of look.ts.
+ *
+ * Every datum a chart carries uses field names of our own (`x`, `residual`, `row`, `f0`):
+ * a user's column name can contain dots or brackets, which vega-lite would read as a path
+ * into nested data, and it never becomes a key of the spec. Column names appear only as
+ * titles.
+ */
+import { CONFIG, HEIGHT, MARKED, MARKED_SHAPE, POINT, POINT_SHAPE, TIP_FORMAT, WIDTH } from './look.ts';
+import type { ChartSpec } from './types.ts';
+
+/** A JSON object of a spec under construction (checked against vega-lite's schema in the tests). */
+export type Json = { [key: string]: unknown };
+
+/** The cut-off for marking studentized residuals (common practice, no source: |r| > 3). */
+export const CUT = 3;
+/** Legend entries of ordinary and marked residuals. */
+export const WITHIN = `within ${CUT} studentized units`;
+export const BEYOND = `beyond ${CUT} studentized units`;
+
+/** A horizontal (axis 'y') or vertical (axis 'x') rule at zero, with a one-row data set of its own. */
+export function zeroRule(axis: 'x' | 'y', title: string): Json {
+  return {
+    data: { values: [{ zero: 0 }] },
+    mark: { type: 'rule', strokeDash: [4, 3] },
+    encoding: { [axis]: { field: 'zero', type: 'quantitative', title } },
+  };
+}
+
+/**
+ * Colour and shape of points by their `flag` field ({@link WITHIN} or {@link BEYOND}); when
+ * nothing is marked, a plain colour and no legend.
+ */
+export function flagEncoding(anyMarked: boolean): Json {
+  if (!anyMarked) return { color: { value: POINT }, shape: { value: POINT_SHAPE } };
+  const scale = (range: readonly string[]) => ({ domain: [WITHIN, BEYOND], range });
+  return {
+    color: { field: 'flag', type: 'nominal', scale: scale([POINT, MARKED]), legend: { title: null } },
+    shape: { field: 'flag', type: 'nominal', scale: scale([POINT_SHAPE, MARKED_SHAPE]), legend: { title: null } },
+  };
+}
+
+/** The mark of points beyond the cut-off drawn over a binned view. */
+export function markedPointMark(): Json {
+  return { type: 'point', filled: true, color: MARKED, shape: MARKED_SHAPE, size: 60, opacity: 1 };
+}
+
+/** A layer of row labels (`row 17`) beside the given points. */
+export function labelLayer(values: readonly Json[], encoding: Json): Json {
+  return {
+    data: { values },
+    mark: { type: 'text', align: 'left', baseline: 'middle', dx: 7, dy: -6 },
+    encoding: { ...encoding, text: { field: 'label', type: 'nominal' } },
+  };
+}
+
+/** One tooltip entry: a number (formatted) or a text. */
+export function tip(field: string, title: string, numeric = true): Json {
+  return numeric ? { field, type: 'quantitative', title, format: TIP_FORMAT } : { field, type: 'nominal', title };
+}
+
+/** A number for a datum: NaN and infinities become null (JSON has no NaN). */
+export function num(x: number): number | null {
+  return Number.isFinite(x) ? x : null;
+}
+
+/**
+ * The whole spec: title and subtitle, the look, a fixed size unless the chart sets its own,
+ * and the body (layers or a single view). No `$schema` (a URL) and no `usermeta`.
+ */
+export function assemble(title: string, subtitle: string | null, body: Json, size: Json = { width: WIDTH, height: HEIGHT }): ChartSpec {
+  const spec: Json = {
+    title: subtitle === null ? { text: title } : { text: title, subtitle },
+    ...size,
+    config: CONFIG,
+    ...body,
+  };
+  // The shapes above are checked against vega-lite's JSON schema in test/charts.
+  return spec as unknown as ChartSpec;
+}
