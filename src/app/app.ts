@@ -55,7 +55,8 @@ function newCell(doc: Document, kind: 'note' | 'table' | 'formula'): Cell {
     case 'table':
       return { id, marker: formatMarker('table', fresh('table')), eol: '\n', body: freshBody('block,treatment,response\n1,,\n') };
     case 'formula':
-      return { id, marker: 'formula', eol: '\n', body: freshBody(`${fresh('value')} = `) };
+      // the space after "=" stays, ready for typing
+      return { id, marker: 'formula', eol: '\n', body: `${fresh('value')} = \n\n` };
   }
 }
 
@@ -436,10 +437,12 @@ export class FurrowApp extends LitElement {
 
   private summary(): string {
     let errors = 0;
+    let upstream = 0;
     let pending = 0;
     for (const c of this.doc.cells) {
       const s = this.stateOf(c)?.status;
-      if (s === 'error' || s === 'upstream') errors++;
+      if (s === 'error') errors++;
+      if (s === 'upstream') upstream++;
       if (s === 'pending') pending++;
     }
     const parts: string[] = [];
@@ -448,7 +451,9 @@ export class FurrowApp extends LitElement {
       const cell = this.doc.cells.find((c) => c.id === step.id);
       parts.push(`evaluating ${cell ? (cellName(cell) ?? 'a cell') : 'a cell'}: ${step.done} of ${step.total} cells checked…`);
     } else if (pending > 0) parts.push(`re-evaluating ${pending} ${pending === 1 ? 'cell' : 'cells'}…`);
-    else if (errors > 0) parts.push(`${errors} ${errors === 1 ? 'cell has' : 'cells have'} an error`);
+    else if (errors > 0) {
+      parts.push(`${errors} ${errors === 1 ? 'cell has' : 'cells have'} an error${upstream > 0 ? `, ${upstream} ${upstream === 1 ? 'depends' : 'depend'} on ${errors === 1 ? 'it' : 'them'}` : ''}`);
+    }
     else parts.push('every cell up to date');
     parts.push(this.saveProblem ? `not kept in this browser (${this.saveProblem})` : 'kept in this browser');
     return parts.join(' · ');
@@ -812,7 +817,9 @@ export class FurrowApp extends LitElement {
     return html`<section class="cell ${status}" data-cell=${cell.id} data-kind=${m.kind} data-name=${name ?? ''} data-status=${status} aria-label="${m.kind} ${name ?? ''}">
       <div class="margin">
         <span class="kind">${m.kind || 'cell'}</span>
-        ${m.kind === 'table' || m.kind === 'formula'
+        ${m.kind === 'table'
+          ? html`<span class="name" title="Rename the table in its own header">${name ?? '(unnamed)'}</span>`
+          : m.kind === 'formula'
           ? this.renaming === cell.id
             ? html`<input
                 class="name-input"

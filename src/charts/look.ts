@@ -8,8 +8,8 @@ import type { Config } from 'vega-lite';
 /**
  * The colour-blind-safe qualitative palette of Okabe and Ito, in the order we use it.
  * source: M. Okabe, K. Ito (2008), "Color Universal Design (CUD): how to make figures and
- * presentations that are friendly to colorblind people" (J*Fly; the eight colours and hex
- * values as published there). Yellow (#F0E442) comes last because it is faint on white, and
+ * presentations that are friendly to colorblind people" (J*Fly), its eight colours (hex
+ * values from memory). Yellow (#F0E442) comes last because it is faint on white, and
  * black is left out because it is the ink of text and rules.
  */
 export const OKABE_ITO = ['#0072B2', '#E69F00', '#009E73', '#D55E00', '#CC79A7', '#56B4E9', '#F0E442'] as const;
@@ -36,8 +36,11 @@ export const RULE = '#e4e1d8';
 export const RULE_STRONG = '#c9c4b6';
 const SHEET = '#ffffff';
 
-/** A light-to-blue ramp for counts in binned views (single hue: readable without colour vision). */
-export const COUNT_RANGE = ['#e6eef5', '#0072B2'] as const;
+/**
+ * A light-to-dark blue ramp for counts in binned views: one hue, so that it reads by
+ * lightness alone, with its light end dark enough to see a single point on white.
+ */
+export const COUNT_RANGE = ['#cfdeeb', '#00446b'] as const;
 
 /** The page's font stacks (src/app/theme.ts: --font-ui and --font-text). */
 export const FONT_UI = 'system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif';

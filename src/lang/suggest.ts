@@ -1,7 +1,8 @@
 /**
  * "Did you mean": the closest known name to a misspelt one, by optimal string alignment
  * distance (Levenshtein with adjacent transpositions), allowing about one edit in three
- * characters so that a suggestion is a plausible typo and not a guess.
+ * characters so that a suggestion is a plausible typo and not a guess; a name that another
+ * begins with (three characters at least) counts as close.
  */
 
 /** Edit distance with transpositions, stopping early once it exceeds `limit`. */
@@ -35,8 +36,10 @@ export function suggest(name: string, candidates: Iterable<string>): string | nu
   const lower = name.toLowerCase();
   for (const c of candidates) {
     if (c === name) continue;
-    // a difference of case only is the likeliest typo of all
-    const d = c.toLowerCase() === lower ? 0.5 : editDistance(name, c, limit);
+    // a difference of case only is the likeliest typo of all; a name cut short
+    // ("shear" for "shear_mpa") comes next
+    const cl = c.toLowerCase();
+    const d = cl === lower ? 0.5 : name.length >= 3 && cl.startsWith(lower) ? 0.75 : editDistance(name, c, limit);
     if (d < bestD || (d === bestD && best !== null && c < best)) {
       best = c;
       bestD = d;

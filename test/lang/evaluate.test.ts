@@ -116,3 +116,11 @@ describe('summaries and maths', () => {
     expect(json(evalFormula('abs(p.y - 12)', ...PLOTS))).toEqual([2, 0, null, 3]);
   });
 });
+
+describe('suggestions', () => {
+  it('offer a name that the misspelt one begins', () => {
+    const PLOTS2 = ['--- table q', 'shear_mpa,batch', '1,2', ''];
+    expect(err(evalFormula('mean(q.shear)', ...PLOTS2)).message).toMatch(/Did you mean shear_mpa\?/);
+    expect(err(evalFormula('mean(q.sh)', ...PLOTS2)).message).not.toMatch(/Did you mean/);
+  });
+});

@@ -301,7 +301,7 @@ function rangeIntegral(
     out[1] = wantDensity ? s * scratch.density : 0;
   };
   const center = outerMode(q, table, df, upper);
-  integrateScale(df, g, center, bendOfLog((s) => logG(s, q, table, upper)), 2, result);
+  integrateScale(df, g, !upper, center, bendOfLog((s) => logG(s, q, table, upper)), 2, result);
 }
 
 /**

@@ -12,6 +12,7 @@
  * density, the sum keeps its relative accuracy when the result is tiny (far tails).
  */
 import gammaln from '@stdlib/math-base-special-gammaln';
+import gammainc from '@stdlib/math-base-special-gammainc';
 import { gaussLegendre } from './quadrature.ts';
 
 const OUTER = gaussLegendre(12);
@@ -66,15 +67,21 @@ export function bendOfLog(logg: (s: number) => number): (s: number) => number {
  * Computes integral of f(s) g_i(s) ds for each component i of the integrand, for the scale of
  * a standard deviation on df degrees of freedom (df finite, df > 0).
  *
+ * g_0 must lie in [0, 1] and be monotone in s (`increasing` says which way); that makes the
+ * stopping rule rigorous: the march stops on each side once the chi-square mass left
+ * outside, times the largest value g_0 can take there, is below 1e-17 of the running total.
+ *
  * `center` should be near the mode of f(s) g_0(s). Each panel is about two local standard
  * deviations of the integrand wide, 2 / sqrt(-(ln f g_0)''), where -(ln f)'' = df + (df - 1)
- * / s^2 and `bend(s)` gives -(ln g_0)''; the width is checked at the panel's middle and far
- * end too, so a panel never runs into a sharper stretch. `width` components are integrated;
- * results go into `result`.
+ * / s^2 and `bend(s)` gives -(ln g_0)''; the local scale is sampled across the tentative
+ * panel, which shrinks until every sample allows it. Toward 0 the panels therefore shrink
+ * geometrically where s^(df-1) dominates. `width` components are integrated; results go
+ * into `result`.
  */
 export function integrateScale(
   df: number,
   g: ScaleIntegrand,
+  increasing: boolean,
   center: number,
   bend: (s: number) => number,
   width: number,
@@ -83,13 +90,12 @@ export function integrateScale(
   const c = logScaleConstant(df);
   const dfm1 = Math.max(df - 1, 0);
   const integerDf = Number.isInteger(df);
+  const halfDf = 0.5 * df;
   const sigma = (s: number): number => {
     const t = Math.max(s, 1e-150);
     const power = dfm1 === 0 ? 0 : dfm1 / (t * t);
     return 1 / Math.sqrt(df + power + Math.max(0, bend(t)));
   };
-  // Panel width from `from` in direction dir (+1 right, -1 left), limited at 0: the local
-  // scale is sampled across the tentative panel, which shrinks until every sample allows it.
   const panelWidth = (from: number, dir: number): number => {
     let wd = 2 * sigma(from);
     for (let r = 0; r < 6; r++) {
@@ -106,8 +112,12 @@ export function integrateScale(
   const out = new Float64Array(width);
   const panel = new Float64Array(width);
   for (let i = 0; i < width; i++) result[i] = 0;
+  const gAt = (s: number): number => {
+    g(s, out);
+    return out[0] as number;
+  };
 
-  const addPanel = (lo: number, hi: number): number => {
+  const addPanel = (lo: number, hi: number): void => {
     const half = 0.5 * (hi - lo);
     const mid = 0.5 * (hi + lo);
     for (let i = 0; i < width; i++) panel[i] = 0;
@@ -121,48 +131,39 @@ export function integrateScale(
       const wd = (weights[j] as number) * dens;
       for (let i = 0; i < width; i++) panel[i] = (panel[i] as number) + wd * (out[i] as number);
     }
-    for (let i = 0; i < width; i++) {
-      panel[i] = (panel[i] as number) * half;
-      result[i] = (result[i] as number) + (panel[i] as number);
-    }
-    return panel[0] as number;
+    for (let i = 0; i < width; i++) result[i] = (result[i] as number) + (panel[i] as number) * half;
   };
 
   const tiny = 1e-17;
   const maxPanels = 4000;
   let count = 0;
   const start = Math.max(center, 0);
-  // Rightward from the center.
+  // Rightward from the center: what is left beyond a is at most P(s > a) sup g.
   let a = start;
   for (;;) {
     const b = a + panelWidth(a, 1);
-    const add = addPanel(a, b);
+    addPanel(a, b);
     a = b;
     if (++count > maxPanels) break;
-    const total = result[0] as number;
-    if (add <= tiny * total && (add > 0 || total > 0)) break;
-    if (add === 0 && total === 0 && a > start + 60 / Math.sqrt(df)) break;
+    const mass = gammainc(halfDf * a * a, halfDf, true, true);
+    const bound = mass * (increasing ? 1 : gAt(a));
+    if (bound <= tiny * (result[0] as number)) break;
   }
-  // Leftward from the center toward 0.
+  // Leftward from the center toward 0: what is left below b is at most P(s < b) sup g.
   let b = start;
   while (b > 0) {
     let lo = b - panelWidth(b, -1);
-    let last = false;
-    if (integerDf && df >= 1) {
-      // s^(df-1) is a polynomial: a panel may end at 0.
-      if (lo <= 0.1 * b) {
-        lo = 0;
-        last = true;
-      }
-    } else {
-      // s^(df-1) is not smooth at 0: shrink geometrically and stop by the size rule.
+    if (!integerDf) {
+      // s^(df-1) is not smooth at 0: never let a panel reach it.
       lo = Math.max(lo, 0.25 * b);
+    } else if (lo < 0) {
+      lo = 0;
     }
-    const add = addPanel(lo, b);
+    addPanel(lo, b);
     b = lo;
-    if (last || ++count > maxPanels) break;
-    const total = result[0] as number;
-    if (add <= tiny * total && total > 0) break;
-    if (b < 1e-300) break;
+    if (b <= 0 || ++count > maxPanels) break;
+    const mass = gammainc(halfDf * b * b, halfDf, true, false);
+    const bound = mass * (increasing ? gAt(b) : 1);
+    if (bound <= tiny * (result[0] as number)) break;
   }
 }
