@@ -9,7 +9,7 @@
  */
 import DOMPurify from 'dompurify';
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
-import { unsafeHTML } from 'lit/directives/unsafe-html.js';
+import { unsafeHTML } from 'lit/directives/unsafe-html.js'; // only for the HTML that renderNoteHtml has sanitized
 import { marked } from 'marked';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
 import { formatInline } from '../../src/lang/format.ts';

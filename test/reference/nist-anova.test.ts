@@ -6,61 +6,10 @@
  * source: NIST Statistical Reference Datasets, ANOVA (https://www.itl.nist.gov/div898/strd/anova/),
  * files copied byte for byte into test/reference/fixtures/nist-anova/ (public domain).
  */
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { isRecord, isTable, type Value } from '../../src/lang/values.ts';
 import { doc, run } from '../helpers.ts';
-
-const DIR = join(__dirname, 'fixtures', 'nist-anova');
-const SETS = ['SiRstv', 'SmLs01', 'SmLs02', 'SmLs03', 'AtmWtAg', 'SmLs04', 'SmLs05', 'SmLs06', 'SmLs07', 'SmLs08', 'SmLs09'];
-
-interface Certified {
-  dfBetween: number;
-  ssBetween: number;
-  msBetween: number;
-  f: number;
-  dfWithin: number;
-  ssWithin: number;
-  msWithin: number;
-  r2: number;
-  sd: number;
-}
-
-function readSet(name: string): { certified: Certified; rows: [string, string][] } {
-  const lines = readFileSync(join(DIR, `${name}.dat`), 'utf8').split('\n');
-  const num = (s: string | undefined): number => Number(s);
-  const between = lines.find((l) => /^Between /.test(l))!.trim().split(/\s+/);
-  const within = lines.find((l) => /^Within /.test(l))!.trim().split(/\s+/);
-  const r2 = lines.find((l) => /Certified R-Squared/.test(l))!.trim().split(/\s+/).pop();
-  const sdLine = lines.findIndex((l) => /Certified Residual/.test(l));
-  const sd = lines[sdLine + 1]!.trim().split(/\s+/).pop();
-  // fields: "Between Treatment df ss ms f" / "Within Treatment df ss ms"
-  const certified = {
-    dfBetween: num(between[2]),
-    ssBetween: num(between[3]),
-    msBetween: num(between[4]),
-    f: num(between[5]),
-    dfWithin: num(within[2]),
-    ssWithin: num(within[3]),
-    msWithin: num(within[4]),
-    r2: num(r2),
-    sd: num(sd),
-  };
-  // data from line 61 on: group label, then the response, as printed
-  const rows = lines
-    .slice(60)
-    .map((l) => l.trim())
-    .filter((l) => l !== '')
-    .map((l) => l.split(/\s+/) as [string, string]);
-  return { certified, rows };
-}
-
-/** Log relative error, capped at 15 (references.md section 1). */
-function lre(x: number, c: number): number {
-  if (x === c) return 15;
-  return Math.min(15, -Math.log10(Math.abs(x - c) / Math.abs(c)));
-}
+import { NAMES as SETS, lre, readDataset, type Certified } from './fixtures/nist.ts';
 
 const report: string[] = [];
 afterAll(() => {
@@ -75,8 +24,8 @@ function num(v: Value | undefined): number {
 describe('NIST StRD one-way ANOVA, data typed into a table', () => {
   for (const name of SETS) {
     it(`${name}: every certified value at LRE >= 11`, () => {
-      const { certified: c, rows } = readSet(name);
-      const table = ['--- table nist', 'group,response', ...rows.map(([g, y]) => `${g},${y}`), ''];
+      const { certified: c, groups, texts } = readDataset(name);
+      const table = ['--- table nist', 'group,response', ...texts.map((y, i) => `${groups[i]},${y}`), ''];
       const { engine } = run(doc(...table, '--- formula', 'fit = one_way(nist.response, nist.group)'));
       const fit = engine.valueOf('fit');
       if (fit === undefined || !isRecord(fit)) throw new Error(`${name}: no fit (${JSON.stringify(fit)})`);

@@ -2,69 +2,11 @@
  * NIST StRD one-way analysis of variance: all eleven datasets, fed as decimal text through the
  * exact decimal shift, scored by the log relative error of every certified value.
  */
-import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { shiftDecimals } from '../../../src/stats/decimal/index.ts';
 import { oneWay } from '../../../src/stats/designs/index.ts';
+import { readDataset, NAMES, type Dataset } from '../../reference/fixtures/nist.ts';
 import { factorOf, lre } from './support.ts';
-
-const FIXTURES = new URL('../../reference/fixtures/nist-anova/', import.meta.url);
-const NAMES = ['SiRstv', 'SmLs01', 'SmLs02', 'SmLs03', 'AtmWtAg', 'SmLs04', 'SmLs05', 'SmLs06', 'SmLs07', 'SmLs08', 'SmLs09'];
-
-interface Certified {
-  dfBetween: number;
-  ssBetween: number;
-  msBetween: number;
-  f: number;
-  dfWithin: number;
-  ssWithin: number;
-  msWithin: number;
-  r2: number;
-  sd: number;
-}
-
-interface Dataset {
-  certified: Certified;
-  groups: string[];
-  texts: string[];
-}
-
-/** Parse a NIST file by fields: certified block, then data from line 61. */
-function readDataset(name: string): Dataset {
-  const lines = readFileSync(new URL(`${name}.dat`, FIXTURES), 'utf8').split('\n');
-  const fields = (prefix: string): number[] => {
-    const line = lines.find((l) => l.trimStart().startsWith(prefix));
-    if (line === undefined) throw new Error(`${name}: no line starting with ${prefix}`);
-    return line.trim().split(/\s+/).filter((w) => /^[-+]?[\d.]+(E[-+]?\d+)?$/i.test(w)).map(Number);
-  };
-  const between = fields('Between');
-  const within = fields('Within');
-  const r2 = fields('Certified R-Squared');
-  const sd = fields('Standard Deviation');
-  const groups: string[] = [];
-  const texts: string[] = [];
-  for (const line of lines.slice(60)) {
-    const parts = line.trim().split(/\s+/);
-    if (parts.length !== 2) continue;
-    groups.push(parts[0]!);
-    texts.push(parts[1]!);
-  }
-  return {
-    certified: {
-      dfBetween: between[0]!,
-      ssBetween: between[1]!,
-      msBetween: between[2]!,
-      f: between[3]!,
-      dfWithin: within[0]!,
-      ssWithin: within[1]!,
-      msWithin: within[2]!,
-      r2: r2[0]!,
-      sd: sd[0]!,
-    },
-    groups,
-    texts,
-  };
-}
 
 function scores(d: Dataset, y: Float64Array, offset: number): Record<string, number> {
   const fit = oneWay(y, factorOf('treatment', d.groups), { offset });
