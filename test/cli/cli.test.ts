@@ -30,6 +30,14 @@ describe('furrow run', () => {
       expect(r.code, `${s}\n${r.out}`).toBe(0);
     }
   });
+  it('every claim the samples make holds, so their notes say what the numbers say', () => {
+    for (const s of readdirSync('samples').filter((f) => f.endsWith('.furrow'))) {
+      const r = cli('run', join('samples', s), '--json');
+      const claims = JSON.parse(r.out).cells.filter((c: { type: string }) => c.type === 'claim');
+      expect(claims.length, s).toBeGreaterThan(0);
+      for (const c of claims) expect(c.value.holds, `${s}: ${c.value.statement}`).toBe(true);
+    }
+  });
   it('prints the JSON of the contract', () => {
     const dir = scratch({ 'd.furrow': GOOD, 'plots.csv': 'y,g\n1,a\n2,b\n,c\n' });
     const r = cli('run', join(dir, 'd.furrow'), '--json');
