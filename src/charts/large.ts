@@ -7,15 +7,15 @@
 
 /** Past this many points a chart bins or samples (common practice, no source: one mark per pixel column or so). */
 export const MAX_POINTS = 5000;
-/** At most this many marked points get a row label; the caption lists the rest by count. */
-export const MAX_LABELS = 20;
+/** At most this many marked points (the most extreme) get a row label; the caption counts the rest. */
+export const MAX_LABELS = 10;
 /** At most this many marked points are drawn one by one over a binned view. */
 export const MAX_MARKED = 1000;
 /** Past this many levels a factor's axis shows level positions (1, 2, ...) rather than names. */
 export const MANY_LEVELS = 60;
 /** Bins of a two-dimensional binned view, across and up (at most). */
-export const GRID_ACROSS = 40;
-export const GRID_UP = 30;
+export const GRID_ACROSS = 48;
+export const GRID_UP = 36;
 
 /** Equal bins with a round width: bin j covers [start + j step, start + (j + 1) step). */
 export interface Bins {
@@ -34,23 +34,19 @@ export function roundBins(min: number, max: number, most: number): Bins {
     return { start: min - step / 2, step, count: 1 };
   }
   const raw = (max - min) / most;
-  const power = 10 ** Math.floor(Math.log10(raw));
-  let step = 10 * power;
-  for (const m of [1, 2, 2.5, 5, 10]) {
-    if (m * power >= raw) {
-      step = m * power;
-      break;
+  const e0 = Math.floor(Math.log10(raw));
+  // the smallest round width whose bins, started at a multiple of it, fit in `most`
+  for (let e = e0; e <= e0 + 2; e++) {
+    for (const m of [1, 2, 2.5, 5]) {
+      const step = m * 10 ** e;
+      const start = Math.floor(min / step) * step;
+      const count = Math.floor((max - start) / step) + 1;
+      if (count <= most) return { start, step, count };
     }
   }
-  let start = Math.floor(min / step) * step;
-  let count = Math.floor((max - start) / step) + 1;
-  // rounding of start can leave the last value past the top bin; widen until it fits
-  while (count > most && step < raw * 100) {
-    step *= 2;
-    start = Math.floor(min / step) * step;
-    count = Math.floor((max - start) / step) + 1;
-  }
-  return { start, step, count };
+  const step = 10 ** (e0 + 3);
+  const start = Math.floor(min / step) * step;
+  return { start, step, count: Math.floor((max - start) / step) + 1 };
 }
 
 /** The bin of a value (clamped into range). */

@@ -8,7 +8,7 @@
  * into nested data, and it never becomes a key of the spec. Column names appear only as
  * titles.
  */
-import { CONFIG, HEIGHT, MARKED, MARKED_SHAPE, POINT, POINT_SHAPE, TIP_FORMAT, WIDTH } from './look.ts';
+import { CONFIG, HEIGHT, MARKED, MARKED_SHAPE, POINT, POINT_SHAPE, TIP_FORMAT, TIP_FORMAT_MEASURED, WIDTH } from './look.ts';
 import type { ChartSpec } from './types.ts';
 
 /** A JSON object of a spec under construction (checked against vega-lite's schema in the tests). */
@@ -39,7 +39,17 @@ export function flagEncoding(anyMarked: boolean): Json {
   return {
     color: { field: 'flag', type: 'nominal', scale: scale([POINT, MARKED]), legend: { title: null } },
     shape: { field: 'flag', type: 'nominal', scale: scale([POINT_SHAPE, MARKED_SHAPE]), legend: { title: null } },
+    // a marked point a little larger, so that it stands out in print as well
+    size: { condition: { test: { field: 'flag', equal: BEYOND }, value: 72 }, value: 38 },
   };
+}
+
+/**
+ * A legend that lists every one of `k` levels (vega drops entries past 30 unless told, and
+ * warns), in rows of at most 8.
+ */
+export function fullLegend(k: number): Json {
+  return { symbolLimit: k, columns: Math.min(k, 8) };
 }
 
 /** The mark of points beyond the cut-off drawn over a binned view. */
@@ -59,6 +69,11 @@ export function labelLayer(values: readonly Json[], encoding: Json): Json {
 /** One tooltip entry: a number (formatted) or a text. */
 export function tip(field: string, title: string, numeric = true): Json {
   return numeric ? { field, type: 'quantitative', title, format: TIP_FORMAT } : { field, type: 'nominal', title };
+}
+
+/** A tooltip entry for a measured value (more digits: see {@link TIP_FORMAT_MEASURED}). */
+export function measuredTip(field: string, title: string): Json {
+  return { field, type: 'quantitative', title, format: TIP_FORMAT_MEASURED };
 }
 
 /** A number for a datum: NaN and infinities become null (JSON has no NaN). */

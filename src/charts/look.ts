@@ -52,8 +52,13 @@ export const HEIGHT = 280;
 /** Height given to each row of a chart with one row per level or pair. */
 export const ROW_STEP = 22;
 
-/** How numbers show in tooltips (d3-format): six significant digits, trailing zeros dropped. */
+/** How derived numbers show in tooltips (d3-format): six significant digits, trailing zeros dropped. */
 export const TIP_FORMAT = '.6~g';
+/**
+ * How measured values show in tooltips: twelve significant digits, so that data with many
+ * constant leading digits (1000000000000.4) still read as typed.
+ */
+export const TIP_FORMAT_MEASURED = '.12~g';
 
 /** The vega-lite config every chart carries. */
 export const CONFIG: Config = {
@@ -89,6 +94,8 @@ export const CONFIG: Config = {
     labelPadding: 4,
     titlePadding: 8,
   },
+  // a little room beyond the data, so that no point sits on an axis line
+  scale: { continuousPadding: 10 },
   axisBand: { grid: false },
   axisPoint: { grid: false },
   legend: {
@@ -102,6 +109,8 @@ export const CONFIG: Config = {
     orient: 'bottom',
     direction: 'horizontal',
     symbolStrokeWidth: 1.5,
+    symbolOpacity: 1,
+    labelLimit: 320,
   },
   point: { filled: true, size: 38, opacity: 0.85 },
   line: { strokeWidth: 1.5 },

@@ -6,8 +6,9 @@
  * Past {@link MAX_POINTS} residuals the chart draws counts in bins (a two-dimensional grid,
  * or bins within each level) and draws the marked residuals one by one over them.
  */
+import { normalUpper } from '../stats/dist/index.ts';
 import { MANY_LEVELS, MAX_LABELS, MAX_MARKED, MAX_POINTS, bin2d, binByLevel, jitter } from './large.ts';
-import { BEYOND, CUT, WITHIN, assemble, flagEncoding, labelLayer, markedPointMark, num, tip, zeroRule, type Json } from './layers.ts';
+import { BEYOND, CUT, WITHIN, assemble, flagEncoding, labelLayer, markedPointMark, measuredTip, num, tip, zeroRule, type Json } from './layers.ts';
 import { COUNT_RANGE } from './look.ts';
 import { axisTitle, derivedTitle, readName } from './titles.ts';
 import type { ChartResult, FactorInput, ResidualInput } from './types.ts';
@@ -37,6 +38,24 @@ export function marked(input: ResidualInput): { at: number[]; rows: number[] } {
   return { at, rows };
 }
 
+/**
+ * The marked positions to label: the {@link MAX_LABELS} largest in studentized size (ties in
+ * data order), since labels of the most extreme points are the ones worth finding.
+ */
+export function toLabel(input: ResidualInput, at: readonly number[]): number[] {
+  const st = input.studentized;
+  return [...at].sort((a, b) => Math.abs(st[b]!) - Math.abs(st[a]!) || a - b).slice(0, MAX_LABELS);
+}
+
+/**
+ * How many residuals beyond the cut-off normal errors give by chance alone, in words, once
+ * that is at least one: with 100,000 residuals about 270 lie beyond 3 even when all is well.
+ */
+export function chanceWords(n: number): string | null {
+  const expected = n * 2 * normalUpper(CUT);
+  return expected < 1 ? null : `about ${count(Math.round(expected))} expected by chance alone with normal errors`;
+}
+
 /** The 1-based row of the table that fit row k came from. */
 export function dataRow(input: { readonly rows: Int32Array | null }, k: number): number {
   return (input.rows === null ? k : input.rows[k]!) + 1;
@@ -63,8 +82,8 @@ export function residualTips(input: ResidualInput): Json[] {
   return [
     tip('row', 'row'),
     ...input.factors.map((f, j) => tip(`f${j}`, axisTitle(f.name), false)),
-    tip('y', axisTitle(input.response)),
-    tip('fitted', 'fitted'),
+    measuredTip('y', axisTitle(input.response)),
+    measuredTip('fitted', 'fitted'),
     tip('residual', 'residual'),
     tip('st', 'studentized'),
   ];
@@ -116,15 +135,15 @@ export function residualsChart(input: ResidualInput, against: ResidualAxis, erro
   const xNominal = (f: FactorInput): Json => ({ field: `f${factorIndex}`, type: 'nominal', sort: [...f.levels], title: xTitle, axis: { labelAngle: f.levels.length > 8 ? -45 : 0 } });
   const xEnc: Json = nominal ? xNominal(factor!) : { field: 'x', type: 'quantitative', title: xTitle, scale: { zero: false } };
   const yEnc: Json = { field: 'residual', type: 'quantitative', title: yTitle };
-  const offset: Json = nominal ? { xOffset: { field: 'jit', type: 'quantitative', scale: { domain: [-0.5, 0.5] } } } : {};
+  const offset: Json = nominal ? { xOffset: { field: 'jit', type: 'quantitative', scale: { domain: [-0.75, 0.75] } } } : {};
   const jit = nominal ? jitter(factor!.codes, factor!.levels.length) : null;
   const withX = (k: number, d: Json): Json => {
     if (jit !== null) d.jit = jit[k]!;
     else d.x = num(xs![k]!);
     return d;
   };
-  const labelled = at.slice(0, MAX_LABELS).map((k) => withX(k, { ...residualDatum(input, k, true), label: `row ${dataRow(input, k)}` }));
-  if (at.length > MAX_LABELS) warnings.push(`${count(at.length)} residuals lie beyond ${CUT} studentized units; only the first ${MAX_LABELS} are labelled with their rows.`);
+  const labelled = toLabel(input, at).map((k) => withX(k, { ...residualDatum(input, k, true), label: `row ${dataRow(input, k)}` }));
+  if (at.length > MAX_LABELS) warnings.push(`${count(at.length)} residuals lie beyond ${CUT} studentized units; the ${MAX_LABELS} largest are labelled with their rows.`);
 
   let layers: Json[];
   let binnedWords = '';
@@ -145,14 +164,15 @@ export function residualsChart(input: ResidualInput, against: ResidualAxis, erro
       const f = factor!;
       const { cells, by } = binByLevel(f.codes, f.levels, input.residuals);
       binLayer = {
-        data: { values: cells },
+        // the level under the same field as the marked points', so the two layers share one x scale
+        data: { values: cells.map((c) => ({ [`f${factorIndex}`]: c.level, y0: c.y0, y1: c.y1, n: c.n })) },
         mark: { type: 'rect' },
         encoding: {
-          x: { field: 'level', type: 'nominal', sort: [...f.levels], title: xTitle },
+          x: xEnc,
           y: { field: 'y0', type: 'quantitative', title: yTitle },
           y2: { field: 'y1' },
           color: countColor,
-          tooltip: [tip('level', axisTitle(f.name), false), tip('y0', 'residual from'), tip('y1', 'residual to'), tip('n', 'residuals')],
+          tooltip: [tip(`f${factorIndex}`, axisTitle(f.name), false), tip('y0', 'residual from'), tip('y1', 'residual to'), tip('n', 'residuals')],
         },
       };
       binnedWords = `drawn as counts in bins ${fig(by.step)} wide within each level (more than ${count(MAX_POINTS)} points)`;
@@ -184,7 +204,8 @@ export function residualsChart(input: ResidualInput, against: ResidualAxis, erro
   const missingSt = countNaN(input.studentized);
   if (missingSt > 0) warnings.push(`${counted(missingSt, 'residual')} ha${missingSt === 1 ? 's' : 've'} no studentized value (a plot that fixes its own fitted value) and cannot be marked.`);
 
-  const parts = [`${counted(n, 'residual')} of ${response}`, flaggedWords(rows, CUT), `error sd ${fig(error.sd)} on ${count(error.df)} df`];
+  const chance = chanceWords(n);
+  const parts = [`${counted(n, 'residual')} of ${response}`, flaggedWords(rows, CUT) + (chance === null ? '' : `, ${chance}`), `error sd ${fig(error.sd)} on ${count(error.df)} df`];
   if (binnedWords !== '') parts.push(binnedWords);
   if (factor !== null && !nominal) parts.push(`${factor.name} shown by level number (${count(factor.levels.length)} levels)`);
   return {

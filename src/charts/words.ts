@@ -49,3 +49,16 @@ export function flaggedWords(rows: readonly number[], cut: number): string {
 export function percent(level: number): string {
   return `${formatNumber(level * 100, 4)}%`;
 }
+
+/** `1st`, `2nd`, `3rd`, `20th`, `21st`. */
+export function ordinal(k: number): string {
+  const teen = k % 100 >= 11 && k % 100 <= 13;
+  const last = k % 10;
+  const suffix = teen ? 'th' : last === 1 ? 'st' : last === 2 ? 'nd' : last === 3 ? 'rd' : 'th';
+  return `${count(k)}${suffix}`;
+}
+
+/** The first letter in capitals (titles). */
+export function capital(s: string): string {
+  return s.length === 0 ? s : s[0]!.toUpperCase() + s.slice(1);
+}

@@ -1,6 +1,7 @@
 /**
  * The registry of every built-in, assembled from the category files.
  */
+import { CHARTS } from './charts.ts';
 import { CLAIMS } from './claims.ts';
 import { DESIGNS } from './designs.ts';
 import { DISTRIBUTIONS } from './distributions.ts';
@@ -10,4 +11,4 @@ import { SUMMARIES } from './summaries.ts';
 import { TWO_GROUPS } from './two_groups.ts';
 
 /** All built-ins of the language. */
-export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...CLAIMS]);
+export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...CHARTS, ...CLAIMS]);

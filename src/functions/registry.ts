@@ -61,10 +61,15 @@ export interface Builtin {
   readonly run: (args: Args, ctx: CallContext) => Value;
 }
 
-/** The signature as users read it: `round(x, digits: 0)`. */
+/**
+ * The signature as users read it: `round(x, digits: 0)`; `scatter(x, y, color?)` for an
+ * argument that may be left out and has no default value.
+ */
 export function signature(b: Builtin): string {
   const parts = b.params.map((p) => {
     if (p.default === undefined) return p.name;
+    // an optional argument with no default value of its own (its default is "missing")
+    if (typeof p.default === 'object' && p.default.kind === 'missing') return `${p.name}?`;
     return `${p.name}: ${showDefault(p.default)}`;
   });
   return `${b.name}(${parts.join(', ')})`;

@@ -6,7 +6,7 @@
  * Errors are thrown as LangError with the range of the exact characters at fault; the graph
  * catches them at the cell boundary and turns them into error values.
  */
-import type { Registry } from '../functions/registry.ts';
+import { signature, type Registry } from '../functions/registry.ts';
 import { TYPES } from '../functions/types.ts';
 import type { Argument, CallNode, Expr, IndexNode, MemberNode } from './ast.ts';
 import { filterColumn, binary, negate, not, pickColumn } from './elementwise.ts';
@@ -286,7 +286,7 @@ function evalCall(e: CallNode, env: EvalEnv): Value {
     const g = given.get(p.name);
     if (g === undefined) {
       if (p.default === undefined) {
-        throw new LangError(msg.missingArgument(e.callee, p.name, signatureOf(fn.name, fn.params)), e.from, e.to);
+        throw new LangError(msg.missingArgument(e.callee, p.name, signature(fn)), e.from, e.to);
       }
       args.set(p.name, p.default);
       continue;
@@ -321,6 +321,4 @@ function countPositional(args: readonly Argument[]): number {
   return args.filter((a) => a.name === null).length;
 }
 
-function signatureOf(name: string, params: readonly { name: string; default?: Value }[]): string {
-  return `${name}(${params.map((p) => (p.default === undefined ? p.name : `${p.name}: ${typeof p.default === 'string' ? JSON.stringify(p.default) : String(p.default)}`)).join(', ')})`;
-}
+

@@ -35,13 +35,16 @@ async function cellText(page, name) {
   }, name);
 }
 
-/** The text of the n-th note (0-based), through shadow roots. */
-async function noteText(page, index) {
-  return page.evaluate((i) => {
+/** The text of the note that holds a heading or phrase, through shadow roots. */
+async function noteText(page, holding) {
+  return page.evaluate((h) => {
     const notes = document.querySelector('furrow-app').shadowRoot.querySelectorAll('section[data-kind="note"] furrow-note-cell');
-    const el = notes[i];
-    return el ? el.shadowRoot.textContent.replace(/\s+/g, ' ') : null;
-  }, index);
+    for (const el of notes) {
+      const t = el.shadowRoot.textContent.replace(/\s+/g, ' ');
+      if (t.includes(h)) return t;
+    }
+    return null;
+  }, holding);
 }
 
 async function statusOf(page, name) {
@@ -119,13 +122,37 @@ const tests = [
     },
   },
   {
+    name: 'the sample shows its residual and normal charts, drawn safely',
+    async run({ context, base, out }) {
+      const page = await context.newPage();
+      const requests = [];
+      page.on('request', (r) => requests.push(r.url()));
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      for (const name of ['residual_plot', 'normal_plot', 'means_plot']) {
+        const chart = page.locator(`section[data-name="${name}"] furrow-chart`);
+        await chart.scrollIntoViewIfNeeded();
+        await chart.locator('svg.marks, svg').first().waitFor({ timeout: 15_000 });
+        const marks = await chart.evaluate((el) => el.shadowRoot.querySelectorAll('svg path, svg circle, svg .mark-symbol path').length);
+        check(marks > 10, `${name}: ${marks} marks drawn`);
+      }
+      const caption = await cellText(page, 'normal_plot');
+      check(/Shapiro-Wilk W = 0\.969/.test(caption), `the normal chart's caption: ${caption}`);
+      await page.locator('section[data-name="residual_plot"]').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `${out}/residual-charts.png` });
+      // the page fetched nothing from anywhere but itself
+      const foreign = requests.filter((u) => !u.startsWith(base) && !u.startsWith('data:') && !u.startsWith('blob:'));
+      check(foreign.length === 0, `requests outside the page: ${foreign.join(', ')}`);
+    },
+  },
+  {
     name: 'an edited measurement moves the F value and the note that quotes it',
     async run({ context, base }) {
       const page = await context.newPage();
       await page.goto(`${base}/?fresh`);
       await settled(page);
       const before = await shownF(page);
-      const noteBefore = await noteText(page, 1);
+      const noteBefore = await noteText(page, 'What the coupons say');
       check(noteBefore.includes(`F = ${before}`), `note quotes F: ${noteBefore.slice(0, 120)}`);
       // row 1 of the coupons, the shear_mpa column
       await field(page, 'coupons', 0, 3).click();
@@ -138,7 +165,7 @@ const tests = [
       await settled(page);
       const after = await shownF(page);
       check(after !== before, `F did not change (${before})`);
-      const noteAfter = await noteText(page, 1);
+      const noteAfter = await noteText(page, 'What the coupons say');
       // the note quotes round(F, 2)
       const quoted = String(Math.round(Number(after) * 100) / 100);
       check(noteAfter.includes(`F = ${quoted}`) && !noteAfter.includes(`F = ${before}`), `note follows (F shown ${after}): ${noteAfter.slice(0, 160)}`);

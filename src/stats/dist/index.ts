@@ -1,2 +1,4 @@
 export * from './central.ts';
-export * from './range.ts';
+export { rangeCdf, rangeUpper, rangeQuantile, rangeCritical, rangeUpperQuantile } from './range.ts';
+export { noncentralTCdf, noncentralTUpper } from './noncentral-t.ts';
+export { noncentralFCdf, noncentralFUpper } from './noncentral-f.ts';

@@ -22,7 +22,8 @@
 import erfc from '@stdlib/math-base-special-erfc';
 import { gaussLegendre } from './quadrature.ts';
 import { evalChebyshev, evalChebyshevDerivative, fitPiecewiseChebyshev, type PiecewiseChebyshev } from './chebyshev.ts';
-import { bendOfLog, integrateScale, type ScaleIntegrand } from './scale.ts';
+import { integrateScale, type ScaleIntegrand } from './scale.ts';
+import { buildIntervalMax, intervalMax, type IntervalMax } from './bend.ts';
 import { normalQuantile, tCritical, tQuantile } from './central.ts';
 
 const INNER = gaussLegendre(12);
@@ -145,6 +146,10 @@ export interface RangeTable {
   readonly split: number;
   readonly rho: PiecewiseChebyshev;
   readonly lambda: PiecewiseChebyshev;
+  /** Bound of -(ln(1 - W))'' over intervals of w. */
+  readonly bendUpper: IntervalMax;
+  /** Bound of -(ln W)'' - (k - 1) / w^2 over intervals of w (the power part is exact). */
+  readonly bendLower: IntervalMax;
 }
 
 function buildTable(k: number): RangeTable {
@@ -170,7 +175,18 @@ function buildTable(k: number): RangeTable {
     24,
     (v) => 1e-14 * Math.max(1, v),
   );
-  return { groups: k, split, rho, lambda };
+  // How fast ln(1 - W) and ln W bend, by second differences of the (smooth) approximants.
+  const lnR = (w: number): number => evalChebyshev(rho, w) - 0.25 * w * w;
+  const lnWreduced = (w: number): number =>
+    w <= split ? evalChebyshev(lambda, w) : Math.log1p(-Math.exp(lnR(w))) - (k - 1) * Math.log(w);
+  const second = (fn: (w: number) => number, w: number): number => {
+    const h = Math.max(1e-3 * w, 1e-4);
+    const lo = Math.max(w - h, 1e-300);
+    return (fn(w + h) - 2 * fn(0.5 * (lo + w + h)) + fn(lo)) / (0.25 * (w + h - lo) * (w + h - lo));
+  };
+  const bendUpper = buildIntervalMax((w) => -second(lnR, Math.min(w, W_MAX - 0.01)), W_MAX, 0.05);
+  const bendLower = buildIntervalMax((w) => -second(lnWreduced, Math.min(w, W_MAX - 0.01)), W_MAX, 0.05);
+  return { groups: k, split, rho, lambda, bendUpper, bendLower };
 }
 
 const tables = new Map<number, RangeTable>();
@@ -301,7 +317,12 @@ function rangeIntegral(
     out[1] = wantDensity ? s * scratch.density : 0;
   };
   const center = outerMode(q, table, df, upper);
-  integrateScale(df, g, !upper, center, bendOfLog((s) => logG(s, q, table, upper)), 2, result);
+  const q2 = q * q;
+  const bendMax = upper
+    ? (lo: number, hi: number): number => q2 * intervalMax(table.bendUpper, q * lo, q * hi)
+    : (lo: number, hi: number): number =>
+        q2 * intervalMax(table.bendLower, q * lo, q * hi) + (k - 1) / (Math.max(lo, 1e-150) ** 2);
+  integrateScale(df, g, !upper, center, bendMax, 2, result);
 }
 
 /**

@@ -13,9 +13,8 @@
  */
 import gammaln from '@stdlib/math-base-special-gammaln';
 import gammainc from '@stdlib/math-base-special-gammainc';
-import { gaussLegendre } from './quadrature.ts';
+import { KRONROD15 } from './quadrature.ts';
 
-const OUTER = gaussLegendre(12);
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 
 /** Stirling's series remainder: lnGamma(x) - ((x - 1/2) ln x - x + ln sqrt(2 pi)). */
@@ -52,18 +51,6 @@ export function logScaleDensity(s: number, df: number, c: number): number {
 export type ScaleIntegrand = (s: number, out: Float64Array) => void;
 
 /**
- * The bending -(d/ds)^2 ln g(s) of a positive function, by a central second difference of
- * its logarithm; 0 where the logarithm is not finite (g underflows, so the integrand is 0).
- */
-export function bendOfLog(logg: (s: number) => number): (s: number) => number {
-  return (s: number): number => {
-    const h = 1e-3 * s;
-    const v = -(logg(s + h) - 2 * logg(s) + logg(s - h)) / (h * h);
-    return Number.isFinite(v) ? v : 0;
-  };
-}
-
-/**
  * Computes integral of f(s) g_i(s) ds for each component i of the integrand, for the scale of
  * a standard deviation on df degrees of freedom (df finite, df > 0).
  *
@@ -71,43 +58,58 @@ export function bendOfLog(logg: (s: number) => number): (s: number) => number {
  * stopping rule rigorous: the march stops on each side once the chi-square mass left
  * outside, times the largest value g_0 can take there, is below 1e-17 of the running total.
  *
- * `center` should be near the mode of f(s) g_0(s). Each panel is about two local standard
- * deviations of the integrand wide, 2 / sqrt(-(ln f g_0)''), where -(ln f)'' = df + (df - 1)
- * / s^2 and `bend(s)` gives -(ln g_0)''; the local scale is sampled across the tentative
- * panel, which shrinks until every sample allows it. Toward 0 the panels therefore shrink
- * geometrically where s^(df-1) dominates. `width` components are integrated; results go
- * into `result`.
+ * `center` should be near the mode of f(s) g_0(s). Each panel is at most two local standard
+ * deviations of the integrand wide, 2 / sqrt(-(ln f g_0)''), taking the largest bending over
+ * the panel: -(ln f)'' = df + (df - 1) / s^2 is largest at the panel's left end, and
+ * `bendMax(lo, hi)` must bound -(ln g_0)'' on [lo, hi]. Toward 0 the panels therefore shrink
+ * geometrically where s^(df-1) dominates, except that for a small integer df, where
+ * s^(df-1) is a polynomial the 15-point rule integrates exactly, the last panel may reach 0.
+ * Each panel is then checked by its Kronrod-Gauss difference and halved where needed.
+ * `width` components are integrated; results go into `result`.
  */
 export function integrateScale(
   df: number,
   g: ScaleIntegrand,
   increasing: boolean,
   center: number,
-  bend: (s: number) => number,
+  bendMax: (lo: number, hi: number) => number,
   width: number,
   result: Float64Array,
 ): void {
   const c = logScaleConstant(df);
   const dfm1 = Math.max(df - 1, 0);
-  const integerDf = Number.isInteger(df);
+  const polynomialAtZero = Number.isInteger(df) && df <= 13;
   const halfDf = 0.5 * df;
-  const sigma = (s: number): number => {
-    const t = Math.max(s, 1e-150);
-    const power = dfm1 === 0 ? 0 : dfm1 / (t * t);
-    return 1 / Math.sqrt(df + power + Math.max(0, bend(t)));
+  // Largest panel width allowed on [lo, hi] (within a factor 2 of the best).
+  const allowedOn = (lo: number, hi: number, withPower: boolean): number => {
+    const power = withPower && dfm1 > 0 ? dfm1 / (lo * lo) : 0;
+    return 2 / Math.sqrt(df + power + Math.max(0, bendMax(lo, hi)));
   };
-  const panelWidth = (from: number, dir: number): number => {
-    let wd = 2 * sigma(from);
-    for (let r = 0; r < 6; r++) {
-      let next = wd;
-      for (const f of [0.25, 0.5, 0.75, 1]) {
-        const x = from + dir * f * wd;
-        if (x > 0) next = Math.min(next, 2 * sigma(x));
-      }
-      if (next >= wd) break;
-      wd = next;
+  const widthRight = (from: number): number => {
+    let wd = allowedOn(from, from, true);
+    for (let r = 0; r < 40; r++) {
+      const allowed = allowedOn(from, from + wd, true);
+      if (allowed >= wd) break;
+      wd = Math.max(allowed, 0.5 * wd);
     }
     return wd;
+  };
+  const widthLeft = (from: number): number => {
+    let wd = allowedOn(from, from, true);
+    for (let r = 0; r < 40; r++) {
+      const lo = from - wd;
+      if (lo <= 0) {
+        // The rest down to 0 in one panel, if s^(df-1) is a low polynomial and the other
+        // factors are smooth there.
+        if (polynomialAtZero && allowedOn(0, from, false) >= from) return from;
+        wd = 0.5 * from;
+        continue;
+      }
+      const allowed = allowedOn(lo, from, true);
+      if (allowed >= wd) break;
+      wd = Math.max(allowed, 0.5 * wd);
+    }
+    return Math.min(wd, from);
   };
   const out = new Float64Array(width);
   const panel = new Float64Array(width);
@@ -117,19 +119,47 @@ export function integrateScale(
     return out[0] as number;
   };
 
-  const addPanel = (lo: number, hi: number): void => {
+  // One panel by the 15-point Kronrod rule; where it differs from the embedded 7-point Gauss
+  // rule by more than 1e-9 of the panel (or of the total so far), the panel is halved. The
+  // Kronrod value is then far more accurate than that difference (QUADPACK's own error
+  // estimate scales the difference down the same way).
+  const kn = KRONROD15.nodes;
+  const kw = KRONROD15.kronrodWeights;
+  const gw = KRONROD15.gaussWeights;
+  const nodeValue = (s: number, into: Float64Array): void => {
+    const dens = Math.exp(logScaleDensity(s, df, c));
+    if (dens === 0) {
+      for (let i = 0; i < width; i++) into[i] = 0;
+      return;
+    }
+    g(s, out);
+    for (let i = 0; i < width; i++) into[i] = dens * (out[i] as number);
+  };
+  const v1 = new Float64Array(width);
+  const v2 = new Float64Array(width);
+  const addPanel = (lo: number, hi: number, depth = 0): void => {
     const half = 0.5 * (hi - lo);
     const mid = 0.5 * (hi + lo);
     for (let i = 0; i < width; i++) panel[i] = 0;
-    const nodes = OUTER.nodes;
-    const weights = OUTER.weights;
-    for (let j = 0; j < nodes.length; j++) {
-      const s = mid + half * (nodes[j] as number);
-      const dens = Math.exp(logScaleDensity(s, df, c));
-      if (dens === 0) continue;
-      g(s, out);
-      const wd = (weights[j] as number) * dens;
-      for (let i = 0; i < width; i++) panel[i] = (panel[i] as number) + wd * (out[i] as number);
+    let gauss = 0;
+    nodeValue(mid, v1);
+    for (let i = 0; i < width; i++) panel[i] = (kw[7] as number) * (v1[i] as number);
+    gauss = (gw[3] as number) * (v1[0] as number);
+    for (let j = 0; j < 7; j++) {
+      const x = half * (kn[j] as number);
+      nodeValue(mid - x, v1);
+      nodeValue(mid + x, v2);
+      const wk = kw[j] as number;
+      for (let i = 0; i < width; i++) panel[i] = (panel[i] as number) + wk * ((v1[i] as number) + (v2[i] as number));
+      if (j % 2 === 1) gauss += (gw[(j - 1) / 2] as number) * ((v1[0] as number) + (v2[0] as number));
+    }
+    const kron = (panel[0] as number) * half;
+    gauss *= half;
+    const scale = Math.max(Math.abs(kron), 1e-3 * (result[0] as number));
+    if (Math.abs(kron - gauss) > 1e-9 * scale && depth < 12) {
+      addPanel(lo, mid, depth + 1);
+      addPanel(mid, hi, depth + 1);
+      return;
     }
     for (let i = 0; i < width; i++) result[i] = (result[i] as number) + (panel[i] as number) * half;
   };
@@ -137,11 +167,11 @@ export function integrateScale(
   const tiny = 1e-17;
   const maxPanels = 4000;
   let count = 0;
-  const start = Math.max(center, 0);
+  const start = Math.max(center, 1e-12);
   // Rightward from the center: what is left beyond a is at most P(s > a) sup g.
   let a = start;
   for (;;) {
-    const b = a + panelWidth(a, 1);
+    const b = a + widthRight(a);
     addPanel(a, b);
     a = b;
     if (++count > maxPanels) break;
@@ -152,13 +182,7 @@ export function integrateScale(
   // Leftward from the center toward 0: what is left below b is at most P(s < b) sup g.
   let b = start;
   while (b > 0) {
-    let lo = b - panelWidth(b, -1);
-    if (!integerDf) {
-      // s^(df-1) is not smooth at 0: never let a panel reach it.
-      lo = Math.max(lo, 0.25 * b);
-    } else if (lo < 0) {
-      lo = 0;
-    }
+    const lo = b - widthLeft(b);
     addPanel(lo, b);
     b = lo;
     if (b <= 0 || ++count > maxPanels) break;
