@@ -146,6 +146,42 @@ const tests = [
     },
   },
   {
+    name: 'a chart spec that points at a URL or a file loads nothing in the page and says so',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      const requests = [];
+      page.on('request', (r) => requests.push(r.url()));
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      // Specs are built only by Furrow; here one is handed to the chart element directly, as a
+      // hostile one would have to be, pointing at a remote URL, a local file and a data URL.
+      const warnings = await page.evaluate(async () => {
+        const out = [];
+        for (const url of ['https://example.invalid/trial.csv', '/etc/passwd', 'file:///etc/passwd', '/index.html']) {
+          const el = document.createElement('furrow-chart');
+          el.value = {
+            kind: 'chart',
+            caption: 'hostile',
+            spec: { data: { url, format: { type: 'csv' } }, mark: 'point', encoding: { x: { field: 'a', type: 'quantitative' } }, usermeta: { embedOptions: { actions: true } } },
+          };
+          document.body.append(el);
+          const until = performance.now() + 8000;
+          while (performance.now() < until && !(el.shadowRoot?.querySelector('.warnings, .failed'))) await new Promise((r) => setTimeout(r, 100));
+          out.push({ url, text: el.shadowRoot?.querySelector('.warnings, .failed')?.textContent ?? null, actions: !!el.shadowRoot?.querySelector('.vega-actions, details') });
+          el.remove();
+        }
+        return out;
+      });
+      for (const w of warnings) {
+        check(w.text !== null && /refus|not allowed|no data|load/i.test(w.text), `${w.url}: no visible warning (${w.text})`);
+        check(!w.actions, `${w.url}: the actions menu came back`);
+      }
+      const leaked = requests.filter((u) => /example\.invalid|passwd|index\.html$/.test(u) && !u.endsWith(`${base}/index.html`));
+      const htmlFetches = requests.filter((u) => u === `${base}/index.html`);
+      check(leaked.length === 0 && htmlFetches.length === 0, `the page fetched: ${[...leaked, ...htmlFetches].join(', ')}`);
+    },
+  },
+  {
     name: 'an edited measurement moves the F value and the note that quotes it',
     async run({ context, base }) {
       const page = await context.newPage();
