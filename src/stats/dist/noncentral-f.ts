@@ -6,9 +6,9 @@
  * Continuous Univariate Distributions 2, ch. 30, eq. 30.9), with x = df1 f / (df1 f + df2):
  *   P(F <= f) = sum_j p_j I_x(df1/2 + j, df2/2),   p_j = e^(-lambda/2) (lambda/2)^j / j!,
  *   P(F > f)  = sum_j p_j I_(1-x)(df2/2, df1/2 + j),
- * summed outward from the Poisson mode as in Ding's and Frick's corrections to AS 226 and in
- * Chattamvelli and Shanmugam's AS 310 (Applied Statistics 46, 1997, 146-156), so that large
- * lambda neither underflows e^(-lambda/2) nor needs thousands of terms. Only one incomplete
+ * the scheme of AS 226 (Lenth 1987, with Frick's 1990 remark AS R84), summed outward from the
+ * Poisson mode as in AS 310 (Chattamvelli and Shanmugam 1997), so that a large lambda neither
+ * underflows e^(-lambda/2) nor needs thousands of terms. Only one incomplete
  * beta function is evaluated; the others follow from
  *   I_x(a + 1, b) = I_x(a, b) - T(a),   T(a) = Gamma(a + b) / (Gamma(a + 1) Gamma(b)) x^a (1-x)^b,
  * run only in the direction in which it adds positive terms (downward for the lower tail,

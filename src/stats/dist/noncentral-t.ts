@@ -35,9 +35,10 @@ function mode(t: number, df: number, delta: number, sign: number): number {
   const logh = (s: number): number => logScaleDensity(s, df, c) + Math.log(normalLower(sign * (t * s - delta)));
   let best = 1;
   let bestVal = -Infinity;
-  const lo = -12;
+  // The integrand may sit anywhere from s ~ 1/q (huge q, tiny tails) to a few units.
+  const lo = Math.log(Math.min(1e-6, 0.1 / Math.abs(t)));
   const hi = 3;
-  const steps = 45;
+  const steps = 45 + Math.ceil(-lo / 3);
   for (let i = 0; i <= steps; i++) {
     const s = Math.exp(lo + ((hi - lo) * i) / steps);
     const v = logh(s);
@@ -72,14 +73,29 @@ function mode(t: number, df: number, delta: number, sign: number): number {
   return Math.exp(0.5 * (a + b));
 }
 
+/**
+ * -(ln Phi)''(x) = m (m + x) with m = phi(x) / Phi(x): it falls steadily from 1 (x -> -inf)
+ * to 0 (x -> +inf), so its largest value on an interval is at the interval's left end.
+ */
+function normalLogBend(x: number): number {
+  if (x < -8) return 1;
+  if (x > 38) return 0;
+  const m = Math.exp(-0.5 * x * x - 0.5 * Math.log(2 * Math.PI) - Math.log(normalLower(x)));
+  return Math.min(1, Math.max(0, m * (m + x)));
+}
+
 /** integral of f(s) Phi(sign (t s - delta)) ds, for t != 0 and finite df. */
 function mixture(t: number, df: number, delta: number, sign: number): number {
   const g: ScaleIntegrand = (s, out) => {
     out[0] = normalLower(sign * (t * s - delta));
   };
-  // -(ln Phi)'' lies in (0, 1), so the bending of ln g in s is below t^2.
+  const increasing = sign * t > 0;
+  // The argument sign (t s - delta) is smallest at the left end of a panel when g increases
+  // in s and at the right end otherwise; there the bending of ln g is largest.
   const t2 = t * t;
-  integrateScale(df, g, sign * t > 0, mode(t, df, delta, sign), () => t2, 1, slots);
+  const bendMax = (lo: number, hi: number): number =>
+    t2 * normalLogBend(sign * (t * (increasing ? lo : hi) - delta));
+  integrateScale(df, g, increasing, mode(t, df, delta, sign), bendMax, 1, slots);
   return Math.min(1, slots[0] as number);
 }
 

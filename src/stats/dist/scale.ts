@@ -40,8 +40,12 @@ export function logScaleConstant(df: number): number {
 export function logScaleDensity(s: number, df: number, c: number): number {
   if (s <= 0) return df < 1 ? Infinity : df === 1 ? c : -Infinity;
   const e = s - 1;
-  // ln s + (1 - s^2)/2 = log1p(e) - e - e^2/2, accurate near s = 1 where large df lives.
-  return c + df * (Math.log1p(e) - e - 0.5 * e * e) - Math.log(s);
+  if (Math.abs(e) < 0.5) {
+    // ln s + (1 - s^2)/2 = log1p(e) - e - e^2/2, accurate near s = 1 where large df lives.
+    return c + df * (Math.log1p(e) - e - 0.5 * e * e) - Math.log(s);
+  }
+  // Far from 1 the terms do not cancel, and s - 1 would lose the digits of a small s.
+  return c + (df - 1) * Math.log(s) + 0.5 * df * (1 - s) * (1 + s);
 }
 
 /**
@@ -60,7 +64,7 @@ export type ScaleIntegrand = (s: number, out: Float64Array) => void;
  *
  * `center` should be near the mode of f(s) g_0(s). Each panel is at most two local standard
  * deviations of the integrand wide, 2 / sqrt(-(ln f g_0)''), taking the largest bending over
- * the panel: -(ln f)'' = df + (df - 1) / s^2 is largest at the panel's left end, and
+ * the panel: |(ln f)''| <= df + |df - 1| / s^2 is largest at the panel's left end, and
  * `bendMax(lo, hi)` must bound -(ln g_0)'' on [lo, hi]. Toward 0 the panels therefore shrink
  * geometrically where s^(df-1) dominates, except that for a small integer df, where
  * s^(df-1) is a polynomial the 15-point rule integrates exactly, the last panel may reach 0.
@@ -77,7 +81,8 @@ export function integrateScale(
   result: Float64Array,
 ): void {
   const c = logScaleConstant(df);
-  const dfm1 = Math.max(df - 1, 0);
+  // |df - 1| / s^2 is the size of the bending of ln s^(df-1), concave for df > 1, convex below.
+  const dfm1 = Math.abs(df - 1);
   const polynomialAtZero = Number.isInteger(df) && df <= 13;
   const halfDf = 0.5 * df;
   // Largest panel width allowed on [lo, hi] (within a factor 2 of the best).
@@ -167,7 +172,7 @@ export function integrateScale(
   const tiny = 1e-17;
   const maxPanels = 4000;
   let count = 0;
-  const start = Math.max(center, 1e-12);
+  const start = center > 0 ? center : 1e-300;
   // Rightward from the center: what is left beyond a is at most P(s > a) sup g.
   let a = start;
   for (;;) {
@@ -190,4 +195,7 @@ export function integrateScale(
     const bound = mass * (increasing ? gAt(b) : 1);
     if (bound <= tiny * (result[0] as number)) break;
   }
+  // A march that ran out of panels did not reach its stopping rule: say so rather than
+  // return a truncated sum.
+  if (count > maxPanels) for (let i = 0; i < width; i++) result[i] = NaN;
 }
