@@ -217,8 +217,13 @@ const tests = [
       await settled(page);
       const editor = page.locator('section[data-name="gain"] furrow-formula-cell');
       // the editor is made when the cell comes into view; before that the formula is static text
-      await editor.locator('.static').first().click();
-      await editor.locator('.cm-content').waitFor();
+      await page.locator('section[data-name="gain"]').scrollIntoViewIfNeeded();
+      try {
+        await editor.locator('.cm-content').waitFor({ timeout: 5000 });
+      } catch {
+        await editor.locator('.static').first().click();
+        await editor.locator('.cm-content').waitFor();
+      }
       await editor.locator('.cm-content').click();
       await page.keyboard.press('Control+a');
       // (the editor closes brackets and quotes as they are typed, so the fault is a dangling operator)
