@@ -24,6 +24,7 @@ import {
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
 import { blocked, factorial, latinSquare, oneWay, type DesignFit } from '../stats/designs/index.ts';
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
+import { MAX_GROUPS } from '../stats/dist/index.ts';
 import { completeRows, factorOf, responseOf, type Factor } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from './registry.ts';
@@ -270,7 +271,12 @@ export const DESIGNS: readonly Builtin[] = [
     example: 'pairwise(fit, method: "tukey")',
     run: (a) => {
       const i = fitInternal(a.get('fit') as RecordValue);
-      const r = guarded(() => pairwise(i.fit, a.get('method') as string, a.get('level') as number));
+      const method = a.get('method') as string;
+      const k = i.fit.means.level.length;
+      if (method === 'tukey' && k > MAX_GROUPS) {
+        throw new UsageError(`Tukey intervals use the studentized range, computed here for up to ${MAX_GROUPS} means; this fit has ${k}. Use method: "bonferroni".`);
+      }
+      const r = guarded(() => pairwise(i.fit, method, a.get('level') as number));
       return record(
         [
           ['method', r.method],

@@ -13,6 +13,7 @@ function positive(fn: string, name: string, v: number): number {
 
 function groupsCount(v: number): number {
   if (!Number.isInteger(v) || v < 2) throw new UsageError(`groups must be a whole number of at least 2, but it is ${v}.`);
+  if (v > dist.MAX_GROUPS) throw new UsageError(`the studentized range is computed for up to ${dist.MAX_GROUPS} groups, and ${v} were asked for.`);
   return v;
 }
 
