@@ -128,6 +128,14 @@ function fitRecord(fit: DesignFit, internal: FitInternal): RecordValue {
   return record(fields, 'fit', internal);
 }
 
+/** The rows of a column that are not missing, or null when none is missing. */
+function presentRows(c: Column): Int32Array | null {
+  if (c.missing === null) return null;
+  const out: number[] = [];
+  for (let i = 0; i < c.values.length; i++) if (c.missing[i] !== 1) out.push(i);
+  return Int32Array.from(out);
+}
+
 interface Prepared {
   y: Float64Array;
   offset: number;
@@ -144,6 +152,21 @@ function prepare(y: NumberColumn, factorCols: readonly { col: Column; role: stri
   const rows = completeRows([y, ...factorCols.map((f) => f.col)], ctx, names);
   const r = responseOf(y, rows);
   const factors = factorCols.map((f) => factorOf(f.col, rows, f.role));
+  if (rows !== null) {
+    // a level that appears in the table but lost every row to missing values: a treatment
+    // with no data cannot be compared, and silently leaving it out would hide that
+    factorCols.forEach((f, j) => {
+      const all = factorOf(f.col, presentRows(f.col), f.role);
+      const kept = new Set(factors[j]!.levels);
+      const lost = all.levels.filter((l) => !kept.has(l));
+      if (lost.length > 0) {
+        const name = factors[j]!.name;
+        throw new UsageError(
+          `${name} ${lost.map((l) => `"${l}"`).join(', ')} ${lost.length === 1 ? 'has' : 'have'} no measurement left (every ${lost.length === 1 ? 'one of its rows has' : 'row of them has'} a missing value), so ${lost.length === 1 ? 'it' : 'they'} cannot be estimated. Measure ${lost.length === 1 ? 'it' : 'them'}, or remove ${lost.length === 1 ? 'its rows' : 'their rows'} from the table.`,
+        );
+      }
+    });
+  }
   const seen = new Set<string>();
   for (const f of factors) {
     if (seen.has(f.name)) throw new UsageError(`two factors are both called "${f.name}"; each factor needs its own column.`);

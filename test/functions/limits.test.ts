@@ -14,3 +14,16 @@ describe('limits are said in plain words, never returned as NaN', () => {
     expect(isError(q) && q.message).toMatch(/up to 200 groups, and 250 were asked for/);
   });
 });
+
+describe('a design too broken to estimate is an error in plain words', () => {
+  it('a treatment whose every measurement is missing', () => {
+    const { engine } = run(doc('--- table u', 'trt,blk,y', 'a,1,1', 'b,1,2', 'c,1,', 'a,2,2', 'b,2,3', 'c,2,', '', '--- formula', 'fit = blocked(u.y, u.trt, u.blk)'));
+    const v = engine.valueOf('fit')!;
+    expect(isError(v) && v.message).toMatch(/trt "c" has no measurement left/);
+  });
+  it('a block with one plot', () => {
+    const { engine } = run(doc('--- table t', 'trt,blk,y', 'a,1,1', 'b,1,2', 'c,1,3', 'a,2,2', 'b,2,3', 'c,2,', 'a,3,1.5', 'b,3,', 'c,3,', '', '--- formula', 'fit = blocked(t.y, t.trt, t.blk)'));
+    const v = engine.valueOf('fit')!;
+    expect(isError(v) && v.message).toMatch(/block "3" has only one plot/);
+  });
+});
