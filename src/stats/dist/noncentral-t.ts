@@ -14,6 +14,7 @@
  */
 import erfc from '@stdlib/math-base-special-erfc';
 import { integrateScale, logScaleConstant, logScaleDensity, type ScaleIntegrand } from './scale.ts';
+import { scaleMode } from './mode.ts';
 
 /** P(Z <= x) for a standard normal Z, from the side that does not cancel. */
 function normalLower(x: number): number {
@@ -33,44 +34,7 @@ const slots = new Float64Array(1);
 function mode(t: number, df: number, delta: number, sign: number): number {
   const c = logScaleConstant(df);
   const logh = (s: number): number => logScaleDensity(s, df, c) + Math.log(normalLower(sign * (t * s - delta)));
-  let best = 1;
-  let bestVal = -Infinity;
-  // The integrand may sit anywhere from s ~ 1/q (huge q, tiny tails) to a few units.
-  const lo = Math.log(Math.min(1e-6, 0.1 / Math.abs(t)));
-  const hi = 3;
-  const steps = 45 + Math.ceil(-lo / 3);
-  for (let i = 0; i <= steps; i++) {
-    const s = Math.exp(lo + ((hi - lo) * i) / steps);
-    const v = logh(s);
-    if (v > bestVal) {
-      bestVal = v;
-      best = s;
-    }
-  }
-  const ratio = Math.exp((hi - lo) / steps);
-  let a = Math.log(best / ratio);
-  let b = Math.log(best * ratio);
-  const gr = (Math.sqrt(5) - 1) / 2;
-  let x1 = b - gr * (b - a);
-  let x2 = a + gr * (b - a);
-  let f1 = logh(Math.exp(x1));
-  let f2 = logh(Math.exp(x2));
-  for (let i = 0; i < 20; i++) {
-    if (f1 > f2) {
-      b = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b - gr * (b - a);
-      f1 = logh(Math.exp(x1));
-    } else {
-      a = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a + gr * (b - a);
-      f2 = logh(Math.exp(x2));
-    }
-  }
-  return Math.exp(0.5 * (a + b));
+  return scaleMode(logh, Math.abs(t));
 }
 
 /**

@@ -30,6 +30,7 @@ import { evalChebyshev, evalChebyshevDerivative, fitPiecewiseChebyshev, type Pie
 import { integrateScale, type ScaleIntegrand } from './scale.ts';
 import { buildIntervalMax, intervalMax, type IntervalMax } from './bend.ts';
 import { normalQuantile, tQuantile } from './central.ts';
+import { scaleMode } from './mode.ts';
 
 const INNER = gaussLegendre(12);
 const INV_SQRT_2PI = 1 / Math.sqrt(2 * Math.PI);
@@ -273,44 +274,7 @@ function logG(s: number, q: number, table: RangeTable, upper: boolean): number {
  */
 function outerMode(q: number, table: RangeTable, df: number, upper: boolean): number {
   const logh = (s: number): number => (df - 1) * Math.log(s) - 0.5 * df * s * s + logG(s, q, table, upper);
-  let best = 1;
-  let bestVal = -Infinity;
-  // The integrand may sit anywhere from s ~ 1/q (huge q, tiny tails) to a few units.
-  const lo = Math.log(Math.min(1e-6, 0.1 / q));
-  const hi = 3;
-  const steps = 45 + Math.ceil(-lo / 3);
-  for (let i = 0; i <= steps; i++) {
-    const s = Math.exp(lo + ((hi - lo) * i) / steps);
-    const v = logh(s);
-    if (v > bestVal) {
-      bestVal = v;
-      best = s;
-    }
-  }
-  const ratio = Math.exp((hi - lo) / steps);
-  let a = Math.log(best / ratio);
-  let b = Math.log(best * ratio);
-  const gr = (Math.sqrt(5) - 1) / 2;
-  let x1 = b - gr * (b - a);
-  let x2 = a + gr * (b - a);
-  let f1 = logh(Math.exp(x1));
-  let f2 = logh(Math.exp(x2));
-  for (let i = 0; i < 20; i++) {
-    if (f1 > f2) {
-      b = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b - gr * (b - a);
-      f1 = logh(Math.exp(x1));
-    } else {
-      a = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a + gr * (b - a);
-      f2 = logh(Math.exp(x2));
-    }
-  }
-  return Math.exp(0.5 * (a + b));
+  return scaleMode(logh, q);
 }
 
 const scratch: NormalRangeOut = { cdf: 0, upper: 0, density: 0 };
