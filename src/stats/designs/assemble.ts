@@ -94,6 +94,48 @@ export interface MeansCovariance {
   values: Float64Array;
 }
 
+/** The fields of a fit that follow from its error term, shared by every design. */
+export interface ErrorFields {
+  mse: number;
+  df_error: number;
+  sd: number;
+  grand_mean: number;
+  r2: number;
+  residuals: Float64Array;
+  leverage: Float64Array;
+  studentized_residuals: Float64Array;
+  offset: number;
+}
+
+/**
+ * Error mean square, its root, R-squared, the grand mean with the offset added back, and
+ * the studentized residuals (computed here unless the design already has them).
+ */
+export function errorFields(e: {
+  mse: number;
+  dfError: number;
+  sse: number;
+  sst: number;
+  /** Grand mean on the shifted scale. */
+  grand: number;
+  offset: number;
+  residuals: Float64Array;
+  leverage: Float64Array;
+  studentized?: Float64Array;
+}): ErrorFields {
+  return {
+    mse: e.mse,
+    df_error: e.dfError,
+    sd: Math.sqrt(e.mse),
+    grand_mean: e.grand + e.offset,
+    r2: e.sst > 0 ? 1 - e.sse / e.sst : NaN,
+    residuals: e.residuals,
+    leverage: e.leverage,
+    studentized_residuals: e.studentized ?? studentize(e.residuals, e.leverage, e.mse),
+    offset: e.offset,
+  };
+}
+
 /** e_i / sqrt(mse (1 - h_i)); NaN where the leverage is 1 or there is no error term. */
 export function studentize(residuals: Float64Array, leverage: Float64Array, mse: number): Float64Array {
   const n = residuals.length;

@@ -10,7 +10,7 @@
 import { fUpper } from '../dist/index.ts';
 import { leastSquaresMeans } from '../linear/fit.ts';
 import { centredSumOfSquares, groupMeans } from '../linear/sums.ts';
-import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance, missingCellNotes, studentize } from './assemble.ts';
+import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance, missingCellNotes, errorFields } from './assemble.ts';
 import { commonCount, compactFactor, requireAllLevels, resolveOptions, type ResolvedOptions } from './check.ts';
 import { DesignError } from './errors.ts';
 import { fitOrExplain } from './least.ts';
@@ -178,18 +178,10 @@ function balancedFit(
     ss_method: 'closed form from treatment and block means (balanced, so the sums are orthogonal)',
     means: trtMeans.table,
     factor_means: [trtMeans, blkMeans],
-    mse,
-    df_error: dfError,
-    sd: Math.sqrt(mse),
-    grand_mean: grand + opts.offset,
-    r2: sst > 0 ? 1 - sse / sst : NaN,
+    ...errorFields({ mse, dfError, sse, sst, grand, offset: opts.offset, residuals, leverage, studentized }),
     fitted,
-    residuals,
-    leverage,
-    studentized_residuals: studentized,
     balanced: true,
     notes,
-    offset: opts.offset,
     relative_efficiency: re.corrected,
     relative_efficiency_uncorrected: re.uncorrected,
   };
@@ -251,18 +243,10 @@ function leastSquaresFit(
     ss_method: 'least squares: treatments adjusted for blocks, blocks adjusted for treatments',
     means: trtMeans.table,
     factor_means: [trtMeans, blkMeans],
-    mse,
-    df_error: dfError,
-    sd: Math.sqrt(mse),
-    grand_mean: lin.mean + opts.offset,
-    r2: lin.sst > 0 ? 1 - sse / lin.sst : NaN,
+    ...errorFields({ mse, dfError, sse, sst: lin.sst, grand: lin.mean, offset: opts.offset, residuals: lin.residuals, leverage: lin.leverage }),
     fitted: addOffset(lin.fitted, opts.offset),
-    residuals: lin.residuals,
-    leverage: lin.leverage,
-    studentized_residuals: studentize(lin.residuals, lin.leverage, mse),
     balanced: false,
     notes,
-    offset: opts.offset,
     relative_efficiency: re.corrected,
     relative_efficiency_uncorrected: re.uncorrected,
   };

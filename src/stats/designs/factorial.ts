@@ -16,7 +16,7 @@
  */
 import { leastSquaresMeans } from '../linear/fit.ts';
 import { centredSumOfSquares, groupMeans, mean } from '../linear/sums.ts';
-import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance, studentize } from './assemble.ts';
+import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance, errorFields } from './assemble.ts';
 import { checkFactor, checkResponse, commonCount, requireAllLevels, resolveOptions } from './check.ts';
 import { DesignError } from './errors.ts';
 import { fitOrExplain } from './least.ts';
@@ -254,18 +254,10 @@ export function factorial(y: Float64Array, factors: readonly Factor[], options?:
         : 'least squares with sum-to-zero coding: each term adjusted for every other term, interactions included',
     means: first.table,
     factor_means: margins,
-    mse,
-    df_error: dfError,
-    sd: Math.sqrt(mse),
-    grand_mean: grand + opts.offset,
-    r2: sst > 0 ? 1 - sse / sst : NaN,
+    ...errorFields({ mse, dfError, sse, sst, grand, offset: opts.offset, residuals, leverage }),
     fitted,
-    residuals,
-    leverage,
-    studentized_residuals: studentize(residuals, leverage, mse),
     balanced: r >= 1,
     notes,
-    offset: opts.offset,
   };
   if (effects !== undefined) fit.effects = effects;
   if (lenth !== undefined) fit.lenth = lenth;

@@ -6,7 +6,7 @@
  */
 import { leastSquaresMeans } from '../linear/fit.ts';
 import { centredSumOfSquares, groupMeans, mean } from '../linear/sums.ts';
-import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance, missingCellNotes, studentize } from './assemble.ts';
+import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance, missingCellNotes, errorFields } from './assemble.ts';
 import { checkFactor, checkResponse, crossCounts, requireAllLevels, resolveOptions } from './check.ts';
 import { DesignError } from './errors.ts';
 import { fitOrExplain } from './least.ts';
@@ -147,17 +147,9 @@ export function latinSquare(y: Float64Array, treatment: Factor, row: Factor, col
       : 'least squares: each factor adjusted for the other two',
     means: first.table,
     factor_means: margins,
-    mse,
-    df_error: dfError,
-    sd: Math.sqrt(mse),
-    grand_mean: grand + opts.offset,
-    r2: sst > 0 ? 1 - sse / sst : NaN,
+    ...errorFields({ mse, dfError, sse, sst, grand, offset: opts.offset, residuals, leverage }),
     fitted,
-    residuals,
-    leverage,
-    studentized_residuals: studentize(residuals, leverage, mse),
     balanced: complete,
     notes,
-    offset: opts.offset,
   };
 }

@@ -4,7 +4,7 @@
  * O(n) time.
  */
 import { centredSumOfSquares, groupMeans, mean } from '../linear/sums.ts';
-import { anovaTable, diagonalCovariance, factorMeans, studentize } from './assemble.ts';
+import { anovaTable, diagonalCovariance, factorMeans, errorFields } from './assemble.ts';
 import { checkFactor, checkResponse, requireAllLevels, resolveOptions } from './check.ts';
 import { DesignError } from './errors.ts';
 import { messages } from './messages.ts';
@@ -77,17 +77,9 @@ export function oneWay(y: Float64Array, treatment: Factor, options?: DesignOptio
     ss_method: 'between and within groups, from group means (exact whether or not the groups are equal in size)',
     means: means.table,
     factor_means: [means],
-    mse,
-    df_error: dfError,
-    sd: Math.sqrt(mse),
-    grand_mean: grand + opts.offset,
-    r2: sst > 0 ? 1 - sse / sst : NaN,
+    ...errorFields({ mse, dfError, sse, sst, grand, offset: opts.offset, residuals, leverage }),
     fitted,
-    residuals,
-    leverage,
-    studentized_residuals: studentize(residuals, leverage, mse),
     balanced,
     notes,
-    offset: opts.offset,
   };
 }
