@@ -3,14 +3,14 @@
  * placeholders showing live values. Double-click (or Enter on the focused note) opens the
  * text for editing; leaving the editor shows the rendered note again.
  *
- * A note from someone else's document is data: the Markdown is rendered by marked and
- * then sanitized by DOMPurify (scripts, event handlers, javascript: links and remote
- * images removed) before it reaches the page; values are put in afterwards as text.
+ * A note from someone else's document is data: raw HTML written in it is shown as text, so
+ * no tag its author wrote reaches a parser; the Markdown is rendered by marked and then
+ * sanitized by DOMPurify (javascript: links, remote images and the page's own classes
+ * removed); live values go in afterwards as DOM nodes holding text.
  */
 import DOMPurify from 'dompurify';
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
-import { unsafeHTML } from 'lit/directives/unsafe-html.js'; // only for the HTML that renderNoteHtml has sanitized
-import { marked } from 'marked';
+import { Marked } from 'marked';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
 import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
@@ -18,22 +18,50 @@ import { shared } from '../../src/app/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { splitNote } from './model.ts';
 
+/**
+ * Markers for placeholders while the Markdown is rendered: characters from the private-use
+ * area, which a note's own text never keeps (see `markdownSource`).
+ */
 const SLOT_OPEN = '\uE000';
 const SLOT_CLOSE = '\uE001';
 const SLOT = /\uE000(\d+)\uE001/g;
+const PRIVATE_MARKS = /[\uE000\uE001]/g;
+/** A marker as it may stand in an attribute: raw, or percent-encoded in an address. */
+const ATTRIBUTE_SLOT = /(?:\uE000|%EE%80%80)(\d+)(?:\uE001|%EE%80%81)/gi;
+
+/**
+ * A Markdown renderer of our own instance (the shared `marked` object stays untouched) that
+ * writes raw HTML from the note as visible text: Markdown covers what a note needs, and no
+ * tag a document's author wrote ever reaches an HTML parser in the page.
+ */
+const markdown = new Marked({ gfm: true, async: false });
+markdown.use({
+  renderer: {
+    // a block of raw HTML reads as a paragraph of its text; inline tags as their text
+    html: ({ text, block }) => (block ? `<p>${escapeHtml(text.replace(/\s+$/, ''))}</p>\n` : escapeHtml(text)),
+  },
+});
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => (c === '&' ? '&amp;' : c === '<' ? '&lt;' : c === '>' ? '&gt;' : c === '"' ? '&quot;' : '&#39;'));
+}
+
+/** Attributes a note may not carry: the page's own marks (a fake live value) and addresses that load things. */
+const PAGE_ATTRIBUTES = ['class', 'id', 'style', 'srcset', 'poster', 'background', 'action', 'formaction', 'xlink:href'];
 
 let hooksInstalled = false;
 function installHooks(): void {
   if (hooksInstalled) return;
   hooksInstalled = true;
   DOMPurify.addHook('afterSanitizeAttributes', (node) => {
-    if (node instanceof Element && node.tagName === 'A') {
+    // by nodeName rather than instanceof: the sanitizer's parse document may be another realm
+    if (node.nodeName === 'A') {
       const href = node.getAttribute('href') ?? '';
       if (!/^(https?:|mailto:|#)/i.test(href)) node.removeAttribute('href');
       node.setAttribute('target', '_blank');
       node.setAttribute('rel', 'noopener noreferrer');
     }
-    if (node instanceof Element && node.tagName === 'IMG') {
+    if (node.nodeName === 'IMG') {
       // a document may carry its own pictures, but never makes the page fetch anything
       const src = node.getAttribute('src') ?? '';
       if (!/^data:image\/(png|jpeg|gif|webp);base64,/i.test(src)) node.removeAttribute('src');
@@ -41,27 +69,90 @@ function installHooks(): void {
   });
 }
 
-/**
- * Markdown to sanitized HTML, with each placeholder replaced by an empty slot element that
- * the view fills with text. Exported for tests.
- */
-export function renderNoteHtml(text: string): { html: string; slots: number } {
-  installHooks();
-  const pieces = splitNote(text);
+/** The Markdown a note renders: placeholders become markers, stray private marks are dropped. */
+function markdownSource(text: string): { md: string; slots: number } {
   let md = '';
   let slots = 0;
-  for (const p of pieces) {
-    if (p.type === 'text') md += p.text;
+  for (const p of splitNote(text)) {
+    if (p.type === 'text') md += p.text.replace(PRIVATE_MARKS, '\uFFFD');
     else md += `${SLOT_OPEN}${slots++}${SLOT_CLOSE}`;
   }
-  const raw = marked.parse(md, { async: false, gfm: true }) as string;
-  const clean = DOMPurify.sanitize(raw, {
-    FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe', 'object', 'embed', 'svg', 'math'],
-    FORBID_ATTR: ['style'],
+  return { md, slots };
+}
+
+/**
+ * A note's Markdown as sanitized DOM, with each placeholder an empty slot element that the
+ * view fills with text. Live values are put in as DOM nodes after sanitizing, never spliced
+ * into HTML text: a placeholder that landed inside an attribute (a link's address, an
+ * image's description) is shown there as its source, and cannot end the tag. Exported for
+ * tests.
+ */
+export function renderNote(text: string): { fragment: DocumentFragment; slots: number } {
+  installHooks();
+  const { html: raw, slots } = noteMarkdownHtml(text);
+  const fragment = DOMPurify.sanitize(raw, {
+    RETURN_DOM_FRAGMENT: true,
+    FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe', 'object', 'embed', 'svg', 'math', 'audio', 'video', 'source', 'picture', 'track'],
+    FORBID_ATTR: PAGE_ATTRIBUTES,
+    ALLOW_DATA_ATTR: false,
   });
-  // our own markup, added after sanitizing: an index only, filled with text later
-  const withSlots = clean.replace(SLOT, (_m, i: string) => `<span class="slot" data-slot="${Number(i)}"></span>`);
-  return { html: withSlots, slots };
+  placeSlots(fragment, placeholderSources(text));
+  return { fragment, slots };
+}
+
+/**
+ * A note's Markdown as HTML text before sanitizing, with a marker for each placeholder and
+ * every raw tag of the note escaped. No DOM needed. Exported for tests.
+ */
+export function noteMarkdownHtml(text: string): { html: string; slots: number } {
+  const { md, slots } = markdownSource(text);
+  return { html: markdown.parse(md) as string, slots };
+}
+
+/** The source of each placeholder, braces included, as a note shows a failed one. */
+function placeholderSources(text: string): string[] {
+  return splitNote(text).flatMap((p) => (p.type === 'placeholder' ? [p.raw.replace(PRIVATE_MARKS, '')] : []));
+}
+
+/**
+ * Replaces the markers in text nodes by slot elements, and in attributes (where marked may
+ * have percent-encoded them) by the placeholder's source. Exported for tests.
+ */
+export function placeSlots(root: DocumentFragment, sources: readonly string[]): void {
+  const doc = root.ownerDocument;
+  const texts: Text[] = [];
+  const walk = (node: Node): void => {
+    for (const child of Array.from(node.childNodes)) {
+      if (child.nodeType === 3) texts.push(child as Text);
+      else if (child.nodeType === 1) {
+        const el = child as Element;
+        for (const attr of Array.from(el.attributes)) {
+          const shown = attr.value.replace(ATTRIBUTE_SLOT, (_m, i: string) => sources[Number(i)] ?? '');
+          if (shown !== attr.value) el.setAttribute(attr.name, shown);
+        }
+        walk(el);
+      }
+    }
+  };
+  walk(root);
+  for (const t of texts) {
+    const value = t.data;
+    if (!value.includes(SLOT_OPEN)) continue;
+    const parts = value.split(SLOT);
+    // split with a capturing group: text, index, text, index, ..., text
+    const pieces: Node[] = [];
+    parts.forEach((part, k) => {
+      if (k % 2 === 0) {
+        if (part !== '') pieces.push(doc.createTextNode(part));
+      } else {
+        const span = doc.createElement('span');
+        span.className = 'slot';
+        span.dataset.slot = String(Number(part));
+        pieces.push(span);
+      }
+    });
+    t.replaceWith(...pieces);
+  }
 }
 
 /** `<furrow-note-cell>`: a Markdown note with live values. */
@@ -78,7 +169,7 @@ export class NoteCellView extends LitElement {
   declare catalogue: NameCatalogue;
   declare editing: boolean;
 
-  private rendered: { body: string; html: string } | null = null;
+  private rendered: { body: string; node: HTMLElement } | null = null;
 
   constructor() {
     super();
@@ -230,7 +321,11 @@ export class NoteCellView extends LitElement {
         <div class="hint">Markdown. <code>{expression}</code> shows a live value, <code>\\{</code> a brace. Escape or click outside to finish.</div>`;
     }
     if (this.rendered === null || this.rendered.body !== this.cell.body) {
-      this.rendered = { body: this.cell.body, html: renderNoteHtml(text).html };
+      // one container per text, kept across renders, so lit moves no nodes when only values change
+      const node = document.createElement('div');
+      node.className = 'markdown';
+      node.append(renderNote(text).fragment);
+      this.rendered = { body: this.cell.body, node };
     }
     const problems = (this.state?.parts ?? []).filter(isError);
     return html`<div
@@ -246,7 +341,7 @@ export class NoteCellView extends LitElement {
           }
         }}
       >
-        ${text.trim() === '' ? html`<span class="empty">Empty note: double-click to write.</span>` : unsafeHTML(this.rendered.html) /* sanitized by renderNoteHtml */}
+        ${text.trim() === '' ? html`<span class="empty">Empty note: double-click to write.</span>` : this.rendered.node}
       </div>
       ${problems.length > 0
         ? html`<ul class="problems">

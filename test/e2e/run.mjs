@@ -312,7 +312,9 @@ const tests = [
         '<script>window.__pwned = "script"</script> <a href="javascript:window.__pwned=\'a\'">raw link</a>',
         '<svg onload="window.__pwned=\'svg\'"></svg> <iframe src="javascript:window.__pwned=\'iframe\'"></iframe>',
         '<div style="background:url(javascript:window.__pwned=1)" onclick="window.__pwned=\'click\'">click me</div>',
-        'A value: {t.label[1]}',
+        '',
+        'A value: {t.label[1]}, a fake one: <span class="slot" data-slot="0">99</span>,',
+        '[a placeholder in an address](https://example.invalid/{t.label[1]}) ![one in a description {t.label[1]}](data:image/png;base64,AAAA)',
         '',
         '--- table t',
         'label,"<img src=x onerror=window.__pwned=\'header\'>"',
@@ -354,6 +356,20 @@ const tests = [
       // the text is still there, as text
       const shown = await page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="t"] furrow-table-cell').shadowRoot.textContent);
       check(shown.includes('<img src=x onerror='), 'the table shows the label as text');
+      // raw HTML in the note reads as text, and the note has exactly its one live value
+      const noteShown = await page.evaluate(() => {
+        const root = document.querySelector('furrow-app').shadowRoot.querySelector('section[data-kind="note"] furrow-note-cell').shadowRoot;
+        const prose = root.querySelector('.prose');
+        return {
+          text: prose.textContent,
+          slots: prose.querySelectorAll('[data-slot]').length,
+          html: prose.innerHTML,
+          tags: [...new Set(Array.from(prose.querySelectorAll('*'), (e) => e.tagName.toLowerCase()))].sort(),
+        };
+      });
+      check(noteShown.text.includes('<script>window.__pwned = "script"</script>'), `the note shows its raw HTML as text: ${noteShown.text.slice(0, 200)}`);
+      check(noteShown.slots === 1, `one live value in the note, not ${noteShown.slots}: ${noteShown.html}`);
+      check(noteShown.tags.every((t) => ['a', 'div', 'img', 'p', 'span'].includes(t)), `only Markdown's own elements in the note: ${noteShown.tags.join(' ')}`);
       await page.screenshot({ path: `${out}/hostile.png`, fullPage: true });
     },
   },

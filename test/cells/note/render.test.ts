@@ -1,0 +1,66 @@
+// @vitest-environment happy-dom
+/**
+ * How a note's Markdown reaches the page: raw HTML written in a note is shown as text, live
+ * values go in as DOM nodes after sanitizing, and a note cannot fake the page's own marks.
+ * (The sanitizer itself is exercised in real Chromium by the browser tests: happy-dom's
+ * parser differs from a browser's in ways that matter to it.)
+ */
+import { describe, expect, it } from 'vitest';
+import { noteMarkdownHtml, placeSlots } from '../../../cells/note/view.ts';
+
+/** The note as DOM, parsed by an inert template and given its slots. */
+function dom(text: string): HTMLElement {
+  const t = document.createElement('template');
+  t.innerHTML = noteMarkdownHtml(text).html;
+  const sources = [...text.matchAll(/\{[^}]*\}/g)].map((m) => m[0]);
+  placeSlots(t.content, sources);
+  const div = document.createElement('div');
+  div.append(t.content);
+  return div;
+}
+
+describe('raw HTML in a note', () => {
+  it('is escaped before any parser sees it', () => {
+    const text = 'Hello <img src=x onerror="alert(1)"> and <script>alert(2)</script>\n\n<div onclick="x()">block</div>';
+    const { html } = noteMarkdownHtml(text);
+    expect(html).not.toMatch(/<(img|script|div)\b/);
+    const div = dom(text);
+    expect(Array.from(div.querySelectorAll('*'), (e) => e.tagName.toLowerCase())).toEqual(['p', 'p']);
+    expect(div.textContent).toContain('<img src=x onerror="alert(1)">');
+    expect(div.textContent).toContain('<div onclick="x()">block</div>');
+  });
+
+  it('cannot fake a live value with the page classes', () => {
+    const div = dom('A fake <span class="slot" data-slot="0">42</span> value and {1 + 1}');
+    expect(div.querySelectorAll('[data-slot]').length).toBe(1);
+    expect(div.querySelectorAll('.slot').length).toBe(1);
+    expect(div.textContent).toContain('<span class="slot" data-slot="0">42</span>');
+  });
+});
+
+describe('placeholders', () => {
+  it('become one slot element each, in order, inside the Markdown structure', () => {
+    expect(noteMarkdownHtml('# Mean {m}\n\n* first {a}\n* second **{b}**').slots).toBe(3);
+    const div = dom('# Mean {m}\n\n* first {a}\n* second **{b}**');
+    expect(Array.from(div.querySelectorAll('[data-slot]'), (e) => e.getAttribute('data-slot'))).toEqual(['0', '1', '2']);
+    expect(div.querySelector('h1 [data-slot="0"]')).not.toBeNull();
+    expect(div.querySelector('strong [data-slot="2"]')).not.toBeNull();
+  });
+
+  it('inside an attribute stay as their source and cannot end the tag', () => {
+    // marked writes these into attributes (percent-encoded in the address), where a value
+    // spliced in as HTML text could close the attribute and open a tag of its own
+    const div = dom('[go](https://example.invalid/{x}) ![a {y} b](data:image/png;base64,AAAA)');
+    expect(div.querySelectorAll('[data-slot]').length).toBe(0);
+    expect(div.querySelectorAll('*').length).toBe(3); // p, a, img
+    expect(div.querySelector('a')!.getAttribute('href')).toBe('https://example.invalid/{x}');
+    expect(div.querySelector('img')!.getAttribute('alt')).toBe('a {y} b');
+    expect(div.innerHTML).not.toContain('\uE000');
+  });
+
+  it('a private-use marker typed in the note is not taken for a slot', () => {
+    const div = dom('odd \uE0000\uE001 text and {v}');
+    expect(div.querySelectorAll('[data-slot]').length).toBe(1);
+    expect(div.textContent).not.toContain('\uE000');
+  });
+});
