@@ -16,7 +16,7 @@ import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/app/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
-import { splitNote } from './model.ts';
+import { splitNote, type NotePiece } from './model.ts';
 
 /**
  * Markers for placeholders while the Markdown is rendered: characters from the private-use
@@ -69,11 +69,14 @@ function installHooks(): void {
   });
 }
 
+/** A placeholder of a note, as splitNote gives it. */
+type Placeholder = Extract<NotePiece, { type: 'placeholder' }>;
+
 /** The Markdown a note renders: placeholders become markers, stray private marks are dropped. */
-function markdownSource(text: string): { md: string; slots: number } {
+function markdownSource(pieces: readonly NotePiece[]): { md: string; slots: number } {
   let md = '';
   let slots = 0;
-  for (const p of splitNote(text)) {
+  for (const p of pieces) {
     if (p.type === 'text') md += p.text.replace(PRIVATE_MARKS, '\uFFFD');
     else md += `${SLOT_OPEN}${slots++}${SLOT_CLOSE}`;
   }
@@ -87,17 +90,22 @@ function markdownSource(text: string): { md: string; slots: number } {
  * image's description) is shown there as its source, and cannot end the tag. Exported for
  * tests.
  */
-export function renderNote(text: string): { fragment: DocumentFragment; slots: number } {
+export function renderNote(text: string): { fragment: DocumentFragment; placeholders: Placeholder[] } {
   installHooks();
-  const { html: raw, slots } = noteMarkdownHtml(text);
+  const pieces = splitNote(text);
+  const raw = markdown.parse(markdownSource(pieces).md) as string;
   const fragment = DOMPurify.sanitize(raw, {
     RETURN_DOM_FRAGMENT: true,
     FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe', 'object', 'embed', 'svg', 'math', 'audio', 'video', 'source', 'picture', 'track'],
     FORBID_ATTR: PAGE_ATTRIBUTES,
     ALLOW_DATA_ATTR: false,
   });
-  placeSlots(fragment, placeholderSources(text));
-  return { fragment, slots };
+  const placeholders = pieces.filter((p): p is Placeholder => p.type === 'placeholder');
+  placeSlots(
+    fragment,
+    placeholders.map((p) => p.raw.replace(PRIVATE_MARKS, '')),
+  );
+  return { fragment, placeholders };
 }
 
 /**
@@ -105,13 +113,8 @@ export function renderNote(text: string): { fragment: DocumentFragment; slots: n
  * every raw tag of the note escaped. No DOM needed. Exported for tests.
  */
 export function noteMarkdownHtml(text: string): { html: string; slots: number } {
-  const { md, slots } = markdownSource(text);
+  const { md, slots } = markdownSource(splitNote(text));
   return { html: markdown.parse(md) as string, slots };
-}
-
-/** The source of each placeholder, braces included, as a note shows a failed one. */
-function placeholderSources(text: string): string[] {
-  return splitNote(text).flatMap((p) => (p.type === 'placeholder' ? [p.raw.replace(PRIVATE_MARKS, '')] : []));
 }
 
 /**
@@ -169,7 +172,8 @@ export class NoteCellView extends LitElement {
   declare catalogue: NameCatalogue;
   declare editing: boolean;
 
-  private rendered: { body: string; node: HTMLElement } | null = null;
+  /** The rendered text and its placeholders, made once per change of the text. */
+  private rendered: { body: string; node: HTMLElement; placeholders: readonly Placeholder[] } | null = null;
 
   constructor() {
     super();
@@ -324,8 +328,9 @@ export class NoteCellView extends LitElement {
       // one container per text, kept across renders, so lit moves no nodes when only values change
       const node = document.createElement('div');
       node.className = 'markdown';
-      node.append(renderNote(text).fragment);
-      this.rendered = { body: this.cell.body, node };
+      const r = renderNote(text);
+      node.append(r.fragment);
+      this.rendered = { body: this.cell.body, node, placeholders: r.placeholders };
     }
     const problems = (this.state?.parts ?? []).filter(isError);
     return html`<div
@@ -350,8 +355,18 @@ export class NoteCellView extends LitElement {
         : nothing}`;
   }
 
+  /** The source of the placeholder at an offset of the text (binary search: they are in order). */
   private sourceAt(offset: number): string {
-    for (const p of splitNote(this.cell.body)) if (p.type === 'placeholder' && offset >= p.from && offset <= p.to) return p.source;
+    const list = this.rendered?.placeholders ?? [];
+    let lo = 0;
+    let hi = list.length - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const p = list[mid]!;
+      if (offset < p.from) hi = mid - 1;
+      else if (offset > p.to) lo = mid + 1;
+      else return p.source;
+    }
     return '…';
   }
 
@@ -383,9 +398,7 @@ export class NoteCellView extends LitElement {
   }
 
   private placeholderSource(i: number): string {
-    const ph = splitNote(this.cell.body).filter((p) => p.type === 'placeholder');
-    const p = ph[i];
-    return p && p.type === 'placeholder' ? p.source : '';
+    return this.rendered?.placeholders[i]?.source ?? '';
   }
 
   private startEditing(): void {
