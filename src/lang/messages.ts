@@ -66,8 +66,9 @@ export const msg = {
   cycleUpstream: (name: string) => `${quote(name)} is part of a cycle, so it has no value.`,
   duplicateDefinition: (name: string, count: number) =>
     `The name ${quote(name)} is defined by ${count} cells. Give each a different name.`,
-  cycle: (path: readonly string[]) =>
-    `These cells depend on each other in a cycle (${path.join(' → ')}), so none of them can be computed. Break the cycle by changing one of them.`,
+  /** `path` is the whole cycle, or its first cells when `size` (the cells in it) is given. */
+  cycle: (path: readonly string[], size: number | null = null) =>
+    `These cells depend on each other in a cycle (${path.join(' → ')}${size === null ? '' : ` → … ${size} cells in all`}), so none of them can be computed. Break the cycle by changing one of them.`,
   lengthMismatch: (op: string, a: number, b: number) =>
     `The two sides of ${quote(op)} are columns of different lengths (${a} and ${b}); element by element work needs equal lengths.`,
   operatorTypes: (op: string, left: string, right: string) =>
