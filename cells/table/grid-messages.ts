@@ -57,6 +57,7 @@ export const gridMsg = {
   importTooBig: (file: string, mb: number) => `${file} was not imported: it is larger than ${mb} MB. Nothing changed.`,
   importFailed: (file: string, reason: string) => `${file} was not imported: ${reason} Nothing changed.`,
   importUnreadable: (file: string) => `${file} was not imported: the browser could not read it. Nothing changed.`,
+  importNotUtf8: (file: string) => `${file} was not imported: it is not UTF-8 text (save it as UTF-8 and import it again). Nothing changed.`,
   imported: (file: string, rows: number, cols: number) => `Imported ${file}: ${plural(rows, 'row')}, ${plural(cols, 'column')}.`,
 
   rawIntro: (message: string) => `The text does not read as a table: ${message}`,

@@ -3,14 +3,14 @@
  * (language.md section 9). Exit status: 0 when every cell evaluated, 1 when any cell holds
  * an error (all cells are still printed), 2 when the file cannot be read as a document.
  */
-import { readFileSync, statSync } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
+import { basename } from 'node:path';
 import { documentTitle, headerFields, parseMarker, type Document } from '../doc/document.ts';
 import { DocumentError, readDocument } from '../doc/format.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
 import { toJson } from '../lang/json.ts';
 import { typeOf } from '../lang/values.ts';
+import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, besideDocument, readText } from './files.ts';
 import { valueText } from './text.ts';
 import { isSafeFileName } from '../../cells/table/model.ts';
 
@@ -30,29 +30,19 @@ interface Output {
   err: (s: string) => void;
 }
 
-/** Reads a UTF-8 text file, with one-line messages for what can go wrong. */
-function readText(path: string, what: string): string {
-  let bytes: Buffer;
+/** Runs a read, turning a file problem into the command's failure. */
+function readFile<T>(read: () => T): T {
   try {
-    if (statSync(path).isDirectory()) throw new CliFailure(`${what} ${path} is a folder, not a file.`);
-    bytes = readFileSync(path);
+    return read();
   } catch (err) {
-    if (err instanceof CliFailure) throw err;
-    const code = (err as { code?: string }).code;
-    if (code === 'ENOENT') throw new CliFailure(`${what} ${path} does not exist.`);
-    if (code === 'EACCES') throw new CliFailure(`${what} ${path} cannot be read (permission denied).`);
-    throw new CliFailure(`${what} ${path} cannot be read: ${(err as Error).message}`);
-  }
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    throw new CliFailure(`${what} ${path} is not UTF-8 text, so it is not a Furrow document.`);
+    if (err instanceof FileProblem) throw new CliFailure(err.message);
+    throw err;
   }
 }
 
 /** Loads a document and the CSV files its tables name. */
 export function loadDocument(path: string): { doc: Document; engine: Engine; warnings: string[] } {
-  const text = readText(path, 'The file');
+  const text = readFile(() => readText(path, 'the file', DOCUMENT_LIMIT_BYTES));
   let doc: Document;
   const warnings: string[] = [];
   try {
@@ -68,12 +58,12 @@ export function loadDocument(path: string): { doc: Document; engine: Engine; war
     const m = parseMarker(cell.marker);
     if (m.kind !== 'table' || m.file === null) continue;
     if (!isSafeFileName(m.file)) continue; // the table cell itself reports this
-    const csvPath = join(dirname(path), m.file);
+    const file = m.file;
     try {
-      engine.setFile(m.file, readText(csvPath, `The CSV file`));
+      engine.setFile(file, readText(besideDocument(path, file), 'the CSV file', CSV_LIMIT_BYTES));
     } catch (err) {
-      if (err instanceof CliFailure) {
-        throw new CliFailure(`${path}: table ${m.name ?? ''} names ${m.file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
+      if (err instanceof FileProblem) {
+        throw new CliFailure(`${path}: table ${m.name ?? ''} names ${file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
       }
       throw err;
     }
