@@ -11,7 +11,7 @@ import { Engine, type CellState } from '../graph/engine.ts';
 import { toJson } from '../lang/json.ts';
 import { typeOf } from '../lang/values.ts';
 import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, besideDocument, readText } from './files.ts';
-import { valueText } from './text.ts';
+import { valueText, visible } from './text.ts';
 import { isSafeFileName } from '../../cells/table/model.ts';
 
 const USAGE = `Usage: furrow run FILE [--json]
@@ -95,7 +95,9 @@ function position(body: string, offset: number, markerLine: number): string {
   return `line ${line}, column ${col}`;
 }
 
-function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], o: Output): void {
+function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], output: Output): void {
+  // every line a document can put on a terminal goes through `visible`
+  const o: Output = { out: (s) => output.out(visible(s)), err: (s) => output.err(visible(s)) };
   o.out(`${documentTitle(doc)}  (${basename(path)})`);
   const caution = headerFields(doc).get('caution');
   if (caution) o.out(`Caution: ${caution}`);
@@ -177,7 +179,7 @@ export function main(argv: readonly string[], o: Output): number {
     return states.some((s) => s.status === 'error' || s.status === 'upstream') ? 1 : 0;
   } catch (err) {
     if (err instanceof CliFailure) {
-      o.err(`furrow: ${err.message}`);
+      o.err(visible(`furrow: ${err.message}`));
       return 2;
     }
     throw err;

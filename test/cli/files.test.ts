@@ -3,7 +3,7 @@
  * pipes, huge files, bytes that are not UTF-8. Each ends in one plain line and status 2,
  * within a time bound, never a hang or an unbounded read.
  */
-import { execFileSync } from 'node:child_process';
+import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, symlinkSync, truncateSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -116,5 +116,30 @@ describe('files beside a document', () => {
     const r = cli('run', join(dir, 'd.furrow'));
     expect(r.code).toBe(2);
     expect(r.err).toContain('is not UTF-8 text');
+  });
+});
+
+describe('what reaches the terminal', () => {
+  it('shows control characters from a document as escapes, never raw', () => {
+    const dir = folder();
+    const esc = '\u001b';
+    writeFileSync(
+      join(dir, 'd.furrow'),
+      `furrow 1\ntitle: Trial${esc}[2J${esc}]0;owned\u0007\n\n--- note\nAll fine${esc}[8m hidden\r5 cells, all evaluated.\u202E\n\n--- table t\n"na${esc}[1mme",x\n"va${esc}[31mlue",1\n`,
+    );
+    const r = cli('run', join(dir, 'd.furrow'));
+    expect(r.out).not.toMatch(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u202e]/);
+    expect(r.out).toContain('Trial\\x1B[2J\\x1B]0;owned\\x07');
+    expect(r.out).toContain('All fine\\x1B[8m hidden\\x0D5 cells, all evaluated.\\u202E');
+    expect(r.out).toContain('na\\x1B[1mme');
+    expect(r.out).toContain('va\\x1B[31mlue');
+  });
+
+  it('ends quietly when the reader of its output goes away', () => {
+    const dir = folder();
+    writeFileSync(join(dir, 'd.furrow'), `furrow 1\n${Array.from({ length: 3000 }, (_, i) => `--- formula\nx${i} = ${i}\n`).join('')}`);
+    const r = spawnSync('sh', ['-c', `node bin/furrow.js run ${join(dir, 'd.furrow')} | head -n 1`], { encoding: 'utf8' });
+    expect(r.stdout.split('\n').length).toBeLessThanOrEqual(2);
+    expect(r.stderr).not.toMatch(/EPIPE|Error|at /);
   });
 });
