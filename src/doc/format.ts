@@ -99,6 +99,7 @@ export function readDocument(text: string, idPrefix = 'c'): ReadResult {
   const first = lines[0] === undefined ? '' : content(lines[0]);
   if (first !== 'furrow 1') {
     const m = /^furrow\s+(\S+)\s*$/.exec(first);
+    if (m && m[1] === '1') throw new DocumentError(msg.firstLineSpacing(first));
     if (m) throw new DocumentError(msg.wrongVersion(m[1]!));
     throw new DocumentError(msg.notADocument());
   }

@@ -126,6 +126,8 @@ export const msg = {
 
   // ---- documents -----------------------------------------------------------------------
   notADocument: () => 'This is not a Furrow document: its first line must be "furrow 1".',
+  firstLineSpacing: (line: string) =>
+    `The first line must be exactly "furrow 1"; this one is ${JSON.stringify(line)}, with extra spaces or tabs. Remove them and open the file again.`,
   wrongVersion: (version: string) =>
     `This document is in format version ${version}; this version of Furrow reads version 1.`,
   unknownCellKind: (kind: string) => `Unknown cell kind ${quote(kind)}: the cell is kept as it is and not evaluated.`,
