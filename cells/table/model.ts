@@ -126,6 +126,32 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
   }
 }
 
+/**
+ * Characters that print as nothing: zero-width spaces and joiners, the word joiner, the soft
+ * hyphen, byte-order marks and direction marks. Two column names that differ only by one of
+ * them look the same on every screen and in every report.
+ */
+const INVISIBLE = /[\u00AD\u061C\u180E\u200B-\u200F\u202A-\u202E\u2060-\u2064\u2066-\u2069\uFEFF]/g;
+
+/** Warnings for column names that hold invisible characters or look like another name. */
+export function lookalikeNames(names: readonly string[]): string[] {
+  const byLook = new Map<string, string[]>();
+  for (const name of names) {
+    const shown = name.normalize('NFC').replace(INVISIBLE, '');
+    const list = byLook.get(shown);
+    if (list === undefined) byLook.set(shown, [name]);
+    else list.push(name);
+  }
+  const codesIn = (list: readonly string[]): string[] =>
+    [...new Set(list.join('').match(INVISIBLE) ?? [])].map((c) => `U+${c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`);
+  const out: string[] = [];
+  for (const [shown, list] of byLook) {
+    if (list.length > 1) out.push(msg.lookalikeColumns(shown, codesIn(list)));
+    else if (list[0] !== shown && codesIn(list).length > 0) out.push(msg.invisibleInColumn(shown, codesIn(list)));
+  }
+  return out;
+}
+
 /** The table kind. */
 export const tableKind: CellKind = {
   kind: 'table',
@@ -136,7 +162,10 @@ export const tableKind: CellKind = {
       reads: [],
       problem: r.error,
       evaluates: true,
-      evaluate: () => ({ value: r.value! }),
+      evaluate: (env) => {
+        if (r.value !== null) for (const w of lookalikeNames(r.value.names)) env.warn(w);
+        return { value: r.value! };
+      },
     };
   },
 };

@@ -126,6 +126,10 @@ export const msg = {
 
   // ---- documents -----------------------------------------------------------------------
   notADocument: () => 'This is not a Furrow document: its first line must be "furrow 1".',
+  lookalikeColumns: (shown: string, codes: readonly string[]) =>
+    `Columns that read the same, ${quote(shown)}, differ by ${codes.length > 0 ? `an invisible character (${codes.join(', ')})` : 'how their letters are encoded'}. Rename one, so a reader can tell them apart.`,
+  invisibleInColumn: (shown: string, codes: readonly string[]) =>
+    `The column ${quote(shown)} holds an invisible character (${codes.join(', ')}) in its name; to use it, write the name with that character, or rename the column.`,
   firstLineSpacing: (line: string) =>
     `The first line must be exactly "furrow 1"; this one is ${JSON.stringify(line)}, with extra spaces or tabs. Remove them and open the file again.`,
   wrongVersion: (version: string) =>
