@@ -12,7 +12,7 @@ function numberHint(field: string): string {
   }
   if (/^[-+]?\d{1,3}([, ]\d{3})+(\.\d+)?$/.test(field)) return ' (write the digits without thousands separators)';
   if (/^(n\/?a|na|nan|null|none|missing|-+|\.|\?)$/i.test(field)) return ' (leave the field empty for a missing value)';
-  if (/^[-+<>~]?\s*(\d+\.?\d*|\.\d+)\s*[^\d\s.,]+$/.test(field)) return ' (keep units and signs out of the field; the column name can say the unit)';
+  if (/^[-+<>~]?\s*(\d+(?:\.\d*)?|\.\d+)\s*[^\d\s.,]+$/.test(field)) return ' (keep units and signs out of the field; the column name can say the unit)';
   if (/^[<>≤≥~]/.test(field)) return ' (a bound is not a value; note it elsewhere and leave the field empty or give the value)';
   return '';
 }

@@ -21,7 +21,7 @@ import {
 } from '../../src/lang/values.ts';
 
 /** A decimal number as typed: sign, digits, optional fraction, optional exponent. */
-export const DECIMAL = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+export const DECIMAL = /^[-+]?(\d+(?:\.\d*)?|\.\d+)([eE][-+]?\d+)?$/;
 
 /** The type a column of fields reads as. */
 export function columnTypeOf(fields: readonly string[]): 'number' | 'boolean' | 'text' {
