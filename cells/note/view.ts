@@ -72,6 +72,37 @@ function installHooks(): void {
 /** A placeholder of a note, as splitNote gives it. */
 type Placeholder = Extract<NotePiece, { type: 'placeholder' }>;
 
+/**
+ * Emphasis marks (`*`, `_`, `~`) a paragraph may hold before they are shown as written. The
+ * Markdown renderer pairs emphasis marks in time that grows with the square of their number
+ * in one paragraph (measured: 20,000 marks took 2.3 s, 500,000 over seven minutes); no note
+ * a person writes comes near this, and a hostile one must not freeze the page.
+ */
+export const EMPHASIS_MARKS_PER_PARAGRAPH = 1000;
+/** Longest note rendered as Markdown; a longer one is shown as plain text. */
+export const NOTE_MARKDOWN_LIMIT = 200_000;
+
+/** Paragraphs with too many emphasis marks get them escaped, so they read as written. */
+function boundEmphasis(md: string): string {
+  let marks = 0;
+  for (let i = 0; i < md.length; i++) {
+    const c = md.charCodeAt(i);
+    if (c === 42 || c === 95 || c === 126) marks++;
+  }
+  if (marks <= EMPHASIS_MARKS_PER_PARAGRAPH) return md;
+  return md
+    .split(/(\n[ \t]*\n)/)
+    .map((block) => {
+      let n = 0;
+      for (let i = 0; i < block.length; i++) {
+        const c = block.charCodeAt(i);
+        if (c === 42 || c === 95 || c === 126) n++;
+      }
+      return n > EMPHASIS_MARKS_PER_PARAGRAPH ? block.replace(/[*_~]/g, '\\$&') : block;
+    })
+    .join('');
+}
+
 /** The Markdown a note renders: placeholders become markers, stray private marks are dropped. */
 function markdownSource(pieces: readonly NotePiece[]): { md: string; slots: number } {
   let md = '';
@@ -80,7 +111,20 @@ function markdownSource(pieces: readonly NotePiece[]): { md: string; slots: numb
     if (p.type === 'text') md += p.text.replace(PRIVATE_MARKS, '\uFFFD');
     else md += `${SLOT_OPEN}${slots++}${SLOT_CLOSE}`;
   }
-  return { md, slots };
+  return { md: boundEmphasis(md), slots };
+}
+
+/** Markdown to HTML, or, past the limits, the text escaped in one preformatted block. */
+function markdownHtml(md: string): string {
+  const plain = (): string => `<pre>${escapeHtml(md)}</pre>`;
+  if (md.length > NOTE_MARKDOWN_LIMIT) return plain();
+  try {
+    return markdown.parse(md) as string;
+  } catch (err) {
+    // thousands of nested quotes or lists exhaust the renderer's stack: show the text as written
+    if (err instanceof RangeError || (err instanceof Error && /call stack/i.test(err.message))) return plain();
+    throw err;
+  }
 }
 
 /**
@@ -93,7 +137,7 @@ function markdownSource(pieces: readonly NotePiece[]): { md: string; slots: numb
 export function renderNote(text: string): { fragment: DocumentFragment; placeholders: Placeholder[] } {
   installHooks();
   const pieces = splitNote(text);
-  const raw = markdown.parse(markdownSource(pieces).md) as string;
+  const raw = markdownHtml(markdownSource(pieces).md);
   const fragment = DOMPurify.sanitize(raw, {
     RETURN_DOM_FRAGMENT: true,
     FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe', 'object', 'embed', 'svg', 'math', 'audio', 'video', 'source', 'picture', 'track'],
@@ -114,7 +158,7 @@ export function renderNote(text: string): { fragment: DocumentFragment; placehol
  */
 export function noteMarkdownHtml(text: string): { html: string; slots: number } {
   const { md, slots } = markdownSource(splitNote(text));
-  return { html: markdown.parse(md) as string, slots };
+  return { html: markdownHtml(md), slots };
 }
 
 /**
