@@ -130,6 +130,10 @@ export const msg = {
     `Columns that read the same, ${quote(shown)}, differ by ${codes.length > 0 ? `an invisible character (${codes.join(', ')})` : 'how their letters are encoded'}. Rename one, so a reader can tell them apart.`,
   invisibleInColumn: (shown: string, codes: readonly string[]) =>
     `The column ${quote(shown)} holds an invisible character (${codes.join(', ')}) in its name; to use it, write the name with that character, or rename the column.`,
+  tooManyLevelsToDraw: (levels: number, limit: number) =>
+    `this fit has ${levels.toLocaleString('en')} levels; a chart draws at most ${limit.toLocaleString('en')} (more cannot be read, and would stall the drawing). The fit's means table lists them all.`,
+  tooManyPairsToDraw: (pairs: number, limit: number) =>
+    `there are ${pairs.toLocaleString('en')} pairs; a chart draws at most ${limit.toLocaleString('en')} (about 63 levels). The pairs table lists them all, and means_chart shows the levels side by side.`,
   firstLineSpacing: (line: string) =>
     `The first line must be exactly "furrow 1"; this one is ${JSON.stringify(line)}, with extra spaces or tabs. Remove them and open the file again.`,
   wrongVersion: (version: string) =>
