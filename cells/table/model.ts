@@ -20,6 +20,11 @@ import {
   type Table,
 } from '../../src/lang/values.ts';
 
+/** The most rows a table holds (a CSV file is also bounded by its size, see src/cli/files.ts). */
+export const MAX_TABLE_ROWS = 5_000_000;
+/** The most columns a table holds. */
+export const MAX_TABLE_COLUMNS = 2000;
+
 /** A decimal number as typed: sign, digits, optional fraction, optional exponent. */
 export const DECIMAL = /^[-+]?(\d+(?:\.\d*)?|\.\d+)([eE][-+]?\d+)?$/;
 
@@ -116,6 +121,8 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
   }
   try {
     const grid = parseCsv(text);
+    if (grid.rows.length > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(grid.rows.length, MAX_TABLE_ROWS), 0, 0));
+    if (grid.header.length > MAX_TABLE_COLUMNS) return fail(errorValue(msg.tooManyColumns(grid.header.length, MAX_TABLE_COLUMNS), 0, 0));
     return { name, file: m.file, grid, value: tableFromGrid(grid), error: null };
   } catch (err) {
     if (!(err instanceof CsvError)) throw err;

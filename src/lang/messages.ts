@@ -134,6 +134,12 @@ export const msg = {
     `this fit has ${levels.toLocaleString('en')} levels; a chart draws at most ${limit.toLocaleString('en')} (more cannot be read, and would stall the drawing). The fit's means table lists them all.`,
   tooManyPairsToDraw: (pairs: number, limit: number) =>
     `there are ${pairs.toLocaleString('en')} pairs; a chart draws at most ${limit.toLocaleString('en')} (about 63 levels). The pairs table lists them all, and means_chart shows the levels side by side.`,
+  tooManyRows: (rows: number, limit: number) =>
+    `This table has ${rows.toLocaleString('en')} rows; a table holds at most ${limit.toLocaleString('en')}. Keep the rows the analysis needs, or summarize them first.`,
+  tooManyColumns: (cols: number, limit: number) =>
+    `This table has ${cols.toLocaleString('en')} columns; a table holds at most ${limit.toLocaleString('en')}. Keep the columns the analysis needs.`,
+  tooManyCells: (cells: number, limit: number) =>
+    `This document has ${cells.toLocaleString('en')} cells; Furrow reads at most ${limit.toLocaleString('en')}. Split it into several documents.`,
   firstLineSpacing: (line: string) =>
     `The first line must be exactly "furrow 1"; this one is ${JSON.stringify(line)}, with extra spaces or tabs. Remove them and open the file again.`,
   wrongVersion: (version: string) =>
