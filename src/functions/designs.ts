@@ -28,6 +28,7 @@ import { MAX_GROUPS } from '../stats/dist/index.ts';
 import { completeRows, factorOf, responseOf, type Factor } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from './registry.ts';
+import { warnIgnoredBlocks } from './ignored-blocks.ts';
 
 /** What a fit record keeps for later functions. */
 export interface FitInternal {
@@ -194,7 +195,9 @@ export const DESIGNS: readonly Builtin[] = [
     example: 'one_way(plants.weight, plants.group)',
     run: (a, ctx) => {
       const p = prepare(a.get('y') as NumberColumn, [{ col: a.get('treatment') as Column, role: 'treatment' }], ctx);
-      return finish(p, guarded(() => oneWay(p.y, p.factors[0]!, { offset: p.offset, dropped: p.dropped })));
+      const fit = finish(p, guarded(() => oneWay(p.y, p.factors[0]!, { offset: p.offset, dropped: p.dropped })));
+      warnIgnoredBlocks(ctx, 'y', 'treatment', a.get('y') as Column, a.get('treatment') as Column, (y, t, b) => `blocked(${y}, ${t}, ${b})`);
+      return fit;
     },
   },
   {

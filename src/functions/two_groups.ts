@@ -8,6 +8,7 @@ import { shiftDecimals } from '../stats/decimal/index.ts';
 import { completeRows, factorOf, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from './registry.ts';
+import { warnIgnoredBlocks } from './ignored-blocks.ts';
 
 const LEVEL = { name: 'level', type: 'level' as const, default: 0.95, doc: 'Confidence level of the interval.' };
 
@@ -57,6 +58,7 @@ export const TWO_GROUPS: readonly Builtin[] = [
     run: (a, ctx) => {
       const { r, groups } = responseAndFactor(a.get('y') as NumberColumn, a.get('group') as Column, ctx, ['y', 'group']);
       const res = guarded(() => twoSample(r.y, groups, a.get('level') as number, a.get('equal_variance') as boolean));
+      warnIgnoredBlocks(ctx, 'y', 'group', a.get('y') as Column, a.get('group') as Column, (y, g, b) => `blocked(${y}, ${g}, ${b}) (the paired comparison)`);
       return toRecord({ ...res, first_mean: res.first_mean + r.offset, second_mean: res.second_mean + r.offset }, 'comparison');
     },
   },
@@ -110,7 +112,9 @@ export const TWO_GROUPS: readonly Builtin[] = [
     example: 'kruskal_wallis(plants.weight, plants.group)',
     run: (a, ctx) => {
       const { r, groups } = responseAndFactor(a.get('y') as NumberColumn, a.get('treatment') as Column, ctx, ['y', 'treatment']);
-      return toRecord({ ...guarded(() => kruskalWallis(r.y, groups)) }, 'test');
+      const res = toRecord({ ...guarded(() => kruskalWallis(r.y, groups)) }, 'test');
+      warnIgnoredBlocks(ctx, 'y', 'treatment', a.get('y') as Column, a.get('treatment') as Column, (y, t, b) => `friedman(${y}, ${t}, ${b})`);
+      return res;
     },
   },
   {
@@ -140,7 +144,9 @@ export const TWO_GROUPS: readonly Builtin[] = [
     example: 'rank_sum(trial.hours, trial.drug)',
     run: (a, ctx) => {
       const { r, groups } = responseAndFactor(a.get('y') as NumberColumn, a.get('group') as Column, ctx, ['y', 'group']);
-      return toRecord({ ...guarded(() => rankSum(r.y, groups)) }, 'test');
+      const res = toRecord({ ...guarded(() => rankSum(r.y, groups)) }, 'test');
+      warnIgnoredBlocks(ctx, 'y', 'group', a.get('y') as Column, a.get('group') as Column, (y, g, b) => `signed_rank on the pairs, or friedman(${y}, ${g}, ${b}),`);
+      return res;
     },
   },
 ];
