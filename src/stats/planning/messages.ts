@@ -14,7 +14,7 @@ export const planningMessages = {
     `the seed must be a whole number from 0 to 4294967295 (got ${seed}); write the seed down in the document so the layout can be drawn again`,
   countNotWhole: (what: string, v: number, least: number) => `${what} must be a whole number of at least ${least} (got ${v})`,
   tooManyPlots: (plots: number) =>
-    `this plan would need ${plots > 1e15 ? 'more than 10^15' : Math.round(plots).toLocaleString('en-US')} plots, more than the limit of 1,000,000`,
+    `this plan would need ${plots > 1e15 ? 'more than 10^15' : String(Math.round(plots)).replace(/\B(?=(\d{3})+(?!\d))/g, ',')} plots, more than the limit of 1,000,000`,
   sdNotPositive: (sd: number) => `the standard deviation must be greater than zero (got ${sd})`,
   deltaZero: () => `the difference to detect (delta) must not be zero: there is no plan that detects a difference of zero`,
   deltaNotFinite: (d: number) => `the difference to detect (delta) must be a finite number (got ${d})`,
