@@ -3,7 +3,7 @@
  * comparison of data with their layout (check.ts) and the recognition of a blocking column
  * that an analysis ignores (blocking.ts). Pure numeric code: no values of the language here.
  */
-export { ALGORITHM, Draws, GENERATOR, MAX_SEED, checkSeed, permutation, shuffle } from './draws.ts';
+export { ALGORITHM, Draws, GENERATOR, MAX_SEED, SplitMix64, checkSeed, permutation, shuffle } from './draws.ts';
 export { PlanningError } from './errors.ts';
 export { planningMessages } from './messages.ts';
 export {
