@@ -127,7 +127,7 @@ function layoutShape(t: Table): LayoutShape {
   if (plot !== null) {
     return {
       keys: ['plot'],
-      rowName: 'row of plots',
+      rowName: 'row',
       positionName: 'plot',
       row: (i) => Math.floor((plot[i]! - 1) / PLOTS_PER_MAP_ROW) + 1,
       position: (i) => ((plot[i]! - 1) % PLOTS_PER_MAP_ROW) + 1,
