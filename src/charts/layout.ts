@@ -26,9 +26,18 @@ export interface LayoutMapInput {
   readonly seed: number | null;
 }
 
-/** Width and height of one plot on the map, in pixels. */
-const PLOT_WIDTH = 64;
+/** Narrowest plot and height of a plot on the map, in pixels. */
+const PLOT_WIDTH = 56;
 const PLOT_HEIGHT = 34;
+/** Room per character of a label at the map's 11 px type (a generous average, so a label is never cut). */
+const CHAR_WIDTH = 7;
+
+/** A plot wide enough for its longest label: a technician must read every plot in full. */
+function plotWidth(labels: readonly string[]): number {
+  let longest = 0;
+  for (const l of labels) longest = Math.max(longest, [...l].length);
+  return Math.max(PLOT_WIDTH, longest * CHAR_WIDTH + 14);
+}
 
 /** The field map; see the module note. */
 export function layoutMap(l: LayoutMapInput): ChartResult {
@@ -64,7 +73,7 @@ export function layoutMap(l: LayoutMapInput): ChartResult {
       },
     },
     {
-      mark: { type: 'text', color: INK, fontSize: 11, limit: PLOT_WIDTH - 6 },
+      mark: { type: 'text', color: INK, fontSize: 11 },
       encoding: { x, y, text: { field: 't', type: 'nominal' }, tooltip },
     },
   ];
@@ -72,7 +81,7 @@ export function layoutMap(l: LayoutMapInput): ChartResult {
   const subtitle = l.seed === null ? null : `seed ${l.seed}; ${l.rowName}s top to bottom, ${l.positionName}s left to right`;
   const caption = `${counted(n, 'plot')} in ${counted(rows, l.rowName)} of ${count(positions)} ${l.positionName}s; ${counted(domain.length, 'treatment')}, each plot labelled with its treatment${l.seed === null ? '' : `; drawn with seed ${l.seed}`}.`;
   return {
-    spec: assemble(title, subtitle, { data: { values }, layer: layers }, { width: { step: PLOT_WIDTH }, height: { step: PLOT_HEIGHT } }),
+    spec: assemble(title, subtitle, { data: { values }, layer: layers }, { width: { step: plotWidth(domain) }, height: { step: PLOT_HEIGHT } }),
     caption,
     warnings,
   };

@@ -298,6 +298,14 @@ describe('the charts', () => {
     expect(v.caption).toBe('24 plots in 6 blocks of 4 plots; 4 treatments, each plot labelled with its treatment; drawn with seed 8.');
   });
 
+  it('layout_chart never cuts a long treatment name short', async () => {
+    const v = evalFormula('layout_chart(random_layout(["fescue_mix", "quickpatch", "hardwear", "rye_blend", "a much longer name"], seed: 3, blocks: 2))') as Chart;
+    const r = await renderSvg(v.spec);
+    const labels = [...r.svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]!);
+    expect(labels.filter((l) => l === 'a much longer name').length).toBe(2 + 1);
+    expect(labels.some((l) => l.includes('…'))).toBe(false);
+  });
+
   it('layout_chart draws a Latin square by rows and columns and a plan without blocks ten plots to a row', () => {
     const sq = evalFormula('layout_chart(latin_layout(["A", "B", "C"], seed: 2))') as Chart;
     expect(sq.caption).toMatch(/^9 plots in 3 rows of 3 columns/);
