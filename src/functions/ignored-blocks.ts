@@ -14,6 +14,12 @@ import { isCompleteBlocking, planningMessages as m, type Codes } from '../stats/
 import { isMissingAt, sameValue, type Column, type Table } from '../lang/values.ts';
 import type { CallContext, SourceTable } from './registry.ts';
 
+/**
+ * The sentence each fit that ignores blocks adds to its doc: the rule, stated for users.
+ */
+export const IGNORED_BLOCKS_DOC =
+  ' When the response and the treatment are columns of one table (`t.y`, `t.treatment`) and that table holds another column in which every treatment appears exactly once per level (complete blocks, or pairs), the fit warns that it ignores them and names the analysis that would use them. The count is over the table’s rows, a plot whose measurement is missing included (it still stands in the field); rows with an empty treatment are left out, and a column with an empty field where the treatment is given is not read as blocks.';
+
 /** Level codes of a column, by the text of each field (-1 where empty). */
 function codesOf(c: Column): Codes {
   const at = new Map<string, number>();

@@ -233,7 +233,7 @@ export const PLANNING: readonly Builtin[] = [
       { name: 'replicates', type: 'number', default: MISSING, doc: 'Without blocks: how many plots of each treatment, all plots in one random order (a completely randomized plan).' },
     ],
     returns: 'a table: block, plot, treatment (or plot, treatment without blocks)',
-    doc: 'Draws a randomized layout from a seed. With `blocks`, a randomized complete block plan: in each block the treatments are shuffled anew (plots numbered 1, 2, … within each block). With `replicates` instead, a completely randomized plan: all plots shuffled together. The shuffle is Fisher and Yates’s, with every position drawn without modulo bias from the seeded xoroshiro128+ generator; the generator, the algorithm and the seed are kept with the layout (see layout_details), and the same seed gives the same layout on every machine and in every later version. At most 1,000,000 plots.',
+    doc: 'Draws a randomized layout from a seed. With `blocks`, a randomized complete block plan: in each block the treatments are shuffled anew (plots numbered 1, 2, … within each block). With `replicates` instead, a completely randomized plan: all plots shuffled together. The shuffle is Fisher and Yates’s, with every position drawn without modulo bias from the xoroshiro128+ generator, its state filled from the seed by SplitMix64; the generator, the algorithm and the seed are kept with the layout (see layout_details), and the same seed gives the same layout on every machine and in every later version. At most 1,000,000 plots.',
     example: 'random_layout(["early", "mid", "late"], seed: 2026, blocks: 6)',
     run: (a) => {
       const { names, numeric } = treatmentNames(a.get('treatments') as Column);
