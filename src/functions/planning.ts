@@ -23,7 +23,7 @@ import {
   type Table,
   type Value,
 } from '../lang/values.ts';
-import { layoutMap, powerCurve, type ChartResult } from '../charts/index.ts';
+import { MAX_POINTS, layoutMap, powerCurve, type ChartResult } from '../charts/index.ts';
 import {
   ALGORITHM,
   GENERATOR,
@@ -290,6 +290,10 @@ export const PLANNING: readonly Builtin[] = [
     run: (a, ctx) => {
       const t = a.get('layout') as Table;
       const shape = layoutShape(t);
+      if (t.rows > MAX_POINTS) {
+        const part = shape.keys[0] === 'plot' ? 'plan[plan.plot <= 500]' : `plan[plan.${shape.keys[0]} <= 20]`;
+        throw new UsageError(`a map of ${t.rows} plots is too large to read; the limit is ${MAX_POINTS}. Draw it in parts, for example layout_chart(${part}).`);
+      }
       const tc = tableColumn(t, 'treatment')!;
       const treatment: string[] = [];
       const seen = new Set<string>();

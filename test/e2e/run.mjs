@@ -485,6 +485,19 @@ tests.push({
   },
 });
 
+tests.push({
+  name: 'a fit that ignores the pairing of its data shows the design warning on its cell',
+  async run({ context, base }) {
+    const page = await context.newPage();
+    await page.goto(`${base}/?sample=tread-wear.furrow&fresh`);
+    await settled(page);
+    const warned = await cellText(page, 'as_groups');
+    check(/column "van" in which every compound appears exactly once per level/.test(warned ?? ''), `as_groups shows: ${(warned ?? '').slice(0, 300)}`);
+    const blocks = await cellText(page, 'as_blocks');
+    check(blocks !== null && !/exactly once per level/.test(blocks), 'the blocked fit carries no such warning');
+  },
+});
+
 /** JavaScript needed for first paint: the entry and what it imports statically (gzipped). */
 function firstPaintBytes() {
   const html = readFileSync('dist/index.html', 'utf8');

@@ -313,6 +313,29 @@ describe('the charts', () => {
     expect(crd.caption).toMatch(/^24 plots in 3 rows of 10 plots/);
   });
 
+  it('a map too large to read is refused with a way to draw it in parts, which works', () => {
+    const before = ['--- formula', 'plan = random_layout(["a", "b", "c", "d"], seed: 1, blocks: 1500)'];
+    expect(errorText(evalFormula('layout_chart(plan)', ...before))).toMatch(/a map of 6000 plots is too large to read; the limit is 5000\. Draw it in parts, for example layout_chart\(plan\[plan\.block <= 20\]\)/);
+    expect((evalFormula('layout_chart(plan[plan.block <= 20])', ...before) as Chart).caption).toMatch(/^80 plots in 20 blocks/);
+  });
+
+  it('layout_check matches a Latin square on row and column', () => {
+    const { engine } = run(
+      doc('--- formula', 'sq = latin_layout(["A", "B", "C"], seed: 4)', '--- formula', 'check = layout_check(sq, sq)', '--- formula', 'map = layout_chart(sq)'),
+    );
+    const r = rec(valueOf(engine, 'check'));
+    expect(r.fields.get('holds')).toBe(true);
+    expect(tab(r.fields.get('missing')!).names).toEqual(['row', 'column', 'treatment']);
+  });
+
+  it('power_chart of a two-group plan runs over plots per group', () => {
+    const v = evalFormula('power_chart(replicates_for_power(1, 1))') as Chart;
+    expect(v.caption).toBe('Power from 2 to 34 plots per group; the plan marked has 17 plots per group and power 0.807; the dashed line is the power asked for (80%).');
+    // source: scipy 1.10.1 (stats.nct, as in fixtures/planning_power.py): n = 30, delta = sd = 1 gives 0.9677083
+    const p = evalFormula('power_chart(power_two_sample(1, 1, 30))') as Chart;
+    expect(p.caption).toBe('Power from 2 to 60 plots per group; the plan marked has 30 plots per group and power 0.9677.');
+  });
+
   it('power_chart marks the plan and the power asked for', async () => {
     const v = evalFormula('power_chart(blocks_for_power(1, 1, 4))') as Chart;
     expect(v.caption).toBe('Power from 2 to 48 blocks; the plan marked has 24 blocks and power 0.8168; the dashed line is the power asked for (80%).');
