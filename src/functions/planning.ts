@@ -240,8 +240,8 @@ export const PLANNING: readonly Builtin[] = [
       const seed = guarded(() => checkSeed(num(a, 'seed')));
       const blocks = optionalNumber(a.get('blocks'));
       const replicates = optionalNumber(a.get('replicates'));
-      if (blocks !== null && replicates !== null) throw new UsageError('give either blocks (a randomized complete block plan) or replicates (a completely randomized plan), not both.');
-      if (blocks === null && replicates === null) throw new UsageError('give blocks: for a randomized complete block plan, or replicates: for a completely randomized plan.');
+      if (blocks !== null && replicates !== null) throw new UsageError(`${m.bothCounts()}.`);
+      if (blocks === null && replicates === null) throw new UsageError(`${m.noCount()}.`);
       if (blocks !== null) {
         const l = guarded(() => drawBlocks(names, blocks, seed));
         const t = table(['block', 'plot', 'treatment'], [whole('block', l.block), whole('plot', l.plot), treatmentColumn(names, numeric, l.treatment)]);
@@ -292,7 +292,7 @@ export const PLANNING: readonly Builtin[] = [
       const shape = layoutShape(t);
       if (t.rows > MAX_POINTS) {
         const part = shape.keys[0] === 'plot' ? 'plan[plan.plot <= 500]' : `plan[plan.${shape.keys[0]} <= 20]`;
-        throw new UsageError(`a map of ${t.rows} plots is too large to read; the limit is ${MAX_POINTS}. Draw it in parts, for example layout_chart(${part}).`);
+        throw new UsageError(`${m.mapTooLarge(t.rows, MAX_POINTS, part)}.`);
       }
       const tc = tableColumn(t, 'treatment')!;
       const treatment: string[] = [];
@@ -422,7 +422,7 @@ export const PLANNING: readonly Builtin[] = [
     run: (a, ctx) => {
       const plan = a.get('plan') as RecordValue;
       if (plan.tag !== 'power' || plan.internal === undefined) {
-        throw new UsageError('plan must be the result of power_two_sample, replicates_for_power, power_blocked or blocks_for_power.');
+        throw new UsageError(`${m.notAPowerRecord()}.`);
       }
       const p = plan.internal as PowerInternal;
       const last = Math.min(Math.max(2 * p.chosen, p.chosen + 6, 10), p.chosen + 200);

@@ -34,5 +34,10 @@ export const planningMessages = {
     `the layout must have columns block and plot, row and column, or plot, with a treatment column (as random_layout and latin_layout make)`,
   dataLacks: (column: string) => `the data have no column ${q(column)} to match the layout on`,
   repeatedKey: (where: string, key: string) => `${where} holds plot ${key} more than once`,
+  bothCounts: () => 'give either blocks (a randomized complete block plan) or replicates (a completely randomized plan), not both',
+  noCount: () => 'give blocks: for a randomized complete block plan, or replicates: for a completely randomized plan',
+  notAPowerRecord: () => 'plan must be the result of power_two_sample, replicates_for_power, power_blocked or blocks_for_power',
+  mapTooLarge: (plots: number, limit: number, part: string) =>
+    `a map of ${plots} plots is too large to read; the limit is ${limit}. Draw it in parts, for example layout_chart(${part})`,
   notALayout: () => `this table was not drawn by random_layout or latin_layout, so there is no record of how it was drawn`,
 };
