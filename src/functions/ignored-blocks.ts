@@ -44,7 +44,8 @@ const PLAIN = /^[A-Za-z_][A-Za-z0-9_]*$/;
 
 /** How a user writes column `col` of the table read by `name`. */
 function written(src: SourceTable, col: string): string {
-  if (src.name === null) return JSON.stringify(col);
+  // a table reached through an expression (a filter): name the columns alone
+  if (src.name === null) return col;
   return PLAIN.test(col) ? `${src.name}.${col}` : `${src.name}[${JSON.stringify(col)}]`;
 }
 

@@ -275,6 +275,13 @@ describe('the design warning: a fit that ignores the blocks of its data', () => 
     expect(warned(text, 'f')).toEqual([]);
   });
 
+  it('fires on a filtered table too, naming the columns alone', () => {
+    const text = doc('--- table t', 'site,block,g,y', 'x,1,a,1', 'x,1,b,3', 'x,2,a,5', 'x,2,b,2', 'z,1,a,4', 'z,1,a,4.5', '', '--- formula', 'f = two_sample(t[t.site == "x"].y, t[t.site == "x"].g)');
+    expect(warned(text, 'f')).toEqual([
+      'The data have a column "block" in which every g appears exactly once per level (complete blocks, or pairs). two_sample ignores it and treats the plots as independent; blocked(y, g, block) (the paired comparison) would use it.',
+    ]);
+  });
+
   it('a column name that is not a plain name is written as the user would write it', () => {
     const text = doc('--- table t', '"pair no",g,y', '1,a,1', '1,b,3', '2,a,5', '2,b,2', '3,a,4', '3,b,4.5', '', '--- formula', 'f = two_sample(t["y"], t.g)');
     expect(warned(text, 'f')[0]).toMatch(/column "pair no" .* blocked\(t\.y, t\.g, t\["pair no"\]\)/);
