@@ -25,3 +25,5 @@ export { scatterChart, type ScatterInput } from './scatter.ts';
 export { MAX_POINTS, MAX_LABELS, MAX_MARKED, MANY_LEVELS } from './large.ts';
 export { CUT } from './layers.ts';
 export { axisTitle, readName, UNIT_SUFFIXES } from './titles.ts';
+export { layoutMap, type LayoutMapInput } from './layout.ts';
+export { powerCurve, type PowerCurveInput } from './power.ts';

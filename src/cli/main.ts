@@ -11,6 +11,7 @@ import { Engine, type CellState } from '../graph/engine.ts';
 import { toJson } from '../lang/json.ts';
 import { typeOf } from '../lang/values.ts';
 import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, besideDocument, readText } from './files.ts';
+import { sheetCommand } from './sheet.ts';
 import { valueText, visible } from './text.ts';
 import { isSafeFileName } from '../../cells/table/model.ts';
 
@@ -18,12 +19,13 @@ const USAGE = `Usage: furrow run FILE [--json]
 
   run FILE          evaluate a .furrow document and print every cell
   run FILE --json   the same, as one JSON object (see the README)
+  sheet FILE NAME   a layout as a run sheet (CSV); furrow sheet --help for more
 
 Exit status: 0 when every cell evaluated, 1 when a cell holds an error,
 2 when the file cannot be read as a document.`;
 
 /** A failure that ends the command with status 2 and one line on standard error. */
-class CliFailure extends Error {}
+export class CliFailure extends Error {}
 
 interface Output {
   out: (s: string) => void;
@@ -150,6 +152,7 @@ function jsonReport(states: CellState[]): string {
 
 /** Runs the command line with arguments; returns the exit status. */
 export function main(argv: readonly string[], o: Output): number {
+  if (argv[0] === 'sheet') return sheetCommand(argv.slice(1), o);
   const args = argv.filter((a) => a !== '--json');
   const json = argv.includes('--json');
   if (args.length === 0 || args[0] === 'help' || args[0] === '--help' || args[0] === '-h') {

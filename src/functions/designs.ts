@@ -28,6 +28,7 @@ import { MAX_GROUPS } from '../stats/dist/index.ts';
 import { completeRows, factorOf, responseOf, type Factor } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from './registry.ts';
+import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
 
 /** What a fit record keeps for later functions. */
 export interface FitInternal {
@@ -190,11 +191,13 @@ export const DESIGNS: readonly Builtin[] = [
     category: 'designs',
     params: [Y, { name: 'treatment', type: 'factor', doc: 'The treatment of each measurement.' }],
     returns: 'a fit record',
-    doc: 'One-way analysis of variance for a completely randomized design: the treatment and error sums of squares from centred two-pass sums on the exactly shifted data, F and its p-value, and the treatment means with intervals from the error mean square. Unequal group sizes are fine.',
+    doc: 'One-way analysis of variance for a completely randomized design: the treatment and error sums of squares from centred two-pass sums on the exactly shifted data, F and its p-value, and the treatment means with intervals from the error mean square. Unequal group sizes are fine.' + IGNORED_BLOCKS_DOC,
     example: 'one_way(plants.weight, plants.group)',
     run: (a, ctx) => {
       const p = prepare(a.get('y') as NumberColumn, [{ col: a.get('treatment') as Column, role: 'treatment' }], ctx);
-      return finish(p, guarded(() => oneWay(p.y, p.factors[0]!, { offset: p.offset, dropped: p.dropped })));
+      const fit = finish(p, guarded(() => oneWay(p.y, p.factors[0]!, { offset: p.offset, dropped: p.dropped })));
+      warnIgnoredBlocks(ctx, 'y', 'treatment', a.get('y') as Column, a.get('treatment') as Column, (y, t, b) => `blocked(${y}, ${t}, ${b})`);
+      return fit;
     },
   },
   {
