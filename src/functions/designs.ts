@@ -25,7 +25,7 @@ import { contrast, difference, pairwise } from '../stats/compare/index.ts';
 import { blocked, factorial, latinSquare, oneWay, type DesignFit } from '../stats/designs/index.ts';
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
 import { MAX_GROUPS } from '../stats/dist/index.ts';
-import { completeRows, factorOf, responseOf, type Factor } from './columns.ts';
+import { completeRows, factorOf, numberLevel, presentRows, resolveLevel, responseOf, type Factor } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from './registry.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
@@ -129,13 +129,6 @@ function fitRecord(fit: DesignFit, internal: FitInternal): RecordValue {
   return record(fields, 'fit', internal);
 }
 
-/** The rows of a column that are not missing, or null when none is missing. */
-function presentRows(c: Column): Int32Array | null {
-  if (c.missing === null) return null;
-  const out: number[] = [];
-  for (let i = 0; i < c.values.length; i++) if (c.missing[i] !== 1) out.push(i);
-  return Int32Array.from(out);
-}
 
 interface Prepared {
   y: Float64Array;
@@ -280,7 +273,8 @@ export const DESIGNS: readonly Builtin[] = [
     example: 'difference(fit, "open", "spindle")',
     run: (a) => {
       const i = fitInternal(a.get('fit') as RecordValue);
-      const r = guarded(() => difference(i.fit, levelText(a.get('a')!), levelText(a.get('b')!), a.get('level') as number));
+      const levels = i.fit.means.level;
+      const r = guarded(() => difference(i.fit, resolveLevel(a.get('a')!, levels), resolveLevel(a.get('b')!, levels), a.get('level') as number));
       return toRecord({ ...r }, 'comparison');
     },
   },
@@ -384,6 +378,6 @@ export const DESIGNS: readonly Builtin[] = [
 /** A level given as text or a number, as the fit names it. */
 function levelText(v: Value): string {
   if (typeof v === 'string') return v;
-  if (typeof v === 'number') return formatNumber(v, 15);
+  if (typeof v === 'number') return numberLevel(v);
   return String(v);
 }
