@@ -77,7 +77,7 @@ export function valueText(v: Value, indent = ''): string[] {
       } else if (isColumn(x)) {
         lines.push(`${indent}${k}: ${valueText(x)[0]}`);
       } else {
-        lines.push(`${indent}${k}: ${k === 'p' ? formatP(x as number) : inline(x)}`);
+        lines.push(`${indent}${k}: ${k === 'p' && typeof x === 'number' ? formatP(x) : inline(x)}`);
       }
     }
     return lines;

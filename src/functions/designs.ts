@@ -6,6 +6,7 @@
  * numeric fit and the data it came from, for the comparisons, the checks and the charts.
  */
 import { UsageError } from '../lang/errors.ts';
+import { msg } from '../lang/messages.ts';
 import { formatNumber } from '../lang/format.ts';
 import {
   MISSING,
@@ -26,6 +27,7 @@ import { blocked, factorial, latinSquare, oneWay, type DesignFit } from '../stat
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
 import { MAX_GROUPS } from '../stats/dist/index.ts';
 import { completeRows, factorOf, numberLevel, presentRows, resolveLevel, responseOf, type Factor } from './columns.ts';
+import { isExactFit, withoutErrorTests } from './exact.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from './registry.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
@@ -170,10 +172,18 @@ function prepare(y: NumberColumn, factorCols: readonly { col: Column; role: stri
   return { y: r.y, offset: r.offset, factors, rows, length, dropped: rows === null ? 0 : length - rows.length, response: y.name ?? 'y' };
 }
 
-function finish(p: Prepared, fit: DesignFit): RecordValue {
+function finish(p: Prepared, computed: DesignFit): RecordValue {
   const y = new Float64Array(p.y.length);
   for (let i = 0; i < y.length; i++) y[i] = p.y[i]! + p.offset;
+  // a fit with no error left shows no tests (see exact.ts)
+  const fit = withoutErrorTests(computed);
   return fitRecord(fit, { fit, rows: p.rows, length: p.length, factors: p.factors, y, response: p.response });
+}
+
+/** Refuses a comparison on a fit that leaves no error to compare against. */
+function comparable(i: FitInternal): FitInternal {
+  if (isExactFit(i.fit)) throw new UsageError(msg.exactFitNoComparison());
+  return i;
 }
 
 const Y = { name: 'y', type: 'numbers' as const, doc: 'The measurements (the response).' };
@@ -272,7 +282,7 @@ export const DESIGNS: readonly Builtin[] = [
     doc: 'The difference of two treatment means (a minus b) with its standard error from the fit’s error mean square (least-squares means when data are missing), a t test on the error degrees of freedom and a two-sided interval at `level`. Not adjusted for looking at several pairs: use pairwise for that.',
     example: 'difference(fit, "open", "spindle")',
     run: (a) => {
-      const i = fitInternal(a.get('fit') as RecordValue);
+      const i = comparable(fitInternal(a.get('fit') as RecordValue));
       const levels = i.fit.means.level;
       const r = guarded(() => difference(i.fit, resolveLevel(a.get('a')!, levels), resolveLevel(a.get('b')!, levels), a.get('level') as number));
       return toRecord({ ...r }, 'comparison');
@@ -290,7 +300,7 @@ export const DESIGNS: readonly Builtin[] = [
     doc: 'Every pairwise difference of treatment means with intervals: "tukey" (Tukey’s honestly significant difference, Tukey-Kramer for unequal counts, from the studentized range), "bonferroni" (t intervals at level 1 - (1 - level)/pairs), or "lsd" (unadjusted t intervals, each at `level`).',
     example: 'pairwise(fit, method: "tukey")',
     run: (a) => {
-      const i = fitInternal(a.get('fit') as RecordValue);
+      const i = comparable(fitInternal(a.get('fit') as RecordValue));
       const method = a.get('method') as string;
       const k = i.fit.means.level.length;
       if (method === 'tukey' && k > MAX_GROUPS) {
@@ -322,7 +332,7 @@ export const DESIGNS: readonly Builtin[] = [
     doc: 'A linear contrast of the treatment means, sum of weight times mean, with its standard error from the error mean square, a t test and an interval. The weights must add up to zero and there must be one for each level, in the order of the means table.',
     example: 'contrast(fit, [1, 1, -1, -1])',
     run: (a) => {
-      const i = fitInternal(a.get('fit') as RecordValue);
+      const i = comparable(fitInternal(a.get('fit') as RecordValue));
       const w = a.get('weights') as NumberColumn;
       if (w.missing !== null) throw new UsageError('a weight is missing.');
       const r = guarded(() => contrast(i.fit, Array.from(w.values), a.get('level') as number));
@@ -334,7 +344,7 @@ export const DESIGNS: readonly Builtin[] = [
     category: 'after a fit',
     params: [{ name: 'fit', type: 'fit', doc: 'A fit.' }],
     returns: 'a record: shapiro_wilk, brown_forsythe, studentized, flagged, nonadditivity (where it applies), notes',
-    doc: 'What to look at before believing an F test: the Shapiro-Wilk test of the residuals (Royston’s algorithm), the Brown-Forsythe test of equal spread across treatments (on the residuals, centred at group medians), the internally studentized residuals with the rows beyond 3 in absolute value flagged (a rule of thumb), and Tukey’s nonadditivity test for blocked fits with one plot per cell.',
+    doc: 'What to look at before believing an F test (a fit that leaves no error, one that fits every observation exactly, says so instead): the Shapiro-Wilk test of the residuals (Royston’s algorithm), the Brown-Forsythe test of equal spread across treatments (across the cells of a factorial; on the residuals, centred at group medians), the internally studentized residuals with the rows beyond 3 in absolute value flagged (a rule of thumb), and Tukey’s nonadditivity test for blocked fits with one plot per cell.',
     example: 'residual_checks(fit)',
     run: (a) => {
       const i = fitInternal(a.get('fit') as RecordValue);
@@ -342,6 +352,19 @@ export const DESIGNS: readonly Builtin[] = [
       const notes: string[] = [];
       const fields: [string, Value][] = [];
       const r = fit.residuals;
+      if (isExactFit(fit)) {
+        // residuals that are zero to rounding are noise: testing them would mislead
+        return record(
+          [
+            ['shapiro_wilk', MISSING],
+            ['brown_forsythe', MISSING],
+            ['studentized', spread(fit.studentized_residuals, i.rows, i.length, 'studentized')],
+            ['flagged', numberColumn(new Float64Array(0), null, 'row')],
+            ['notes', textColumn([msg.exactFitResiduals()], null, 'notes')],
+          ],
+          'checks',
+        );
+      }
       if (r.length >= 3 && r.length <= 5000) {
         const sw = guarded(() => shapiroWilk(r));
         fields.push(['shapiro_wilk', record([['w', sw.w], ['p', sw.p], ['n', sw.n]], 'test')]);
@@ -349,9 +372,8 @@ export const DESIGNS: readonly Builtin[] = [
         fields.push(['shapiro_wilk', MISSING]);
         notes.push(`The Shapiro-Wilk test needs 3 to 5000 residuals; this fit has ${r.length}. Look at the normal probability plot instead.`);
       }
-      const t = i.factors[0]!;
       try {
-        const bf = brownForsythe(r, { codes: t.codes, levels: t.levels });
+        const bf = brownForsythe(r, spreadGroups(i));
         fields.push(['brown_forsythe', record([['f', bf.f], ['df1', bf.df1], ['df2', bf.df2], ['p', bf.p]], 'test')]);
       } catch (err) {
         fields.push(['brown_forsythe', MISSING]);
@@ -374,6 +396,29 @@ export const DESIGNS: readonly Builtin[] = [
     },
   },
 ];
+
+/**
+ * The groups whose spreads Brown-Forsythe compares: the treatments, or in a factorial the
+ * cells (every combination of the factors), since the model fits each cell's mean.
+ */
+function spreadGroups(i: FitInternal): { codes: Int32Array; levels: string[] } {
+  const t = i.factors[0]!;
+  if (i.fit.kind !== 'factorial' || i.factors.length < 2) return { codes: t.codes, levels: t.levels };
+  const index = new Map<string, number>();
+  const levels: string[] = [];
+  const codes = new Int32Array(t.codes.length);
+  for (let k = 0; k < codes.length; k++) {
+    const name = i.factors.map((f) => f.levels[f.codes[k]!]!).join(' × ');
+    let c = index.get(name);
+    if (c === undefined) {
+      c = levels.length;
+      index.set(name, c);
+      levels.push(name);
+    }
+    codes[k] = c;
+  }
+  return { codes, levels };
+}
 
 /** A level given as text or a number, as the fit names it. */
 function levelText(v: Value): string {

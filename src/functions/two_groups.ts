@@ -1,11 +1,14 @@
 /**
  * Two-group comparisons and rank-based tests, wired from src/stats.
  */
-import { numberColumn, type Column, type NumberColumn } from '../lang/values.ts';
+import { formatNumber } from '../lang/format.ts';
+import { msg } from '../lang/messages.ts';
+import { MISSING, numberColumn, type Column, type NumberColumn } from '../lang/values.ts';
 import { friedman, kruskalWallis, rankSum, signedRank } from '../stats/ranks/index.ts';
 import { paired, twoSample } from '../stats/two_groups/index.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import { completeRows, factorOf, responseOf } from './columns.ts';
+import { EXACT_FIT_RELATIVE } from './exact.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from './registry.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
@@ -75,7 +78,13 @@ export const TWO_GROUPS: readonly Builtin[] = [
     example: 'paired(sleep.drug_1, sleep.drug_2)',
     run: (a, ctx) => {
       const v = pairedValues(a.get('a') as NumberColumn, a.get('b') as NumberColumn, ctx);
-      return toRecord({ ...guarded(() => paired(v.a, v.b, a.get('level') as number)) }, 'comparison');
+      const res = guarded(() => paired(v.a, v.b, a.get('level') as number));
+      // every difference the same (to rounding): t would divide by nothing
+      if (!(res.sd > EXACT_FIT_RELATIVE * Math.abs(res.estimate)) && res.n >= 2) {
+        ctx.warn(msg.pairedAllEqual(res.n, formatNumber(res.estimate)));
+        return toRecord({ ...res, se: 0, t: MISSING, p: MISSING, low: MISSING, high: MISSING }, 'comparison');
+      }
+      return toRecord({ ...res }, 'comparison');
     },
   },
   {

@@ -139,6 +139,16 @@ export const msg = {
   orderRepeats: (level: string) => `${quote(level)} is listed twice; list each level once.`,
   orderUnknown: (column: string, levels: readonly string[]) =>
     `${quote(column)} has no level ${levels.map((l) => quote(l)).join(', ')}; list only levels that appear in it.`,
+  exactFit: () =>
+    'The model fits every observation exactly (the error sum of squares is zero to rounding); there is no error to test against, so F, p, standard errors and intervals are not available.',
+  allMeasurementsEqual: () =>
+    'Every measurement is the same; there is no variation to analyse, so F, p, standard errors and intervals are not available.',
+  exactFitNoComparison: () =>
+    'this fit leaves no error to compare against (it fits every observation exactly), so a difference has no standard error or interval. The means themselves are in the fit.',
+  exactFitResiduals: () =>
+    'The residuals are all zero (to rounding): the model fits every observation exactly, so there is nothing to check.',
+  pairedAllEqual: (n: number, value: string) =>
+    `All ${n} differences are ${value}: with no variation among them there is nothing to test against, so t, p and the interval are not available.`,
   tooManyRows: (rows: number, limit: number) =>
     `This table has ${rows.toLocaleString('en')} rows; a table holds at most ${limit.toLocaleString('en')}. Keep the rows the analysis needs, or summarize them first.`,
   tooManyColumns: (cols: number, limit: number) =>
