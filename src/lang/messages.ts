@@ -37,6 +37,8 @@ export const msg = {
   expectedExpression: (found: string) => `A value was expected here, but the formula has ${found}.`,
   expectedAfterOperator: (op: string) => `The operator ${quote(op)} needs a value after it.`,
   unclosed: (open: string, close: string) => `This ${quote(open)} is never closed: add a matching ${quote(close)}.`,
+  missingAfterComma: (what: 'argument' | 'element', where: string) =>
+    `An ${what} is missing after this comma in the ${where}: write one, or remove the comma.`,
   unmatchedClose: (close: string) => `This ${quote(close)} has no matching opening bracket.`,
   expectedCloseAfter: (close: string, what: string) => `Expected ${quote(close)} to close the ${what} here.`,
   chainedComparison: () => 'Comparisons cannot be chained: write (a < b) and (b < c) instead of a < b < c.',

@@ -228,7 +228,8 @@ class Parser {
         if (this.peek().type === 'end') throw new LangError(msg.unclosed('[', ']'), open.from, open.to);
         items.push(this.expression(0));
         if (this.isOp(',')) {
-          this.next();
+          const comma = this.next();
+          if (this.isOp(']') || this.isOp(',')) throw new LangError(msg.missingAfterComma('element', 'list'), comma.from, comma.to);
           continue;
         }
         break;
@@ -289,7 +290,8 @@ class Parser {
           args.push({ name: null, nameFrom: value.from, nameTo: value.from, value });
         }
         if (this.isOp(',')) {
-          this.next();
+          const comma = this.next();
+          if (this.isOp(')') || this.isOp(',')) throw new LangError(msg.missingAfterComma('argument', `call of ${left.name}`), comma.from, comma.to);
           continue;
         }
         break;
