@@ -7,8 +7,9 @@ import { DESIGNS } from './designs.ts';
 import { DISTRIBUTIONS } from './distributions.ts';
 import { MATHS } from './maths.ts';
 import { Registry } from './registry.ts';
+import { STRATA } from './strata.ts';
 import { SUMMARIES } from './summaries.ts';
 import { TWO_GROUPS } from './two_groups.ts';
 
 /** All built-ins of the language. */
-export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...CHARTS, ...CLAIMS]);
+export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...STRATA, ...CHARTS, ...CLAIMS]);
