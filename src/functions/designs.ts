@@ -9,11 +9,12 @@ import { UsageError } from '../lang/errors.ts';
 import { formatNumber } from '../lang/format.ts';
 import { MISSING, isColumn, numberColumn, record, textColumn, type Column, type NumberColumn, type RecordValue, type Table, type Value } from '../lang/values.ts';
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
-import { blocked, factorial, latinSquare, oneWay, withCovariate, type Covariate } from '../stats/designs/index.ts';
+import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovariate, type Covariate } from '../stats/designs/index.ts';
+import { columnOwner } from '../lang/origin.ts';
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
 import { MAX_GROUPS } from '../stats/dist/index.ts';
 import { LEVEL, columnsTable, finish, fitInternal, prepare, spread, type Prepared } from './fits.ts';
-import { responseOf } from './columns.ts';
+import { factorOf, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin } from './registry.ts';
 
@@ -140,6 +141,8 @@ export const DESIGNS: readonly Builtin[] = [
       const p = prepare(a.get('y') as NumberColumn, cols, ctx);
       // factor names come from the list's column names
       p.factors = p.factors.map((fc, i) => ({ ...fc, name: cols[i]!.role }));
+      const suspicion = splitPlotWarning(a.get('y') as NumberColumn, cols.map((c) => c.col), p);
+      if (suspicion !== null) ctx.warn(suspicion);
       return finish(p, guarded(() => factorial(p.y, p.factors, { offset: p.offset, dropped: p.dropped })));
     },
   },
@@ -271,6 +274,24 @@ export const DESIGNS: readonly Builtin[] = [
     },
   },
 ];
+
+/**
+ * A warning when the table the data came from names whole plots: one factor is constant on
+ * each of them while another varies inside, so the factorial's F for the first is formed
+ * against the wrong error. Null when nothing suggests a split plot.
+ */
+function splitPlotWarning(y: NumberColumn, factorCols: readonly Column[], p: Prepared): string | null {
+  const owner = columnOwner(y);
+  if (owner === null) return null;
+  const used = new Set<Column>([y, ...factorCols]);
+  const others = owner.columns
+    .filter((c) => !used.has(c) && c.values.length === p.length)
+    .map((c, i) => factorOf(c, p.rows, c.name ?? `column_${i + 1}`));
+  const s = splitPlotSuspicion(p.factors, others);
+  if (s === null) return null;
+  const unit = s.unit.map((u) => `"${u}"`).join(' and ');
+  return `"${s.whole}" is the same on every plot of each ${unit} while "${s.sub}" changes within it: this looks like a split plot, with ${s.whole} on whole plots. factorial tests ${s.whole} against the error between subplots, which is the wrong error for a factor applied to whole plots, so its F and p overstate the evidence. Use split_plot(y, ${s.whole}, ${s.sub}, block).`;
+}
 
 /** A level given as text or a number, as the fit names it. */
 function levelText(v: Value): string {

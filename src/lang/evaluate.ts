@@ -30,6 +30,7 @@ import {
   type Column,
   type Value,
 } from './values.ts';
+import { noteColumnOwner } from './origin.ts';
 
 /** How a name resolves in the document. */
 export type Lookup =
@@ -185,6 +186,7 @@ function evalMember(e: MemberNode, env: EvalEnv): Value {
   if (isTable(obj)) {
     const i = obj.names.indexOf(e.name);
     if (i < 0) throw new LangError(msg.noColumn(label, e.name, suggest(e.name, obj.names)), e.nameFrom, e.nameTo);
+    noteColumnOwner(obj.columns[i]!, obj);
     return obj.columns[i]!;
   }
   if (isRecord(obj)) {
@@ -226,6 +228,7 @@ function evalIndex(e: IndexNode, env: EvalEnv): Value {
           const label = e.object.type === 'name' ? e.object.name : '';
           throw new UsageError(msg.noColumn(label, idx, suggest(idx, obj.names)));
         }
+        noteColumnOwner(obj.columns[i]!, obj);
         return obj.columns[i]!;
       }
       if (isColumn(idx) && idx.type === 'boolean') {

@@ -3,7 +3,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { Chart, Value } from '../../src/lang/values.ts';
-import { expectSelfContained, expectValidSpec, valuesOf } from '../charts/fixtures.ts';
+import { expectSelfContained, expectValidSpec, obj, valuesOf } from '../charts/fixtures.ts';
 import { doc, run } from '../helpers.ts';
 
 function chart(v: Value | undefined): Chart {
@@ -45,7 +45,7 @@ describe('profile and means charts for the designs with strata', () => {
     expectValidSpec(c.spec);
     expectSelfContained(c.spec);
     expect(c.caption).toMatch(/^2 water levels across 3 variety levels; 3 observations per cell; averaged over block; water:variety interaction: F = /);
-    expect(valuesOf(c.spec).length).toBe(6);
+    expect(valuesOf(obj(c.spec), c.spec).length).toBe(6);
   });
   it('states the whole-plot error behind the whole-plot means', () => {
     const c = chart(engine.valueOf('sp_means'));

@@ -37,3 +37,4 @@ export type {
   MeansTable,
   Nonadditivity,
 } from './types.ts';
+export { splitPlotSuspicion, type SplitSuspicion } from './suspect.ts';
