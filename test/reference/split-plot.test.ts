@@ -2,6 +2,9 @@
  * Split plots through a document, against statsmodels 0.13.5 on a textbook example
  * (figures produced by test/reference/fixtures/split_plot.py).
  */
+import { readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { isRecord, isTable, type RecordValue, type Table, type Value } from '../../src/lang/values.ts';
 import { doc, run } from '../helpers.ts';
@@ -159,5 +162,34 @@ describe('split plot: the paper tensile-strength example', () => {
     const { engine: e2 } = run(doc(...paperRows('2,m3,250,32'), '--- formula', 'fit = split_plot(paper.strength, paper.method, paper.temp, paper.rep)'));
     const v = e2.valueOf('fit');
     expect(v !== undefined && typeof v === 'object' && v.kind === 'error' ? v.message : '').toMatch(/rep "2", method "m3" has no plot for temp "250".*complete whole plots/);
+  });
+});
+
+describe("split plot: Yates's oats", () => {
+  // source: Yates (1935), Complex experiments, J. Roy. Statist. Soc. Suppl. 2: the oats split
+  // plot as distributed in the R package MASS (data set oats), copied from the public
+  // Rdatasets repository (csv/MASS/oats.csv) into test/reference/fixtures/oats.csv
+  const csv = readFileSync(join(dirname(fileURLToPath(import.meta.url)), 'fixtures', 'oats.csv'), 'utf8').trimEnd().split('\n');
+  const { engine } = run(doc('--- table oats', ...csv, '', '--- formula', 'fit = split_plot(oats.grain, oats.variety, oats.nitrogen, oats.block)'));
+  const fit = rec(engine.valueOf('fit'));
+  const t = tab(fit.fields.get('table'));
+  it('gives the published sums of squares', () => {
+    expect(nums(t, 'df')).toEqual([5, 2, 10, 3, 6, 45, 71]);
+    // source: Yates (1935), published sums of squares (from memory, references.md section 8):
+    // blocks 15875.3, varieties 1786.4, whole-plot error 6013.3, nitrogen 20020.5,
+    // varieties x nitrogen 321.8, subplot error 7968.8
+    const published = [15875.3, 1786.4, 6013.3, 20020.5, 321.8, 7968.8];
+    const ss = nums(t, 'ss');
+    // printed to one decimal: within half a unit of it (321.75 printed as 321.8 sits on the tie)
+    published.forEach((w, i) => expect(Math.abs(ss[i]! - w), `ss ${i}: ${ss[i]} against ${w}`).toBeLessThanOrEqual(0.05 + 1e-9));
+    // source: statsmodels 0.13.5 (test/reference/fixtures/oats.py)
+    [15875.27777777777, 1786.361111111115, 6013.305555555554, 20020.50000000003, 321.75000000000165, 7968.750000000001].forEach((w, i) =>
+      expectRelative(ss[i]!, w, 1e-12, `ss ${i}`),
+    );
+    expectRelative(nums(t, 'f')[1]!, 1.4853403794363462, 1e-12, 'F varieties against whole-plot error');
+    expectRelative(nums(t, 'p')[1]!, 0.27238685673520496, 1e-9, 'p varieties');
+    expectRelative(nums(t, 'f')[3]!, 37.685647058823584, 1e-12, 'F nitrogen');
+    expectRelative(nums(t, 'f')[4]!, 0.30282352941176627, 1e-12, 'F varieties x nitrogen');
+    expectRelative(nums(t, 'p')[4]!, 0.932198758999224, 1e-9, 'p varieties x nitrogen');
   });
 });
