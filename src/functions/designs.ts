@@ -158,7 +158,7 @@ export const DESIGNS: readonly Builtin[] = [
       AT,
     ],
     returns: 'a record: a b estimate se df t p low high level',
-    doc: 'The difference of two treatment means (a minus b) with its standard error from the fit’s error mean square (least-squares means when data are missing), a t test on the error degrees of freedom and a two-sided interval at `level`. Not adjusted for looking at several pairs: use pairwise for that.',
+    doc: 'The difference of two treatment means (a minus b) with its standard error from the fit’s error mean square (least-squares means when data are missing, adjusted means with a covariate), a t test on the error degrees of freedom and a two-sided interval at `level`. Not adjusted for looking at several pairs: use pairwise for that. `factor:` compares the levels of another factor of the fit (a split plot’s subplot factor); `at:` compares them at one level of the other factor of a split plot. Where a fit has more than one error (split plots, series across sites), the right one is used and named in the result’s notes, with Satterthwaite’s degrees of freedom where two errors combine.',
     example: 'difference(fit, "open", "spindle")',
     run: (a) => {
       const i = fitInternal(a.get('fit') as RecordValue);
@@ -177,12 +177,13 @@ export const DESIGNS: readonly Builtin[] = [
       AT,
     ],
     returns: 'a pairs record: method level factor df critical, and a table of every pair (a b estimate se low high p significant)',
-    doc: 'Every pairwise difference of treatment means with intervals: "tukey" (Tukey’s honestly significant difference, Tukey-Kramer for unequal counts, from the studentized range), "bonferroni" (t intervals at level 1 - (1 - level)/pairs), or "lsd" (unadjusted t intervals, each at `level`).',
+    doc: 'Every pairwise difference of treatment means with intervals: "tukey" (Tukey’s honestly significant difference, Tukey-Kramer for unequal counts, from the studentized range), "bonferroni" (t intervals at level 1 - (1 - level)/pairs), or "lsd" (unadjusted t intervals, each at `level`). `factor:` and `at:` choose the means as in difference, with the error that kind of comparison needs (named in the notes).',
     example: 'pairwise(fit, method: "tukey")',
     run: (a) => {
       const i = fitInternal(a.get('fit') as RecordValue);
       const method = a.get('method') as string;
-      const k = i.fit.means.level.length;
+      const factorName = optionalText(a.get('factor')) ?? i.fit.treatment;
+      const k = i.fit.factor_means.find((m) => m.factor === factorName)?.levels.length ?? i.fit.means.level.length;
       if (method === 'tukey' && k > MAX_GROUPS) {
         throw new UsageError(`Tukey intervals use the studentized range, computed here for up to ${MAX_GROUPS} means; this fit has ${k}. Use method: "bonferroni".`);
       }
@@ -212,7 +213,7 @@ export const DESIGNS: readonly Builtin[] = [
       AT,
     ],
     returns: 'a record: estimate se df t p low high level weights levels',
-    doc: 'A linear contrast of the treatment means, sum of weight times mean, with its standard error from the error mean square, a t test and an interval. The weights must add up to zero and there must be one for each level, in the order of the means table.',
+    doc: 'A linear contrast of the treatment means, sum of weight times mean, with its standard error from the error mean square, a t test and an interval. The weights must add up to zero and there must be one for each level, in the order of the means table. `factor:` and `at:` choose the means as in difference.',
     example: 'contrast(fit, [1, 1, -1, -1])',
     run: (a) => {
       const i = fitInternal(a.get('fit') as RecordValue);
@@ -268,6 +269,9 @@ export const DESIGNS: readonly Builtin[] = [
         if (ps.p < 0.05) {
           notes.push(`The slope on ${fit.covariate.name} differs between treatments (test of parallel slopes, p = ${formatNumber(ps.p, 3)}): adjusted means then depend on the covariate value chosen, so compare the treatments at several values of ${fit.covariate.name} rather than at its mean alone.`);
         }
+      }
+      if (fit.split !== undefined) {
+        notes.push(`These are the residuals within whole plots (the error stratum, ${fit.df_error} df). The whole-plot error has only ${formatNumber(fit.split.dfWhole)} df of its own; look at the whole-plot means in the interaction chart for anything odd there.`);
       }
       fields.push(['notes', textColumn(notes, null, 'notes')]);
       return record(fields, 'checks');
