@@ -49,6 +49,17 @@ describe('across_sites cross-checks', () => {
   });
 });
 
+describe('across_sites block labels', () => {
+  it('gives the same analysis whether block labels repeat from site to site or not', () => {
+    const d = series(3, 3, 4, 9);
+    const unique = factorOf('block', Array.from(d.block.codes, (c, i) => `${d.site.levels[d.site.codes[i]!]}-${d.block.levels[c]}`));
+    const a = acrossSites(d.y, d.trt, d.block, d.site);
+    const b = acrossSites(d.y, d.trt, unique, d.site);
+    a.table.ss.forEach((v, i) => expectRelative(b.table.ss[i]!, v, 1e-13, `ss ${i}`));
+    expect(b.table.df).toEqual(a.table.df);
+  });
+});
+
 describe('across_sites bad input', () => {
   it('refuses a site with one block', () => {
     const d = series(2, 2, 3, 1);
