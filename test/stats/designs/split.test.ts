@@ -3,7 +3,7 @@
  * statsmodels' figures are in test/reference/split-plot.test.ts.
  */
 import { describe, expect, it } from 'vitest';
-import { difference, pairwise } from '../../../src/stats/compare/index.ts';
+import { contrast, difference, pairwise } from '../../../src/stats/compare/index.ts';
 import { blocked, DesignError, splitPlot } from '../../../src/stats/designs/index.ts';
 import { expectRelative, factorOf, normals, seeded } from './support.ts';
 
@@ -66,6 +66,10 @@ describe('split plot cross-checks', () => {
     expect(r.notes.join(' ')).toMatch(/within whole plots/);
     const p = pairwise(sp, 'tukey', 0.95, 'sub', 'w1');
     expect(p.table.se.every((s) => Math.abs(s - r.se) < 1e-14)).toBe(true);
+    // a contrast of subplot levels at one whole-plot level: variance sum(w^2) Eb / r
+    const c = contrast(sp, [1, -0.5, -0.5], 0.95, 'sub', 'w3');
+    expectRelative(c.se, Math.sqrt((1.5 * sp.split!.mseSub) / 4), 1e-14, 'contrast se');
+    expectRelative(c.estimate, sp.split!.cellShifted[6]! - 0.5 * (sp.split!.cellShifted[7]! + sp.split!.cellShifted[8]!), 1e-14, 'contrast estimate');
     expect(() => difference(sp, 's1', 's2', 0.95, 'sub', 'w9')).toThrow(/no level "w9"/);
     expect(() => difference(sp, 's1', 's2', 0.95, 'block', 'w1')).toThrow(DesignError);
   });
