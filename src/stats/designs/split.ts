@@ -71,15 +71,15 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
     cellOf[t] = c;
     count[c]!++;
   }
-  for (let k = 0; k < r; k++) {
-    for (let i = 0; i < a; i++) {
-      for (let j = 0; j < b; j++) {
-        const c = count[(k * a + i) * b + j]!;
-        const where = [block.levels[k] ?? '', whole.levels[i] ?? '', sub.levels[j] ?? ''] as const;
-        if (c === 0) throw new DesignError(messages.splitMissing(block.name, whole.name, sub.name, ...where));
-        if (c > 1) throw new DesignError(messages.splitTwice(block.name, whole.name, sub.name, ...where, c));
-      }
-    }
+  for (let cell = 0; cell < count.length; cell++) {
+    const c = count[cell]!;
+    if (c === 1) continue;
+    const j = cell % b;
+    const i = Math.floor(cell / b) % a;
+    const k = Math.floor(cell / (a * b));
+    const where = [block.levels[k] ?? '', whole.levels[i] ?? '', sub.levels[j] ?? ''] as const;
+    if (c === 0) throw new DesignError(messages.splitMissing(block.name, whole.name, sub.name, ...where));
+    throw new DesignError(messages.splitTwice(block.name, whole.name, sub.name, ...where, c));
   }
 
   const grand = mean(y);
