@@ -17,6 +17,7 @@ export default defineConfig({
     include: ['test/**/*.test.ts'],
     exclude: ['test/e2e/**', 'node_modules/**'],
     environment: 'node',
+    globalSetup: ['test/setup/build-cli.ts'],
     testTimeout: 30_000,
     benchmark: {
       include: ['test/bench/**/*.bench.ts'],

@@ -1,10 +1,47 @@
 #!/usr/bin/env node
-// The command line's entry: loads the TypeScript sources through tsx, so a fresh clone needs
-// no build step before `npx furrow run FILE`.
-import { register } from 'tsx/esm/api';
+// The command line's entry. `npm install` builds the command line into plain JavaScript
+// (scripts/build-cli.mjs, run as `prepare`), and this runs that build, so `furrow` starts
+// without compiling anything. In a development checkout whose sources changed since the
+// build, it runs the TypeScript sources through tsx instead and says so on stderr.
+import { existsSync, readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 
-register();
-const { main } = await import('../src/cli/main.ts');
+// `furrow run x.furrow | head` closes the pipe early: end quietly, as command-line tools do
+for (const stream of [process.stdout, process.stderr]) {
+  stream.on('error', (err) => {
+    if (err.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw err;
+  });
+}
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const built = join(root, 'build', 'cli', 'main.mjs');
+
+/** Why the build cannot be used, or null when it can. */
+async function staleBuild() {
+  if (!existsSync(built)) return 'the command line has not been built (npm install builds it)';
+  // only a development checkout can hold sources newer than its build
+  if (!existsSync(join(root, '.git'))) return null;
+  try {
+    const stamp = JSON.parse(readFileSync(join(root, 'build', 'cli', 'stamp.json'), 'utf8'));
+    const { newestSource } = await import('../scripts/sources.mjs');
+    return newestSource(root) > stamp.newestSource ? 'the sources changed since the command line was built (npm run build:cli rebuilds it)' : null;
+  } catch {
+    return 'the build has no readable stamp (npm run build:cli rebuilds it)';
+  }
+}
+
+const why = await staleBuild();
+let main;
+if (why === null) {
+  ({ main } = await import(built));
+} else {
+  process.stderr.write(`furrow: running from the TypeScript sources: ${why}.\n`);
+  const { register } = await import('tsx/esm/api');
+  register();
+  ({ main } = await import('../src/cli/main.ts'));
+}
 const code = main(process.argv.slice(2), {
   out: (s) => process.stdout.write(`${s}\n`),
   err: (s) => process.stderr.write(`${s}\n`),

@@ -89,7 +89,12 @@ export function splitNote(text: string): NotePiece[] {
   return pieces;
 }
 
-/** The index of the `}` closing a placeholder opened before `start`, skipping quoted text. */
+/**
+ * The index of the `}` closing a placeholder opened before `start`, skipping quoted text, or
+ * -1. The scan stops at the next `{`, at a blank line, and inside quoted text at the end of
+ * the line, so the scans of all the placeholders of a note together read each character a
+ * bounded number of times: splitting a note is linear in its length.
+ */
 function placeholderEnd(text: string, start: number): number {
   let inText = false;
   for (let j = start; j < text.length; j++) {
@@ -99,6 +104,9 @@ function placeholderEnd(text: string, start: number): number {
       if (text[j + 1] === '\n') return -1;
     }
     if (inText) {
+      // a text ends on its line (as in formulas): an unclosed quote cannot make this scan,
+      // and the next one, run to the end of the note
+      if (c === '\n' || c === '\r') return -1;
       if (c === '\\') j++;
       else if (c === '"') inText = false;
       continue;

@@ -16,7 +16,7 @@ import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/app/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
-import { splitNote } from './model.ts';
+import { splitNote, type NotePiece } from './model.ts';
 
 /**
  * Markers for placeholders while the Markdown is rendered: characters from the private-use
@@ -69,15 +69,62 @@ function installHooks(): void {
   });
 }
 
+/** A placeholder of a note, as splitNote gives it. */
+type Placeholder = Extract<NotePiece, { type: 'placeholder' }>;
+
+/**
+ * Emphasis marks (`*`, `_`, `~`) a paragraph may hold before they are shown as written. The
+ * Markdown renderer pairs emphasis marks in time that grows with the square of their number
+ * in one paragraph (measured: 20,000 marks took 2.3 s, 500,000 over seven minutes); no note
+ * a person writes comes near this, and a hostile one must not freeze the page.
+ */
+export const EMPHASIS_MARKS_PER_PARAGRAPH = 1000;
+/** Longest note rendered as Markdown; a longer one is shown as plain text. */
+export const NOTE_MARKDOWN_LIMIT = 200_000;
+
+/** Paragraphs with too many emphasis marks get them escaped, so they read as written. */
+function boundEmphasis(md: string): string {
+  let marks = 0;
+  for (let i = 0; i < md.length; i++) {
+    const c = md.charCodeAt(i);
+    if (c === 42 || c === 95 || c === 126) marks++;
+  }
+  if (marks <= EMPHASIS_MARKS_PER_PARAGRAPH) return md;
+  return md
+    .split(/(\n[ \t]*\n)/)
+    .map((block) => {
+      let n = 0;
+      for (let i = 0; i < block.length; i++) {
+        const c = block.charCodeAt(i);
+        if (c === 42 || c === 95 || c === 126) n++;
+      }
+      return n > EMPHASIS_MARKS_PER_PARAGRAPH ? block.replace(/[*_~]/g, '\\$&') : block;
+    })
+    .join('');
+}
+
 /** The Markdown a note renders: placeholders become markers, stray private marks are dropped. */
-function markdownSource(text: string): { md: string; slots: number } {
+function markdownSource(pieces: readonly NotePiece[]): { md: string; slots: number } {
   let md = '';
   let slots = 0;
-  for (const p of splitNote(text)) {
+  for (const p of pieces) {
     if (p.type === 'text') md += p.text.replace(PRIVATE_MARKS, '\uFFFD');
     else md += `${SLOT_OPEN}${slots++}${SLOT_CLOSE}`;
   }
-  return { md, slots };
+  return { md: boundEmphasis(md), slots };
+}
+
+/** Markdown to HTML, or, past the limits, the text escaped in one preformatted block. */
+function markdownHtml(md: string): string {
+  const plain = (): string => `<pre>${escapeHtml(md)}</pre>`;
+  if (md.length > NOTE_MARKDOWN_LIMIT) return plain();
+  try {
+    return markdown.parse(md) as string;
+  } catch (err) {
+    // thousands of nested quotes or lists exhaust the renderer's stack: show the text as written
+    if (err instanceof RangeError || (err instanceof Error && /call stack/i.test(err.message))) return plain();
+    throw err;
+  }
 }
 
 /**
@@ -87,17 +134,22 @@ function markdownSource(text: string): { md: string; slots: number } {
  * image's description) is shown there as its source, and cannot end the tag. Exported for
  * tests.
  */
-export function renderNote(text: string): { fragment: DocumentFragment; slots: number } {
+export function renderNote(text: string): { fragment: DocumentFragment; placeholders: Placeholder[] } {
   installHooks();
-  const { html: raw, slots } = noteMarkdownHtml(text);
+  const pieces = splitNote(text);
+  const raw = markdownHtml(markdownSource(pieces).md);
   const fragment = DOMPurify.sanitize(raw, {
     RETURN_DOM_FRAGMENT: true,
     FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe', 'object', 'embed', 'svg', 'math', 'audio', 'video', 'source', 'picture', 'track'],
     FORBID_ATTR: PAGE_ATTRIBUTES,
     ALLOW_DATA_ATTR: false,
   });
-  placeSlots(fragment, placeholderSources(text));
-  return { fragment, slots };
+  const placeholders = pieces.filter((p): p is Placeholder => p.type === 'placeholder');
+  placeSlots(
+    fragment,
+    placeholders.map((p) => p.raw.replace(PRIVATE_MARKS, '')),
+  );
+  return { fragment, placeholders };
 }
 
 /**
@@ -105,13 +157,8 @@ export function renderNote(text: string): { fragment: DocumentFragment; slots: n
  * every raw tag of the note escaped. No DOM needed. Exported for tests.
  */
 export function noteMarkdownHtml(text: string): { html: string; slots: number } {
-  const { md, slots } = markdownSource(text);
-  return { html: markdown.parse(md) as string, slots };
-}
-
-/** The source of each placeholder, braces included, as a note shows a failed one. */
-function placeholderSources(text: string): string[] {
-  return splitNote(text).flatMap((p) => (p.type === 'placeholder' ? [p.raw.replace(PRIVATE_MARKS, '')] : []));
+  const { md, slots } = markdownSource(splitNote(text));
+  return { html: markdownHtml(md), slots };
 }
 
 /**
@@ -169,7 +216,8 @@ export class NoteCellView extends LitElement {
   declare catalogue: NameCatalogue;
   declare editing: boolean;
 
-  private rendered: { body: string; node: HTMLElement } | null = null;
+  /** The rendered text and its placeholders, made once per change of the text. */
+  private rendered: { body: string; node: HTMLElement; placeholders: readonly Placeholder[] } | null = null;
 
   constructor() {
     super();
@@ -324,8 +372,9 @@ export class NoteCellView extends LitElement {
       // one container per text, kept across renders, so lit moves no nodes when only values change
       const node = document.createElement('div');
       node.className = 'markdown';
-      node.append(renderNote(text).fragment);
-      this.rendered = { body: this.cell.body, node };
+      const r = renderNote(text);
+      node.append(r.fragment);
+      this.rendered = { body: this.cell.body, node, placeholders: r.placeholders };
     }
     const problems = (this.state?.parts ?? []).filter(isError);
     return html`<div
@@ -350,8 +399,18 @@ export class NoteCellView extends LitElement {
         : nothing}`;
   }
 
+  /** The source of the placeholder at an offset of the text (binary search: they are in order). */
   private sourceAt(offset: number): string {
-    for (const p of splitNote(this.cell.body)) if (p.type === 'placeholder' && offset >= p.from && offset <= p.to) return p.source;
+    const list = this.rendered?.placeholders ?? [];
+    let lo = 0;
+    let hi = list.length - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const p = list[mid]!;
+      if (offset < p.from) hi = mid - 1;
+      else if (offset > p.to) lo = mid + 1;
+      else return p.source;
+    }
     return '…';
   }
 
@@ -383,9 +442,7 @@ export class NoteCellView extends LitElement {
   }
 
   private placeholderSource(i: number): string {
-    const ph = splitNote(this.cell.body).filter((p) => p.type === 'placeholder');
-    const p = ph[i];
-    return p && p.type === 'placeholder' ? p.source : '';
+    return this.rendered?.placeholders[i]?.source ?? '';
   }
 
   private startEditing(): void {

@@ -12,7 +12,7 @@ function numberHint(field: string): string {
   }
   if (/^[-+]?\d{1,3}([, ]\d{3})+(\.\d+)?$/.test(field)) return ' (write the digits without thousands separators)';
   if (/^(n\/?a|na|nan|null|none|missing|-+|\.|\?)$/i.test(field)) return ' (leave the field empty for a missing value)';
-  if (/^[-+<>~]?\s*(\d+\.?\d*|\.\d+)\s*[^\d\s.,]+$/.test(field)) return ' (keep units and signs out of the field; the column name can say the unit)';
+  if (/^[-+<>~]?\s*(\d+(?:\.\d*)?|\.\d+)\s*[^\d\s.,]+$/.test(field)) return ' (keep units and signs out of the field; the column name can say the unit)';
   if (/^[<>≤≥~]/.test(field)) return ' (a bound is not a value; note it elsewhere and leave the field empty or give the value)';
   return '';
 }
@@ -57,6 +57,7 @@ export const gridMsg = {
   importTooBig: (file: string, mb: number) => `${file} was not imported: it is larger than ${mb} MB. Nothing changed.`,
   importFailed: (file: string, reason: string) => `${file} was not imported: ${reason} Nothing changed.`,
   importUnreadable: (file: string) => `${file} was not imported: the browser could not read it. Nothing changed.`,
+  importNotUtf8: (file: string) => `${file} was not imported: it is not UTF-8 text (save it as UTF-8 and import it again). Nothing changed.`,
   imported: (file: string, rows: number, cols: number) => `Imported ${file}: ${plural(rows, 'row')}, ${plural(cols, 'column')}.`,
 
   rawIntro: (message: string) => `The text does not read as a table: ${message}`,

@@ -20,8 +20,13 @@ import {
   type Table,
 } from '../../src/lang/values.ts';
 
+/** The most rows a table holds (a CSV file is also bounded by its size, see src/cli/files.ts). */
+export const MAX_TABLE_ROWS = 5_000_000;
+/** The most columns a table holds. */
+export const MAX_TABLE_COLUMNS = 2000;
+
 /** A decimal number as typed: sign, digits, optional fraction, optional exponent. */
-export const DECIMAL = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+export const DECIMAL = /^[-+]?(\d+(?:\.\d*)?|\.\d+)([eE][-+]?\d+)?$/;
 
 /** The type a column of fields reads as. */
 export function columnTypeOf(fields: readonly string[]): 'number' | 'boolean' | 'text' {
@@ -116,6 +121,8 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
   }
   try {
     const grid = parseCsv(text);
+    if (grid.rows.length > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(grid.rows.length, MAX_TABLE_ROWS), 0, 0));
+    if (grid.header.length > MAX_TABLE_COLUMNS) return fail(errorValue(msg.tooManyColumns(grid.header.length, MAX_TABLE_COLUMNS), 0, 0));
     return { name, file: m.file, grid, value: tableFromGrid(grid), error: null };
   } catch (err) {
     if (!(err instanceof CsvError)) throw err;
@@ -124,6 +131,32 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
       ? fail(errorValue(err.message, err.from, err.to))
       : fail(errorValue(`In ${m.file}: ${err.message}`, 0, 0));
   }
+}
+
+/**
+ * Characters that print as nothing: zero-width spaces and joiners, the word joiner, the soft
+ * hyphen, byte-order marks and direction marks. Two column names that differ only by one of
+ * them look the same on every screen and in every report.
+ */
+const INVISIBLE = /[\u00AD\u061C\u180E\u200B-\u200F\u202A-\u202E\u2060-\u2064\u2066-\u2069\uFEFF]/g;
+
+/** Warnings for column names that hold invisible characters or look like another name. */
+export function lookalikeNames(names: readonly string[]): string[] {
+  const byLook = new Map<string, string[]>();
+  for (const name of names) {
+    const shown = name.normalize('NFC').replace(INVISIBLE, '');
+    const list = byLook.get(shown);
+    if (list === undefined) byLook.set(shown, [name]);
+    else list.push(name);
+  }
+  const codesIn = (list: readonly string[]): string[] =>
+    [...new Set(list.join('').match(INVISIBLE) ?? [])].map((c) => `U+${c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`);
+  const out: string[] = [];
+  for (const [shown, list] of byLook) {
+    if (list.length > 1) out.push(msg.lookalikeColumns(shown, codesIn(list)));
+    else if (list[0] !== shown && codesIn(list).length > 0) out.push(msg.invisibleInColumn(shown, codesIn(list)));
+  }
+  return out;
 }
 
 /** The table kind. */
@@ -136,7 +169,10 @@ export const tableKind: CellKind = {
       reads: [],
       problem: r.error,
       evaluates: true,
-      evaluate: () => ({ value: r.value! }),
+      evaluate: (env) => {
+        if (r.value !== null) for (const w of lookalikeNames(r.value.names)) env.warn(w);
+        return { value: r.value! };
+      },
     };
   },
 };

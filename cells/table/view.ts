@@ -15,6 +15,7 @@
 import { LitElement, html, nothing, type PropertyValues, type TemplateResult } from 'lit';
 import { shared } from '../../src/app/theme.ts';
 import { CsvError } from '../../src/doc/csv.ts';
+import { decodeUtf8 } from '../../src/doc/utf8.ts';
 import { freshBody, parseMarker, visibleBody, type Cell } from '../../src/doc/document.ts';
 import type { Edit } from '../../src/doc/edits.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
@@ -1013,13 +1014,22 @@ export class TableCellView extends LitElement {
       this.say('problem', gridMsg.importTooBig(label, IMPORT_LIMIT_MB));
       return;
     }
-    let text: string;
+    let bytes: Uint8Array;
     try {
-      text = await f.text();
+      bytes = new Uint8Array(await f.arrayBuffer());
     } catch {
       this.say('problem', gridMsg.importUnreadable(label));
       return;
     }
+    let text: string;
+    try {
+      // refused, never repaired: a replaced byte would change a measurement without a word
+      text = decodeUtf8(bytes);
+    } catch {
+      this.say('problem', gridMsg.importNotUtf8(label));
+      return;
+    }
+    // a CSV file's byte-order mark is not part of its first column's name
     const body = bodyOfText(text.replace(/^\uFEFF/, ''));
     let g: BodyGrid;
     try {

@@ -14,6 +14,7 @@ import { EDIT_EVENT, type CellViewState, type EditEventDetail } from '../../cell
 import { documentTitle, formatMarker, freshBody, headerFields, parseMarker, type Cell, type Document } from '../doc/document.ts';
 import { freshCellId, withTitle, type Edit } from '../doc/edits.ts';
 import { DocumentError, readDocument, writeDocument } from '../doc/format.ts';
+import { NotUtf8Error } from '../doc/utf8.ts';
 import { isPlainName } from '../lang/lexer.ts';
 import { Autosaver, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
@@ -335,7 +336,7 @@ export class FurrowApp extends LitElement {
       if (!this.confirmReplace()) return;
       if (this.openText(f.text, f.name)) this.fileHandle = f.handle;
     } catch (err) {
-      this.banner = { kind: 'problem', text: `The file could not be read${err instanceof TypeError ? ': it is not UTF-8 text, so it is not a Furrow document' : `: ${String(err)}`}. Nothing on the page was changed.` };
+      this.banner = { kind: 'problem', text: `The file could not be read${err instanceof NotUtf8Error ? ': it is not UTF-8 text, so it is not a Furrow document' : `: ${String(err)}`}. Nothing on the page was changed.` };
     }
   }
 

@@ -2,6 +2,7 @@
  * Opening and saving `.furrow` files: the File System Access API where the browser has it,
  * an upload and a download otherwise.
  */
+import { decodeUtf8 } from '../doc/utf8.ts';
 
 interface PickerWindow {
   showOpenFilePicker?: (o: unknown) => Promise<FileSystemFileHandle[]>;
@@ -19,8 +20,7 @@ export interface PickedFile {
 
 /** Reads a File as UTF-8, refusing bytes that are not UTF-8 text. */
 export async function readFileText(file: Blob): Promise<string> {
-  const bytes = new Uint8Array(await file.arrayBuffer());
-  return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  return decodeUtf8(new Uint8Array(await file.arrayBuffer()));
 }
 
 /** Asks for a file to open; null when the user cancels. */

@@ -18,10 +18,12 @@
 export type { ChartResult, ChartSpec, FactorInput, ResidualInput } from './types.ts';
 export { residualsChart, type ErrorTerm, type ResidualAxis } from './residuals.ts';
 export { blomPositions, normalChart, quartileLine, type QuartileLine } from './normal.ts';
-export { meansChart, type MeansInput } from './means.ts';
-export { pairwiseChart, type PairsInput } from './pairwise.ts';
+export { MAX_MEANS_LEVELS, meansChart, type MeansInput } from './means.ts';
+export { MAX_PAIRS, pairwiseChart, type PairsInput } from './pairwise.ts';
 export { cellMeans, profileChart, type ProfileInput, type ProfileTest } from './interaction.ts';
 export { scatterChart, type ScatterInput } from './scatter.ts';
 export { MAX_POINTS, MAX_LABELS, MAX_MARKED, MANY_LEVELS } from './large.ts';
 export { CUT } from './layers.ts';
 export { axisTitle, readName, UNIT_SUFFIXES } from './titles.ts';
+export { layoutMap, type LayoutMapInput } from './layout.ts';
+export { powerCurve, type PowerCurveInput } from './power.ts';

@@ -93,5 +93,27 @@ export function assemble(title: string, subtitle: string | null, body: Json, siz
     ...body,
   };
   // The shapes above are checked against vega-lite's JSON schema in test/charts.
-  return spec as unknown as ChartSpec;
+  return expressionSafe(spec) as unknown as ChartSpec;
+}
+
+/** Characters that vega-lite does not escape when it writes a text into an expression. */
+const UNSAFE_IN_EXPRESSIONS = /[\\\n\r\u2028\u2029]/;
+
+/**
+ * vega-lite writes titles, tooltip labels and sort orders into the expressions it generates,
+ * escaping only the double quote: a backslash or a line separator from a column name or a
+ * level broke every chart, and a crafted name could end the string. Every text of the spec
+ * (the user's words can only be texts: field names are our own) is therefore written with a
+ * backslash shown as its look-alike U+29F5 and line breaks as spaces. Texts in the data are
+ * changed the same way, so that sort orders still match their values.
+ */
+export function expressionSafe(v: unknown): unknown {
+  if (typeof v === 'string') return UNSAFE_IN_EXPRESSIONS.test(v) ? v.replace(/\\/g, '\u29F5').replace(/[\n\r\u2028\u2029]/g, ' ') : v;
+  if (Array.isArray(v)) return v.map(expressionSafe);
+  if (v !== null && typeof v === 'object') {
+    const out: Json = {};
+    for (const [k, x] of Object.entries(v as Json)) out[k] = expressionSafe(x);
+    return out;
+  }
+  return v;
 }

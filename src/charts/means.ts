@@ -33,6 +33,11 @@ export interface MeansInput {
 
 /** More levels than this make a tall chart; the caller is told. */
 export const TALL_ROWS = 200;
+/**
+ * The most levels a means chart draws. Past a few thousand rows vega-lite's compiler runs
+ * out of stack (10,000 levels did), and no reader reads such a chart: the means table does.
+ */
+export const MAX_MEANS_LEVELS = 1000;
 
 /** Order of levels by mean, highest first (ties in level order); NaN means last. */
 export function byMean(mean: ArrayLike<number>): number[] {

@@ -33,6 +33,12 @@ export const INCLUDES = 'interval includes 0';
 
 /** More pairs than this make a tall chart; the caller is told. */
 export const TALL_PAIRS = 300;
+/**
+ * The most pairs a pairwise chart draws (about 63 levels). 150 levels (11,175 pairs) ran
+ * vega-lite's compiler out of stack, and 500 levels made a 61 MB spec; the pairs table lists
+ * every pair.
+ */
+export const MAX_PAIRS = 2000;
 
 /** How each method is named in the title and explained in the caption. */
 const METHODS: ReadonlyMap<string, { title: string; words: string }> = new Map([

@@ -49,13 +49,35 @@ export interface NamedQuantity {
   readonly unit: string | null;
 }
 
-const BRACKETED = /^(.*?)\s*[([]\s*([^()[\]]+?)\s*[)\]]\s*$/;
+const BRACKETS = '()[]';
+
+/**
+ * `label (unit)` or `label [unit]` at the end of a name: the unit is what stands between the
+ * last closing bracket and the opening bracket before it, with no bracket in between. One
+ * backward scan, so a hostile header costs time in proportion to its length (a pattern with
+ * nested repetition took seconds on a few thousand spaces).
+ */
+function bracketedUnit(trimmed: string): NamedQuantity | null {
+  const last = trimmed.charAt(trimmed.length - 1);
+  if (last !== ')' && last !== ']') return null;
+  let open = -1;
+  for (let i = trimmed.length - 2; i >= 0; i--) {
+    const c = trimmed.charAt(i);
+    if (!BRACKETS.includes(c)) continue;
+    if (c === '(' || c === '[') open = i;
+    break;
+  }
+  if (open < 0) return null;
+  const unit = trimmed.slice(open + 1, trimmed.length - 1).trim();
+  const label = trimmed.slice(0, open).trimEnd();
+  return unit.length > 0 && label.length > 0 ? { label, unit } : null;
+}
 
 /** Reads a column name by the rule of the module note. */
 export function readName(name: string): NamedQuantity {
   const trimmed = name.trim();
-  const b = BRACKETED.exec(trimmed);
-  if (b !== null && b[1]!.length > 0) return { label: b[1]!, unit: b[2]! };
+  const b = bracketedUnit(trimmed);
+  if (b !== null) return b;
   const lower = trimmed.toLowerCase();
   // longest suffix first, so that `yield_kg_ha` is kilograms per hectare and not hectares
   for (const [suffix, unit] of [...UNIT_SUFFIXES].sort((x, y) => y[0].length - x[0].length)) {

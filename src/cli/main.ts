@@ -3,56 +3,48 @@
  * (language.md section 9). Exit status: 0 when every cell evaluated, 1 when any cell holds
  * an error (all cells are still printed), 2 when the file cannot be read as a document.
  */
-import { readFileSync, statSync } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
+import { basename } from 'node:path';
 import { documentTitle, headerFields, parseMarker, type Document } from '../doc/document.ts';
 import { DocumentError, readDocument } from '../doc/format.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
 import { toJson } from '../lang/json.ts';
 import { typeOf } from '../lang/values.ts';
-import { valueText } from './text.ts';
+import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, besideDocument, readText } from './files.ts';
+import { sheetCommand } from './sheet.ts';
+import { valueText, visible } from './text.ts';
 import { isSafeFileName } from '../../cells/table/model.ts';
 
 const USAGE = `Usage: furrow run FILE [--json]
 
   run FILE          evaluate a .furrow document and print every cell
   run FILE --json   the same, as one JSON object (see the README)
+  sheet FILE NAME   a layout as a run sheet (CSV); furrow sheet --help for more
 
 Exit status: 0 when every cell evaluated, 1 when a cell holds an error,
 2 when the file cannot be read as a document.`;
 
 /** A failure that ends the command with status 2 and one line on standard error. */
-class CliFailure extends Error {}
+export class CliFailure extends Error {}
 
 interface Output {
   out: (s: string) => void;
   err: (s: string) => void;
 }
 
-/** Reads a UTF-8 text file, with one-line messages for what can go wrong. */
-function readText(path: string, what: string): string {
-  let bytes: Buffer;
+/** Runs a read, turning a file problem into the command's failure. */
+function readFile<T>(read: () => T): T {
   try {
-    if (statSync(path).isDirectory()) throw new CliFailure(`${what} ${path} is a folder, not a file.`);
-    bytes = readFileSync(path);
+    return read();
   } catch (err) {
-    if (err instanceof CliFailure) throw err;
-    const code = (err as { code?: string }).code;
-    if (code === 'ENOENT') throw new CliFailure(`${what} ${path} does not exist.`);
-    if (code === 'EACCES') throw new CliFailure(`${what} ${path} cannot be read (permission denied).`);
-    throw new CliFailure(`${what} ${path} cannot be read: ${(err as Error).message}`);
-  }
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    throw new CliFailure(`${what} ${path} is not UTF-8 text, so it is not a Furrow document.`);
+    if (err instanceof FileProblem) throw new CliFailure(err.message);
+    throw err;
   }
 }
 
 /** Loads a document and the CSV files its tables name. */
 export function loadDocument(path: string): { doc: Document; engine: Engine; warnings: string[] } {
-  const text = readText(path, 'The file');
+  const text = readFile(() => readText(path, 'the file', DOCUMENT_LIMIT_BYTES));
   let doc: Document;
   const warnings: string[] = [];
   try {
@@ -68,12 +60,12 @@ export function loadDocument(path: string): { doc: Document; engine: Engine; war
     const m = parseMarker(cell.marker);
     if (m.kind !== 'table' || m.file === null) continue;
     if (!isSafeFileName(m.file)) continue; // the table cell itself reports this
-    const csvPath = join(dirname(path), m.file);
+    const file = m.file;
     try {
-      engine.setFile(m.file, readText(csvPath, `The CSV file`));
+      engine.setFile(file, readText(besideDocument(path, file), 'the CSV file', CSV_LIMIT_BYTES));
     } catch (err) {
-      if (err instanceof CliFailure) {
-        throw new CliFailure(`${path}: table ${m.name ?? ''} names ${m.file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
+      if (err instanceof FileProblem) {
+        throw new CliFailure(`${path}: table ${m.name ?? ''} names ${file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
       }
       throw err;
     }
@@ -105,7 +97,9 @@ function position(body: string, offset: number, markerLine: number): string {
   return `line ${line}, column ${col}`;
 }
 
-function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], o: Output): void {
+function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], output: Output): void {
+  // every line a document can put on a terminal goes through `visible`
+  const o: Output = { out: (s) => output.out(visible(s)), err: (s) => output.err(visible(s)) };
   o.out(`${documentTitle(doc)}  (${basename(path)})`);
   const caution = headerFields(doc).get('caution');
   if (caution) o.out(`Caution: ${caution}`);
@@ -158,6 +152,7 @@ function jsonReport(states: CellState[]): string {
 
 /** Runs the command line with arguments; returns the exit status. */
 export function main(argv: readonly string[], o: Output): number {
+  if (argv[0] === 'sheet') return sheetCommand(argv.slice(1), o);
   const args = argv.filter((a) => a !== '--json');
   const json = argv.includes('--json');
   if (args.length === 0 || args[0] === 'help' || args[0] === '--help' || args[0] === '-h') {
@@ -187,7 +182,7 @@ export function main(argv: readonly string[], o: Output): number {
     return states.some((s) => s.status === 'error' || s.status === 'upstream') ? 1 : 0;
   } catch (err) {
     if (err instanceof CliFailure) {
-      o.err(`furrow: ${err.message}`);
+      o.err(visible(`furrow: ${err.message}`));
       return 2;
     }
     throw err;

@@ -8,10 +8,26 @@ import { elementAt, isColumn, isRecord, isTable, type Table, type Value } from '
 
 const MAX_ROWS = 30;
 
+/**
+ * Characters a terminal would act on rather than show (escape sequences that clear the
+ * screen, hide text, set the window title or make links; carriage returns that overwrite a
+ * line; direction overrides that reorder it), written visibly as `\x1B` or `\u202E`. A
+ * document's text can then never paint a fake verdict on a reviewer's screen.
+ */
+const TERMINAL_CONTROLS = /[\u0000-\u0008\u000B-\u001F\u007F-\u009F\u061C\u200E\u200F\u2028\u2029\u202A-\u202E\u2066-\u2069]/g;
+
+/** Text made safe to print: control characters shown as escapes; line feeds and tabs kept. */
+export function visible(text: string): string {
+  return text.replace(TERMINAL_CONTROLS, (c) => {
+    const code = c.charCodeAt(0);
+    return code <= 0xff ? `\\x${code.toString(16).toUpperCase().padStart(2, '0')}` : `\\u${code.toString(16).toUpperCase().padStart(4, '0')}`;
+  });
+}
+
 /** A scalar as text. */
 function scalar(v: Value, column = ''): string {
   if (typeof v === 'number') return column === 'p' ? formatP(v) : formatNumber(v);
-  if (typeof v === 'string') return v;
+  if (typeof v === 'string') return visible(v);
   if (typeof v === 'boolean') return v ? 'true' : 'false';
   if (typeof v === 'object' && v.kind === 'missing') return '·';
   return '';
@@ -22,7 +38,7 @@ export function tableText(t: Table, indent = ''): string[] {
   const shown = Math.min(t.rows, MAX_ROWS);
   const cells: string[][] = t.names.map((name, j) => {
     const col = t.columns[j]!;
-    const out = [name];
+    const out = [visible(name)];
     // typed numbers print as typed (21.0 stays 21.0); computed ones with sensible precision
     const typed = col.type === 'number' ? col.decimals : null;
     for (let i = 0; i < shown; i++) out.push(typed?.[i] || scalar(elementAt(col, i), name));

@@ -30,6 +30,15 @@ export interface ReadWarning {
   readonly message: string;
 }
 
+/** The most cells a document may hold (each is a node of the graph and an element of the page). */
+export const MAX_CELLS = 50_000;
+
+function countMarkers(lines: readonly string[]): number {
+  let n = 0;
+  for (const l of lines) if (isMarkerLine(l)) n++;
+  return n;
+}
+
 /** The header keys Furrow knows; others are kept with a warning. */
 export const KNOWN_HEADER_KEYS = ['title', 'author', 'date', 'summary', 'field', 'contact', 'caution'] as const;
 
@@ -99,6 +108,7 @@ export function readDocument(text: string, idPrefix = 'c'): ReadResult {
   const first = lines[0] === undefined ? '' : content(lines[0]);
   if (first !== 'furrow 1') {
     const m = /^furrow\s+(\S+)\s*$/.exec(first);
+    if (m && m[1] === '1') throw new DocumentError(msg.firstLineSpacing(first));
     if (m) throw new DocumentError(msg.wrongVersion(m[1]!));
     throw new DocumentError(msg.notADocument());
   }
@@ -131,6 +141,7 @@ export function readDocument(text: string, idPrefix = 'c'): ReadResult {
       warnings.push({ line: markerLineNo, message: msg.badMarker(marker) });
     }
     cells.push({ id: `${idPrefix}${cells.length + 1}`, marker, eol: terminator(markerLine), body: cellBody });
+    if (cells.length > MAX_CELLS) throw new DocumentError(msg.tooManyCells(countMarkers(lines), MAX_CELLS));
   }
   return {
     document: { bom, firstLine: first, firstEol: lines[0] === undefined ? '' : terminator(lines[0]), header, cells },

@@ -6,7 +6,10 @@
  */
 import { MISSING, isMissing, type Chart, type Column, type NumberColumn, type RecordValue, type Table, type TextColumn, type Value } from '../lang/values.ts';
 import { UsageError } from '../lang/errors.ts';
+import { msg } from '../lang/messages.ts';
 import {
+  MAX_MEANS_LEVELS,
+  MAX_PAIRS,
   meansChart,
   normalChart,
   pairwiseChart,
@@ -184,6 +187,7 @@ export const CHARTS: readonly Builtin[] = [
       const internal = fitInternal(a.get('fit') as RecordValue);
       const fit = internal.fit;
       const m = fit.means;
+      if (m.level.length > MAX_MEANS_LEVELS) throw new UsageError(msg.tooManyLevelsToDraw(m.level.length, MAX_MEANS_LEVELS));
       return chartValue(
         meansChart({
           factor: fit.treatment,
@@ -216,6 +220,7 @@ export const CHARTS: readonly Builtin[] = [
       const t = field(r, 'table');
       if (typeof t !== 'object' || t.kind !== 'table') throw new UsageError('this pairs record has no table; make it with pairwise(fit).');
       if (t.rows === 0) throw new UsageError('there are no pairs to draw: the fit has fewer than two treatments.');
+      if (t.rows > MAX_PAIRS) throw new UsageError(msg.tooManyPairsToDraw(t.rows, MAX_PAIRS));
       const num = (name: string): number => {
         const v = field(r, name);
         return typeof v === 'number' ? v : NaN;

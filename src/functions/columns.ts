@@ -37,7 +37,7 @@ export function levelName(c: Column, i: number): string {
 
 /** The number a level name starts with (8500, 60C, 2.5mm), or NaN. */
 function leadingNumber(name: string): number {
-  const m = /^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?/.exec(name);
+  const m = /^\s*[-+]?(\d+(?:\.\d*)?|\.\d+)([eE][-+]?\d+)?/.exec(name);
   return m === null ? NaN : Number(m[0]);
 }
 

@@ -10,13 +10,13 @@ import { formatNumber } from '../lang/format.ts';
 import { MISSING, isColumn, numberColumn, record, textColumn, type Column, type NumberColumn, type RecordValue, type Table, type Value } from '../lang/values.ts';
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
 import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovariate, type Covariate } from '../stats/designs/index.ts';
-import { columnOwner } from '../lang/origin.ts';
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
 import { MAX_GROUPS } from '../stats/dist/index.ts';
 import { LEVEL, columnsTable, finish, fitInternal, prepare, spread, type Prepared } from './fits.ts';
 import { factorOf, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin } from './registry.ts';
+import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
 
 export { fitInternal, type FitInternal } from './fits.ts';
 
@@ -60,16 +60,20 @@ export const DESIGNS: readonly Builtin[] = [
     category: 'designs',
     params: [Y, { name: 'treatment', type: 'factor', doc: 'The treatment of each measurement.' }, COVARIATE],
     returns: 'a fit record (with slope and slope_se when a covariate is given)',
-    doc: 'One-way analysis of variance for a completely randomized design: the treatment and error sums of squares from centred two-pass sums on the exactly shifted data, F and its p-value, and the treatment means with intervals from the error mean square. Unequal group sizes are fine. With `covariate: x`, an analysis of covariance with one common slope: the table gains a row named after the covariate, each sum of squares adjusted for the other terms, the record gains `slope` and `slope_se`, `means` become means adjusted to the covariate’s overall mean, comparisons use them, and residual_checks tests that the slopes are parallel.',
+    doc: 'One-way analysis of variance for a completely randomized design: the treatment and error sums of squares from centred two-pass sums on the exactly shifted data, F and its p-value, and the treatment means with intervals from the error mean square. Unequal group sizes are fine. With `covariate: x`, an analysis of covariance with one common slope: the table gains a row named after the covariate, each sum of squares adjusted for the other terms, the record gains `slope` and `slope_se`, `means` become means adjusted to the covariate’s overall mean, comparisons use them, and residual_checks tests that the slopes are parallel.' + IGNORED_BLOCKS_DOC,
     example: 'one_way(plants.weight, plants.group)',
     run: (a, ctx) => {
       const cov = a.get('covariate')!;
       const p = prepare(a.get('y') as NumberColumn, [{ col: a.get('treatment') as Column, role: 'treatment' }], ctx);
+      let fit: RecordValue;
       if (isColumn(cov)) {
         const x = covariateOf(cov as NumberColumn, p);
-        return finish(p, guarded(() => withCovariate(p.y, x, p.factors[0]!, null, { offset: p.offset, dropped: p.dropped })));
+        fit = finish(p, guarded(() => withCovariate(p.y, x, p.factors[0]!, null, { offset: p.offset, dropped: p.dropped })));
+      } else {
+        fit = finish(p, guarded(() => oneWay(p.y, p.factors[0]!, { offset: p.offset, dropped: p.dropped })));
       }
-      return finish(p, guarded(() => oneWay(p.y, p.factors[0]!, { offset: p.offset, dropped: p.dropped })));
+      warnIgnoredBlocks(ctx, 'y', 'treatment', a.get('y') as Column, a.get('treatment') as Column, (y, t, b) => `blocked(${y}, ${t}, ${b}${isColumn(cov) ? ', covariate: …' : ''})`);
+      return fit;
     },
   },
   {
@@ -141,7 +145,7 @@ export const DESIGNS: readonly Builtin[] = [
       const p = prepare(a.get('y') as NumberColumn, cols, ctx);
       // factor names come from the list's column names
       p.factors = p.factors.map((fc, i) => ({ ...fc, name: cols[i]!.role }));
-      const suspicion = splitPlotWarning(a.get('y') as NumberColumn, cols.map((c) => c.col), p);
+      const suspicion = splitPlotWarning(ctx.sourceTable?.('y')?.table ?? null, a.get('y') as NumberColumn, cols.map((c) => c.col), p);
       if (suspicion !== null) ctx.warn(suspicion);
       return finish(p, guarded(() => factorial(p.y, p.factors, { offset: p.offset, dropped: p.dropped })));
     },
@@ -284,8 +288,7 @@ export const DESIGNS: readonly Builtin[] = [
  * each of them while another varies inside, so the factorial's F for the first is formed
  * against the wrong error. Null when nothing suggests a split plot.
  */
-function splitPlotWarning(y: NumberColumn, factorCols: readonly Column[], p: Prepared): string | null {
-  const owner = columnOwner(y);
+function splitPlotWarning(owner: Table | null, y: NumberColumn, factorCols: readonly Column[], p: Prepared): string | null {
   if (owner === null) return null;
   const used = new Set<Column>([y, ...factorCols]);
   const others = owner.columns

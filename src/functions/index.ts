@@ -6,10 +6,11 @@ import { CLAIMS } from './claims.ts';
 import { DESIGNS } from './designs.ts';
 import { DISTRIBUTIONS } from './distributions.ts';
 import { MATHS } from './maths.ts';
+import { PLANNING } from './planning.ts';
 import { Registry } from './registry.ts';
 import { STRATA } from './strata.ts';
 import { SUMMARIES } from './summaries.ts';
 import { TWO_GROUPS } from './two_groups.ts';
 
 /** All built-ins of the language. */
-export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...STRATA, ...CHARTS, ...CLAIMS]);
+export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...STRATA, ...CHARTS, ...PLANNING, ...CLAIMS]);

@@ -20,7 +20,6 @@ function unary(name: string, f: (x: number) => number, doc: string, example: str
 /** Rounds half away from zero at `digits` decimals, on the decimal digits of the shortest text. */
 export function roundDecimal(x: number, digits: number): number {
   if (!Number.isFinite(x)) return x;
-  if (digits > 15 || digits < -15) return x;
   // Round on the shortest decimal text of x, so that 2.675 rounds to 2.68 as it reads,
   // not to 2.67 as its binary value (2.67499999...) would.
   const [mant, expPart] = x.toExponential().split('e') as [string, string];

@@ -4,7 +4,7 @@
  * the README's function reference is generated from it (scripts/reference.ts), so the three
  * cannot drift apart.
  */
-import type { Value } from '../lang/values.ts';
+import type { Table, Value } from '../lang/values.ts';
 import { TYPES, type TypeKey } from './types.ts';
 
 /** Groups of built-ins, in the order the reference lists them. */
@@ -41,6 +41,18 @@ export interface CallContext {
   warn(message: string): void;
   /** Progress of a long computation, from 0 to 1. */
   progress(fraction: number): void;
+  /**
+   * The table an argument was read from, when the call wrote it as `t.col` or `t["col"]`
+   * (null otherwise, or when the evaluator does not say): lets a fit see the rest of its
+   * data, for example a blocking column it ignores.
+   */
+  readonly sourceTable?: (param: string) => SourceTable | null;
+}
+
+/** The table an argument's column was read from, and the cell name it was read by (if a plain name). */
+export interface SourceTable {
+  readonly table: Table;
+  readonly name: string | null;
 }
 
 /** The checked arguments of a call, by parameter name (defaults filled in). */

@@ -8,6 +8,7 @@ import { shiftDecimals } from '../stats/decimal/index.ts';
 import { completeRows, factorOf, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from './registry.ts';
+import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
 
 const LEVEL = { name: 'level', type: 'level' as const, default: 0.95, doc: 'Confidence level of the interval.' };
 
@@ -52,11 +53,12 @@ export const TWO_GROUPS: readonly Builtin[] = [
       { name: 'equal_variance', type: 'boolean', default: true, doc: 'true for the pooled-variance t test, false for Welch’s.' },
     ],
     returns: 'a record: estimate se df t p low high level n pooled_variance, and each group’s n, mean, sd',
-    doc: 'Compares the means of two independent groups with Student’s t: the pooled-variance form by default, or Welch’s form with Satterthwaite’s degrees of freedom when equal_variance is false. The estimate is the first level (in order of appearance) minus the second; the interval is two-sided at `level`.',
+    doc: 'Compares the means of two independent groups with Student’s t: the pooled-variance form by default, or Welch’s form with Satterthwaite’s degrees of freedom when equal_variance is false. The estimate is the first level (in order of appearance) minus the second; the interval is two-sided at `level`.' + IGNORED_BLOCKS_DOC,
     example: 'two_sample(trial.hours, trial.drug, equal_variance: false)',
     run: (a, ctx) => {
       const { r, groups } = responseAndFactor(a.get('y') as NumberColumn, a.get('group') as Column, ctx, ['y', 'group']);
       const res = guarded(() => twoSample(r.y, groups, a.get('level') as number, a.get('equal_variance') as boolean));
+      warnIgnoredBlocks(ctx, 'y', 'group', a.get('y') as Column, a.get('group') as Column, (y, g, b) => `blocked(${y}, ${g}, ${b}) (the paired comparison)`);
       return toRecord({ ...res, first_mean: res.first_mean + r.offset, second_mean: res.second_mean + r.offset }, 'comparison');
     },
   },
@@ -106,11 +108,13 @@ export const TWO_GROUPS: readonly Builtin[] = [
       { name: 'treatment', type: 'factor', doc: 'The group of each measurement.' },
     ],
     returns: 'a record: statistic df p n tie_correction level level_n mean_rank',
-    doc: 'The Kruskal-Wallis rank test for differences among several independent groups, with the tie correction and the large-sample chi-square p-value.',
+    doc: 'The Kruskal-Wallis rank test for differences among several independent groups, with the tie correction and the large-sample chi-square p-value.' + IGNORED_BLOCKS_DOC,
     example: 'kruskal_wallis(plants.weight, plants.group)',
     run: (a, ctx) => {
       const { r, groups } = responseAndFactor(a.get('y') as NumberColumn, a.get('treatment') as Column, ctx, ['y', 'treatment']);
-      return toRecord({ ...guarded(() => kruskalWallis(r.y, groups)) }, 'test');
+      const res = toRecord({ ...guarded(() => kruskalWallis(r.y, groups)) }, 'test');
+      warnIgnoredBlocks(ctx, 'y', 'treatment', a.get('y') as Column, a.get('treatment') as Column, (y, t, b) => `friedman(${y}, ${t}, ${b})`);
+      return res;
     },
   },
   {
@@ -136,11 +140,13 @@ export const TWO_GROUPS: readonly Builtin[] = [
       { name: 'group', type: 'factor', doc: 'The group of each measurement; exactly two levels.' },
     ],
     returns: 'a record: rank_sum u n1 n2 first_level second_level tie_groups z p method',
-    doc: 'Wilcoxon’s rank sum test (Mann and Whitney’s U) for two independent groups: exact p-value for groups of up to 50 without ties, normal approximation with tie and continuity corrections otherwise (`method` says which).',
+    doc: 'Wilcoxon’s rank sum test (Mann and Whitney’s U) for two independent groups: exact p-value for groups of up to 50 without ties, normal approximation with tie and continuity corrections otherwise (`method` says which).' + IGNORED_BLOCKS_DOC,
     example: 'rank_sum(trial.hours, trial.drug)',
     run: (a, ctx) => {
       const { r, groups } = responseAndFactor(a.get('y') as NumberColumn, a.get('group') as Column, ctx, ['y', 'group']);
-      return toRecord({ ...guarded(() => rankSum(r.y, groups)) }, 'test');
+      const res = toRecord({ ...guarded(() => rankSum(r.y, groups)) }, 'test');
+      warnIgnoredBlocks(ctx, 'y', 'group', a.get('y') as Column, a.get('group') as Column, (y, g, b) => `signed_rank on the pairs, or friedman(${y}, ${g}, ${b}),`);
+      return res;
     },
   },
 ];

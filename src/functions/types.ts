@@ -40,7 +40,7 @@ export function whyNotNumbers(c: TextColumn): string {
   for (let i = 0; i < c.values.length; i++) {
     if (!isMissingAt(c, i)) {
       const s = c.values[i]!;
-      if (!/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(s)) {
+      if (!/^\s*[-+]?(\d+(?:\.\d*)?|\.\d+)([eE][-+]?\d+)?\s*$/.test(s)) {
         return c.name === null ? msg.notNumbersUnnamed(i + 1, s) : msg.notNumbers(c.name, i + 1, s);
       }
     }

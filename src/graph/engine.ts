@@ -85,6 +85,9 @@ const INERT: CellAnalysis = {
   evaluate: () => ({ value: MISSING }),
 };
 
+/** How many cells of a cycle an error names before it says how many there are. */
+const CYCLE_NAMES_SHOWN = 6;
+
 /** The evaluation engine for one document. */
 export class Engine {
   private readonly registry: Registry;
@@ -95,7 +98,8 @@ export class Engine {
   private readonly slots = new Map<string, Slot>();
   private order: string[] = [];
   private definers = new Map<string, string[]>();
-  private cycleOf = new Map<string, string[]>();
+  /** Cells in a cycle: the one cycle traced through their component, and where they stand on it. */
+  private cycleOf = new Map<string, { ring: readonly string[]; at: number; size: number }>();
   private readonly files = new Map<string, { text: string; version: number }>();
   private fileVersion = 0;
   private doc: Document | null = null;
@@ -222,12 +226,19 @@ export class Engine {
       if (list === undefined) members.set(c, [i]);
       else list.push(i);
     });
+    // one cycle is traced per component, and each cell of it names a few cells of that cycle
+    // from itself on: reporting a cycle of N cells costs time and words in proportion to N
     this.cycleOf = new Map();
     for (const list of members.values()) {
       const self = list.length === 1 && succ[list[0]!]!.includes(list[0]!);
       if (list.length > 1 || self) {
         const set = new Set(list);
-        for (const i of list) this.cycleOf.set(ids[i]!, cyclePath(i, succ, set).map((k) => ids[k]!));
+        let first = list[0]!;
+        for (const i of list) if (i < first) first = i;
+        const ring = cyclePath(first, succ, set).slice(0, -1).map((k) => ids[k]!);
+        const at = new Map<string, number>();
+        ring.forEach((id, k) => at.set(id, k));
+        for (const i of list) this.cycleOf.set(ids[i]!, { ring, at: at.get(ids[i]!) ?? 0, size: list.length });
       }
     }
     // order: Kahn's algorithm, stable in document order, cycle cells last
@@ -253,13 +264,29 @@ export class Engine {
       if (d !== null && (definers.get(d.name)?.length ?? 0) > 1) {
         slot.problem = errorValue(msg.duplicateDefinition(d.name, definers.get(d.name)!.length), Math.max(0, d.from), Math.max(0, d.to));
       } else if (this.cycleOf.has(id)) {
-        const path = this.cycleOf.get(id)!;
-        const names = path.map((p) => this.slots.get(p)!.analysis.defines?.name ?? p);
-        const next = this.slots.get(path[1] ?? id)!.analysis.defines?.name;
-        const use = slot.analysis.reads.find((u) => u.name === next);
-        slot.problem = errorValue(msg.cycle(names), use?.from ?? 0, use?.to ?? 0);
+        const { ring, at, size } = this.cycleOf.get(id)!;
+        const shown = Math.min(ring.length, CYCLE_NAMES_SHOWN);
+        const names: string[] = [];
+        for (let k = 0; k < shown; k++) names.push(this.nameOf(ring[(at + k) % ring.length]!));
+        const closed = ring.length <= CYCLE_NAMES_SHOWN;
+        if (closed) names.push(this.nameOf(ring[at]!));
+        // the underline: the name this cell reads that leads on round the cycle
+        const next = ring[at] === id ? this.nameOf(ring[(at + 1) % ring.length]!) : null;
+        const use = slot.analysis.reads.find((u) => (next !== null ? u.name === next : this.inCycle(u.name)));
+        slot.problem = errorValue(msg.cycle(names, closed ? null : size), use?.from ?? 0, use?.to ?? 0);
       }
     }
+  }
+
+  /** The name a cell defines, or its id. */
+  private nameOf(id: string): string {
+    return this.slots.get(id)!.analysis.defines?.name ?? id;
+  }
+
+  /** True when the one cell that defines a name is in a cycle. */
+  private inCycle(name: string): boolean {
+    const defs = this.definers.get(name);
+    return defs !== undefined && defs.length === 1 && this.cycleOf.has(defs[0]!);
   }
 
   /** What a cell's value depends on, as one string: its text and the versions it reads. */
@@ -471,8 +498,8 @@ function cyclePath(start: number, succ: readonly (readonly number[])[], inComp: 
   const prev = new Map<number, number>();
   const queue: number[] = [start];
   let found = false;
-  while (queue.length > 0 && !found) {
-    const v = queue.shift()!;
+  for (let head = 0; head < queue.length && !found; head++) {
+    const v = queue[head]!;
     for (const w of succ[v]!) {
       if (!inComp.has(w)) continue;
       if (w === start) {

@@ -6,7 +6,7 @@
  * Errors are thrown as LangError with the range of the exact characters at fault; the graph
  * catches them at the cell boundary and turns them into error values.
  */
-import { signature, type Registry } from '../functions/registry.ts';
+import { signature, type Registry, type SourceTable } from '../functions/registry.ts';
 import { TYPES } from '../functions/types.ts';
 import type { Argument, CallNode, Expr, IndexNode, MemberNode } from './ast.ts';
 import { filterColumn, binary, negate, not, pickColumn } from './elementwise.ts';
@@ -30,7 +30,6 @@ import {
   type Column,
   type Value,
 } from './values.ts';
-import { noteColumnOwner } from './origin.ts';
 
 /** How a name resolves in the document. */
 export type Lookup =
@@ -181,12 +180,15 @@ function columnsAsTable(cols: readonly Column[], items: readonly Expr[]): Value 
 }
 
 function evalMember(e: MemberNode, env: EvalEnv): Value {
-  const obj = evalNode(e.object, env);
+  return memberOf(e, evalNode(e.object, env));
+}
+
+/** The member `e.name` of an already evaluated object. */
+function memberOf(e: MemberNode, obj: Value): Value {
   const label = e.object.type === 'name' ? e.object.name : '';
   if (isTable(obj)) {
     const i = obj.names.indexOf(e.name);
     if (i < 0) throw new LangError(msg.noColumn(label, e.name, suggest(e.name, obj.names)), e.nameFrom, e.nameTo);
-    noteColumnOwner(obj.columns[i]!, obj);
     return obj.columns[i]!;
   }
   if (isRecord(obj)) {
@@ -201,7 +203,11 @@ function evalMember(e: MemberNode, env: EvalEnv): Value {
 }
 
 function evalIndex(e: IndexNode, env: EvalEnv): Value {
-  const obj = evalNode(e.object, env);
+  return indexOf(e, evalNode(e.object, env), env);
+}
+
+/** `obj[index]` for an already evaluated object. */
+function indexOf(e: IndexNode, obj: Value, env: EvalEnv): Value {
   const idx = evalNode(e.index, env);
   const fail = (): never => {
     throw new LangError(msg.cannotIndex(describeType(obj), describeType(idx)), e.index.from, e.index.to);
@@ -228,7 +234,6 @@ function evalIndex(e: IndexNode, env: EvalEnv): Value {
           const label = e.object.type === 'name' ? e.object.name : '';
           throw new UsageError(msg.noColumn(label, idx, suggest(idx, obj.names)));
         }
-        noteColumnOwner(obj.columns[i]!, obj);
         return obj.columns[i]!;
       }
       if (isColumn(idx) && idx.type === 'boolean') {
@@ -266,7 +271,7 @@ function evalCall(e: CallNode, env: EvalEnv): Value {
     throw new LangError(msg.unknownFunction(e.callee, suggest(e.callee, env.registry.names())), e.calleeFrom, e.calleeTo);
   }
   const paramNames = fn.params.map((p) => p.name);
-  const given = new Map<string, { value: Value; arg: Argument }>();
+  const given = new Map<string, { value: Value; source: SourceTable | null; arg: Argument }>();
   let positional = 0;
   for (const arg of e.args) {
     if (arg.name === null) {
@@ -275,13 +280,13 @@ function evalCall(e: CallNode, env: EvalEnv): Value {
         throw new LangError(msg.tooManyArguments(e.callee, fn.params.length, countPositional(e.args), paramNames), arg.value.from, arg.value.to);
       }
       positional++;
-      given.set(p.name, { value: evalNode(arg.value, env), arg });
+      given.set(p.name, { ...evalArgument(arg.value, env), arg });
     } else {
       if (!paramNames.includes(arg.name)) {
         throw new LangError(msg.unknownArgument(e.callee, arg.name, paramNames, suggest(arg.name, paramNames)), arg.nameFrom, arg.nameTo);
       }
       if (given.has(arg.name)) throw new LangError(msg.argumentTwice(e.callee, arg.name), arg.nameFrom, arg.nameTo);
-      given.set(arg.name, { value: evalNode(arg.value, env), arg });
+      given.set(arg.name, { ...evalArgument(arg.value, env), arg });
     }
   }
   const args = new Map<string, Value>();
@@ -309,8 +314,9 @@ function evalCall(e: CallNode, env: EvalEnv): Value {
     }
     args.set(p.name, checked.value);
   }
+  const sourceTable = (param: string): SourceTable | null => given.get(param)?.source ?? null;
   try {
-    return fn.run(args, { fn: fn.name, warn: (m) => env.warn(m), progress: (f) => env.progress(f) });
+    return fn.run(args, { fn: fn.name, warn: (m) => env.warn(m), progress: (f) => env.progress(f), sourceTable });
   } catch (err) {
     if (err instanceof UsageError || err instanceof LangError) throw new LangError(`${fn.name}: ${err.message}`, e.from, e.to);
     // A thrown error of any other kind is a fault in a built-in; it still stays in this cell.
@@ -318,6 +324,22 @@ function evalCall(e: CallNode, env: EvalEnv): Value {
     const detail = err instanceof Error ? err.message : String(err);
     throw new LangError(msg.internal(fn.name, detail), e.from, e.to);
   }
+}
+
+/**
+ * An argument's value and, when it is written as a column of a table (`t.col` or
+ * `t["col"]`), that table: a built-in can then see the rest of the data its columns came
+ * from (the design warning of one_way and two_sample reads it). Any other form of argument
+ * has no source table.
+ */
+function evalArgument(e: Expr, env: EvalEnv): { value: Value; source: SourceTable | null } {
+  if (e.type === 'member' || (e.type === 'index' && e.index.type === 'text')) {
+    const obj = evalNode(e.object, env);
+    const value = e.type === 'member' ? memberOf(e, obj) : indexOf(e, obj, env);
+    const name = e.object.type === 'name' ? e.object.name : null;
+    return { value, source: isTable(obj) && isColumn(value) ? { table: obj, name } : null };
+  }
+  return { value: evalNode(e, env), source: null };
 }
 
 function countPositional(args: readonly Argument[]): number {

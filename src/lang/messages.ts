@@ -66,8 +66,9 @@ export const msg = {
   cycleUpstream: (name: string) => `${quote(name)} is part of a cycle, so it has no value.`,
   duplicateDefinition: (name: string, count: number) =>
     `The name ${quote(name)} is defined by ${count} cells. Give each a different name.`,
-  cycle: (path: readonly string[]) =>
-    `These cells depend on each other in a cycle (${path.join(' → ')}), so none of them can be computed. Break the cycle by changing one of them.`,
+  /** `path` is the whole cycle, or its first cells when `size` (the cells in it) is given. */
+  cycle: (path: readonly string[], size: number | null = null) =>
+    `These cells depend on each other in a cycle (${path.join(' → ')}${size === null ? '' : ` → … ${size} cells in all`}), so none of them can be computed. Break the cycle by changing one of them.`,
   lengthMismatch: (op: string, a: number, b: number) =>
     `The two sides of ${quote(op)} are columns of different lengths (${a} and ${b}); element by element work needs equal lengths.`,
   operatorTypes: (op: string, left: string, right: string) =>
@@ -125,6 +126,22 @@ export const msg = {
 
   // ---- documents -----------------------------------------------------------------------
   notADocument: () => 'This is not a Furrow document: its first line must be "furrow 1".',
+  lookalikeColumns: (shown: string, codes: readonly string[]) =>
+    `Columns that read the same, ${quote(shown)}, differ by ${codes.length > 0 ? `an invisible character (${codes.join(', ')})` : 'how their letters are encoded'}. Rename one, so a reader can tell them apart.`,
+  invisibleInColumn: (shown: string, codes: readonly string[]) =>
+    `The column ${quote(shown)} holds an invisible character (${codes.join(', ')}) in its name; to use it, write the name with that character, or rename the column.`,
+  tooManyLevelsToDraw: (levels: number, limit: number) =>
+    `this fit has ${levels.toLocaleString('en')} levels; a chart draws at most ${limit.toLocaleString('en')} (more cannot be read, and would stall the drawing). The fit's means table lists them all.`,
+  tooManyPairsToDraw: (pairs: number, limit: number) =>
+    `there are ${pairs.toLocaleString('en')} pairs; a chart draws at most ${limit.toLocaleString('en')} (about 63 levels). The pairs table lists them all, and means_chart shows the levels side by side.`,
+  tooManyRows: (rows: number, limit: number) =>
+    `This table has ${rows.toLocaleString('en')} rows; a table holds at most ${limit.toLocaleString('en')}. Keep the rows the analysis needs, or summarize them first.`,
+  tooManyColumns: (cols: number, limit: number) =>
+    `This table has ${cols.toLocaleString('en')} columns; a table holds at most ${limit.toLocaleString('en')}. Keep the columns the analysis needs.`,
+  tooManyCells: (cells: number, limit: number) =>
+    `This document has ${cells.toLocaleString('en')} cells; Furrow reads at most ${limit.toLocaleString('en')}. Split it into several documents.`,
+  firstLineSpacing: (line: string) =>
+    `The first line must be exactly "furrow 1"; this one is ${JSON.stringify(line)}, with extra spaces or tabs. Remove them and open the file again.`,
   wrongVersion: (version: string) =>
     `This document is in format version ${version}; this version of Furrow reads version 1.`,
   unknownCellKind: (kind: string) => `Unknown cell kind ${quote(kind)}: the cell is kept as it is and not evaluated.`,

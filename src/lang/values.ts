@@ -67,6 +67,12 @@ export interface Table {
   readonly names: readonly string[];
   readonly columns: readonly Column[];
   readonly rows: number;
+  /**
+   * For a layout drawn by random_layout or latin_layout: how it was drawn (design, seed,
+   * generator, algorithm), read with layout_details. Not part of the table's JSON, which
+   * stays an object of column name to array; lost when the table is filtered.
+   */
+  readonly drawn?: RecordValue;
 }
 
 /** A record: ordered named fields. What analyses return. */
@@ -305,6 +311,8 @@ export function sameValue(a: Value, b: Value): boolean {
     case 'table': {
       const t = b as Table;
       if (a.rows !== t.rows || a.names.length !== t.names.length) return false;
+      if ((a.drawn === undefined) !== (t.drawn === undefined)) return false;
+      if (a.drawn !== undefined && !sameValue(a.drawn, t.drawn!)) return false;
       for (let i = 0; i < a.names.length; i++) {
         if (a.names[i] !== t.names[i] || !sameValue(a.columns[i]!, t.columns[i]!)) return false;
       }

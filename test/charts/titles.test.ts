@@ -31,3 +31,29 @@ describe('axis titles from column names', () => {
     expect(readName('(kg)').unit).toBeNull();
   });
 });
+
+describe('reading a name costs time in proportion to its length', () => {
+  // every scanner over user text must be linear (a pattern with nested repetition took 14 s
+  // on a header of "(" and 3,000 spaces); 1 MB adversarial inputs, generous time bound
+  const cases: [string, string][] = [
+    ['an opening bracket then spaces', `(${' '.repeat(1_000_000)}`],
+    ['spaces between brackets', `a (${' '.repeat(1_000_000)}x`],
+    ['many opening brackets', `${'('.repeat(1_000_000)}kg)`],
+    ['many bracket pairs', `${'(a)'.repeat(333_333)}`],
+  ];
+  for (const [what, name] of cases) {
+    it(what, () => {
+      const t0 = performance.now();
+      readName(name);
+      axisTitle(name);
+      expect(performance.now() - t0).toBeLessThan(1000);
+    });
+  }
+  it('still reads what the pattern read', () => {
+    expect(readName('  dose  [ mg ]  ')).toEqual({ label: 'dose', unit: 'mg' });
+    expect(readName('a (b) (kg)')).toEqual({ label: 'a (b)', unit: 'kg' });
+    expect(readName('a (b (kg)').unit).toBe('kg');
+    expect(readName('a (kg))').unit).toBeNull();
+    expect(readName('a ( )').unit).toBeNull();
+  });
+});

@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { msg } from '../../src/lang/messages.ts';
 import { describe, expect, it } from 'vitest';
 import { applyEdit, freshCellId } from '../../src/doc/edits.ts';
 import { documentTitle, headerFields, parseMarker, type Document } from '../../src/doc/document.ts';
@@ -36,6 +37,11 @@ describe('reading documents', () => {
     expect(() => readDocument('')).toThrow(/first line must be "furrow 1"/);
     expect(() => readDocument('furrow 2\n')).toThrow(/format version 2/);
     expect(() => readDocument('row,method\n1,open\n')).toThrow(/not a Furrow document/);
+  });
+  it('a first line with stray spaces says so, instead of naming version 1 as unreadable', () => {
+    expect(() => readDocument('furrow 1 \ntitle: x\n')).toThrow(msg.firstLineSpacing('furrow 1 '));
+    expect(() => readDocument('furrow\t1\n')).toThrow(msg.firstLineSpacing('furrow\t1'));
+    expect(() => readDocument('furrow 1 \n')).not.toThrow(/version 1/);
   });
   it('keeps unknown header keys and cell kinds, with a warning', () => {
     const text = 'furrow 1\ntitle: x\nsponsor: nobody\n\n--- sketch 3d\nwhatever\n--- formula\nx = 1\n';

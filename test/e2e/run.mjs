@@ -453,6 +453,51 @@ const tests = [
   },
 ];
 
+tests.push({
+  name: 'the planning sample opens with its field map drawn, and its layout saves as a run sheet',
+  async run({ context, base, out }) {
+    const page = await context.newPage();
+    await page.goto(`${base}/?sample=goalmouth-turf.furrow&fresh`);
+    await settled(page);
+    const statuses = await page.evaluate(() => [...document.querySelector('furrow-app').shadowRoot.querySelectorAll('section.cell')].map((s) => s.dataset.status));
+    check(statuses.length >= 16 && statuses.every((s) => s === 'ok'), `statuses: ${statuses.join(', ')}`);
+    const chart = page.locator('section[data-name="map"] furrow-chart');
+    await chart.scrollIntoViewIfNeeded();
+    await chart.locator('svg').first().waitFor({ timeout: 15_000 });
+    // one labelled rectangle per plot: 7 strips of 4 mixes
+    const drawn = await chart.evaluate((el) => {
+      const svg = el.shadowRoot.querySelector('svg');
+      const texts = [...svg.querySelectorAll('text')].map((t) => t.textContent);
+      return { labels: texts.filter((t) => ['hardwear', 'rye_blend', 'fescue_mix', 'quickpatch'].includes(t)).length };
+    });
+    // 28 plot labels and 4 legend labels
+    check(drawn.labels === 32, `treatment labels drawn: ${drawn.labels}`);
+    await page.screenshot({ path: `${out}/planning-map.png` });
+    const sheetButton = page.locator('section[data-name="plan"] furrow-run-sheet button');
+    await sheetButton.scrollIntoViewIfNeeded();
+    const drawnLine = await page.locator('section[data-name="plan"] furrow-run-sheet p.drawn').innerText();
+    check(/seed 20270312/.test(drawnLine), `how the layout was drawn: ${drawnLine}`);
+    const [download] = await Promise.all([page.waitForEvent('download'), sheetButton.click()]);
+    check(download.suggestedFilename() === 'plan-run-sheet.csv', `file name: ${download.suggestedFilename()}`);
+    const text = readFileSync(await download.path(), 'utf8');
+    const lines = text.trimEnd().split('\n');
+    check(lines[0] === 'block,plot,treatment,measurement,notes' && lines.length === 29, `run sheet: ${lines.slice(0, 3).join(' | ')} (${lines.length} lines)`);
+  },
+});
+
+tests.push({
+  name: 'a fit that ignores the pairing of its data shows the design warning on its cell',
+  async run({ context, base }) {
+    const page = await context.newPage();
+    await page.goto(`${base}/?sample=tread-wear.furrow&fresh`);
+    await settled(page);
+    const warned = await cellText(page, 'as_groups');
+    check(/column "van" in which every compound appears exactly once per level/.test(warned ?? ''), `as_groups shows: ${(warned ?? '').slice(0, 300)}`);
+    const blocks = await cellText(page, 'as_blocks');
+    check(blocks !== null && !/exactly once per level/.test(blocks), 'the blocked fit carries no such warning');
+  },
+});
+
 /** JavaScript needed for first paint: the entry and what it imports statically (gzipped). */
 function firstPaintBytes() {
   const html = readFileSync('dist/index.html', 'utf8');

@@ -209,3 +209,21 @@ describe('progress of a long update', () => {
     expect(quiet).toHaveLength(0);
   });
 });
+
+describe('a long cycle', () => {
+  // a cycle of N cells was reported with the whole cycle on each of them: N^2 time and words
+  it('is reported in time and words linear in its size', () => {
+    const n = 10_000;
+    const texts = Array.from({ length: n }, (_, i) => `v${i} = v${(i + 1) % n} + 1`);
+    const t0 = performance.now();
+    const { engine } = setup(...texts);
+    const states = engine.states();
+    const ms = performance.now() - t0;
+    expect(states.every((s) => s.status === 'error')).toBe(true);
+    const words = states.reduce((a, s) => a + s.error!.message.length, 0);
+    expect(words).toBeLessThan(n * 300);
+    expect(states[0]!.error!.message).toMatch(/cycle \(v0 → v1 → v2 → v3 → v4 → v5 → … 10000 cells in all\)/);
+    expect(states[9_999]!.error!.message).toMatch(/cycle \(v9999 → v0 → v1 /);
+    expect(ms).toBeLessThan(10_000);
+  });
+});

@@ -11,6 +11,23 @@ function err(v: Value): ErrorValue {
   return v;
 }
 
+describe('round', () => {
+  it('rounds half away from zero on the decimal text, at any number of digits', () => {
+    expect(evalFormula('round(2.675, 2)')).toBe(2.68);
+    expect(evalFormula('round(-2.5)')).toBe(-3);
+    // more than 15 digits either way still rounds (it was left unchanged)
+    expect(evalFormula('round(1.23456e-20, 22)')).toBe(1.23e-20);
+    expect(evalFormula('round(0.000000000000000001234567, 20)')).toBe(1.23e-18);
+    expect(evalFormula('round(123456789012345678901234567890, -20)')).toBe(1.23456789e29);
+    expect(evalFormula('round(5, -1)')).toBe(10);
+    expect(evalFormula('round(4.9, -400)')).toBe(0);
+    expect(evalFormula('round(1.5, 400)')).toBe(1.5);
+  });
+  it('a sum with an infinite term is infinite', () => {
+    expect(evalFormula('sum([1, 1e999])')).toBe(Infinity);
+  });
+});
+
 describe('arithmetic and broadcasting', () => {
   it('computes on numbers with IEEE doubles', () => {
     expect(evalFormula('1 + 2 * 3')).toBe(7);

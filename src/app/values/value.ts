@@ -11,6 +11,7 @@ import { columnLength, missingCount, type Claim, type Column, type ErrorValue, t
 import { shared } from '../theme.ts';
 import './chart.ts';
 import './grid.ts';
+import './run-sheet.ts';
 import { fitLayout, pairsLayout, recordLines, type ScalarLine, type ValueLine } from './record-layout.ts';
 import { tableStyles } from './styles.ts';
 
@@ -248,7 +249,8 @@ export class FurrowValue extends LitElement {
 
   private renderTable(t: Table): TemplateResult {
     return html`<p class="summary">${tableSummary(t)}</p>
-      <furrow-grid .columns=${t.columns} .names=${t.names} label=${this.name ?? 'table'}></furrow-grid>`;
+      <furrow-grid .columns=${t.columns} .names=${t.names} label=${this.name ?? 'table'}></furrow-grid>
+      ${t.drawn === undefined ? nothing : html`<furrow-run-sheet .layout=${t} name=${this.name ?? 'layout'}></furrow-run-sheet>`}`;
   }
 
   private renderClaim(c: Claim): TemplateResult {

@@ -25,6 +25,7 @@
  *   a few hundred cheap interpolant evaluations instead of as many inner integrals.
  */
 import erfc from '@stdlib/math-base-special-erfc';
+import gammaln from '@stdlib/math-base-special-gammaln';
 import { gaussLegendre } from './quadrature.ts';
 import { evalChebyshev, evalChebyshevDerivative, fitPiecewiseChebyshev, type PiecewiseChebyshev } from './chebyshev.ts';
 import { integrateScale, type ScaleIntegrand } from './scale.ts';
@@ -357,6 +358,11 @@ function solveRange(prob: number, k: number, df: number, tail: 'upper' | 'lower'
   let lo = df === Infinity ? Math.SQRT2 * -normalQuantile(alpha / 2) : Math.SQRT2 * -tQuantile(alpha / 2, df);
   if (tail === 'lower' && prob < 0.5) {
     lo = Math.SQRT2 * (df === Infinity ? normalQuantile(0.5 + prob / 2) : tQuantile(0.5 + prob / 2, df));
+    // Near the centre the quantile loses its digits (0.5 + 1e-11 keeps few), and may come
+    // out as 0. The density of t is largest at 0, so its quantile at 0.5 + e is at least
+    // e / f(0): a bound that keeps its digits for any small probability.
+    const density0 = df === Infinity ? 1 / Math.sqrt(2 * Math.PI) : Math.exp(gammaln((df + 1) / 2) - gammaln(df / 2)) / Math.sqrt(df * Math.PI);
+    lo = Math.max(lo, (Math.SQRT2 * (prob / 2)) / density0);
   }
   // Upper bracket: P(Q > q) <= (k(k-1)/2) P(|T| sqrt 2 > q), so the quantile at alpha / pairs
   // is at least as large as the true one.

@@ -30,7 +30,8 @@ export function sum(x: Float64Array): number {
     else c += v - t + s;
     s = t;
   }
-  return s + c;
+  // an infinite term makes the compensation Infinity - Infinity; the plain sum is the answer
+  return Number.isFinite(s) ? s + c : s;
 }
 
 /** Arithmetic mean (compensated sum over n); NaN for empty input. */

@@ -6,7 +6,7 @@
  * parser differs from a browser's in ways that matter to it.)
  */
 import { describe, expect, it } from 'vitest';
-import { noteMarkdownHtml, placeSlots } from '../../../cells/note/view.ts';
+import { EMPHASIS_MARKS_PER_PARAGRAPH, NOTE_MARKDOWN_LIMIT, noteMarkdownHtml, placeSlots } from '../../../cells/note/view.ts';
 
 /** The note as DOM, parsed by an inert template and given its slots. */
 function dom(text: string): HTMLElement {
@@ -62,5 +62,29 @@ describe('placeholders', () => {
     const div = dom('odd \uE0000\uE001 text and {v}');
     expect(div.querySelectorAll('[data-slot]').length).toBe(1);
     expect(div.textContent).not.toContain('\uE000');
+  });
+});
+
+describe('rendering time is bounded for hostile notes', () => {
+  // Every scanner over user text must be linear. The Markdown renderer pairs emphasis marks in
+  // quadratic time (500,000 marks took seven minutes) and recurses on nested quotes; the note
+  // view bounds both. 1 MB adversarial inputs, and ones just under the Markdown limit.
+  const sizes = [1_000_000, NOTE_MARKDOWN_LIMIT - 10];
+  const units = ['*a', '_a', '**a', '*_', '~~a', '[', '[a](', '>', '`', '<', '<!--', '&#', '\\', '![', '[[', '# a\n', '|a', '{"'];
+  for (const size of sizes) {
+    for (const unit of units) {
+      it(`${JSON.stringify(unit)} repeated to ${size} characters`, () => {
+        const text = unit.repeat(Math.floor(size / unit.length));
+        const t0 = performance.now();
+        const { html } = noteMarkdownHtml(text);
+        expect(html.length).toBeGreaterThan(0);
+        expect(performance.now() - t0).toBeLessThan(5000);
+      });
+    }
+  }
+  it('a paragraph with too many emphasis marks shows them as written', () => {
+    const { html } = noteMarkdownHtml(`${'*a'.repeat(EMPHASIS_MARKS_PER_PARAGRAPH + 1)}\n\nfine *one*`);
+    expect(html).not.toContain('<em>a</em>');
+    expect(html).toContain('fine <em>one</em>');
   });
 });

@@ -1,6 +1,7 @@
 /**
  * The studentized range distribution (src/stats/dist/range.ts).
  */
+import betainc from '@stdlib/math-base-special-betainc';
 import { describe, expect, it } from 'vitest';
 import {
   normalUpper,
@@ -176,6 +177,23 @@ describe('quantiles', () => {
           expectRel(rangeUpper(q, k, df), a, 1e-10, `upper quantile ${a}, k ${k}, df ${df}`);
         }
       }
+    }
+  });
+
+  it('tiny lower-tail levels, where the quantile near the centre loses its digits', () => {
+    // source: scipy 1.10.1, stats.studentized_range.ppf(1e-10, 3, 5) = 1.9046256359523653e-05
+    // (scipy's far tails are good to about 1e-7 here; our round trip below is exact)
+    expectRel(rangeQuantile(1e-10, 3, 5), 1.9046256359523653e-5, 2e-8, 'ppf(1e-10, 3, 5)');
+    // source: scipy 1.10.1, stats.studentized_range.ppf(1e-6, 3, 5) = 0.001904626285461516
+    expectRel(rangeQuantile(1e-6, 3, 5), 0.001904626285461516, 1e-9, 'ppf(1e-6, 3, 5)');
+    // exact for 2 groups: P(Q <= q) = P(|T| <= q / sqrt 2) = I_{x^2 / (df + x^2)}(1/2, df/2)
+    // (the regularized incomplete beta keeps the digits that 1 - P(|T| > x) loses)
+    const q2 = rangeQuantile(1e-12, 2, 10);
+    const x2 = (q2 * q2) / 2;
+    expectRel(betainc(x2 / (10 + x2), 0.5, 5), 1e-12, 1e-9, 'k = 2 identity at 1e-12');
+    for (const [p, k, df] of [[1e-10, 3, 5], [1e-200, 4, 12], [1e-15, 10, 3], [1e-10, 3, Infinity]] as const) {
+      const q = rangeQuantile(p, k, df);
+      expectRel(rangeCdf(q, k, df), p, 1e-10, `cdf at quantile ${p}, k ${k}, df ${df}`);
     }
   });
 

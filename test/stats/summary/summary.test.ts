@@ -90,6 +90,12 @@ describe('sum', () => {
     expect(sum(x)).toBe(2);
   });
 
+  it('an infinite term gives an infinite sum, not NaN (IEEE 754 arithmetic, common practice)', () => {
+    expect(sum(F([1, Infinity]))).toBe(Infinity);
+    expect(sum(F([-Infinity, 5, 1e300]))).toBe(-Infinity);
+    expect(Number.isNaN(sum(F([Infinity, -Infinity])))).toBe(true);
+  });
+
   it('is exact to rounding on a long sum of decimals', () => {
     // 0.1 added 10^5 times: exact value of the stored doubles from rational arithmetic.
     const x = new Float64Array(100_000).fill(0.1);

@@ -1,0 +1,29 @@
+// Builds the command line into plain JavaScript once (npm install runs it as `prepare`), so
+// that `furrow` starts without compiling TypeScript. One bundle of our own code; the
+// libraries stay in node_modules and load as they are needed. A stamp beside the bundle
+// records the newest source it was built from, so bin/furrow.js can tell a stale build in a
+// development checkout.
+import { build } from 'esbuild';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { newestSource } from './sources.mjs';
+
+const OUT = 'build/cli';
+
+const started = Date.now();
+mkdirSync(OUT, { recursive: true });
+const newest = newestSource('.');
+await build({
+  entryPoints: ['src/cli/main.ts'],
+  outfile: join(OUT, 'main.mjs'),
+  bundle: true,
+  platform: 'node',
+  format: 'esm',
+  target: 'node20',
+  packages: 'external',
+  sourcemap: true,
+  legalComments: 'none',
+  logLevel: 'warning',
+});
+writeFileSync(join(OUT, 'stamp.json'), `${JSON.stringify({ newestSource: newest, builtAt: Date.now() })}\n`);
+console.log(`built the command line into ${OUT}/main.mjs in ${Date.now() - started} ms`);

@@ -1,0 +1,31 @@
+/**
+ * Planning a trial: seeded layouts (draws.ts, layouts.ts), power and size (power.ts), the
+ * comparison of data with their layout (check.ts) and the recognition of a blocking column
+ * that an analysis ignores (blocking.ts). Pure numeric code: no values of the language here.
+ */
+export { ALGORITHM, Draws, GENERATOR, MAX_SEED, SplitMix64, checkSeed, permutation, shuffle } from './draws.ts';
+export { PlanningError } from './errors.ts';
+export { planningMessages } from './messages.ts';
+export {
+  MAX_PLOTS,
+  checkCount,
+  checkTreatments,
+  drawBlocks,
+  drawCompletelyRandom,
+  drawLatin,
+  type BlockLayout,
+  type PlainLayout,
+  type SquareLayout,
+} from './layouts.ts';
+export {
+  blockedCurve,
+  blockedPower,
+  blocksForPower,
+  replicatesForPower,
+  twoGroupCurve,
+  twoGroupPower,
+  type BlockedPower,
+  type TwoGroupPower,
+} from './power.ts';
+export { compareWithLayout, type KeyedPlots, type LayoutDifferences } from './check.ts';
+export { isCompleteBlocking, type Codes } from './blocking.ts';

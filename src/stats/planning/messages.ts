@@ -1,0 +1,43 @@
+/**
+ * Every message the planning code shows to a person, in one place (errors on a cell, the
+ * words a power record uses to say what it assumed, the design warning on a fit).
+ */
+
+const q = (s: string): string => `"${s}"`;
+
+/** Plain-words messages of planning. */
+export const planningMessages = {
+  fewTreatments: (k: number) => `a plan needs at least 2 treatments; ${k === 0 ? 'none was' : 'only 1 was'} given`,
+  duplicateTreatment: (name: string) => `treatment ${q(name)} is named twice; give every treatment its own name`,
+  emptyTreatment: (at: number) => `treatment ${at + 1} is empty; give every treatment a name`,
+  seedNotWhole: (seed: number) =>
+    `the seed must be a whole number from 0 to 4294967295 (got ${seed}); write the seed down in the document so the layout can be drawn again`,
+  countNotWhole: (what: string, v: number, least: number) => `${what} must be a whole number of at least ${least} (got ${v})`,
+  tooManyPlots: (plots: number) =>
+    `this plan would need ${plots > 1e15 ? 'more than 10^15' : String(Math.round(plots)).replace(/\B(?=(\d{3})+(?!\d))/g, ',')} plots, more than the limit of 1,000,000`,
+  sdNotPositive: (sd: number) => `the standard deviation must be greater than zero (got ${sd})`,
+  deltaZero: () => `the difference to detect (delta) must not be zero: there is no plan that detects a difference of zero`,
+  deltaNotFinite: (d: number) => `the difference to detect (delta) must be a finite number (got ${d})`,
+  outsideUnit: (what: string, v: number) => `${what} must lie strictly between 0 and 1 (got ${v})`,
+  powerBelowLevel: (power: number, level: number) =>
+    `a power of ${power} is no more than the false-alarm rate ${+(1 - level).toPrecision(6)} of a test at level ${level}: any plan has at least that power; ask for more`,
+  /** What a two-group power assumes, in words. */
+  assumesTwoGroups: (level: number) =>
+    `two independent groups of equal size, normal errors with a common standard deviation, and a two-sided t test at level ${level} (pooled variance, 2n - 2 df); power from the noncentral t distribution`,
+  /** What a blocked power assumes, in words. */
+  assumesBlocked: (k: number, level: number) =>
+    `a randomized complete block design, ${k} treatments each once in every block, normal errors with a common standard deviation and no block-by-treatment interaction; the analysis-of-variance F test at level ${level}; two treatments differ by delta and the other ${k - 2} sit midway between them (the least favourable case for a given largest difference), so the noncentrality is blocks x delta^2 / (2 sd^2)`,
+  /** The design warning on a fit that ignores a complete-block or pairing column. */
+  ignoredBlocks: (table: string, column: string, treatment: string, fn: string, better: string) =>
+    `${table === '' ? 'The data have' : `Table ${q(table)} has`} a column ${q(column)} in which every ${treatment} appears exactly once per level (complete blocks, or pairs). ${fn} ignores it and treats the plots as independent; ${better} would use it.`,
+  layoutNoKeys: () =>
+    `the layout must have columns block and plot, row and column, or plot, with a treatment column (as random_layout and latin_layout make)`,
+  dataLacks: (column: string) => `the data have no column ${q(column)} to match the layout on`,
+  repeatedKey: (where: string, key: string) => `${where} holds plot ${key} more than once`,
+  bothCounts: () => 'give either blocks (a randomized complete block plan) or replicates (a completely randomized plan), not both',
+  noCount: () => 'give blocks: for a randomized complete block plan, or replicates: for a completely randomized plan',
+  notAPowerRecord: () => 'plan must be the result of power_two_sample, replicates_for_power, power_blocked or blocks_for_power',
+  mapTooLarge: (plots: number, limit: number, part: string) =>
+    `a map of ${plots} plots is too large to read; the limit is ${limit}. Draw it in parts, for example layout_chart(${part})`,
+  notALayout: () => `this table was not drawn by random_layout or latin_layout, so there is no record of how it was drawn`,
+};

@@ -1,0 +1,52 @@
+/**
+ * Splitting a note into text and placeholders: what is a placeholder, what an unclosed
+ * brace does, and that the split costs time in proportion to the note's length.
+ */
+import { describe, expect, it } from 'vitest';
+import { splitNote } from '../../../cells/note/model.ts';
+
+const placeholders = (text: string) => splitNote(text).filter((p) => p.type === 'placeholder');
+
+describe('splitNote', () => {
+  it('finds placeholders, skips quoted braces and keeps \\{ as text', () => {
+    const ps = placeholders('Mean {round(m, 2)} and {p_text("}")} but \\{ not this}');
+    expect(ps.map((p) => (p.type === 'placeholder' ? p.source : ''))).toEqual(['round(m, 2)', 'p_text("}")']);
+    expect(ps.every((p) => p.type === 'placeholder' && p.error === null)).toBe(true);
+  });
+
+  it('an unclosed brace is an error on its own line and the rest still reads', () => {
+    const ps = placeholders('first {oops\nsecond {fine}');
+    expect(ps.length).toBe(2);
+    expect(ps[0]!.type === 'placeholder' && ps[0]!.error !== null).toBe(true);
+    expect(ps[1]!.type === 'placeholder' && ps[1]!.source === 'fine' && ps[1]!.error === null).toBe(true);
+  });
+
+  it('a quote left open ends at the end of its line', () => {
+    const ps = placeholders('a {"open\nb {x}');
+    expect(ps.length).toBe(2);
+    expect(ps[1]!.type === 'placeholder' && ps[1]!.source).toBe('x');
+  });
+
+  describe('is linear in the length of the note (1 MB adversarial inputs)', () => {
+    // every scanner over user text must be linear: a note with many unclosed braces
+    // rescanned to its end for each of them
+    const MB = 1_000_000;
+    const cases: [string, string][] = [
+      ['unclosed braces with open quotes, one per line', '{"abc\n'.repeat(MB / 6)],
+      ['unclosed braces, one per line', '{abc\n'.repeat(MB / 5)],
+      ['one unclosed brace, then long lines without braces', `{${'abcdefghi\n'.repeat(MB / 10)}`],
+      ['a brace then a million quotes', `{${'"'.repeat(MB)}`],
+      ['only braces', '{'.repeat(MB)],
+      ['braces and backslashes', '\\{{'.repeat(MB / 3)],
+    ];
+    for (const [what, text] of cases) {
+      it(what, () => {
+        const t0 = performance.now();
+        const pieces = splitNote(text);
+        const ms = performance.now() - t0;
+        expect(pieces.length).toBeGreaterThan(0);
+        expect(ms).toBeLessThan(2000);
+      });
+    }
+  });
+});

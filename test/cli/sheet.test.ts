@@ -1,0 +1,66 @@
+/**
+ * `furrow sheet FILE NAME -o plan.csv` (src/cli/sheet.ts), and the design warning in
+ * `furrow run`.
+ */
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { main } from '../../src/cli/main.ts';
+
+function cli(...args: string[]): { code: number; out: string; err: string } {
+  const out: string[] = [];
+  const err: string[] = [];
+  const code = main(args, { out: (s) => out.push(s), err: (s) => err.push(s) });
+  return { code, out: out.join('\n'), err: err.join('\n') };
+}
+
+const PLAN = 'furrow 1\ntitle: plan\n\n--- formula\nplan = random_layout(["early", "mid", "late"], seed: 2026, blocks: 4)\n\n--- formula\nn = 3\n';
+
+function scratch(text: string): string {
+  const dir = mkdtempSync(join(tmpdir(), 'furrow-sheet-'));
+  writeFileSync(join(dir, 'plan.furrow'), text);
+  return dir;
+}
+
+describe('furrow sheet', () => {
+  it('writes the layout with empty measurement columns to a file', () => {
+    const dir = scratch(PLAN);
+    const r = cli('sheet', join(dir, 'plan.furrow'), 'plan', '-o', join(dir, 'plan.csv'), '--columns', 'yield_kg,notes');
+    expect(r.err).toBe('');
+    expect(r.code).toBe(0);
+    // the same plan as the byte-for-byte pin in test/functions/planning.test.ts
+    expect(readFileSync(join(dir, 'plan.csv'), 'utf8')).toBe(
+      'block,plot,treatment,yield_kg,notes\n1,1,early,,\n1,2,late,,\n1,3,mid,,\n2,1,late,,\n2,2,early,,\n2,3,mid,,\n3,1,late,,\n3,2,early,,\n3,3,mid,,\n4,1,late,,\n4,2,mid,,\n4,3,early,,\n',
+    );
+  });
+
+  it('prints to standard output without -o, with the default measurement columns', () => {
+    const r = cli('sheet', join(scratch(PLAN), 'plan.furrow'), 'plan');
+    expect(r.code).toBe(0);
+    expect(r.out.split('\n')[0]).toBe('block,plot,treatment,measurement,notes');
+    expect(r.out.split('\n').length).toBe(13);
+  });
+
+  it('says plainly what is wrong, with exit status 2', () => {
+    const dir = scratch(PLAN);
+    const f = join(dir, 'plan.furrow');
+    expect(cli('sheet', f, 'nope')).toMatchObject({ code: 2, err: `furrow sheet: ${f} has no cell named "nope".` });
+    expect(cli('sheet', f, 'n')).toMatchObject({ code: 2, err: expect.stringMatching(/"n" is a number, not a table/) });
+    expect(cli('sheet', f, 'plan', '--columns', 'plot')).toMatchObject({ code: 2, err: expect.stringMatching(/already has a column "plot"/) });
+    expect(cli('sheet', f)).toMatchObject({ code: 2, err: expect.stringMatching(/give one document and the name of one layout/) });
+    expect(cli('sheet', join(dir, 'missing.furrow'), 'plan')).toMatchObject({ code: 2, err: expect.stringMatching(/does not exist/) });
+    expect(cli('sheet', f, 'plan', '--bogus')).toMatchObject({ code: 2, err: expect.stringMatching(/unknown option --bogus/) });
+  });
+});
+
+describe('furrow run shows the design warning', () => {
+  it('on the paired sample analysed as two groups, in the text and in the JSON', () => {
+    const r = cli('run', 'samples/tread-wear.furrow');
+    expect(r.out).toMatch(/note: Table "tread" has a column "van" in which every compound appears exactly once per level/);
+    const j = JSON.parse(cli('run', 'samples/tread-wear.furrow', '--json').out) as { cells: { name: string | null; warnings?: string[] }[] };
+    const cell = j.cells.find((c) => c.name === 'as_groups')!;
+    expect(cell.warnings!.some((w) => /two_sample ignores it/.test(w))).toBe(true);
+    expect(j.cells.find((c) => c.name === 'as_blocks')!.warnings ?? []).toEqual([]);
+  });
+});
