@@ -4,9 +4,8 @@
  * The statistics code (src/stats) sees only complete typed arrays.
  */
 import { UsageError } from '../lang/errors.ts';
-import { formatNumber } from '../lang/format.ts';
-import { plural } from '../lang/messages.ts';
-import type { Column, NumberColumn } from '../lang/values.ts';
+import { msg, plural } from '../lang/messages.ts';
+import type { Column, NumberColumn, Value } from '../lang/values.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import type { CallContext } from './registry.ts';
 
@@ -23,7 +22,21 @@ export interface Response {
   readonly offset: number;
 }
 
-/** The level name of element i of a column (numbers as typed, when the text is kept). */
+/**
+ * How levels are ordered, everywhere (means tables, comparisons, `levels`, `group_stats`,
+ * charts): the order set with `level_order`, if any; otherwise, when every level starts with
+ * a number (8500, 8700; 60C, 70C; blocks 1 to 10), in the order of those numbers, so that a
+ * randomized field order does not scramble a means table; otherwise in the order the levels
+ * first appear. The first level is the reference of a two-group difference (first minus
+ * second). Built-in docs quote this sentence.
+ */
+export const LEVEL_ORDER_RULE =
+  'Levels are taken in one order everywhere: the order set with level_order, if any; otherwise in increasing numeric order when every level starts with a number (1, 2, 10; 60C, 80C); otherwise in the order they first appear.';
+
+/**
+ * The level name of element i of a column. A number is named by its value (the shortest text
+ * that reads back as it, -0 as 0), so that 1, 1.0 and 01 typed in one column are one level.
+ */
 export function levelName(c: Column, i: number): string {
   switch (c.type) {
     case 'text':
@@ -31,8 +44,29 @@ export function levelName(c: Column, i: number): string {
     case 'boolean':
       return c.values[i] === 1 ? 'true' : 'false';
     case 'number':
-      return c.decimals?.[i] || formatNumber(c.values[i]!, 15);
+      return numberLevel(c.values[i]!);
   }
+}
+
+/** The level name of a number: its shortest round-trip text, with -0 read as 0. */
+export function numberLevel(x: number): string {
+  return Object.is(x, -0) ? '0' : String(x);
+}
+
+/**
+ * The level a user named, among a factor's levels: a number by its value; a text as written,
+ * or, when no level is written so and the text reads as a number, by that number's value (so
+ * "1.0" finds the level 1 of a numeric column).
+ */
+export function resolveLevel(v: Value, levels: readonly string[]): string {
+  if (typeof v === 'number') return numberLevel(v);
+  const text = String(v);
+  if (levels.includes(text)) return text;
+  if (/^\s*[-+]?(\d+(?:\.\d*)?|\.\d+)([eE][-+]?\d+)?\s*$/.test(text)) {
+    const asNumber = numberLevel(Number(text));
+    if (levels.includes(asNumber)) return asNumber;
+  }
+  return text;
 }
 
 /** The number a level name starts with (8500, 60C, 2.5mm), or NaN. */
@@ -41,12 +75,7 @@ function leadingNumber(name: string): number {
   return m === null ? NaN : Number(m[0]);
 }
 
-/**
- * Integer codes of a column's levels for the rows kept. Levels are in the order they first
- * appear, except when every level starts with a number (8500, 8700; 60C, 70C; block 1, 2,
- * ... 10): then in the order of those numbers, so that a randomized field order does not
- * scramble the means table.
- */
+/** Integer codes of a column's levels for the rows kept, the levels ordered by {@link LEVEL_ORDER_RULE}. */
 export function factorOf(c: Column, rows: Int32Array | null, fallbackName: string): Factor {
   const n = rows === null ? c.values.length : rows.length;
   const codes = new Int32Array(n);
@@ -63,17 +92,26 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
     }
     codes[k] = code;
   }
-  const numbers = levels.map(leadingNumber);
-  if (levels.length > 1 && numbers.every((x) => !Number.isNaN(x))) {
-    const order = levels.map((_, j) => j).sort((a, b) => numbers[a]! - numbers[b]! || (levels[a]! < levels[b]! ? -1 : levels[a]! > levels[b]! ? 1 : 0));
-    const recode = new Int32Array(levels.length);
-    order.forEach((old, j) => {
-      recode[old] = j;
-    });
-    for (let k = 0; k < n; k++) codes[k] = recode[codes[k]!]!;
-    return { name: c.name ?? fallbackName, codes, levels: order.map((j) => levels[j]!) };
+  const name = c.name ?? fallbackName;
+  let order: number[] | null = null;
+  if (c.order !== undefined) {
+    const unlisted = levels.filter((l) => !c.order!.includes(l));
+    if (unlisted.length > 0) throw new UsageError(msg.levelNotInOrder(name, unlisted));
+    // the set order, keeping the levels present in these rows
+    order = c.order.filter((l) => index.has(l)).map((l) => index.get(l)!);
+  } else {
+    const numbers = levels.map(leadingNumber);
+    if (levels.length > 1 && numbers.every((x) => !Number.isNaN(x))) {
+      order = levels.map((_, j) => j).sort((a, b) => numbers[a]! - numbers[b]! || (levels[a]! < levels[b]! ? -1 : levels[a]! > levels[b]! ? 1 : 0));
+    }
   }
-  return { name: c.name ?? fallbackName, codes, levels };
+  if (order === null) return { name, codes, levels };
+  const recode = new Int32Array(levels.length);
+  order.forEach((old, j) => {
+    recode[old] = j;
+  });
+  for (let k = 0; k < n; k++) codes[k] = recode[codes[k]!]!;
+  return { name, codes, levels: order.map((j) => levels[j]!) };
 }
 
 /** The values of a number column at the rows kept, shifted exactly when their text is kept. */
@@ -131,4 +169,12 @@ export function completeRows(cols: readonly Column[], ctx: CallContext, names?: 
   const dropped = n - keep.length;
   if (dropped > 0) ctx.warn(`${plural(dropped, 'row')} with a missing value ${dropped === 1 ? 'was' : 'were'} left out.`);
   return Int32Array.from(keep);
+}
+
+/** The rows of a column that are not missing, or null when none is missing. */
+export function presentRows(c: Column): Int32Array | null {
+  if (c.missing === null) return null;
+  const out: number[] = [];
+  for (let i = 0; i < c.values.length; i++) if (c.missing[i] !== 1) out.push(i);
+  return Int32Array.from(out);
 }

@@ -9,11 +9,11 @@ import { UsageError } from '../lang/errors.ts';
 import { formatNumber } from '../lang/format.ts';
 import { MISSING, isColumn, numberColumn, record, textColumn, type Column, type NumberColumn, type RecordValue, type Table, type Value } from '../lang/values.ts';
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
-import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovariate, type Covariate } from '../stats/designs/index.ts';
+import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovariate, type Covariate, type DesignFit } from '../stats/designs/index.ts';
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
 import { MAX_GROUPS } from '../stats/dist/index.ts';
 import { LEVEL, columnsTable, finish, fitInternal, prepare, spread, type Prepared } from './fits.ts';
-import { factorOf, responseOf } from './columns.ts';
+import { factorOf, numberLevel, resolveLevel, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin } from './registry.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
@@ -166,7 +166,9 @@ export const DESIGNS: readonly Builtin[] = [
     example: 'difference(fit, "open", "spindle")',
     run: (a) => {
       const i = fitInternal(a.get('fit') as RecordValue);
-      const r = guarded(() => difference(i.fit, levelText(a.get('a')!), levelText(a.get('b')!), a.get('level') as number, optionalText(a.get('factor')), optionalText(a.get('at'))));
+      const factor = optionalText(a.get('factor'));
+      const levels = i.fit.factor_means.find((m) => m.factor === (factor ?? i.fit.treatment))?.levels ?? i.fit.means.level;
+      const r = guarded(() => difference(i.fit, resolveLevel(a.get('a')!, levels), resolveLevel(a.get('b')!, levels), a.get('level') as number, factor, optionalAt(a.get('at'), i.fit, factor)));
       return comparisonRecord(r);
     },
   },
@@ -191,7 +193,7 @@ export const DESIGNS: readonly Builtin[] = [
       if (method === 'tukey' && k > MAX_GROUPS) {
         throw new UsageError(`Tukey intervals use the studentized range, computed here for up to ${MAX_GROUPS} means; this fit has ${k}. Use method: "bonferroni".`);
       }
-      const r = guarded(() => pairwise(i.fit, method, a.get('level') as number, optionalText(a.get('factor')), optionalText(a.get('at'))));
+      const r = guarded(() => pairwise(i.fit, method, a.get('level') as number, optionalText(a.get('factor')), optionalAt(a.get('at'), i.fit, optionalText(a.get('factor')))));
       return record(
         [
           ['method', r.method],
@@ -223,7 +225,7 @@ export const DESIGNS: readonly Builtin[] = [
       const i = fitInternal(a.get('fit') as RecordValue);
       const w = a.get('weights') as NumberColumn;
       if (w.missing !== null) throw new UsageError('a weight is missing.');
-      const r = guarded(() => contrast(i.fit, Array.from(w.values), a.get('level') as number, optionalText(a.get('factor')), optionalText(a.get('at'))));
+      const r = guarded(() => contrast(i.fit, Array.from(w.values), a.get('level') as number, optionalText(a.get('factor')), optionalAt(a.get('at'), i.fit, optionalText(a.get('factor')))));
       return comparisonRecord(r);
     },
   },
@@ -303,6 +305,18 @@ function splitPlotWarning(owner: Table | null, y: NumberColumn, factorCols: read
 /** A level given as text or a number, as the fit names it. */
 function levelText(v: Value): string {
   if (typeof v === 'string') return v;
-  if (typeof v === 'number') return formatNumber(v, 15);
+  if (typeof v === 'number') return numberLevel(v);
   return String(v);
+}
+
+/**
+ * The `at` level of a split-plot comparison, resolved against the levels of the other factor
+ * (a number typed for a level named "200" finds it), or undefined when left out.
+ */
+function optionalAt(v: Value | undefined, fit: DesignFit, factor: string | undefined): string | undefined {
+  if (v === undefined || (typeof v === 'object' && v.kind === 'missing')) return undefined;
+  const sp = fit.split;
+  if (sp === undefined) return levelText(v);
+  const other = (factor ?? fit.treatment) === sp.sub ? sp.wholeLevels : sp.subLevels;
+  return resolveLevel(v, other);
 }

@@ -17,7 +17,7 @@ import {
   type Value,
 } from '../lang/values.ts';
 import type { DesignFit } from '../stats/designs/index.ts';
-import { completeRows, factorOf, responseOf, type Factor } from './columns.ts';
+import { completeRows, factorOf, presentRows, responseOf, type Factor } from './columns.ts';
 import type { CallContext } from './registry.ts';
 
 /** What a fit record keeps for later functions. */
@@ -159,14 +159,6 @@ function stratumFields(fit: DesignFit): [string, Value][] {
     out.push(['site_means', columnsTable({ treatment: cm.treatment, site: cm.site, mean: cm.mean }, ['treatment', 'site', 'mean'])]);
   }
   return out;
-}
-
-/** The rows of a column that are not missing, or null when none is missing. */
-export function presentRows(c: Column): Int32Array | null {
-  if (c.missing === null) return null;
-  const out: number[] = [];
-  for (let i = 0; i < c.values.length; i++) if (c.missing[i] !== 1) out.push(i);
-  return Int32Array.from(out);
 }
 
 export interface Prepared {

@@ -3,9 +3,10 @@
  * many. Sums of squares use the exact decimal shift of typed data.
  */
 import { UsageError } from '../lang/errors.ts';
+import { msg } from '../lang/messages.ts';
 import { numberColumn, table, textColumn, type Column, type NumberColumn } from '../lang/values.ts';
 import * as S from '../stats/summary/index.ts';
-import { completeRows, completeValues, factorOf, levelName, plainValues, responseOf } from './columns.ts';
+import { LEVEL_ORDER_RULE, completeRows, completeValues, factorOf, levelName, plainValues, presentRows, responseOf } from './columns.ts';
 import type { Builtin, CallContext } from './registry.ts';
 
 const X = { name: 'x', type: 'numbers' as const, doc: 'A column of numbers; missing values are left out.' };
@@ -76,7 +77,7 @@ export const SUMMARIES: readonly Builtin[] = [
       { name: 'by', type: 'factor', doc: 'The group of each measurement.' },
     ],
     returns: 'a table with columns level, n, mean, sd, se',
-    doc: 'Summaries of y within each level of `by`, in the order the levels first appear: count, mean, standard deviation and standard error of the mean (sd / sqrt(n)). Rows with a missing value are left out.',
+    doc: `Summaries of y within each level of \`by\`: count, mean, standard deviation and standard error of the mean (sd / sqrt(n)). Rows with a missing value are left out. ${LEVEL_ORDER_RULE}`,
     example: 'group_stats(plots.yield, plots.variety)',
     run: (a, ctx) => {
       const y = a.get('y') as NumberColumn;
@@ -97,22 +98,43 @@ export const SUMMARIES: readonly Builtin[] = [
     category: 'summaries',
     params: [{ name: 'x', type: 'column', doc: 'Any column.' }],
     returns: 'a column of texts',
-    doc: 'The distinct values of a column, in the order they first appear; missing values are left out.',
+    doc: `The distinct values of a column (its levels); missing values are left out. A number is one level whatever way it was typed (1, 1.0 and 01 are one level; so are -0 and 0). ${LEVEL_ORDER_RULE}`,
     example: 'levels(plots.variety)',
     run: (a) => {
       const c = a.get('x') as Column;
+      const f = factorOf(c, presentRows(c), 'x');
+      if (f.levels.length === 0 && c.values.length > 0) throw new UsageError('every value of the column is missing.');
+      return textColumn(f.levels, null, c.name);
+    },
+  },
+  {
+    name: 'level_order',
+    category: 'summaries',
+    params: [
+      { name: 'x', type: 'column', doc: 'A column of levels (treatments, blocks, groups).' },
+      { name: 'levels', type: 'levels', doc: 'Every level of x, in the order wanted; the first is the reference.' },
+    ],
+    returns: 'the same column, with its levels in that order',
+    doc: 'Sets the order of a column\'s levels for everything that reads it: means tables, comparisons (a two-group difference is the first level minus the second), levels, group_stats and charts. Every level that appears in the column must be listed, once. Without it, levels are in increasing numeric order when every level starts with a number, and otherwise in the order they first appear.',
+    example: 'level_order(plots.dose, ["control", "low", "high"])',
+    run: (a) => {
+      const c = a.get('x') as Column;
+      const list = a.get('levels') as Column;
+      const order: string[] = [];
       const seen = new Set<string>();
-      const out: string[] = [];
-      for (let i = 0; i < c.values.length; i++) {
-        if (c.missing !== null && c.missing[i] === 1) continue;
-        const name = levelName(c, i);
-        if (!seen.has(name)) {
-          seen.add(name);
-          out.push(name);
-        }
+      for (let i = 0; i < list.values.length; i++) {
+        if (list.missing !== null && list.missing[i] === 1) continue;
+        const name = levelName(list, i);
+        if (seen.has(name)) throw new UsageError(msg.orderRepeats(name));
+        seen.add(name);
+        order.push(name);
       }
-      if (out.length === 0 && c.values.length > 0) throw new UsageError('every value of the column is missing.');
-      return textColumn(out, null, c.name);
+      const present = factorOf({ ...c, order: undefined } as Column, presentRows(c), 'x').levels;
+      const unknown = order.filter((l) => !present.includes(l));
+      if (unknown.length > 0) throw new UsageError(msg.orderUnknown(c.name ?? 'x', unknown));
+      const unlisted = present.filter((l) => !seen.has(l));
+      if (unlisted.length > 0) throw new UsageError(msg.levelNotInOrder(c.name ?? 'x', unlisted));
+      return { ...c, order };
     },
   },
 ];

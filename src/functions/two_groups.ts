@@ -53,7 +53,7 @@ export const TWO_GROUPS: readonly Builtin[] = [
       { name: 'equal_variance', type: 'boolean', default: true, doc: 'true for the pooled-variance t test, false for Welch’s.' },
     ],
     returns: 'a record: estimate se df t p low high level n pooled_variance, and each group’s n, mean, sd',
-    doc: 'Compares the means of two independent groups with Student’s t: the pooled-variance form by default, or Welch’s form with Satterthwaite’s degrees of freedom when equal_variance is false. The estimate is the first level (in order of appearance) minus the second; the interval is two-sided at `level`.' + IGNORED_BLOCKS_DOC,
+    doc: 'Compares the means of two independent groups with Student’s t: the pooled-variance form by default, or Welch’s form with Satterthwaite’s degrees of freedom when equal_variance is false. The estimate is the first level minus the second, levels taken in the order of the level rule (see level_order); the interval is two-sided at `level`.' + IGNORED_BLOCKS_DOC,
     example: 'two_sample(trial.hours, trial.drug, equal_variance: false)',
     run: (a, ctx) => {
       const { r, groups } = responseAndFactor(a.get('y') as NumberColumn, a.get('group') as Column, ctx, ['y', 'group']);

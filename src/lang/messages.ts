@@ -134,6 +134,11 @@ export const msg = {
     `this fit has ${levels.toLocaleString('en')} levels; a chart draws at most ${limit.toLocaleString('en')} (more cannot be read, and would stall the drawing). The fit's means table lists them all.`,
   tooManyPairsToDraw: (pairs: number, limit: number) =>
     `there are ${pairs.toLocaleString('en')} pairs; a chart draws at most ${limit.toLocaleString('en')} (about 63 levels). The pairs table lists them all, and means_chart shows the levels side by side.`,
+  levelNotInOrder: (column: string, levels: readonly string[]) =>
+    `${quote(column)} has ${levels.length === 1 ? 'a level' : 'levels'} that its level_order does not list: ${levels.map((l) => quote(l)).join(', ')}. List every level.`,
+  orderRepeats: (level: string) => `${quote(level)} is listed twice; list each level once.`,
+  orderUnknown: (column: string, levels: readonly string[]) =>
+    `${quote(column)} has no level ${levels.map((l) => quote(l)).join(', ')}; list only levels that appear in it.`,
   tooManyRows: (rows: number, limit: number) =>
     `This table has ${rows.toLocaleString('en')} rows; a table holds at most ${limit.toLocaleString('en')}. Keep the rows the analysis needs, or summarize them first.`,
   tooManyColumns: (cols: number, limit: number) =>

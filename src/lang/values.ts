@@ -29,6 +29,11 @@ interface ColumnBase {
   readonly missing: Uint8Array | null;
   /** The column's header when it came from a table (for analysis rows and chart axes). */
   readonly name: string | null;
+  /**
+   * The order of the column's levels when the user set it (`level_order`); fits, summaries
+   * and comparisons then take the levels in this order, the first as the reference.
+   */
+  readonly order?: readonly string[];
 }
 
 /** A column of numbers. */
@@ -299,6 +304,7 @@ export function sameValue(a: Value, b: Value): boolean {
       const c = b as Column;
       if (a.type !== c.type || a.name !== c.name || a.values.length !== c.values.length) return false;
       if (!sameMask(a.missing, c.missing)) return false;
+      if (!sameTexts(a.order ?? null, c.order ?? null)) return false;
       if (a.type === 'number') {
         const x = a.values;
         const y = (c as NumberColumn).values;
@@ -348,6 +354,10 @@ function sameMask(a: Uint8Array | null, b: Uint8Array | null): boolean {
   if (a === null || b === null) return a === b;
   for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
   return true;
+}
+
+function sameTexts(a: readonly string[] | null, b: readonly string[] | null): boolean {
+  return sameDecimals(a, b);
 }
 
 function sameDecimals(a: readonly string[] | null, b: readonly string[] | null): boolean {
