@@ -71,6 +71,8 @@ describe('split plot: the paper tensile-strength example', () => {
       'whole_at = difference(fit, "m1", "m2", at: "200")',
       '--- formula',
       'pairs_at = pairwise(fit, at: "200", method: "lsd")',
+      '--- formula',
+      'typed_numbers = difference(fit, "m1", "m2", at: 200)',
     ),
   );
   const fit = rec(engine.valueOf('fit'));
@@ -127,6 +129,8 @@ describe('split plot: the paper tensile-strength example', () => {
     expectRelative(num(wholeAt, 'se'), 1.8702267765250697, 1e-4, 'same, mixed model');
     // source: Satterthwaite's df of Ea + (b - 1) Eb from statsmodels' mean squares
     expectRelative(num(wholeAt, 'df'), 15.47876020549115, 1e-12, 'Satterthwaite df');
+    // a level typed as a number finds the level it names
+    expect(num(rec(engine.valueOf('typed_numbers')), 'se')).toBe(num(wholeAt, 'se'));
     // estimates: differences of plain means of the data above
     expectRelative(num(whole, 'estimate'), methodMean(1) - methodMean(2), 1e-13, 'whole estimate');
     expectRelative(num(wholeAt, 'estimate'), cellMean(1, 0) - cellMean(2, 0), 1e-13, 'whole at 200 estimate');
