@@ -25,6 +25,10 @@ export interface MeansInput {
   readonly dfError: number;
   /** True when the means are least-squares means (unbalanced or missing data). */
   readonly leastSquares: boolean;
+  /** The covariate the means are adjusted for (its column name), when there is one. */
+  readonly adjustedFor?: string;
+  /** The error the intervals come from, in words, when it is not the fit's error mean square. */
+  readonly errorName?: string;
 }
 
 /** More levels than this make a tall chart; the caller is told. */
@@ -60,7 +64,7 @@ export function meansChart(m: MeansInput): ChartResult {
 
   const factor = readName(m.factor).label;
   const response = readName(m.response).label;
-  const what = m.leastSquares ? 'least-squares mean' : 'mean';
+  const what = m.adjustedFor !== undefined ? 'adjusted mean' : m.leastSquares ? 'least-squares mean' : 'mean';
   const xTitle = derivedTitle(what, m.response);
   const y = { field: 'level', type: 'nominal', sort: values.map((v) => v.level), title: axisTitle(m.factor) };
   const tooltip = [tip('level', axisTitle(m.factor), false), tip('n', 'observations'), tip('mean', what), tip('se', 'standard error'), tip('low', 'low'), tip('high', 'high')];
@@ -79,7 +83,8 @@ export function meansChart(m: MeansInput): ChartResult {
   const pct = percent(m.level);
   const title = withInterval > 0 ? `${capital(what)} ${response} by ${factor}, with ${pct} intervals` : `${capital(what)} ${response} by ${factor}`;
   const parts = [`${counted(k, `${factor} ${what}`)} of ${response} from ${counted(total, 'observation')}`];
-  if (withInterval > 0) parts.push(`${pct} intervals from the error mean square on ${count(m.dfError)} df`);
+  if (m.adjustedFor !== undefined) parts.push(`adjusted to the mean ${readName(m.adjustedFor).label}`);
+  if (withInterval > 0) parts.push(`${pct} intervals from the ${m.errorName ?? 'error mean square'} on ${count(m.dfError)} df`);
   else parts.push('no intervals: the fit has no error term');
   const top = order[0];
   const bottom = order[order.length - 1];

@@ -65,6 +65,8 @@ function residualAxis(against: string, internal: FitInternal): ResidualAxis {
     case 'treatment':
       return { factor: 0 };
     case 'block':
+      if (internal.fit.kind === 'split_plot') return { factor: 2 };
+      if (internal.fit.kind === 'across_sites') return { factor: 1 };
       if (internal.fit.kind !== 'blocked') {
         throw new UsageError(
           `against: "block" needs a fit with blocks (from blocked); this ${internal.fit.design} fit has none. Use "fitted", "order" or "treatment".`,
@@ -94,6 +96,23 @@ function profileOf(internal: FitInternal): ProfileInput {
         ? { label: `${term} interaction`, f, df1: fit.table.df[i]!, df2: fit.df_error, p: fit.table.p[i]! }
         : null;
       return { ...base, across: first, lines: second, test, averagedOver: internal.factors.slice(2).map((x) => x.name) };
+    }
+    case 'split_plot': {
+      // one line per whole-plot level across the subplot levels, averaged over blocks
+      const term = `${first.name}:${second.name}`;
+      const i = fit.table.source.indexOf(term);
+      const f = i < 0 ? NaN : fit.table.f[i]!;
+      const test = Number.isFinite(f) ? { label: `${term} interaction`, f, df1: fit.table.df[i]!, df2: fit.df_error, p: fit.table.p[i]! } : null;
+      return { ...base, across: second, lines: first, test, averagedOver: internal.factors.slice(2).map((x) => x.name) };
+    }
+    case 'across_sites': {
+      // one line per treatment across the sites: where a treatment wins and where it does not
+      const site = internal.factors[2]!;
+      const term = `${first.name}:${site.name}`;
+      const i = fit.table.source.indexOf(term);
+      const f = i < 0 ? NaN : fit.table.f[i]!;
+      const test = Number.isFinite(f) ? { label: `${term} interaction`, f, df1: fit.table.df[i]!, df2: fit.df_error, p: fit.table.p[i]! } : null;
+      return { ...base, across: site, lines: first, test, averagedOver: [second.name] };
     }
     default: {
       // blocked and Latin square: one line per treatment, across the blocks (or rows)
@@ -162,7 +181,7 @@ export const CHARTS: readonly Builtin[] = [
     category: 'charts',
     params: [FIT],
     returns: 'a chart',
-    doc: 'The treatment means of a fit with their confidence intervals (from the error mean square, at the fit’s level), one row per treatment, highest mean at the top. The intervals are each for one mean; to compare treatments, use pairwise and pairwise_chart. With missing plots, the means are least-squares means.',
+    doc: 'The treatment means of a fit with their confidence intervals (from the error mean square, at the fit’s level), one row per treatment, highest mean at the top. The intervals are each for one mean; to compare treatments, use pairwise and pairwise_chart. With missing plots, the means are least-squares means; with a covariate, means adjusted to the covariate’s mean; for a split plot, the whole-plot means with intervals from the whole-plot error; across sites, intervals from the treatment-by-site mean square.',
     example: 'means_chart(fit)',
     run: (a, ctx) => {
       const internal = fitInternal(a.get('fit') as RecordValue);
@@ -180,8 +199,10 @@ export const CHARTS: readonly Builtin[] = [
           low: m.low,
           high: m.high,
           level: fit.level,
-          dfError: fit.df_error,
+          dfError: fit.factor_means[0]?.error?.df ?? fit.df_error,
           leastSquares: !fit.balanced,
+          ...(fit.covariate === undefined ? {} : { adjustedFor: fit.covariate.name }),
+          ...(fit.split !== undefined ? { errorName: 'whole-plot error mean square' } : fit.sites !== undefined ? { errorName: 'treatment-by-site mean square' } : {}),
         }),
         ctx,
       );
@@ -228,7 +249,7 @@ export const CHARTS: readonly Builtin[] = [
     category: 'charts',
     params: [FIT],
     returns: 'a chart',
-    doc: 'Cell means drawn as profiles. For a factorial fit: the mean response of each level of the second factor (one line each) across the levels of the first, averaged over any further factors, with the test of their interaction. For a blocked fit (or a Latin square): each treatment’s value across the blocks (or rows), with Tukey’s test for nonadditivity where it applies. Lines that run parallel mean the effects add; lines that cross or fan out mean they do not.',
+    doc: 'Cell means drawn as profiles. For a factorial fit: the mean response of each level of the second factor (one line each) across the levels of the first, averaged over any further factors, with the test of their interaction. For a blocked fit (or a Latin square): each treatment’s value across the blocks (or rows), with Tukey’s test for nonadditivity where it applies. For a split plot: each whole-plot level across the subplot levels, with the test of their interaction. For a series across sites: each treatment across the sites, which shows where a treatment wins and where it does not. Lines that run parallel mean the effects add; lines that cross or fan out mean they do not.',
     example: 'interaction_chart(fit)',
     run: (a, ctx) => chartValue(profileChart(profileOf(fitInternal(a.get('fit') as RecordValue))), ctx),
   },

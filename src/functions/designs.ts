@@ -6,200 +6,75 @@
  * numeric fit and the data it came from, for the comparisons, the checks and the charts.
  */
 import { UsageError } from '../lang/errors.ts';
-import { msg } from '../lang/messages.ts';
 import { formatNumber } from '../lang/format.ts';
-import {
-  MISSING,
-  booleanColumn,
-  isColumn,
-  numberColumn,
-  record,
-  table,
-  textColumn,
-  type Column,
-  type NumberColumn,
-  type RecordValue,
-  type Table,
-  type Value,
-} from '../lang/values.ts';
+import { msg } from '../lang/messages.ts';
+import { MISSING, isColumn, numberColumn, record, textColumn, type Column, type NumberColumn, type RecordValue, type Table, type Value } from '../lang/values.ts';
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
-import { blocked, factorial, latinSquare, oneWay, type DesignFit } from '../stats/designs/index.ts';
+import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovariate, type Covariate, type DesignFit } from '../stats/designs/index.ts';
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
 import { MAX_GROUPS } from '../stats/dist/index.ts';
-import { completeRows, factorOf, numberLevel, presentRows, resolveLevel, responseOf, type Factor } from './columns.ts';
-import { isExactFit, withoutErrorTests } from './exact.ts';
+import { isExactFit } from './exact.ts';
+import { LEVEL, columnsTable, finish, fitInternal, prepare, spread, type FitInternal, type Prepared } from './fits.ts';
+import { factorOf, numberLevel, resolveLevel, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
-import type { Builtin, CallContext } from './registry.ts';
+import type { Builtin } from './registry.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
 
-/** What a fit record keeps for later functions. */
-export interface FitInternal {
-  readonly fit: DesignFit;
-  /** Rows of the data used (0-based), or null when every row was used. */
-  readonly rows: Int32Array | null;
-  /** Length of the data as given. */
-  readonly length: number;
-  /** The factors at the rows used, in model order. */
-  readonly factors: readonly Factor[];
-  /** Response values at the rows used (offset added back). */
-  readonly y: Float64Array;
-  /** The response's column name, for chart axes. */
-  readonly response: string;
-}
-
-/** The internal part of a fit record (the record was checked to be a fit). */
-export function fitInternal(r: RecordValue): FitInternal {
-  const i = r.internal as FitInternal | undefined;
-  if (i === undefined || i.fit === undefined) throw new UsageError('this record is not a fit made in this document.');
-  return i;
-}
-
-const LEVEL = { name: 'level', type: 'level' as const, default: 0.95, doc: 'Confidence level of the intervals.' };
-
-/** A number column with NaN shown as missing (an F that does not exist is not a number). */
-function nanAsMissing(values: ArrayLike<number>, name: string): NumberColumn {
-  const v = Float64Array.from(values as ArrayLike<number>);
-  const miss = new Uint8Array(v.length);
-  for (let i = 0; i < v.length; i++) if (Number.isNaN(v[i]!)) miss[i] = 1;
-  return numberColumn(v, miss, name);
-}
-
-/** A column of the data's full length: values at the rows used, missing elsewhere. */
-function spread(values: Float64Array, rows: Int32Array | null, length: number, name: string): NumberColumn {
-  if (rows === null) return numberColumn(Float64Array.from(values), null, name);
-  const out = new Float64Array(length).fill(NaN);
-  const miss = new Uint8Array(length).fill(1);
-  rows.forEach((r, k) => {
-    out[r] = values[k]!;
-    miss[r] = 0;
-  });
-  return numberColumn(out, miss, name);
-}
-
-function columnsTable(obj: Record<string, ArrayLike<unknown>>, order: readonly string[]): Table {
-  const cols: Column[] = order.map((name) => {
-    const v = obj[name]!;
-    const first = v.length > 0 ? v[0] : 0;
-    if (typeof first === 'string') return textColumn(Array.from(v as ArrayLike<string>), null, name);
-    if (typeof first === 'boolean') return booleanColumn(Uint8Array.from(v as ArrayLike<boolean>, (b) => (b ? 1 : 0)), null, name);
-    return nanAsMissing(v as ArrayLike<number>, name);
-  });
-  return table(order, cols);
-}
-
-/** The record of a fit: the contract's fields first, then what the design adds. */
-function fitRecord(fit: DesignFit, internal: FitInternal): RecordValue {
-  const { rows, length } = internal;
-  const fields: [string, Value][] = [
-    ['design', fit.design],
-    ['table', columnsTable(fit.table as unknown as Record<string, ArrayLike<unknown>>, ['source', 'df', 'ss', 'ms', 'f', 'p'])],
-    ['means', columnsTable(fit.means as unknown as Record<string, ArrayLike<unknown>>, ['level', 'n', 'mean', 'se', 'low', 'high'])],
-    ['mse', fit.mse],
-    ['df_error', fit.df_error],
-    ['sd', fit.sd],
-    ['grand_mean', fit.grand_mean],
-    ['r2', fit.r2],
-    ['fitted', spread(fit.fitted, rows, length, 'fitted')],
-    ['residuals', spread(fit.residuals, rows, length, 'residuals')],
-    ['studentized', spread(fit.studentized_residuals, rows, length, 'studentized')],
-    ['balanced', fit.balanced],
-  ];
-  if (fit.relative_efficiency !== undefined) fields.push(['relative_efficiency', fit.relative_efficiency]);
-  if (fit.nonadditivity !== undefined) {
-    const na = fit.nonadditivity;
-    fields.push(['nonadditivity', record([['ss', na.ss], ['f', na.f], ['p', na.p], ['df1', na.df1], ['df2', na.df2]], 'test')]);
-  }
-  if (fit.effects !== undefined) fields.push(['effects', columnsTable(fit.effects as unknown as Record<string, ArrayLike<unknown>>, ['term', 'estimate'])]);
-  if (fit.lenth !== undefined) {
-    const l = fit.lenth;
-    fields.push([
-      'lenth',
-      record(
-        [
-          ['pse', l.pse],
-          ['me', l.me],
-          ['sme', l.sme],
-          ['df', l.df],
-          ['level', l.level],
-        ],
-        'margins',
-      ),
-    ]);
-  }
-  fields.push(['treatment', fit.treatment], ['n', fit.n], ['level', fit.level], ['ss_method', fit.ss_method]);
-  fields.push(['notes', textColumn(fit.notes.slice(), null, 'notes')]);
-  return record(fields, 'fit', internal);
-}
-
-
-interface Prepared {
-  y: Float64Array;
-  offset: number;
-  factors: Factor[];
-  rows: Int32Array | null;
-  length: number;
-  dropped: number;
-  response: string;
-}
-
-/** Complete cases of a response and factors, shifted exactly, with level codes. */
-function prepare(y: NumberColumn, factorCols: readonly { col: Column; role: string }[], ctx: CallContext): Prepared {
-  const names = ['y', ...factorCols.map((f) => f.role)];
-  const rows = completeRows([y, ...factorCols.map((f) => f.col)], ctx, names);
-  const r = responseOf(y, rows);
-  const factors = factorCols.map((f) => factorOf(f.col, rows, f.role));
-  if (rows !== null) {
-    // a level that appears in the table but lost every row to missing values: a treatment
-    // with no data cannot be compared, and silently leaving it out would hide that
-    factorCols.forEach((f, j) => {
-      const all = factorOf(f.col, presentRows(f.col), f.role);
-      const kept = new Set(factors[j]!.levels);
-      const lost = all.levels.filter((l) => !kept.has(l));
-      if (lost.length > 0) {
-        const name = factors[j]!.name;
-        throw new UsageError(
-          `${name} ${lost.map((l) => `"${l}"`).join(', ')} ${lost.length === 1 ? 'has' : 'have'} no measurement left (every ${lost.length === 1 ? 'one of its rows has' : 'row of them has'} a missing value), so ${lost.length === 1 ? 'it' : 'they'} cannot be estimated. Measure ${lost.length === 1 ? 'it' : 'them'}, or remove ${lost.length === 1 ? 'its rows' : 'their rows'} from the table.`,
-        );
-      }
-    });
-  }
-  const seen = new Set<string>();
-  for (const f of factors) {
-    if (seen.has(f.name)) throw new UsageError(`two factors are both called "${f.name}"; each factor needs its own column.`);
-    seen.add(f.name);
-  }
-  const length = y.values.length;
-  return { y: r.y, offset: r.offset, factors, rows, length, dropped: rows === null ? 0 : length - rows.length, response: y.name ?? 'y' };
-}
-
-function finish(p: Prepared, computed: DesignFit): RecordValue {
-  const y = new Float64Array(p.y.length);
-  for (let i = 0; i < y.length; i++) y[i] = p.y[i]! + p.offset;
-  // a fit with no error left shows no tests (see exact.ts)
-  const fit = withoutErrorTests(computed);
-  return fitRecord(fit, { fit, rows: p.rows, length: p.length, factors: p.factors, y, response: p.response });
-}
-
-/** Refuses a comparison on a fit that leaves no error to compare against. */
-function comparable(i: FitInternal): FitInternal {
-  if (isExactFit(i.fit)) throw new UsageError(msg.exactFitNoComparison());
-  return i;
-}
+export { fitInternal, type FitInternal } from './fits.ts';
 
 const Y = { name: 'y', type: 'numbers' as const, doc: 'The measurements (the response).' };
+const COVARIATE = { name: 'covariate', type: 'numbers' as const, default: MISSING, doc: 'A measurement taken before treatment (start weight, stand count) to adjust for; left out, no adjustment.' };
+const FACTOR = { name: 'factor', type: 'text' as const, default: MISSING, doc: 'Which factor’s levels to compare (a split plot’s subplot factor, say); left out, the treatment (for a split plot, the whole-plot factor).' };
+const AT = { name: 'at', type: 'level_name' as const, default: MISSING, doc: 'Split plots: compare the levels at this one level of the other factor (its own standard error, stated in the notes).' };
+
+/** The optional text of a named argument left out as missing. */
+function optionalText(v: Value | undefined): string | undefined {
+  if (v === undefined || (typeof v === 'object' && v.kind === 'missing')) return undefined;
+  return levelText(v);
+}
+
+/** A comparison's record, with its notes only when it has something to say. */
+function comparisonRecord(r: object & { notes: string[] }): RecordValue {
+  const { notes, ...rest } = r;
+  return toRecord(notes.length > 0 ? { ...rest, notes } : rest, 'comparison');
+}
+
+/**
+ * The covariate at the rows the response and factors kept, shifted exactly like a response.
+ * A covariate missing where the response was measured is an error, never a silent drop.
+ */
+function covariateOf(c: NumberColumn, p: Prepared): Covariate {
+  if (c.values.length !== p.length) throw new UsageError(`the covariate has ${c.values.length} values but the response has ${p.length}; they must be the same length.`);
+  if (c.missing !== null) {
+    let k = 0;
+    const rows = p.rows;
+    const n = rows === null ? p.length : rows.length;
+    for (let j = 0; j < n; j++) if (c.missing[rows === null ? j : rows[j]!] === 1) k++;
+    if (k > 0) throw new UsageError(`the covariate ${c.name === null ? '' : `"${c.name}" `}is missing in ${k} plot${k === 1 ? '' : 's'} that ${k === 1 ? 'has' : 'have'} a response; a covariate must be measured on every plot analysed (fill it in, or leave ${k === 1 ? 'that plot' : 'those plots'} out of the table).`);
+  }
+  const r = responseOf(c, p.rows);
+  return { name: c.name ?? 'covariate', values: r.y, offset: r.offset };
+}
 
 export const DESIGNS: readonly Builtin[] = [
   {
     name: 'one_way',
     category: 'designs',
-    params: [Y, { name: 'treatment', type: 'factor', doc: 'The treatment of each measurement.' }],
-    returns: 'a fit record',
-    doc: 'One-way analysis of variance for a completely randomized design: the treatment and error sums of squares from centred two-pass sums on the exactly shifted data, F and its p-value, and the treatment means with intervals from the error mean square. Unequal group sizes are fine.' + IGNORED_BLOCKS_DOC,
+    params: [Y, { name: 'treatment', type: 'factor', doc: 'The treatment of each measurement.' }, COVARIATE],
+    returns: 'a fit record (with slope and slope_se when a covariate is given)',
+    doc: 'One-way analysis of variance for a completely randomized design: the treatment and error sums of squares from centred two-pass sums on the exactly shifted data, F and its p-value, and the treatment means with intervals from the error mean square. Unequal group sizes are fine. With `covariate: x`, an analysis of covariance with one common slope: the table gains a row named after the covariate, each sum of squares adjusted for the other terms, the record gains `slope` and `slope_se`, `means` become means adjusted to the covariate’s overall mean, comparisons use them, and residual_checks tests that the slopes are parallel.' + IGNORED_BLOCKS_DOC,
     example: 'one_way(plants.weight, plants.group)',
     run: (a, ctx) => {
+      const cov = a.get('covariate')!;
       const p = prepare(a.get('y') as NumberColumn, [{ col: a.get('treatment') as Column, role: 'treatment' }], ctx);
-      const fit = finish(p, guarded(() => oneWay(p.y, p.factors[0]!, { offset: p.offset, dropped: p.dropped })));
-      warnIgnoredBlocks(ctx, 'y', 'treatment', a.get('y') as Column, a.get('treatment') as Column, (y, t, b) => `blocked(${y}, ${t}, ${b})`);
+      let fit: RecordValue;
+      if (isColumn(cov)) {
+        const x = covariateOf(cov as NumberColumn, p);
+        fit = finish(p, guarded(() => withCovariate(p.y, x, p.factors[0]!, null, { offset: p.offset, dropped: p.dropped })));
+      } else {
+        fit = finish(p, guarded(() => oneWay(p.y, p.factors[0]!, { offset: p.offset, dropped: p.dropped })));
+      }
+      warnIgnoredBlocks(ctx, 'y', 'treatment', a.get('y') as Column, a.get('treatment') as Column, (y, t, b) => `blocked(${y}, ${t}, ${b}${isColumn(cov) ? ', covariate: …' : ''})`);
       return fit;
     },
   },
@@ -210,9 +85,10 @@ export const DESIGNS: readonly Builtin[] = [
       Y,
       { name: 'treatment', type: 'factor', doc: 'The treatment of each measurement.' },
       { name: 'block', type: 'factor', doc: 'The block (batch, field, day, subject) of each measurement.' },
+      COVARIATE,
     ],
-    returns: 'a fit record with relative_efficiency and nonadditivity',
-    doc: 'Analysis of variance for randomized complete blocks. Balanced data use closed-form sums; when a block lacks a treatment or cells have unequal counts, the model is fitted by least squares and each factor’s sum of squares is adjusted for the other, with the error degrees of freedom reduced and the missing cells named in `notes`. Adds the relative efficiency against a completely randomized design (with Fisher’s degrees-of-freedom correction) and, with one plot per cell, Tukey’s one-degree-of-freedom test for nonadditivity.',
+    returns: 'a fit record with relative_efficiency and nonadditivity (slope and slope_se instead with a covariate)',
+    doc: 'Analysis of variance for randomized complete blocks. Balanced data use closed-form sums; when a block lacks a treatment or cells have unequal counts, the model is fitted by least squares and each factor’s sum of squares is adjusted for the other, with the error degrees of freedom reduced and the missing cells named in `notes`. Adds the relative efficiency against a completely randomized design (with Fisher’s degrees-of-freedom correction) and, with one plot per cell, Tukey’s one-degree-of-freedom test for nonadditivity. With `covariate: x`, an analysis of covariance with one common slope: the treatment sum of squares is adjusted for the covariate and blocks, the blocks for treatments and the covariate, the covariate (its own row) for treatments and blocks; `slope`, `slope_se`, and means adjusted to the covariate’s overall mean, averaged over blocks.',
     example: 'blocked(plots.yield, plots.variety, plots.block)',
     run: (a, ctx) => {
       const p = prepare(
@@ -223,6 +99,11 @@ export const DESIGNS: readonly Builtin[] = [
         ],
         ctx,
       );
+      const cov = a.get('covariate')!;
+      if (isColumn(cov)) {
+        const x = covariateOf(cov as NumberColumn, p);
+        return finish(p, guarded(() => withCovariate(p.y, x, p.factors[0]!, p.factors[1]!, { offset: p.offset, dropped: p.dropped })));
+      }
       return finish(p, guarded(() => blocked(p.y, p.factors[0]!, p.factors[1]!, { offset: p.offset, dropped: p.dropped })));
     },
   },
@@ -266,6 +147,8 @@ export const DESIGNS: readonly Builtin[] = [
       const p = prepare(a.get('y') as NumberColumn, cols, ctx);
       // factor names come from the list's column names
       p.factors = p.factors.map((fc, i) => ({ ...fc, name: cols[i]!.role }));
+      const suspicion = splitPlotWarning(ctx.sourceTable?.('y')?.table ?? null, a.get('y') as NumberColumn, cols.map((c) => c.col), p);
+      if (suspicion !== null) ctx.warn(suspicion);
       return finish(p, guarded(() => factorial(p.y, p.factors, { offset: p.offset, dropped: p.dropped })));
     },
   },
@@ -277,15 +160,18 @@ export const DESIGNS: readonly Builtin[] = [
       { name: 'a', type: 'level_name', doc: 'The first treatment level.' },
       { name: 'b', type: 'level_name', doc: 'The second treatment level.' },
       LEVEL,
+      FACTOR,
+      AT,
     ],
     returns: 'a record: a b estimate se df t p low high level',
-    doc: 'The difference of two treatment means (a minus b) with its standard error from the fit’s error mean square (least-squares means when data are missing), a t test on the error degrees of freedom and a two-sided interval at `level`. Not adjusted for looking at several pairs: use pairwise for that.',
+    doc: 'The difference of two treatment means (a minus b) with its standard error from the fit’s error mean square (least-squares means when data are missing, adjusted means with a covariate), a t test on the error degrees of freedom and a two-sided interval at `level`. Not adjusted for looking at several pairs: use pairwise for that. `factor:` compares the levels of another factor of the fit (a split plot’s subplot factor); `at:` compares them at one level of the other factor of a split plot. Where a fit has more than one error (split plots, series across sites), the right one is used and named in the result’s notes, with Satterthwaite’s degrees of freedom where two errors combine.',
     example: 'difference(fit, "open", "spindle")',
     run: (a) => {
       const i = comparable(fitInternal(a.get('fit') as RecordValue));
-      const levels = i.fit.means.level;
-      const r = guarded(() => difference(i.fit, resolveLevel(a.get('a')!, levels), resolveLevel(a.get('b')!, levels), a.get('level') as number));
-      return toRecord({ ...r }, 'comparison');
+      const factor = optionalText(a.get('factor'));
+      const levels = i.fit.factor_means.find((m) => m.factor === (factor ?? i.fit.treatment))?.levels ?? i.fit.means.level;
+      const r = guarded(() => difference(i.fit, resolveLevel(a.get('a')!, levels), resolveLevel(a.get('b')!, levels), a.get('level') as number, factor, optionalAt(a.get('at'), i.fit, factor)));
+      return comparisonRecord(r);
     },
   },
   {
@@ -295,18 +181,21 @@ export const DESIGNS: readonly Builtin[] = [
       { name: 'fit', type: 'fit', doc: 'A fit.' },
       { name: 'method', type: 'text', default: 'tukey', choices: ['tukey', 'bonferroni', 'lsd'], doc: 'How intervals allow for the number of pairs.' },
       LEVEL,
+      FACTOR,
+      AT,
     ],
     returns: 'a pairs record: method level factor df critical, and a table of every pair (a b estimate se low high p significant)',
-    doc: 'Every pairwise difference of treatment means with intervals: "tukey" (Tukey’s honestly significant difference, Tukey-Kramer for unequal counts, from the studentized range), "bonferroni" (t intervals at level 1 - (1 - level)/pairs), or "lsd" (unadjusted t intervals, each at `level`).',
+    doc: 'Every pairwise difference of treatment means with intervals: "tukey" (Tukey’s honestly significant difference, Tukey-Kramer for unequal counts, from the studentized range), "bonferroni" (t intervals at level 1 - (1 - level)/pairs), or "lsd" (unadjusted t intervals, each at `level`). `factor:` and `at:` choose the means as in difference, with the error that kind of comparison needs (named in the notes).',
     example: 'pairwise(fit, method: "tukey")',
     run: (a) => {
       const i = comparable(fitInternal(a.get('fit') as RecordValue));
       const method = a.get('method') as string;
-      const k = i.fit.means.level.length;
+      const factorName = optionalText(a.get('factor')) ?? i.fit.treatment;
+      const k = i.fit.factor_means.find((m) => m.factor === factorName)?.levels.length ?? i.fit.means.level.length;
       if (method === 'tukey' && k > MAX_GROUPS) {
         throw new UsageError(`Tukey intervals use the studentized range, computed here for up to ${MAX_GROUPS} means; this fit has ${k}. Use method: "bonferroni".`);
       }
-      const r = guarded(() => pairwise(i.fit, method, a.get('level') as number));
+      const r = guarded(() => pairwise(i.fit, method, a.get('level') as number, optionalText(a.get('factor')), optionalAt(a.get('at'), i.fit, optionalText(a.get('factor')))));
       return record(
         [
           ['method', r.method],
@@ -315,6 +204,7 @@ export const DESIGNS: readonly Builtin[] = [
           ['df', r.df],
           ['critical', r.critical],
           ['table', columnsTable(r.table as unknown as Record<string, ArrayLike<unknown>>, ['a', 'b', 'estimate', 'se', 'low', 'high', 'p', 'significant'])],
+          ...(r.notes.length > 0 ? [['notes', textColumn(r.notes, null, 'notes')] as [string, Value]] : []),
         ],
         'pairs',
       );
@@ -327,24 +217,26 @@ export const DESIGNS: readonly Builtin[] = [
       { name: 'fit', type: 'fit', doc: 'A fit.' },
       { name: 'weights', type: 'numbers', doc: 'One weight per treatment level, in the order of fit.means; they must sum to zero.' },
       LEVEL,
+      FACTOR,
+      AT,
     ],
     returns: 'a record: estimate se df t p low high level weights levels',
-    doc: 'A linear contrast of the treatment means, sum of weight times mean, with its standard error from the error mean square, a t test and an interval. The weights must add up to zero and there must be one for each level, in the order of the means table.',
+    doc: 'A linear contrast of the treatment means, sum of weight times mean, with its standard error from the error mean square, a t test and an interval. The weights must add up to zero and there must be one for each level, in the order of the means table. `factor:` and `at:` choose the means as in difference.',
     example: 'contrast(fit, [1, 1, -1, -1])',
     run: (a) => {
       const i = comparable(fitInternal(a.get('fit') as RecordValue));
       const w = a.get('weights') as NumberColumn;
       if (w.missing !== null) throw new UsageError('a weight is missing.');
-      const r = guarded(() => contrast(i.fit, Array.from(w.values), a.get('level') as number));
-      return toRecord({ ...r }, 'comparison');
+      const r = guarded(() => contrast(i.fit, Array.from(w.values), a.get('level') as number, optionalText(a.get('factor')), optionalAt(a.get('at'), i.fit, optionalText(a.get('factor')))));
+      return comparisonRecord(r);
     },
   },
   {
     name: 'residual_checks',
     category: 'after a fit',
     params: [{ name: 'fit', type: 'fit', doc: 'A fit.' }],
-    returns: 'a record: shapiro_wilk, brown_forsythe, studentized, flagged, nonadditivity (where it applies), notes',
-    doc: 'What to look at before believing an F test (a fit that leaves no error, one that fits every observation exactly, says so instead): the Shapiro-Wilk test of the residuals (Royston’s algorithm), the Brown-Forsythe test of equal spread across treatments (across the cells of a factorial; on the residuals, centred at group medians), the internally studentized residuals with the rows beyond 3 in absolute value flagged (a rule of thumb), and Tukey’s nonadditivity test for blocked fits with one plot per cell.',
+    returns: 'a record: shapiro_wilk, brown_forsythe, studentized, flagged, nonadditivity and parallel_slopes (where they apply), notes',
+    doc: 'What to look at before believing an F test (a fit that leaves no error, one that fits every observation exactly, says so instead): the Shapiro-Wilk test of the residuals (Royston’s algorithm), the Brown-Forsythe test of equal spread across treatments (across the cells of a factorial; on the residuals, centred at group medians), the internally studentized residuals with the rows beyond 3 in absolute value flagged (a rule of thumb), Tukey’s nonadditivity test for blocked fits with one plot per cell, and, for fits with a covariate, the test that the slopes are parallel (the treatment-by-covariate interaction against the common slope).',
     example: 'residual_checks(fit)',
     run: (a) => {
       const i = fitInternal(a.get('fit') as RecordValue);
@@ -391,11 +283,27 @@ export const DESIGNS: readonly Builtin[] = [
         const na = fit.nonadditivity;
         fields.push(['nonadditivity', record([['ss', na.ss], ['f', na.f], ['p', na.p], ['df1', na.df1], ['df2', na.df2]], 'test')]);
       }
+      if (fit.covariate !== undefined) {
+        const ps = fit.covariate.parallel;
+        fields.push(['parallel_slopes', record([['ss', ps.ss], ['f', ps.f], ['df1', ps.df1], ['df2', ps.df2], ['p', ps.p]], 'test')]);
+        if (ps.p < 0.05) {
+          notes.push(`The slope on ${fit.covariate.name} differs between treatments (test of parallel slopes, p = ${formatNumber(ps.p, 3)}): adjusted means then depend on the covariate value chosen, so compare the treatments at several values of ${fit.covariate.name} rather than at its mean alone.`);
+        }
+      }
+      if (fit.split !== undefined) {
+        notes.push(`These are the residuals within whole plots (the error stratum, ${fit.df_error} df). The whole-plot error has only ${formatNumber(fit.split.dfWhole)} df of its own; look at the whole-plot means in the interaction chart for anything odd there.`);
+      }
       fields.push(['notes', textColumn(notes, null, 'notes')]);
       return record(fields, 'checks');
     },
   },
 ];
+
+/** Refuses a comparison on a fit that leaves no error to compare against. */
+function comparable(i: FitInternal): FitInternal {
+  if (isExactFit(i.fit)) throw new UsageError(msg.exactFitNoComparison());
+  return i;
+}
 
 /**
  * The groups whose spreads Brown-Forsythe compares: the treatments, or in a factorial the
@@ -420,9 +328,38 @@ function spreadGroups(i: FitInternal): { codes: Int32Array; levels: string[] } {
   return { codes, levels };
 }
 
+/**
+ * A warning when the table the data came from names whole plots: one factor is constant on
+ * each of them while another varies inside, so the factorial's F for the first is formed
+ * against the wrong error. Null when nothing suggests a split plot.
+ */
+function splitPlotWarning(owner: Table | null, y: NumberColumn, factorCols: readonly Column[], p: Prepared): string | null {
+  if (owner === null) return null;
+  const used = new Set<Column>([y, ...factorCols]);
+  const others = owner.columns
+    .filter((c) => !used.has(c) && c.values.length === p.length)
+    .map((c, i) => factorOf(c, p.rows, c.name ?? `column_${i + 1}`));
+  const s = splitPlotSuspicion(p.factors, others);
+  if (s === null) return null;
+  const unit = s.unit.map((u) => `"${u}"`).join(' and ');
+  return `"${s.whole}" is the same on every plot of each ${unit} while "${s.sub}" changes within it: this looks like a split plot, with ${s.whole} on whole plots. factorial tests ${s.whole} against the error between subplots, which is the wrong error for a factor applied to whole plots, so its F and p overstate the evidence. Use split_plot(y, ${s.whole}, ${s.sub}, block).`;
+}
+
 /** A level given as text or a number, as the fit names it. */
 function levelText(v: Value): string {
   if (typeof v === 'string') return v;
   if (typeof v === 'number') return numberLevel(v);
   return String(v);
+}
+
+/**
+ * The `at` level of a split-plot comparison, resolved against the levels of the other factor
+ * (a number typed for a level named "200" finds it), or undefined when left out.
+ */
+function optionalAt(v: Value | undefined, fit: DesignFit, factor: string | undefined): string | undefined {
+  if (v === undefined || (typeof v === 'object' && v.kind === 'missing')) return undefined;
+  const sp = fit.split;
+  if (sp === undefined) return levelText(v);
+  const other = (factor ?? fit.treatment) === sp.sub ? sp.wholeLevels : sp.subLevels;
+  return resolveLevel(v, other);
 }

@@ -8,8 +8,9 @@ import { DISTRIBUTIONS } from './distributions.ts';
 import { MATHS } from './maths.ts';
 import { PLANNING } from './planning.ts';
 import { Registry } from './registry.ts';
+import { STRATA } from './strata.ts';
 import { SUMMARIES } from './summaries.ts';
 import { TWO_GROUPS } from './two_groups.ts';
 
 /** All built-ins of the language. */
-export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...CHARTS, ...PLANNING, ...CLAIMS]);
+export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...STRATA, ...CHARTS, ...PLANNING, ...CLAIMS]);

@@ -118,7 +118,7 @@ export const TYPES = {
     check: (v) => (isRecord(v) ? accept(v) : reject(v)),
   },
   fit: {
-    description: 'a fit (the result of one_way, blocked, latin_square or factorial)',
+    description: 'a fit (the result of a design function such as one_way, blocked or split_plot)',
     check: (v) => (isRecord(v) && v.tag === 'fit' ? accept(v) : reject(v, isRecord(v) ? `a record that is not a fit` : undefined)),
   },
   pairs: {

@@ -105,6 +105,20 @@ const LABELS: ReadonlyMap<string, string> = new Map([
   ['high', 'interval high'],
   ['critical', 'critical multiplier'],
   ['pooled_variance', 'pooled variance'],
+  ['mse_whole', 'whole-plot error mean square'],
+  ['df_whole_error', 'whole-plot error degrees of freedom'],
+  ['sub_means', 'subplot means'],
+  ['cell_means', 'means of every combination'],
+  ['slope', 'slope on the covariate'],
+  ['slope_se', 'standard error of the slope'],
+  ['covariate_mean', 'covariate mean (means adjusted to it)'],
+  ['unadjusted_means', 'unadjusted means'],
+  ['f_against_error', 'treatment F against the pooled error'],
+  ['p_against_error', 'p against the pooled error'],
+  ['bartlett', "Bartlett's test of equal error variances across sites"],
+  ['per_site', 'each site alone'],
+  ['site_means', 'treatment means at each site'],
+  ['parallel_slopes', 'test of parallel slopes'],
 ]);
 
 /** The words shown for a record field. */

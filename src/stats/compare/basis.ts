@@ -4,25 +4,76 @@
  */
 import { DesignError } from '../designs/errors.ts';
 import { messages } from '../designs/messages.ts';
-import type { DesignFit, FactorMeans } from '../designs/types.ts';
+import { diagonalCovariance, factorMeans } from '../designs/assemble.ts';
+import { satterthwaite } from '../designs/strata.ts';
+import type { DesignFit, FactorMeans, SplitParts } from '../designs/types.ts';
 
 /** The means a comparison works on. */
 export interface ComparisonBasis {
   means: FactorMeans;
   mse: number;
   df: number;
+  /** Which error the comparison uses, in words, when it is not the fit's only one. */
+  note: string | null;
 }
 
 /**
  * The means of `factor` (default: the fit's treatment factor), checking that the fit has an
- * error term.
+ * error term. Means that carry their own error (a split plot's whole-plot means, treatment
+ * means across sites) are judged against it. `at` (split plots only) takes the means of one
+ * factor at one level of the other, with the standard error that kind of comparison needs.
  */
-export function comparisonBasis(fit: DesignFit, factor?: string): ComparisonBasis {
+export function comparisonBasis(fit: DesignFit, factor?: string, at?: string): ComparisonBasis {
   const name = factor ?? fit.treatment;
+  if (at !== undefined) {
+    if (fit.split === undefined) throw new DesignError(messages.splitAtNeedsSplit());
+    return splitSlice(fit.split, name, at, fit.level);
+  }
   const means = fit.factor_means.find((m) => m.factor === name);
   if (means === undefined) throw new DesignError(messages.unknownFactor(name, fit.factor_means.map((m) => m.factor)));
-  if (!(fit.df_error > 0) || !(fit.mse >= 0)) throw new DesignError(messages.noErrorForComparison());
-  return { means, mse: fit.mse, df: fit.df_error };
+  const mse = means.error?.mse ?? fit.mse;
+  const df = means.error?.df ?? fit.df_error;
+  if (!(df > 0) || !(mse >= 0)) throw new DesignError(messages.noErrorForComparison());
+  return { means, mse, df, note: means.error?.note ?? null };
+}
+
+/**
+ * Cell means of a split plot along one factor at one level of the other. Differences of
+ * subplot levels within one whole plot level need only the subplot error: variance 2 Eb / r.
+ * Differences of whole-plot levels at one subplot level cross whole plots and carry both
+ * errors: variance 2 (Ea + (b - 1) Eb) / (r b), on Satterthwaite's degrees of freedom.
+ */
+function splitSlice(s: SplitParts, factor: string, at: string, level: number): ComparisonBasis {
+  const a = s.wholeLevels.length;
+  const b = s.subLevels.length;
+  let levels: string[];
+  let shifted: Float64Array;
+  let mse: number;
+  let df: number;
+  let note: string;
+  if (factor === s.sub) {
+    const i = s.wholeLevels.indexOf(at);
+    if (i < 0) throw new DesignError(messages.unknownLevel(s.whole, at, s.wholeLevels));
+    levels = [...s.subLevels];
+    shifted = s.cellShifted.slice(i * b, i * b + b);
+    mse = s.mseSub;
+    df = s.dfSub;
+    note = messages.splitSubAtWholeNote(s.whole, at);
+  } else if (factor === s.whole) {
+    const j = s.subLevels.indexOf(at);
+    if (j < 0) throw new DesignError(messages.unknownLevel(s.sub, at, s.subLevels));
+    levels = [...s.wholeLevels];
+    shifted = Float64Array.from({ length: a }, (_, i) => s.cellShifted[i * b + j]!);
+    mse = (s.mseWhole + (b - 1) * s.mseSub) / b;
+    df = satterthwaite([s.mseWhole / b, ((b - 1) * s.mseSub) / b], [s.dfWhole, s.dfSub]);
+    note = messages.splitWholeAtSubNote(s.sub, at);
+  } else {
+    throw new DesignError(messages.splitAtFactor(s.whole, s.sub));
+  }
+  if (!(df > 0) || !(mse >= 0)) throw new DesignError(messages.noErrorForComparison());
+  const counts = new Float64Array(levels.length).fill(s.r);
+  const means = factorMeans(factor, levels, counts, shifted, s.offset, diagonalCovariance(counts), mse, df, level);
+  return { means, mse, df, note };
 }
 
 /** Position of `level` among the factor's levels. */

@@ -22,6 +22,8 @@ export interface ContrastResult {
   /** The weights, in the factor's level order. */
   weights: number[];
   levels: string[];
+  /** Which error the standard error comes from, when the fit has more than one. */
+  notes: string[];
 }
 
 /** Weights may add up to zero only to rounding: this much of the sum of their sizes. */
@@ -36,9 +38,9 @@ const SUM_TOLERANCE = 1e-9;
  * @throws DesignError when the count of weights is wrong, they do not add up to zero, they
  *   are all zero or not finite, or the fit has no error df.
  */
-export function contrast(fit: DesignFit, weights: readonly number[], level = 0.95, factor?: string): ContrastResult {
+export function contrast(fit: DesignFit, weights: readonly number[], level = 0.95, factor?: string, at?: string): ContrastResult {
   checkLevel(level);
-  const { means, mse, df } = comparisonBasis(fit, factor);
+  const { means, mse, df, note } = comparisonBasis(fit, factor, at);
   const k = means.levels.length;
   if (weights.length !== k) throw new DesignError(messages.weightsCount(weights.length, k, means.factor));
   let sum = 0;
@@ -72,5 +74,6 @@ export function contrast(fit: DesignFit, weights: readonly number[], level = 0.9
     level,
     weights: [...weights],
     levels: [...means.levels],
+    notes: note === null ? [] : [note],
   };
 }

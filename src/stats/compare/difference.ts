@@ -20,6 +20,8 @@ export interface DifferenceResult {
   low: number;
   high: number;
   level: number;
+  /** Which error the standard error comes from, when the fit has more than one. */
+  notes: string[];
 }
 
 /**
@@ -30,9 +32,9 @@ export interface DifferenceResult {
  * @param factor - which factor's levels (default: the fit's treatment factor).
  * @throws DesignError for an unknown level, a = b, a bad level or a fit without error df.
  */
-export function difference(fit: DesignFit, a: string, b: string, level = 0.95, factor?: string): DifferenceResult {
+export function difference(fit: DesignFit, a: string, b: string, level = 0.95, factor?: string, at?: string): DifferenceResult {
   checkLevel(level);
-  const { means, mse, df } = comparisonBasis(fit, factor);
+  const { means, mse, df, note } = comparisonBasis(fit, factor, at);
   if (a === b) throw new DesignError(messages.sameLevel(a));
   const i = levelIndex(means, a);
   const j = levelIndex(means, b);
@@ -40,5 +42,5 @@ export function difference(fit: DesignFit, a: string, b: string, level = 0.95, f
   const se = Math.sqrt(mse * differenceVariance(means, i, j));
   const t = estimate / se;
   const half = tCritical(level, df) * se;
-  return { a, b, estimate, se, df, t, p: tTwoSided(t, df), low: estimate - half, high: estimate + half, level };
+  return { a, b, estimate, se, df, t, p: tTwoSided(t, df), low: estimate - half, high: estimate + half, level, notes: note === null ? [] : [note] };
 }

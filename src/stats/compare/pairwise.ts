@@ -39,6 +39,8 @@ export interface PairwiseResult {
   /** Multiplier of each pair's standard error that gives the interval's half-width. */
   critical: number;
   table: PairwiseTable;
+  /** Which error the standard errors come from, when the fit has more than one. */
+  notes: string[];
 }
 
 /**
@@ -55,11 +57,11 @@ export interface PairwiseResult {
  * @throws DesignError for an unknown method, a bad level, fewer than two levels or a fit
  *   without error df.
  */
-export function pairwise(fit: DesignFit, method: string = 'tukey', level = 0.95, factor?: string): PairwiseResult {
+export function pairwise(fit: DesignFit, method: string = 'tukey', level = 0.95, factor?: string, at?: string): PairwiseResult {
   if (!(PAIRWISE_METHODS as readonly string[]).includes(method)) throw new DesignError(messages.unknownMethod(method));
   const m = method as PairwiseMethod;
   checkLevel(level);
-  const { means, mse, df } = comparisonBasis(fit, factor);
+  const { means, mse, df, note } = comparisonBasis(fit, factor, at);
   const k = means.levels.length;
   if (k < 2) throw new DesignError(messages.tooFewForPairs());
   const pairs = (k * (k - 1)) / 2;
@@ -89,5 +91,5 @@ export function pairwise(fit: DesignFit, method: string = 'tukey', level = 0.95,
       table.significant.push(p < 1 - level);
     }
   }
-  return { method: m, level, factor: means.factor, df, critical, table };
+  return { method: m, level, factor: means.factor, df, critical, table, notes: note === null ? [] : [note] };
 }

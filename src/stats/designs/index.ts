@@ -15,10 +15,18 @@ export { blocked, relativeEfficiency } from './blocked.ts';
 export { latinSquare } from './latin.ts';
 export { factorial, allTerms } from './factorial.ts';
 export { lenthMargins } from './lenth.ts';
+export { splitPlot } from './split.ts';
+export { withCovariate, type Covariate } from './covariate.ts';
+export { acrossSites } from './sites.ts';
+export { satterthwaite, bartlett, type BartlettTest } from './strata.ts';
 export { DesignError } from './errors.ts';
 export { messages } from './messages.ts';
 export type {
   AnovaTable,
+  CovariateParts,
+  ErrorTerm,
+  SitesParts,
+  SplitParts,
   DesignFit,
   DesignKind,
   DesignOptions,
@@ -29,3 +37,4 @@ export type {
   MeansTable,
   Nonadditivity,
 } from './types.ts';
+export { splitPlotSuspicion, type SplitSuspicion } from './suspect.ts';

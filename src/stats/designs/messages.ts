@@ -41,7 +41,52 @@ export const messages = {
     `${n} observations in ${groups} groups leave no degrees of freedom for error`,
   badOffset: () => 'the offset must be a finite number',
   smallLatin: () => 'a 2 x 2 Latin square leaves no degrees of freedom for error, so no F test can be made',
+  splitMissing: (blockName: string, wholeName: string, subName: string, block: string, whole: string, sub: string) =>
+    `the whole plot at ${blockName} ${q(block)}, ${wholeName} ${q(whole)} has no plot for ${subName} ${q(sub)}; this version analyses split plots only with complete whole plots (every ${subName} level once in every whole plot): add the missing plot or leave that whole plot out`,
+  splitTwice: (blockName: string, wholeName: string, subName: string, block: string, whole: string, sub: string, times: number) =>
+    `the whole plot at ${blockName} ${q(block)}, ${wholeName} ${q(whole)} holds ${subName} ${q(sub)} ${times} times; in a split plot each ${subName} level appears once in every whole plot, so these data are not a split plot as given`,
+  covariateConstant: (name: string) =>
+    `the covariate ${q(name)} has the same value in every plot (after what the model already explains), so it cannot adjust anything; leave it out`,
+  covariateMissing: (k: number, name: string) =>
+    `the covariate ${q(name)} is missing in ${k} plot${k === 1 ? '' : 's'}; a covariate must be measured on every plot that is analysed`,
+  covariateLength: (got: number, n: number) => `the covariate has ${got} values but the response has ${n}`,
+  covariateNeedsComplete: () =>
+    'this version adjusts for a covariate only in complete blocks (every treatment once in every block, or the same number of times); fill the missing plots or leave the covariate out',
+  sitesOneBlock: (siteName: string, site: string, blockName: string) =>
+    `${siteName} ${q(site)} has only one ${blockName}, so its error cannot be estimated; a series of trials needs at least two blocks at every site`,
+  sitesAbsent: (treatment: string, siteName: string, site: string) =>
+    `treatment ${q(treatment)} is absent at ${siteName} ${q(site)}; this version needs every treatment at every site, so that the treatment-by-site interaction is estimable: leave the treatment or the site out`,
+  sitesIncomplete: (siteName: string, site: string, blockName: string, block: string, treatment: string, times: number) =>
+    `at ${siteName} ${q(site)}, ${blockName} ${q(block)} holds treatment ${q(treatment)} ${times} times; each block of each site must hold every treatment exactly once`,
+  sitesMissingPlot: (siteName: string, site: string, blockName: string, block: string, treatment: string) =>
+    `at ${siteName} ${q(site)}, ${blockName} ${q(block)} has no plot for treatment ${q(treatment)}; this version of the combined analysis needs complete blocks at every site (analyse that site alone with blocked, which fits missing plots by least squares)`,
+  sitesUnequalBlocks: (siteName: string, a: string, ka: number, b: string, kb: number) =>
+    `${siteName} ${q(a)} has ${ka} blocks and ${siteName} ${q(b)} has ${kb}; this version of the combined analysis needs the same number of blocks at every site (analyse the sites one by one with blocked, or leave blocks out to match)`,
   // notes
+  splitStrata: (block: string, whole: string) =>
+    `two error strata: ${block} and ${whole} vary only between whole plots and are tested against whole_error (blocks by whole plots); the subplot factor, the interaction and whole_error against error`,
+  splitOneWholeLevel: (whole: string) =>
+    `${q(whole)} has one level, so each block is one whole plot and the analysis is the blocked analysis of the subplot factor`,
+  splitWholeNote: () => 'whole-plot means are compared against whole_error (blocks by whole plots), on its degrees of freedom',
+  splitSubNote: () => 'subplot means, averaged over the whole-plot levels, are compared against error (within whole plots)',
+  splitSubAtWholeNote: (whole: string, level: string) =>
+    `subplot means at ${whole} ${q(level)} are compared against error (within whole plots)`,
+  splitWholeAtSubNote: (sub: string, level: string) =>
+    `whole-plot means at ${sub} ${q(level)} combine whole_error and error, with Satterthwaite's degrees of freedom`,
+  splitAtNeedsSplit: () => 'comparisons "at" a level of the other factor apply to split-plot fits only',
+  splitAtFactor: (whole: string, sub: string) =>
+    `with "at", compare levels of ${q(whole)} at a level of ${q(sub)}, or levels of ${q(sub)} at a level of ${q(whole)}`,
+  covariateNote: (name: string) =>
+    `adjusted for the covariate ${q(name)}: each sum of squares in the table is adjusted for the other terms, and the means are adjusted to the covariate's overall mean`,
+  sitesNote: (treatment: string, site: string) =>
+    `sites are taken as a sample of the places the result should hold for: ${q(treatment)} is tested against the ${treatment}:${site} mean square; its F against the pooled error is in f_against_error`,
+  sitesBartlett: (stat: string, df: number, p: string) =>
+    `Bartlett's test of equal error variances across sites before pooling: chi-square ${stat} on ${df} df, p = ${p}`,
+  sitesBartlettWarn: () =>
+    'the error variances differ between sites (Bartlett p < 0.05): the pooled error and the F tests against it are doubtful; look at the per-site analyses',
+  sitesMeansNote: (treatment: string, site: string) =>
+    `treatment means are compared against the ${treatment}:${site} mean square, on its degrees of freedom`,
+  sitesOne: (site: string) => `only one ${site}: this is the blocked analysis of that site`,
   dropped: (k: number) => `${k} row${k === 1 ? ' was' : 's were'} left out for missing values`,
   missingPlot: (blockWord: string, block: string, treatment: string) =>
     `${blockWord} ${block} has no plot for treatment ${treatment}`,

@@ -25,7 +25,7 @@ export interface DesignOptions {
 }
 
 /** Which analysis made a fit. */
-export type DesignKind = 'one_way' | 'blocked' | 'latin_square' | 'factorial';
+export type DesignKind = 'one_way' | 'blocked' | 'latin_square' | 'factorial' | 'split_plot' | 'across_sites';
 
 /** The analysis-of-variance table: one row per term, then "error", then "total". */
 export interface AnovaTable {
@@ -74,6 +74,22 @@ export interface FactorMeans {
   covariance_form: 'full' | 'diagonal';
   /** The same as a table at the fit's level. */
   table: MeansTable;
+  /**
+   * The error these means are judged against when it is not the fit's `mse` (a split plot's
+   * whole-plot error, the treatment-by-site mean square of a series of trials). Comparisons
+   * of these means use it and say so.
+   */
+  error?: ErrorTerm;
+}
+
+/** An error mean square other than the fit's residual one, with what it is in words. */
+export interface ErrorTerm {
+  /** Mean square. */
+  mse: number;
+  /** Its degrees of freedom (Satterthwaite's, not whole, when two errors combine). */
+  df: number;
+  /** Where it comes from, for the notes of a comparison. */
+  note: string;
 }
 
 /** Tukey's one-degree-of-freedom test for nonadditivity. */
@@ -159,4 +175,71 @@ export interface DesignFit {
   effects?: EffectsTable;
   /** Unreplicated two-level factorials. */
   lenth?: LenthMargins;
+  /** Split plots: the whole-plot stratum and the cell means (see split.ts). */
+  split?: SplitParts;
+  /** Fits with a covariate (see covariate.ts). */
+  covariate?: CovariateParts;
+  /** A series of trials across sites (see sites.ts). */
+  sites?: SitesParts;
+}
+
+/** What comparisons and charts need from a split-plot fit. */
+export interface SplitParts {
+  whole: string;
+  sub: string;
+  block: string;
+  wholeLevels: string[];
+  subLevels: string[];
+  /** Blocks (replicates of every whole plot). */
+  r: number;
+  /** Whole-plot error mean square and df; subplot error mean square and df. */
+  mseWhole: number;
+  dfWhole: number;
+  mseSub: number;
+  dfSub: number;
+  /** Cell means on the shifted scale, whole level major: cell (i, j) at i * subLevels + j. */
+  cellShifted: Float64Array;
+  offset: number;
+  /** The combinations table (whole, sub, n, mean, se, low, high, df). */
+  cells: {
+    whole: string[];
+    sub: string[];
+    n: number[];
+    mean: number[];
+    se: number[];
+    low: number[];
+    high: number[];
+    df: number[];
+  };
+}
+
+/** The covariate's part of a fit. */
+export interface CovariateParts {
+  name: string;
+  slope: number;
+  slope_se: number;
+  /** Mean of the covariate over the observations used (the means are adjusted to it). */
+  mean: number;
+  /** Unadjusted treatment means (offset added back), in level order. */
+  unadjusted: number[];
+  /** Covariate means by treatment, in level order. */
+  covariateMeans: number[];
+  /** Test that the slopes are the same in every treatment (treatment-by-covariate term). */
+  parallel: { ss: number; f: number; df1: number; df2: number; p: number };
+}
+
+/** A series of trials: pooled and per-site results. */
+export interface SitesParts {
+  site: string;
+  block: string;
+  siteLevels: string[];
+  /** The treatment F against the pooled error, beside the one in the table. */
+  f_against_error: number;
+  p_against_error: number;
+  /** Bartlett's test of equal error variances across sites. */
+  bartlett: { statistic: number; df: number; p: number };
+  /** Per site, in site order. */
+  perSite: { site: string[]; blocks: number[]; mean: number[]; mse: number[]; df_error: number[]; f: number[]; p: number[] };
+  /** Treatment means at each site (treatment major), offset added back. */
+  cellMeans: { treatment: string[]; site: string[]; mean: number[] };
 }

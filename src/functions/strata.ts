@@ -1,0 +1,64 @@
+/**
+ * Designs with more than one error: split plots (whole-plot and subplot errors) and a series
+ * of trials across sites (treatments judged against how much they vary from site to site).
+ */
+import type { Column, NumberColumn } from '../lang/values.ts';
+import { acrossSites, splitPlot } from '../stats/designs/index.ts';
+import { finish, prepare } from './fits.ts';
+import { guarded } from './records.ts';
+import type { Builtin } from './registry.ts';
+
+const Y = { name: 'y', type: 'numbers' as const, doc: 'The measurements (the response).' };
+
+export const STRATA: readonly Builtin[] = [
+  {
+    name: 'split_plot',
+    category: 'designs',
+    params: [
+      Y,
+      { name: 'whole', type: 'factor', doc: 'The factor applied to whole plots (hard to change: irrigation on strips, oven temperature for a batch).' },
+      { name: 'sub', type: 'factor', doc: 'The factor randomized to the subplots inside each whole plot.' },
+      { name: 'block', type: 'factor', doc: 'The block (replicate) of each measurement; a whole plot is one block and one whole-plot level.' },
+    ],
+    returns: 'a fit record with mse_whole, df_whole_error, sub_means and cell_means',
+    doc: 'Analysis of variance for a split plot with whole plots in randomized complete blocks, in two error strata. Table rows: the block, the whole-plot factor, whole_error (blocks by whole plots), the subplot factor, their interaction (WHOLE:SUB), error, total. Blocks and the whole-plot factor are tested against whole_error, the rest against error, so the hard-to-change factor is not credited with evidence it does not have. `means` are the whole-plot means, `sub_means` and `cell_means` the others (standard errors combining both errors, on Satterthwaite’s degrees of freedom). After the fit, difference, pairwise and contrast take `factor:` (the subplot factor’s name to compare its levels) and `at:` (a level of the other factor, to compare within it), each with the standard error that comparison needs, stated in its notes. This version needs complete whole plots: a whole plot that lacks a subplot level is an error that names it.',
+    example: 'split_plot(field.yield, field.irrigation, field.variety, field.block)',
+    run: (a, ctx) => {
+      const p = prepare(
+        a.get('y') as NumberColumn,
+        [
+          { col: a.get('whole') as Column, role: 'whole' },
+          { col: a.get('sub') as Column, role: 'sub' },
+          { col: a.get('block') as Column, role: 'block' },
+        ],
+        ctx,
+      );
+      return finish(p, guarded(() => splitPlot(p.y, p.factors[0]!, p.factors[1]!, p.factors[2]!, { offset: p.offset, dropped: p.dropped })));
+    },
+  },
+  {
+    name: 'across_sites',
+    category: 'designs',
+    params: [
+      Y,
+      { name: 'treatment', type: 'factor', doc: 'The treatment of each measurement.' },
+      { name: 'block', type: 'factor', doc: 'The block within its site (labels may repeat from site to site).' },
+      { name: 'site', type: 'factor', doc: 'The site (or season) of each measurement.' },
+    ],
+    returns: 'a fit record with f_against_error, p_against_error, bartlett, per_site and site_means',
+    doc: 'Combined analysis of the same randomized complete block trial at several sites. Table rows: the site, blocks within sites, the treatment, TREATMENT:SITE, the pooled error, total. Sites are taken as a sample of the places the result should hold for, so the treatment’s F is against the treatment-by-site mean square (its F against the pooled error is in `f_against_error`); sites are tested against blocks within sites. Bartlett’s test of equal error variances across sites is made before pooling and stated in the notes; `per_site` gives each site’s own blocked analysis and `site_means` the treatment means at each site. Needs every treatment once in every block and the same number of blocks at every site; a single site gives the blocked analysis.',
+    example: 'across_sites(trials.yield, trials.variety, trials.block, trials.site)',
+    run: (a, ctx) => {
+      const p = prepare(
+        a.get('y') as NumberColumn,
+        [
+          { col: a.get('treatment') as Column, role: 'treatment' },
+          { col: a.get('block') as Column, role: 'block' },
+          { col: a.get('site') as Column, role: 'site' },
+        ],
+        ctx,
+      );
+      return finish(p, guarded(() => acrossSites(p.y, p.factors[0]!, p.factors[1]!, p.factors[2]!, { offset: p.offset, dropped: p.dropped })));
+    },
+  },
+];

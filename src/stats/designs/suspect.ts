@@ -1,0 +1,79 @@
+/**
+ * Does a factorial's data look like a split plot? One factor is the same on every plot of
+ * some unit named in the data (a strip, a main plot, an oven batch), while another factor
+ * changes inside those units, and there are more units than levels of the first factor (the
+ * units are its replicates). Then the first factor was applied to whole units, and an
+ * ordinary factorial tests it against the variation between subplots, an error too small for
+ * it. A unit may be named by one column or by two together (strip numbers that restart in
+ * every block).
+ */
+import type { Factor } from './types.ts';
+
+/** What the check found: the whole-plot factor, the factor that varies inside, and the unit. */
+export interface SplitSuspicion {
+  whole: string;
+  sub: string;
+  /** The column(s) naming the units, e.g. ["strip"] or ["block", "strip"]. */
+  unit: string[];
+}
+
+/** Most candidate columns the check looks at (pairs grow with the square). */
+const MAX_CANDIDATES = 20;
+
+/** Unit codes from one or two columns (dense codes, first-seen order), and how many. */
+function unitCodes(cols: readonly Factor[]): { codes: Int32Array; count: number } {
+  const n = cols[0]!.codes.length;
+  const index = new Map<number, number>();
+  const codes = new Int32Array(n);
+  const stride = cols[0]!.levels.length;
+  for (let i = 0; i < n; i++) {
+    const key = cols.length === 1 ? cols[0]!.codes[i]! : cols[0]!.codes[i]! + stride * cols[1]!.codes[i]!;
+    let c = index.get(key);
+    if (c === undefined) {
+      c = index.size;
+      index.set(key, c);
+    }
+    codes[i] = c;
+  }
+  return { codes, count: index.size };
+}
+
+/** Is `f` constant within every unit? */
+function constantWithin(f: Factor, unit: Int32Array, units: number): boolean {
+  const seen = new Int32Array(units).fill(-1);
+  for (let i = 0; i < unit.length; i++) {
+    const u = unit[i]!;
+    const c = f.codes[i]!;
+    if (seen[u] === -1) seen[u] = c;
+    else if (seen[u] !== c) return false;
+  }
+  return true;
+}
+
+/** Does `f` take at least two levels inside some unit? */
+function variesWithin(f: Factor, unit: Int32Array, units: number): boolean {
+  return !constantWithin(f, unit, units);
+}
+
+/**
+ * Look for a split-plot structure among `factors` (the factorial's) given the other columns
+ * of the table the data came from, as factors. Returns the first suspicion found, or null.
+ */
+export function splitPlotSuspicion(factors: readonly Factor[], others: readonly Factor[]): SplitSuspicion | null {
+  // a column that one of the factors determines (a code or a number for the same levels)
+  // would pair with blocks into the factor's own cells, which are not whole plots
+  const candidates = others.filter((c) => !factors.some((f) => constantWithin(c, f.codes, f.levels.length))).slice(0, MAX_CANDIDATES);
+  const units: Factor[][] = candidates.map((c) => [c]);
+  for (let a = 0; a < candidates.length; a++) for (let b = a + 1; b < candidates.length; b++) units.push([candidates[a]!, candidates[b]!]);
+  for (const cols of units) {
+    const { codes, count } = unitCodes(cols);
+    if (count === codes.length) continue; // one plot per unit: a plot label, not a whole plot
+    for (const whole of factors) {
+      if (count < 2 * whole.levels.length || !constantWithin(whole, codes, count)) continue;
+      for (const sub of factors) {
+        if (sub !== whole && variesWithin(sub, codes, count)) return { whole: whole.name, sub: sub.name, unit: cols.map((c) => c.name) };
+      }
+    }
+  }
+  return null;
+}
