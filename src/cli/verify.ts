@@ -37,7 +37,7 @@ export function verificationText(path: string, v: Verification): string[] {
   const width = Math.max(0, ...v.values.map((x) => x.name.length));
   for (const x of v.values) {
     const where = x.cell === null ? '' : `  (cell ${x.cell})`;
-    lines.push(`  ${x.state.padEnd(8)} ${x.name.padEnd(width)}${where}`);
+    lines.push(`  ${x.state.padEnd(8)} ${x.name.padEnd(width)}${where}`.trimEnd());
     if (x.state !== 'same') for (const d of x.details) lines.push(`           ${d}`);
   }
   lines.push('');

@@ -3,42 +3,18 @@
  */
 import { createHash } from 'node:crypto';
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.ts';
 import { readDocument, writeDocument } from '../../src/doc/format.ts';
 import { toJson } from '../../src/lang/json.ts';
 import { fingerprint } from '../../src/seal/fingerprint.ts';
 import { readSeal } from '../../src/seal/section.ts';
 import { columnDigest } from '../../src/seal/sealed-json.ts';
 import { run } from '../helpers.ts';
+import { cli, sampleCopies, scratch } from './support.ts';
 import { isNumberColumn, isTable } from '../../src/lang/values.ts';
-
-export function cli(...args: string[]): { code: number; out: string; err: string } {
-  const out: string[] = [];
-  const err: string[] = [];
-  const code = main(args, { out: (s) => out.push(s), err: (s) => err.push(s) }) as number;
-  return { code, out: out.join('\n'), err: err.join('\n') };
-}
-
-export function scratch(files: Record<string, string>): string {
-  const dir = mkdtempSync(join(tmpdir(), 'furrow-seal-'));
-  for (const [name, text] of Object.entries(files)) writeFileSync(join(dir, name), text);
-  return dir;
-}
-
-/** A copy of every sample in a scratch folder. */
-export function sampleCopies(): string[] {
-  const dir = mkdtempSync(join(tmpdir(), 'furrow-samples-'));
-  return readdirSync('samples')
-    .filter((f) => f.endsWith('.furrow'))
-    .map((f) => {
-      copyFileSync(join('samples', f), join(dir, f));
-      return join(dir, f);
-    });
-}
 
 const sealedPart = (text: string): string => text.slice(text.indexOf('--- sealed'));
 
