@@ -10,41 +10,13 @@
  */
 import DOMPurify from 'dompurify';
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
-import { Marked } from 'marked';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
 import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/app/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { splitNote } from './model.ts';
-
-/**
- * Markers for placeholders while the Markdown is rendered: characters from the private-use
- * area, which a note's own text never keeps (see `markdownSource`).
- */
-const SLOT_OPEN = '\uE000';
-const SLOT_CLOSE = '\uE001';
-const SLOT = /\uE000(\d+)\uE001/g;
-const PRIVATE_MARKS = /[\uE000\uE001]/g;
-/** A marker as it may stand in an attribute: raw, or percent-encoded in an address. */
-const ATTRIBUTE_SLOT = /(?:\uE000|%EE%80%80)(\d+)(?:\uE001|%EE%80%81)/gi;
-
-/**
- * A Markdown renderer of our own instance (the shared `marked` object stays untouched) that
- * writes raw HTML from the note as visible text: Markdown covers what a note needs, and no
- * tag a document's author wrote ever reaches an HTML parser in the page.
- */
-const markdown = new Marked({ gfm: true, async: false });
-markdown.use({
-  renderer: {
-    // a block of raw HTML reads as a paragraph of its text; inline tags as their text
-    html: ({ text, block }) => (block ? `<p>${escapeHtml(text.replace(/\s+$/, ''))}</p>\n` : escapeHtml(text)),
-  },
-});
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => (c === '&' ? '&amp;' : c === '<' ? '&lt;' : c === '>' ? '&gt;' : c === '"' ? '&quot;' : '&#39;'));
-}
+import { ATTRIBUTE_SLOT, SLOT, SLOT_OPEN, noteMarkdownHtml, placeholderSources } from './markdown.ts';
 
 /** Attributes a note may not carry: the page's own marks (a fake live value) and addresses that load things. */
 const PAGE_ATTRIBUTES = ['class', 'id', 'style', 'srcset', 'poster', 'background', 'action', 'formaction', 'xlink:href'];
@@ -69,17 +41,6 @@ function installHooks(): void {
   });
 }
 
-/** The Markdown a note renders: placeholders become markers, stray private marks are dropped. */
-function markdownSource(text: string): { md: string; slots: number } {
-  let md = '';
-  let slots = 0;
-  for (const p of splitNote(text)) {
-    if (p.type === 'text') md += p.text.replace(PRIVATE_MARKS, '\uFFFD');
-    else md += `${SLOT_OPEN}${slots++}${SLOT_CLOSE}`;
-  }
-  return { md, slots };
-}
-
 /**
  * A note's Markdown as sanitized DOM, with each placeholder an empty slot element that the
  * view fills with text. Live values are put in as DOM nodes after sanitizing, never spliced
@@ -98,20 +59,6 @@ export function renderNote(text: string): { fragment: DocumentFragment; slots: n
   });
   placeSlots(fragment, placeholderSources(text));
   return { fragment, slots };
-}
-
-/**
- * A note's Markdown as HTML text before sanitizing, with a marker for each placeholder and
- * every raw tag of the note escaped. No DOM needed. Exported for tests.
- */
-export function noteMarkdownHtml(text: string): { html: string; slots: number } {
-  const { md, slots } = markdownSource(text);
-  return { html: markdown.parse(md) as string, slots };
-}
-
-/** The source of each placeholder, braces included, as a note shows a failed one. */
-function placeholderSources(text: string): string[] {
-  return splitNote(text).flatMap((p) => (p.type === 'placeholder' ? [p.raw.replace(PRIVATE_MARKS, '')] : []));
 }
 
 /**
