@@ -5,7 +5,7 @@ import { register } from 'tsx/esm/api';
 
 register();
 const { main } = await import('../src/cli/main.ts');
-const code = main(process.argv.slice(2), {
+const code = await main(process.argv.slice(2), {
   out: (s) => process.stdout.write(`${s}\n`),
   err: (s) => process.stderr.write(`${s}\n`),
 });
