@@ -19,6 +19,8 @@ import { Autosaver, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
 import { fileNameFor, pickFile, readFileText, saveText } from './files.ts';
 import { DocumentStore } from './store.ts';
+import './handoff/hand-off.ts';
+import { documentFromReport } from './handoff/report-open.ts';
 import { shared } from './theme.ts';
 
 /** A message shown in the banner under the toolbar. */
@@ -306,6 +308,10 @@ export class FurrowApp extends LitElement {
 
   /** Opens a document from text; a text that is not a document changes nothing. */
   openText(text: string, fileName: string | null): boolean {
+    const report = documentFromReport(text);
+    if (report !== null) [text, fileName] = [report.text, report.name];
+    for (const [n, t] of report?.files ?? []) this.files.set(n, t);
+    if (report !== null && report.files.length > 0) this.bridge.files(report.files);
     try {
       const doc = readDocument(text).document;
       this.fileName = fileName;
@@ -792,6 +798,7 @@ export class FurrowApp extends LitElement {
           ${fields.get('author') ? html`<div class="byline">${fields.get('author')}</div>` : nothing}
           ${fields.get('caution') ? html`<div class="caution" role="note"><b>Caution</b>${fields.get('caution')}</div>` : nothing}
         </header>
+        <furrow-hand-off .doc=${this.doc} .stateOf=${(c: Cell) => this.drawState(c)} .files=${this.files} .fileName=${this.fileName}></furrow-hand-off>
         ${repeat(
           this.doc.cells,
           (c) => c.id,

@@ -9,8 +9,10 @@ import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { chromium } from 'playwright-core';
+import { runTests } from './harness.mjs';
 
 const OUT = 'test-output/e2e';
+const args = process.argv.slice(2);
 const DIR = join(OUT, 'reports');
 mkdirSync(DIR, { recursive: true });
 
@@ -159,4 +161,147 @@ async function main() {
   process.exitCode = failed > 0 ? 1 : 0;
 }
 
+/** Waits until the page says every cell is up to date (or has its error). */
+async function settled(page) {
+  await page.waitForFunction(() => document.querySelector('furrow-app')?.bridge !== undefined);
+  await page.evaluate(() => document.querySelector('furrow-app').settled());
+  await page.waitForFunction(() => {
+    const secs = document.querySelector('furrow-app')?.shadowRoot?.querySelectorAll('section.cell');
+    return secs && secs.length > 0 && [...secs].every((s) => s.dataset.status !== 'pending');
+  });
+}
+
+async function drop(page, text, name) {
+  await page.evaluate(
+    ({ text, name }) => {
+      const dt = new DataTransfer();
+      dt.items.add(new File([text], name, { type: 'text/html' }));
+      window.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    },
+    { text, name },
+  );
+}
+
+/** The document text the page keeps in IndexedDB (what a reload or Save gives back). */
+async function savedText(page) {
+  return page.evaluate(
+    () =>
+      new Promise((resolve, reject) => {
+        const req = indexedDB.open('furrow', 1);
+        req.onerror = () => reject(req.error);
+        req.onsuccess = () => {
+          const get = req.result.transaction('saved', 'readonly').objectStore('saved').get('current');
+          get.onsuccess = () => resolve(get.result?.text ?? null);
+          get.onerror = () => reject(get.error);
+        };
+      }),
+  );
+}
+
+/** Seals a copy of a sample and makes its report; returns the paths. */
+function sealedReport(sample) {
+  const dir = join(DIR, 'page');
+  mkdirSync(dir, { recursive: true });
+  const src = join(dir, sample);
+  writeFileSync(src, readFileSync(join('samples', sample)));
+  const sealed = spawnSync(process.execPath, ['bin/furrow.js', 'seal', src], { encoding: 'utf8' });
+  check(sealed.status === 0, sealed.stderr);
+  const html = src.replace(/\.furrow$/, '.html');
+  report(src, html);
+  return { src, html };
+}
+
+/** Opens a report in the page by dropping it, and waits for its cells. */
+async function openReport(page, base, html, titlePattern) {
+  await page.goto(`${base}/`);
+  await settled(page);
+  await drop(page, readFileSync(html, 'utf8'), html.split('/').pop());
+  await page.waitForFunction((p) => new RegExp(p).test(document.querySelector('furrow-app').shadowRoot.querySelector('textarea.title')?.value ?? ''), titlePattern);
+  await settled(page);
+  await page.locator('furrow-hand-off .verdict').waitFor();
+}
+
+const SAMPLES = readdirSync('samples').filter((f) => f.endsWith('.furrow'));
+
+const pageTests = [
+  {
+    name: 'the page opens the report of every sealed sample back as its document, byte for byte, and verifies its seal',
+    async run({ context, base, out }) {
+      const verdicts = [];
+      for (const sample of SAMPLES) {
+        const { src, html } = sealedReport(sample);
+        const page = await context.newPage();
+        page.on('dialog', (d) => void d.accept());
+        const title = readFileSync(src, 'utf8').match(/^title: (.{0,20})/m)[1].replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+        await openReport(page, base, html, title);
+        const original = readFileSync(src, 'utf8');
+        let kept = null;
+        for (let i = 0; i < 30 && kept !== original; i++) {
+          await page.waitForTimeout(200);
+          kept = await savedText(page);
+        }
+        check(kept === original, `${sample}: the page's document differs from the file (${kept?.length} vs ${original.length} characters)`);
+        const v = page.locator('furrow-hand-off .verdict');
+        const verdict = await v.getAttribute('data-verdict');
+        if (verdict !== 'verified') verdicts.push(`${sample}: ${verdict}\n${await v.innerText()}`);
+        await page.screenshot({ path: `${out}/report-reopened-${sample.replace(/\.furrow$/, '')}.png` });
+        await page.close();
+      }
+      check(verdicts.length === 0, `recomputed in the browser, these differ from their seal made in Node:\n${verdicts.join('\n\n')}`);
+    },
+  },
+  {
+    name: 'after an edit the page says what differs from the seal, marks the cells and the notes a failing claim reads',
+    async run({ context, base, out }) {
+      const { html } = sealedReport('adhesive-cure.furrow');
+      const page = await context.newPage();
+      page.on('dialog', (d) => void d.accept());
+      await openReport(page, base, html, 'Cure temperature');
+      const hand = page.locator('furrow-hand-off');
+      const strip = await hand.locator('.strip').innerText();
+      check(/All 3 claims hold/.test(strip) && /curing at 80C gives stronger joints than at 60C/.test(strip), `claims strip: ${strip}`);
+      await page.screenshot({ path: `${out}/report-reopened-top.png` });
+      // every 80C coupon 4 MPa weaker: the claim that 80C beats 60C fails
+      const table = page.locator('section[data-name="coupons"] furrow-table-cell');
+      const rows = await page.evaluate(() => {
+        const t = document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="coupons"]');
+        return t ? null : 'no coupons table';
+      });
+      check(rows === null, rows ?? '');
+      const cells = table.locator('[role="gridcell"][data-c="2"]', { hasText: /^80C$/ });
+      const n = await cells.count();
+      check(n >= 5, `${n} coupons at 80C`);
+      for (let k = 0; k < n; k++) {
+        const r = await cells.nth(k).getAttribute('data-r');
+        const shear = table.locator(`[role="gridcell"][data-r="${r}"][data-c="3"]`);
+        const old = Number((await shear.innerText()).trim());
+        await shear.click();
+        await page.keyboard.type((old - 4).toFixed(1));
+        await page.keyboard.press('Enter');
+      }
+      await settled(page);
+      await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('furrow-hand-off')?.shadowRoot?.querySelector('.verdict')?.dataset.verdict === 'differs');
+      await page.waitForTimeout(150);
+      const marked = await page.evaluate(() => [...document.querySelector('furrow-app').shadowRoot.querySelectorAll('section.cell[data-verify]')].map((s) => s.dataset.name));
+      for (const name of ['coupons', 'fit', 'gain', 'stronger']) check(marked.includes(name), `${name} is not marked: ${marked.join(', ')}`);
+      const list = await hand.locator('.verdict').innerText();
+      check(/coupons\.shear_mpa\[\d+\]: was [\d.]+, now [\d.]+/.test(list), `the banner lists a changed measurement: ${list.slice(0, 400)}`);
+      check(/"curing at 80C gives stronger joints than at 60C" \(stronger, cell \d+\) NO LONGER HOLDS/.test(list), `the banner names the failing claim: ${list.slice(0, 600)}`);
+      const fails = await hand.locator('.claim.fails').allInnerTexts();
+      check(fails.some((t) => /curing at 80C gives stronger joints than at 60C/.test(t)), `the claims strip shows the failing claim: ${fails.join(' | ')}`);
+      const doubt = await page.evaluate(() =>
+        [...document.querySelector('furrow-app').shadowRoot.querySelectorAll('furrow-note-cell')].flatMap((n) => [...n.shadowRoot.querySelectorAll('.slot[data-doubt]')].map((s) => s.textContent)),
+      );
+      check(doubt.length > 0, 'no live number of a note is marked as read by the failing claim');
+      await page.screenshot({ path: `${out}/report-reopened-edited.png` });
+      await page.locator('section[data-name="gain"]').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `${out}/report-reopened-edited-cells.png` });
+    },
+  },
+];
+
 await main();
+if (!args.includes('--no-page')) {
+  const { failed } = await runTests(pageTests, { build: !args.includes('--no-build') });
+  if (failed > 0) process.exitCode = 1;
+}
