@@ -49,6 +49,8 @@ export class HandOffPanel extends LitElement {
   private verification: Verification | null = null;
   private doubts = new Map<string, NoteDoubt>();
   private lastInputs: unknown[] = [];
+  /** The marks on the sheet are out of date (set when the verdict or the doubts change). */
+  private marksDue = false;
 
   constructor() {
     super();
@@ -150,6 +152,7 @@ export class HandOffPanel extends LitElement {
     const byId = new Map(doc.cells.map((c) => [c.id, c] as const));
     this.doubts = notesInDoubt(doc.cells, states, (id) => namesReadBy(byId.get(id)));
     this.verification = doc.cells.some((c) => isSealedCell(c.marker)) ? verifyDocument(doc, states, this.fileBytes()) : null;
+    this.marksDue = true;
   }
 
   private fileBytes(): Map<string, Uint8Array> {
@@ -159,7 +162,8 @@ export class HandOffPanel extends LitElement {
   override updated(changed: PropertyValues): void {
     super.updated(changed);
     const root = this.getRootNode();
-    if (!(root instanceof ShadowRoot || root instanceof Document) || this.doc === null) return;
+    if (!this.marksDue || !(root instanceof ShadowRoot || root instanceof Document) || this.doc === null) return;
+    this.marksDue = false;
     const marks = new Map<string, CellMark>();
     const v = this.verification;
     if (v !== null) {
