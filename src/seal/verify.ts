@@ -280,5 +280,26 @@ function describeDifference(path: string, was: JsonTree, now: JsonTree, out: str
     }
     return;
   }
-  out.push(`${path}: was ${shortJson(was)}, now ${shortJson(now)}`);
+  const ulps = typeof was === 'number' && typeof now === 'number' ? ulpDistance(was, now) : null;
+  const near = ulps !== null && ulps <= NEAR_ULPS ? ` (${ulps} ${ulps === 1 ? 'unit' : 'units'} in the last place)` : '';
+  out.push(`${path}: was ${shortJson(was)}, now ${shortJson(now)}${near}`);
+}
+
+/** Differences up to this many units in the last place are named as such. */
+const NEAR_ULPS = 1024;
+
+/**
+ * How many doubles lie between two finite numbers of the same sign, counting one end:
+ * 1 for neighbours. Null when it does not apply (signs differ, a number is not finite).
+ */
+export function ulpDistance(a: number, b: number): number | null {
+  if (!Number.isFinite(a) || !Number.isFinite(b) || Math.sign(a) !== Math.sign(b) || Object.is(a, -0) !== Object.is(b, -0)) return null;
+  const view = new DataView(new ArrayBuffer(8));
+  const bits = (x: number): bigint => {
+    view.setFloat64(0, Math.abs(x));
+    return view.getBigUint64(0);
+  };
+  const d = bits(a) - bits(b);
+  const n = d < 0n ? -d : d;
+  return n > BigInt(Number.MAX_SAFE_INTEGER) ? null : Number(n);
 }

@@ -52,3 +52,18 @@ describe('readJson', () => {
     expect(() => readJson('['.repeat(100_000))).toThrow(/nested too deeply/);
   });
 });
+
+describe('ulpDistance', () => {
+  it('counts the doubles between two numbers', async () => {
+    const { ulpDistance } = await import('../../src/seal/verify.ts');
+    // source: IEEE 754-2019, binary64: neighbours differ by one in their bit pattern (common practice)
+    expect(ulpDistance(1, 1 + Number.EPSILON)).toBe(1);
+    expect(ulpDistance(1, 1 + 4 * Number.EPSILON)).toBe(4);
+    expect(ulpDistance(3.46171140040452, 3.4617114004045195)).toBe(1);
+    expect(ulpDistance(-2, -2 - 4 * Number.EPSILON)).toBe(2); // one unit at 2 is 2 * EPSILON
+    expect(ulpDistance(1, -1)).toBe(null);
+    expect(ulpDistance(0, -0)).toBe(null);
+    expect(ulpDistance(1, Infinity)).toBe(null);
+    expect(ulpDistance(2.5, 2.5)).toBe(0);
+  });
+});
