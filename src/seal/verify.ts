@@ -223,7 +223,7 @@ function memberPath(path: string, key: string): string {
 }
 
 /** Lists what differs between a sealed tree and a recomputed one, as plain lines. */
-function describeDifference(path: string, was: JsonTree, now: JsonTree, out: string[]): void {
+function describeDifference(path: string, was: JsonTree, now: JsonTree, out: string[], rowLabels: readonly string[] | null = null): void {
   if (out.length >= MAX_COUNTED) return;
   if (isStandIn(was) && isStandIn(now)) {
     const n0 = was.members.get('length') as number;
@@ -261,10 +261,11 @@ function describeDifference(path: string, was: JsonTree, now: JsonTree, out: str
       out.push(`${path}: the chart's specification differs`);
       return;
     }
+    const labels = tableRowLabels(now);
     for (const k of k0) {
       const a = was.members.get(k)!;
       const b = now.members.get(k)!;
-      if (!sameTree(a, b)) describeDifference(memberPath(path, k), a, b, out);
+      if (!sameTree(a, b)) describeDifference(memberPath(path, k), a, b, out, labels);
     }
     return;
   }
@@ -276,13 +277,33 @@ function describeDifference(path: string, was: JsonTree, now: JsonTree, out: str
       return;
     }
     for (let i = 0; i < a.length && out.length < MAX_COUNTED; i++) {
-      if (!sameTree(a[i]!, b[i]!)) describeDifference(`${path}[${i + 1}]`, a[i]!, b[i]!, out);
+      const label = rowLabels?.[i];
+      if (!sameTree(a[i]!, b[i]!)) describeDifference(`${path}[${i + 1}]${label === undefined ? '' : ` (${label})`}`, a[i]!, b[i]!, out);
     }
     return;
   }
   const ulps = typeof was === 'number' && typeof now === 'number' ? ulpDistance(was, now) : null;
   const near = ulps !== null && ulps <= NEAR_ULPS ? ` (${ulps} ${ulps === 1 ? 'unit' : 'units'} in the last place)` : '';
   out.push(`${path}: was ${shortJson(was)}, now ${shortJson(now)}${near}`);
+}
+
+/**
+ * For an object that reads as a table (every member an array of one length) whose first
+ * column holds texts (an analysis table's sources, a means table's levels, the two levels of
+ * a pair), those texts, to name rows by ("error", "80C - 60C") as well as by number.
+ */
+function tableRowLabels(t: JsonObject): string[] | null {
+  let length = -1;
+  for (const v of t.members.values()) {
+    if (!Array.isArray(v)) return null;
+    if (length >= 0 && v.length !== length) return null;
+    length = v.length;
+  }
+  const a = [...t.members.values()] as (readonly JsonTree[])[];
+  const texts = a[0];
+  if (texts === undefined || length <= 0 || !texts.every((x) => typeof x === 'string')) return null;
+  const second = a.length > 1 && a[1]!.every((x) => typeof x === 'string') ? (a[1] as readonly string[]) : null;
+  return (texts as readonly string[]).map((x, i) => (second === null ? x : `${x} - ${second[i]}`));
 }
 
 /** Differences up to this many units in the last place are named as such. */
