@@ -225,9 +225,8 @@ const SAMPLES = readdirSync('samples').filter((f) => f.endsWith('.furrow'));
 
 const pageTests = [
   {
-    name: 'the page opens the report of every sealed sample back as its document, byte for byte, and verifies its seal',
+    name: 'the page opens the report of every sealed sample back as its document, byte for byte, and makes the same report',
     async run({ context, base, out }) {
-      const verdicts = [];
       for (const sample of SAMPLES) {
         const { src, html } = sealedReport(sample);
         const page = await context.newPage();
@@ -241,10 +240,32 @@ const pageTests = [
           kept = await savedText(page);
         }
         check(kept === original, `${sample}: the page's document differs from the file (${kept?.length} vs ${original.length} characters)`);
+        await page.screenshot({ path: `${out}/report-reopened-${sample.replace(/\.furrow$/, '')}.png` });
+        // the page's own report carries the same document and draws the same charts
+        const [download] = await Promise.all([page.waitForEvent('download'), page.locator('furrow-hand-off button.report').click()]);
+        const made = readFileSync(await download.path(), 'utf8');
+        const carried = made.match(/<pre hidden id="furrow-source" data-name="[^"]*">([A-Za-z0-9+/=]*)<\/pre>/);
+        check(carried !== null && Buffer.from(carried[1], 'base64').toString('utf8') === original, `${sample}: the page's report does not carry the document`);
+        const charts = (original.match(/_chart\(|scatter\(/g) ?? []).length;
+        check((made.match(/<figure class="chart"><svg /g) ?? []).length === charts, `${sample}: the page's report lacks charts`);
+        check(!/<script/i.test(made), `${sample}: the page's report holds a script element`);
+        await page.close();
+      }
+    },
+  },
+  {
+    name: 'a sealed sample opened in the page verifies there (recomputed in the browser, bit for bit)',
+    async run({ context, base }) {
+      const verdicts = [];
+      for (const sample of SAMPLES) {
+        const { src, html } = sealedReport(sample);
+        const page = await context.newPage();
+        page.on('dialog', (d) => void d.accept());
+        const title = readFileSync(src, 'utf8').match(/^title: (.{0,20})/m)[1].replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+        await openReport(page, base, html, title);
         const v = page.locator('furrow-hand-off .verdict');
         const verdict = await v.getAttribute('data-verdict');
         if (verdict !== 'verified') verdicts.push(`${sample}: ${verdict}\n${await v.innerText()}`);
-        await page.screenshot({ path: `${out}/report-reopened-${sample.replace(/\.furrow$/, '')}.png` });
         await page.close();
       }
       check(verdicts.length === 0, `recomputed in the browser, these differ from their seal made in Node:\n${verdicts.join('\n\n')}`);
