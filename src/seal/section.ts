@@ -57,7 +57,8 @@ export function namedValues(states: readonly CellState[]): { name: string; cell:
   return out;
 }
 
-function claimsJson(claims: readonly SealedClaim[]): string {
+/** The claims line's JSON, as a seal writes it. */
+export function claimsJson(claims: readonly SealedClaim[]): string {
   const one = (c: SealedClaim): string =>
     `{"cell":${c.cell},"name":${c.name === null ? 'null' : jsonText(c.name)},"holds":${c.holds},"statement":${jsonText(c.statement)}}`;
   return `[${claims.map(one).join(',')}]`;
@@ -81,6 +82,8 @@ export function sealBody(states: readonly CellState[], print: Fingerprint, eol =
 /** A sealed value as read back. */
 export interface SealedValue {
   readonly json: JsonTree;
+  /** The JSON as written on the line. */
+  readonly text: string;
   /** 1-based line in the file. */
   readonly line: number;
 }
@@ -92,6 +95,8 @@ export interface SealRecord {
   readonly cells: string | null;
   readonly data: ReadonlyMap<string, string | null> | null;
   readonly claims: readonly SealedClaim[] | null;
+  /** The claims line's JSON as written. */
+  readonly claimsText: string | null;
   readonly values: ReadonlyMap<string, SealedValue>;
   /** Plain sentences about lines that are missing, altered or out of place. */
   readonly problems: readonly string[];
@@ -138,7 +143,7 @@ export function readSeal(body: string, firstLine: number): SealRecord {
       return;
     }
     try {
-      values.set(key, { json: readJson(m[2]!), line });
+      values.set(key, { json: readJson(m[2]!), text: m[2]!, line });
     } catch (err) {
       if (!(err instanceof JsonSyntaxError)) throw err;
       problems.push(`Line ${line}: the sealed value of ${key} cannot be read (${err.message}).`);
@@ -161,7 +166,7 @@ export function readSeal(body: string, firstLine: number): SealRecord {
   const cells = digestOf('cells');
   const data = readData(head.get('data'), problems);
   const claims = readClaims(head.get('claims'), problems);
-  return { engine, fingerprint, cells, data, claims, values, problems };
+  return { engine, fingerprint, cells, data, claims, claimsText: head.get('claims')?.text ?? null, values, problems };
 }
 
 function clip(s: string): string {

@@ -29,13 +29,15 @@ export function verificationText(path: string, v: Verification): string[] {
     if (x.state !== 'same') for (const d of x.details) lines.push(`           ${d}`);
   }
   lines.push('');
-  const failing = v.claims.filter((c) => c.state !== 'holds' || c.heldWhenSealed === null);
+  const failing = v.claims.filter((c) => c.state !== 'holds' || c.heldWhenSealed !== true);
   const holding = v.claims.length - failing.length;
   lines.push(`Claims: ${holding} of ${v.claims.length} hold as sealed.`);
   for (const c of failing) {
     const who = c.name === null ? '' : ` (${c.name}${c.cell === null ? '' : `, cell ${c.cell}`})`;
     const what =
-      c.state === 'fails'
+      c.state === 'holds'
+        ? 'holds now, but did not when sealed'
+        : c.state === 'fails'
         ? c.heldWhenSealed
           ? 'NO LONGER HOLDS'
           : 'does not hold (nor did it when sealed)'

@@ -8,7 +8,7 @@ import { parseMarker, type Document } from '../doc/document.ts';
 import type { CellState } from '../graph/engine.ts';
 import { fingerprint, isSealedCell } from './fingerprint.ts';
 import { JsonObject, readJson, sameTree, type JsonTree } from './json-tree.ts';
-import { claimsOf, namedValues, readSeal, type SealRecord, type SealedClaim } from './section.ts';
+import { claimsJson, claimsOf, namedValues, readSeal, type SealRecord, type SealedClaim } from './section.ts';
 import { blockSize } from './sealed-json.ts';
 import { ENGINE_NAME } from './version.ts';
 
@@ -102,36 +102,44 @@ export function verifyDocument(doc: Document, states: readonly CellState[], file
 
   const engine = { sealedBy: seal.engine, now: ENGINE_NAME, same: seal.engine === ENGINE_NAME };
   const fp = checkFingerprint(seal, print);
-  const values = checkValues(seal, states);
+  const values = checkValues(seal, states, problems);
   const claims = checkClaims(seal.claims ?? [], states);
+  const claimsAsSealed = claims.every((c) => c.state === 'holds' && c.heldWhenSealed === true);
+  if (seal.claims !== null && claimsAsSealed && fp.same && seal.claimsText !== claimsJson(claimsOf(states))) {
+    problems.push('The "claims:" line is not written as a seal writes it for this document (it was edited by hand).');
+  }
   const matches =
     problems.length === 0 &&
     engine.same &&
     fp.same &&
     values.every((v) => v.state === 'same') &&
-    claims.every((c) => c.state === 'holds' && c.heldWhenSealed !== null);
+    claims.every((c) => c.state === 'holds' && c.heldWhenSealed === true);
   return { sealed: true, engine, fingerprint: fp, values, claims, problems, matches };
 }
 
 function checkFingerprint(seal: SealRecord, print: ReturnType<typeof fingerprint>): FingerprintCheck {
   const details: string[] = [];
-  if (seal.cells !== null && seal.cells !== print.cells) details.push('The cells changed since sealing.');
+  const wholeSame = seal.fingerprint === print.whole;
+  if (seal.cells !== null && seal.cells !== print.cells) {
+    details.push(wholeSame ? 'The "cells:" line does not match the document (it was edited).' : 'The cells changed since sealing.');
+  }
   if (seal.data !== null) {
     for (const [name, d] of print.files) {
       if (!seal.data.has(name)) details.push(`The data file ${name} was not named when the document was sealed.`);
       else if (d === null) details.push(`The data file ${name} is missing.`);
-      else if (seal.data.get(name) !== d) details.push(`The data file ${name} changed since sealing.`);
+      else if (seal.data.get(name) !== d) details.push(wholeSame ? `The "data:" line does not match ${name} (it was edited).` : `The data file ${name} changed since sealing.`);
     }
     for (const name of seal.data.keys()) if (!print.files.has(name)) details.push(`The data file ${name} is no longer named by any table.`);
   }
-  const same = seal.fingerprint === print.whole;
-  if (!same && details.length === 0) {
+  if (!wholeSame && details.length === 0) {
     details.push(seal.fingerprint === null ? 'The seal has no readable fingerprint.' : 'The fingerprint line does not match the document (it was edited).');
   }
-  return { same, details: same ? [] : details, now: print.whole };
+  // every part must match as well as the whole: a seal whose parts disagree was altered
+  const same = wholeSame && details.length === 0 && seal.cells !== null && seal.data !== null;
+  return { same, details, now: print.whole };
 }
 
-function checkValues(seal: SealRecord, states: readonly CellState[]): ValueCheck[] {
+function checkValues(seal: SealRecord, states: readonly CellState[], problems: string[]): ValueCheck[] {
   const now = new Map(namedValues(states).map((v) => [v.name, v] as const));
   const out: ValueCheck[] = [];
   for (const [name, sealed] of seal.values) {
@@ -141,7 +149,11 @@ function checkValues(seal: SealRecord, states: readonly CellState[]): ValueCheck
       continue;
     }
     const tree = readJson(current.json);
-    if (sameTree(sealed.json, tree)) out.push({ name, cell: current.cell, state: 'same', details: [] });
+    if (sameTree(sealed.json, tree)) {
+      out.push({ name, cell: current.cell, state: 'same', details: [] });
+      // the same value, written otherwise: a seal writes one canonical text, so this was edited
+      if (sealed.text !== current.json) problems.push(`Line ${sealed.line}: the sealed value of ${name} is not written as a seal writes it (it reads as the same value, but was edited by hand).`);
+    }
     else {
       const details: string[] = [];
       describeDifference(name, sealed.json, tree, details);
