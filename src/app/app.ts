@@ -847,6 +847,7 @@ export class FurrowApp extends LitElement {
           <button title="Move up" aria-label="Move up" ?disabled=${index === 0} @click=${() => this.moveCell(cell, -1)}>↑</button>
           <button title="Move down" aria-label="Move down" ?disabled=${index === this.doc.cells.length - 1} @click=${() => this.moveCell(cell, 1)}>↓</button>
           <button title="Delete this cell (undo brings it back)" aria-label="Delete" @click=${() => this.deleteCell(cell)}>✕</button>
+          <button title="Where this value comes from" aria-label="Where this value comes from" @click=${() => this.dispatchEvent(new CustomEvent('furrow-trace', { detail: cell.id }))}>⇡</button>
         </span>
       </div>
       <div class="body">

@@ -272,6 +272,25 @@ const pageTests = [
     },
   },
   {
+name: 'any cell shows the chain of cells its value depends on, back to the data, with each value',
+    async run({ context, base, out }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/`);
+      await settled(page);
+      const section = page.locator('section[data-name="gain"]');
+      await section.hover();
+      await section.locator('button[aria-label="Where this value comes from"]').click();
+      const chain = page.locator('furrow-hand-off .chain');
+      await chain.waitFor();
+      const steps = await chain.locator('li').allInnerTexts();
+      check(steps.length === 3, `steps: ${steps.join(' | ')}`);
+      check(/^coupons\s+data\s+\(a table of 24 rows: batch, position, cure, shear_mpa\)/.test(steps[0]), `first step: ${steps[0]}`);
+      check(/^fit\s+reads coupons\s+randomized complete block/.test(steps[1]) && /mse 0\.\d+/.test(steps[1]), `second step: ${steps[1]}`);
+      check(/^gain\s+reads fit\s+estimate 2\.58333/.test(steps[2]), `last step: ${steps[2]}`);
+      await page.screenshot({ path: `${out}/provenance-chain.png` });
+    },
+  },
+  {
     name: 'after an edit the page says what differs from the seal, marks the cells and the notes a failing claim reads',
     async run({ context, base, out }) {
       const { html } = sealedReport('adhesive-cure.furrow');

@@ -21,10 +21,30 @@ import { claimsOf, type SealedClaim } from '../../seal/section.ts';
 import { verificationText } from '../../seal/verify-text.ts';
 import { verifyDocument, type Verification } from '../../seal/verify.ts';
 import { shared } from '../theme.ts';
+import { formatInline, formatNumber } from '../../lang/format.ts';
+import type { Value } from '../../lang/values.ts';
 import { applyMarks, type CellMark } from './marks.ts';
+import { dependencyChain } from './provenance.ts';
 import { namesReadBy, settledStates } from './page-states.ts';
 
 const encoder = new TextEncoder();
+
+/** The event the sheet sends (from its own element) to show where a cell's value comes from; detail: the cell id. */
+export const TRACE_EVENT = 'furrow-trace';
+
+/** A value in a few words for a step of a chain: scalars, a table's size, a record's main numbers. */
+function stepValue(v: Value | null | undefined): string {
+  if (v === null || v === undefined) return '…';
+  if (typeof v === 'object' && v.kind === 'record') {
+    const shown: string[] = [];
+    for (const [k, x] of v.fields) {
+      if (typeof x === 'number' && shown.length < 5) shown.push(`${k} ${formatNumber(x)}`);
+      if (typeof x === 'string' && k === 'design') shown.unshift(x);
+    }
+    return shown.join(', ') || formatInline(v);
+  }
+  return formatInline(v);
+}
 
 /** The hand-off panel. */
 export class HandOffPanel extends LitElement {
@@ -35,6 +55,7 @@ export class HandOffPanel extends LitElement {
     fileName: { attribute: false },
     building: { state: true },
     failure: { state: true },
+    tracing: { state: true },
   };
 
   declare doc: FurrowDocument | null;
@@ -43,6 +64,8 @@ export class HandOffPanel extends LitElement {
   declare fileName: string | null;
   declare building: boolean;
   declare failure: string | null;
+  /** The cell whose chain of dependencies is shown, or null. */
+  declare tracing: string | null;
 
   private states: CellState[] | null = null;
   private claims: SealedClaim[] = [];
@@ -60,6 +83,29 @@ export class HandOffPanel extends LitElement {
     this.fileName = null;
     this.building = false;
     this.failure = null;
+    this.tracing = null;
+  }
+
+  /** Shows where the value of a cell comes from (the sheet asks with a `furrow-trace` event). */
+  trace(cellId: string): void {
+    this.tracing = cellId;
+  }
+
+  private readonly onTrace = (e: Event): void => {
+    const id = (e as CustomEvent<string>).detail;
+    if (typeof id === 'string') this.trace(id);
+  };
+
+  override connectedCallback(): void {
+    super.connectedCallback();
+    const root = this.getRootNode();
+    if (root instanceof ShadowRoot) root.host.addEventListener(TRACE_EVENT, this.onTrace);
+  }
+
+  override disconnectedCallback(): void {
+    super.disconnectedCallback();
+    const root = this.getRootNode();
+    if (root instanceof ShadowRoot) root.host.removeEventListener(TRACE_EVENT, this.onTrace);
   }
 
   static override styles = [
@@ -129,6 +175,46 @@ export class HandOffPanel extends LitElement {
       .failure {
         color: #a3261b;
         font-size: 0.8rem;
+      }
+      .chain {
+        position: fixed;
+        right: 1rem;
+        bottom: 1rem;
+        z-index: 20;
+        width: min(34rem, calc(100vw - 2rem));
+        max-height: 60vh;
+        overflow: auto;
+        background: var(--sheet, #fff);
+        border: 1px solid var(--rule-strong, #999);
+        border-radius: var(--radius);
+        box-shadow: 0 6px 24px rgba(0, 0, 0, 0.18);
+        padding: 0.6rem 0.8rem;
+        font-size: 0.85rem;
+      }
+      .chain header {
+        display: flex;
+        justify-content: space-between;
+        align-items: center;
+      }
+      .chain ol {
+        margin: 0.4rem 0 0;
+        padding-left: 1.3rem;
+      }
+      .chain li {
+        margin: 0.3rem 0;
+      }
+      .chain .step {
+        font-family: var(--font-code);
+        font-weight: 600;
+      }
+      .chain .reads {
+        color: var(--muted);
+        margin: 0 0.4rem;
+      }
+      .chain .value {
+        display: block;
+        font-family: var(--font-code);
+        font-size: 0.78rem;
       }
       @media print {
         .report {
@@ -252,7 +338,32 @@ export class HandOffPanel extends LitElement {
         </button>
       </div>
       ${this.failure ? html`<div class="failure" role="alert">${this.failure}</div>` : nothing}
+      ${this.tracing === null ? nothing : this.renderChain(this.tracing)}
     `;
+  }
+
+  private renderChain(id: string) {
+    const doc = this.doc;
+    if (doc === null) return nothing;
+    const chain = dependencyChain(doc.cells, id);
+    const last = chain[chain.length - 1];
+    return html`<section class="chain" role="dialog" aria-label="Where this value comes from">
+      <header>
+        <strong>Where ${last?.name ?? `cell ${last?.position ?? ''}`} comes from</strong>
+        <button @click=${() => (this.tracing = null)} aria-label="Close">✕</button>
+      </header>
+      <ol>
+        ${chain.map((step) => {
+          const state = this.stateOf(step.cell);
+          const label = step.name ?? `${step.cell.marker.split(' ')[0]} (cell ${step.position})`;
+          return html`<li>
+            <button class="step" title="Go to the cell" @click=${() => this.goTo(step.position)}>${label}</button>
+            ${step.reads.length > 0 ? html`<span class="reads">reads ${step.reads.join(', ')}</span>` : html`<span class="reads">data</span>`}
+            <span class="value">${state?.status === 'error' || state?.status === 'upstream' ? `error: ${state.error?.message ?? ''}` : stepValue(state?.value)}</span>
+          </li>`;
+        })}
+      </ol>
+    </section>`;
   }
 }
 
