@@ -69,8 +69,9 @@ export function sealCommand(args: readonly string[], o: Output, usage: string): 
   }
   const path = args[0]!;
   const r = sealFile(path);
-  o.out(`Sealed ${path}: ${r.values} named values and ${r.claims} claims.`);
+  const plural = (n: number, one: string, many: string): string => `${n} ${n === 1 ? one : many}`;
+  o.out(`Sealed ${path}: ${plural(r.values, 'named value', 'named values')} and ${plural(r.claims, 'claim', 'claims')}.`);
   if (r.errors.length === 0) return 0;
-  o.out(`${r.errors.length} cells hold errors; they are sealed as errors: ${r.errors.join(', ')}.`);
+  o.out(`${r.errors.length === 1 ? '1 cell holds an error; it is' : `${r.errors.length} cells hold errors; they are`} sealed as ${r.errors.length === 1 ? 'an error' : 'errors'}: ${r.errors.join(', ')}.`);
   return 1;
 }
