@@ -42,7 +42,7 @@ if (why === null) {
   register();
   ({ main } = await import('../src/cli/main.ts'));
 }
-const code = main(process.argv.slice(2), {
+const code = await main(process.argv.slice(2), {
   out: (s) => process.stdout.write(`${s}\n`),
   err: (s) => process.stderr.write(`${s}\n`),
 });

@@ -10,41 +10,13 @@
  */
 import DOMPurify from 'dompurify';
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
-import { Marked } from 'marked';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
 import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/app/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
-import { splitNote, type NotePiece } from './model.ts';
-
-/**
- * Markers for placeholders while the Markdown is rendered: characters from the private-use
- * area, which a note's own text never keeps (see `markdownSource`).
- */
-const SLOT_OPEN = '\uE000';
-const SLOT_CLOSE = '\uE001';
-const SLOT = /\uE000(\d+)\uE001/g;
-const PRIVATE_MARKS = /[\uE000\uE001]/g;
-/** A marker as it may stand in an attribute: raw, or percent-encoded in an address. */
-const ATTRIBUTE_SLOT = /(?:\uE000|%EE%80%80)(\d+)(?:\uE001|%EE%80%81)/gi;
-
-/**
- * A Markdown renderer of our own instance (the shared `marked` object stays untouched) that
- * writes raw HTML from the note as visible text: Markdown covers what a note needs, and no
- * tag a document's author wrote ever reaches an HTML parser in the page.
- */
-const markdown = new Marked({ gfm: true, async: false });
-markdown.use({
-  renderer: {
-    // a block of raw HTML reads as a paragraph of its text; inline tags as their text
-    html: ({ text, block }) => (block ? `<p>${escapeHtml(text.replace(/\s+$/, ''))}</p>\n` : escapeHtml(text)),
-  },
-});
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => (c === '&' ? '&amp;' : c === '<' ? '&lt;' : c === '>' ? '&gt;' : c === '"' ? '&quot;' : '&#39;'));
-}
+import { splitNote } from './model.ts';
+import { ATTRIBUTE_SLOT, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';
 
 /** Attributes a note may not carry: the page's own marks (a fake live value) and addresses that load things. */
 const PAGE_ATTRIBUTES = ['class', 'id', 'style', 'srcset', 'poster', 'background', 'action', 'formaction', 'xlink:href'];
@@ -69,64 +41,6 @@ function installHooks(): void {
   });
 }
 
-/** A placeholder of a note, as splitNote gives it. */
-type Placeholder = Extract<NotePiece, { type: 'placeholder' }>;
-
-/**
- * Emphasis marks (`*`, `_`, `~`) a paragraph may hold before they are shown as written. The
- * Markdown renderer pairs emphasis marks in time that grows with the square of their number
- * in one paragraph (measured: 20,000 marks took 2.3 s, 500,000 over seven minutes); no note
- * a person writes comes near this, and a hostile one must not freeze the page.
- */
-export const EMPHASIS_MARKS_PER_PARAGRAPH = 1000;
-/** Longest note rendered as Markdown; a longer one is shown as plain text. */
-export const NOTE_MARKDOWN_LIMIT = 200_000;
-
-/** Paragraphs with too many emphasis marks get them escaped, so they read as written. */
-function boundEmphasis(md: string): string {
-  let marks = 0;
-  for (let i = 0; i < md.length; i++) {
-    const c = md.charCodeAt(i);
-    if (c === 42 || c === 95 || c === 126) marks++;
-  }
-  if (marks <= EMPHASIS_MARKS_PER_PARAGRAPH) return md;
-  return md
-    .split(/(\n[ \t]*\n)/)
-    .map((block) => {
-      let n = 0;
-      for (let i = 0; i < block.length; i++) {
-        const c = block.charCodeAt(i);
-        if (c === 42 || c === 95 || c === 126) n++;
-      }
-      return n > EMPHASIS_MARKS_PER_PARAGRAPH ? block.replace(/[*_~]/g, '\\$&') : block;
-    })
-    .join('');
-}
-
-/** The Markdown a note renders: placeholders become markers, stray private marks are dropped. */
-function markdownSource(pieces: readonly NotePiece[]): { md: string; slots: number } {
-  let md = '';
-  let slots = 0;
-  for (const p of pieces) {
-    if (p.type === 'text') md += p.text.replace(PRIVATE_MARKS, '\uFFFD');
-    else md += `${SLOT_OPEN}${slots++}${SLOT_CLOSE}`;
-  }
-  return { md: boundEmphasis(md), slots };
-}
-
-/** Markdown to HTML, or, past the limits, the text escaped in one preformatted block. */
-function markdownHtml(md: string): string {
-  const plain = (): string => `<pre>${escapeHtml(md)}</pre>`;
-  if (md.length > NOTE_MARKDOWN_LIMIT) return plain();
-  try {
-    return markdown.parse(md) as string;
-  } catch (err) {
-    // thousands of nested quotes or lists exhaust the renderer's stack: show the text as written
-    if (err instanceof RangeError || (err instanceof Error && /call stack/i.test(err.message))) return plain();
-    throw err;
-  }
-}
-
 /**
  * A note's Markdown as sanitized DOM, with each placeholder an empty slot element that the
  * view fills with text. Live values are put in as DOM nodes after sanitizing, never spliced
@@ -136,29 +50,18 @@ function markdownHtml(md: string): string {
  */
 export function renderNote(text: string): { fragment: DocumentFragment; placeholders: Placeholder[] } {
   installHooks();
-  const pieces = splitNote(text);
-  const raw = markdownHtml(markdownSource(pieces).md);
+  const { html: raw, placeholders } = notePiecesHtml(splitNote(text));
   const fragment = DOMPurify.sanitize(raw, {
     RETURN_DOM_FRAGMENT: true,
     FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe', 'object', 'embed', 'svg', 'math', 'audio', 'video', 'source', 'picture', 'track'],
     FORBID_ATTR: PAGE_ATTRIBUTES,
     ALLOW_DATA_ATTR: false,
   });
-  const placeholders = pieces.filter((p): p is Placeholder => p.type === 'placeholder');
   placeSlots(
     fragment,
     placeholders.map((p) => p.raw.replace(PRIVATE_MARKS, '')),
   );
   return { fragment, placeholders };
-}
-
-/**
- * A note's Markdown as HTML text before sanitizing, with a marker for each placeholder and
- * every raw tag of the note escaped. No DOM needed. Exported for tests.
- */
-export function noteMarkdownHtml(text: string): { html: string; slots: number } {
-  const { md, slots } = markdownSource(splitNote(text));
-  return { html: markdownHtml(md), slots };
 }
 
 /**

@@ -20,6 +20,8 @@ import { Autosaver, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
 import { fileNameFor, pickFile, readFileText, saveText } from './files.ts';
 import { DocumentStore } from './store.ts';
+import './handoff/hand-off.ts';
+import { documentFromReport } from './handoff/report-open.ts';
 import { shared } from './theme.ts';
 
 /** A message shown in the banner under the toolbar. */
@@ -307,6 +309,10 @@ export class FurrowApp extends LitElement {
 
   /** Opens a document from text; a text that is not a document changes nothing. */
   openText(text: string, fileName: string | null): boolean {
+    const report = documentFromReport(text);
+    if (report !== null) [text, fileName] = [report.text, report.name];
+    for (const [n, t] of report?.files ?? []) this.files.set(n, t);
+    if (report !== null && report.files.length > 0) this.bridge.files(report.files);
     try {
       const doc = readDocument(text).document;
       this.fileName = fileName;
@@ -793,6 +799,7 @@ export class FurrowApp extends LitElement {
           ${fields.get('author') ? html`<div class="byline">${fields.get('author')}</div>` : nothing}
           ${fields.get('caution') ? html`<div class="caution" role="note"><b>Caution</b>${fields.get('caution')}</div>` : nothing}
         </header>
+        <furrow-hand-off .doc=${this.doc} .stateOf=${(c: Cell) => this.drawState(c)} .files=${this.files} .fileName=${this.fileName}></furrow-hand-off>
         ${repeat(
           this.doc.cells,
           (c) => c.id,
@@ -841,6 +848,7 @@ export class FurrowApp extends LitElement {
           <button title="Move up" aria-label="Move up" ?disabled=${index === 0} @click=${() => this.moveCell(cell, -1)}>↑</button>
           <button title="Move down" aria-label="Move down" ?disabled=${index === this.doc.cells.length - 1} @click=${() => this.moveCell(cell, 1)}>↓</button>
           <button title="Delete this cell (undo brings it back)" aria-label="Delete" @click=${() => this.deleteCell(cell)}>✕</button>
+          <button title="Where this value comes from" aria-label="Where this value comes from" @click=${() => this.dispatchEvent(new CustomEvent('furrow-trace', { detail: cell.id }))}>⇡</button>
         </span>
       </div>
       <div class="body">

@@ -10,6 +10,8 @@ interface PickerWindow {
 }
 
 const TYPES = [{ description: 'Furrow documents', accept: { 'text/plain': ['.furrow'] } }];
+/** What Open accepts: documents, and reports, which carry their document. */
+const OPEN_TYPES = [{ description: 'Furrow documents and reports', accept: { 'text/plain': ['.furrow'], 'text/html': ['.html'] } }];
 
 /** A file the user picked: its name and text. */
 export interface PickedFile {
@@ -24,11 +26,11 @@ export async function readFileText(file: Blob): Promise<string> {
 }
 
 /** Asks for a file to open; null when the user cancels. */
-export async function pickFile(accept = '.furrow,text/plain'): Promise<PickedFile | null> {
+export async function pickFile(accept = '.furrow,.html,text/plain'): Promise<PickedFile | null> {
   const w = window as unknown as PickerWindow;
   if (w.showOpenFilePicker && accept.includes('.furrow')) {
     try {
-      const [handle] = await w.showOpenFilePicker({ types: TYPES, multiple: false });
+      const [handle] = await w.showOpenFilePicker({ types: OPEN_TYPES, multiple: false });
       if (!handle) return null;
       const file = await handle.getFile();
       return { name: file.name, text: await readFileText(file), handle };

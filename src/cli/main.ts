@@ -14,20 +14,34 @@ import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, besideDocument, rea
 import { sheetCommand } from './sheet.ts';
 import { valueText, visible } from './text.ts';
 import { isSafeFileName } from '../../cells/table/model.ts';
+import { reportCommand } from './report.ts';
+import { sealCommand } from './seal.ts';
+import { verifyCommand } from './verify.ts';
 
 const USAGE = `Usage: furrow run FILE [--json]
+       furrow seal FILE
+       furrow verify FILE
+       furrow report FILE -o OUT.html
+       furrow sheet FILE NAME [-o plan.csv]
 
   run FILE          evaluate a .furrow document and print every cell
   run FILE --json   the same, as one JSON object (see the README)
+  seal FILE         append (or replace) the sealed section: every named value,
+                    the claims, the engine's version and the fingerprint
+  verify FILE       recompute a sealed document and say what differs
+  report FILE -o OUT.html
+                    write one self-contained HTML report of the document
   sheet FILE NAME   a layout as a run sheet (CSV); furrow sheet --help for more
 
-Exit status: 0 when every cell evaluated, 1 when a cell holds an error,
-2 when the file cannot be read as a document.`;
+Exit status: 0 when every cell evaluated (seal), everything matches (verify)
+or the report was written; 1 when a cell holds an error, or verify finds a
+difference; 2 when the file cannot be read as a document.`;
 
 /** A failure that ends the command with status 2 and one line on standard error. */
 export class CliFailure extends Error {}
 
-interface Output {
+/** Where a command writes: standard output and standard error, one line per call. */
+export interface Output {
   out: (s: string) => void;
   err: (s: string) => void;
 }
@@ -150,8 +164,26 @@ function jsonReport(states: CellState[]): string {
   return `{"furrow":1,"cells":[${cells.join(',\n')}]}`;
 }
 
-/** Runs the command line with arguments; returns the exit status. */
-export function main(argv: readonly string[], o: Output): number {
+/** Runs a command, turning a CliFailure into one line on standard error and status 2. */
+function guarded(o: Output, command: () => number | Promise<number>): number | Promise<number> {
+  const fail = (err: unknown): number => {
+    if (!(err instanceof CliFailure)) throw err;
+    o.err(visible(`furrow: ${err.message}`));
+    return 2;
+  };
+  try {
+    const r = command();
+    return typeof r === 'number' ? r : r.catch(fail);
+  } catch (err) {
+    return fail(err);
+  }
+}
+
+/** Runs the command line with arguments; returns the exit status (a promise for `report`). */
+export function main(argv: readonly string[], o: Output): number | Promise<number> {
+  if (argv[0] === 'seal') return guarded(o, () => sealCommand(argv.slice(1), o, USAGE));
+  if (argv[0] === 'verify') return guarded(o, () => verifyCommand(argv.slice(1), o, USAGE));
+  if (argv[0] === 'report') return guarded(o, () => reportCommand(argv.slice(1), o, USAGE));
   if (argv[0] === 'sheet') return sheetCommand(argv.slice(1), o);
   const args = argv.filter((a) => a !== '--json');
   const json = argv.includes('--json');
@@ -166,7 +198,7 @@ export function main(argv: readonly string[], o: Output): number {
   }
   const [command, file, ...rest] = args;
   if (command !== 'run') {
-    o.err(`furrow: unknown command "${command}". ${['seal', 'verify', 'report'].includes(command!) ? 'This command is not available yet.' : ''}\n\n${USAGE}`);
+    o.err(`furrow: unknown command "${command}".\n\n${USAGE}`);
     return 2;
   }
   if (file === undefined || rest.length > 0) {

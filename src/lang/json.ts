@@ -1,48 +1,112 @@
 /**
- * The canonical JSON form of values (language.md section 9): the command line's --json
- * output and, later, the sealed values of a document. Written by hand rather than through
- * JSON.stringify of intermediate objects, so that names chosen by a document (a column
- * called "__proto__") are only ever keys of text, and numbers take their shortest
- * round-trip form.
+ * The one canonical JSON form of every value (language.md sections 6 and 9): the command
+ * line's --json output, the sealed values of a document and the digests of large ones all
+ * rest on it, so a value has exactly one text and two equal values have the same text.
+ *
+ * The shapes are the contract's: number as a JSON number (non-finite as the texts "NaN",
+ * "Infinity", "-Infinity"), missing as null, column as an array, table as an object of
+ * column name to array in column order, record as an object in field order, chart as
+ * {"vega_lite": SPEC}, claim as {"holds", "statement"}, error as {"message", "from", "to"}.
+ *
+ * How the text is fixed:
+ * - numbers take ECMAScript's Number-to-String form, the shortest text that reads back as
+ *   the same double (as RFC 8785 section 3.2.2.3 does), with one deliberate difference:
+ *   negative zero is written `-0`, not `0`, so that sealed numbers compare bit for bit;
+ * - texts are written as JSON.stringify writes them (RFC 8785 section 3.2.2.2: only `"`,
+ *   `\`, control characters and lone surrogates are escaped);
+ * - no whitespace anywhere;
+ * - members keep the value's own order rather than RFC 8785's sorted keys, because the order
+ *   of a table's columns and of a record's fields is part of the value.
+ *
+ * Only the fields the contract names are written. A value kind that gains an optional
+ * descriptive part later (for example how a layout was drawn) therefore keeps the same text
+ * and the same digest; such a part, when it should be sealed, is sealed as its own entry.
+ *
+ * Written by hand rather than through JSON.stringify of intermediate objects, so that names
+ * chosen by a document (a column called "__proto__") are only ever keys of text.
  */
-import { elementAt, type Value } from './values.ts';
+import { elementAt, type Column, type Value } from './values.ts';
 
-/** A number in the contract's JSON: shortest round-trip form, non-finite as text. */
+/** A number in the canonical JSON: shortest round-trip form, non-finite as text. */
 export function jsonNumber(x: number): string {
   if (Number.isNaN(x)) return '"NaN"';
   if (x === Infinity) return '"Infinity"';
   if (x === -Infinity) return '"-Infinity"';
-  if (Object.is(x, -0)) return '0';
+  if (Object.is(x, -0)) return '-0';
   return String(x);
 }
 
-/** The JSON text of a value. */
+/** A text in the canonical JSON. */
+export function jsonText(s: string): string {
+  return JSON.stringify(s);
+}
+
+/** The canonical JSON of elements `from` (inclusive) to `to` (exclusive) of a column. */
+export function columnJson(c: Column, from = 0, to = c.values.length): string {
+  const parts: string[] = new Array<string>(Math.max(0, to - from));
+  for (let i = from; i < to; i++) parts[i - from] = toJson(elementAt(c, i));
+  return `[${parts.join(',')}]`;
+}
+
+/** The canonical JSON text of a value. */
 export function toJson(v: Value): string {
   switch (typeof v) {
     case 'number':
       return jsonNumber(v);
     case 'string':
-      return JSON.stringify(v);
+      return jsonText(v);
     case 'boolean':
       return v ? 'true' : 'false';
   }
   switch (v.kind) {
     case 'missing':
       return 'null';
-    case 'column': {
-      const parts: string[] = new Array<string>(v.values.length);
-      for (let i = 0; i < v.values.length; i++) parts[i] = toJson(elementAt(v, i));
-      return `[${parts.join(',')}]`;
-    }
+    case 'column':
+      return columnJson(v);
     case 'table':
-      return `{${v.names.map((n, i) => `${JSON.stringify(n)}:${toJson(v.columns[i]!)}`).join(',')}}`;
+      return `{${v.names.map((n, i) => `${jsonText(n)}:${toJson(v.columns[i]!)}`).join(',')}}`;
     case 'record':
-      return `{${[...v.fields].map(([k, x]) => `${JSON.stringify(k)}:${toJson(x)}`).join(',')}}`;
+      return `{${[...v.fields].map(([k, x]) => `${jsonText(k)}:${toJson(x)}`).join(',')}}`;
     case 'chart':
-      return `{"vega_lite":${JSON.stringify(v.spec)}}`;
+      return `{"vega_lite":${plainJson(v.spec)}}`;
     case 'claim':
-      return `{"holds":${v.holds ? 'true' : 'false'},"statement":${JSON.stringify(v.statement)}}`;
+      return `{"holds":${v.holds ? 'true' : 'false'},"statement":${jsonText(v.statement)}}`;
     case 'error':
-      return `{"message":${JSON.stringify(v.message)},"from":${v.from},"to":${v.to}}`;
+      return `{"message":${jsonText(v.message)},"from":${v.from},"to":${v.to}}`;
   }
+}
+
+/** Deepest nesting a chart specification may have (specs are built by the project). */
+const MAX_DEPTH = 200;
+
+/**
+ * The canonical JSON of plain data (a chart's specification): objects in their own key
+ * order, numbers as {@link jsonNumber}, `undefined` members left out as JSON.stringify does.
+ *
+ * @throws Error on a value that is not plain data (a function, a cycle, a typed array)
+ */
+export function plainJson(x: unknown, depth = 0): string {
+  if (depth > MAX_DEPTH) throw new Error('plainJson: nested too deeply (or a cycle)');
+  if (x === null) return 'null';
+  switch (typeof x) {
+    case 'number':
+      return jsonNumber(x);
+    case 'string':
+      return jsonText(x);
+    case 'boolean':
+      return x ? 'true' : 'false';
+    case 'object':
+      break;
+    default:
+      throw new Error(`plainJson: ${typeof x} is not plain data`);
+  }
+  if (Array.isArray(x)) return `[${x.map((e) => (e === undefined ? 'null' : plainJson(e, depth + 1))).join(',')}]`;
+  const proto = Object.getPrototypeOf(x) as unknown;
+  if (proto !== Object.prototype && proto !== null) throw new Error('plainJson: only plain objects and arrays');
+  const parts: string[] = [];
+  for (const [k, e] of Object.entries(x)) {
+    if (e === undefined) continue;
+    parts.push(`${jsonText(k)}:${plainJson(e, depth + 1)}`);
+  }
+  return `{${parts.join(',')}}`;
 }

@@ -16,7 +16,7 @@ import { DocumentError, readDocument, writeDocument } from '../../src/doc/format
 import { decodeUtf8 } from '../../src/doc/utf8.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { splitNote } from '../../cells/note/model.ts';
-import { noteMarkdownHtml } from '../../cells/note/view.ts';
+import { noteMarkdownHtml } from '../../cells/note/markdown.ts';
 import { doc, evalFormula, run } from '../helpers.ts';
 
 interface Outcome {
@@ -37,7 +37,7 @@ interface Attack {
 function cli(...args: string[]): { code: number; out: string; err: string } {
   const out: string[] = [];
   const err: string[] = [];
-  const code = main(args, { out: (s) => out.push(s), err: (s) => err.push(s) });
+  const code = main(args, { out: (s) => out.push(s), err: (s) => err.push(s) }) as number; // run is synchronous
   return { code, out: out.join('\n'), err: err.join('\n') };
 }
 

@@ -15,7 +15,7 @@ import { main } from '../../src/cli/main.ts';
 function cli(...args: string[]): { code: number; out: string; err: string } {
   const out: string[] = [];
   const err: string[] = [];
-  const code = main(args, { out: (s) => out.push(s), err: (s) => err.push(s) });
+  const code = main(args, { out: (s) => out.push(s), err: (s) => err.push(s) }) as number; // run and sheet are synchronous
   return { code, out: out.join('\n'), err: err.join('\n') };
 }
 

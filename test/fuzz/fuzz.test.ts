@@ -15,7 +15,7 @@ import { BUILTINS } from '../../src/functions/index.ts';
 import { Engine } from '../../src/graph/engine.ts';
 import { isError } from '../../src/lang/values.ts';
 import { splitNote } from '../../cells/note/model.ts';
-import { noteMarkdownHtml } from '../../cells/note/view.ts';
+import { noteMarkdownHtml } from '../../cells/note/markdown.ts';
 
 /** Longest time one case may take (generous: CI shares two cores). */
 const CASE_LIMIT_MS = 2000;

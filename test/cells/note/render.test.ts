@@ -6,7 +6,8 @@
  * parser differs from a browser's in ways that matter to it.)
  */
 import { describe, expect, it } from 'vitest';
-import { EMPHASIS_MARKS_PER_PARAGRAPH, NOTE_MARKDOWN_LIMIT, noteMarkdownHtml, placeSlots } from '../../../cells/note/view.ts';
+import { EMPHASIS_MARKS_PER_PARAGRAPH, NOTE_MARKDOWN_LIMIT, noteMarkdownHtml } from '../../../cells/note/markdown.ts';
+import { placeSlots } from '../../../cells/note/view.ts';
 
 /** The note as DOM, parsed by an inert template and given its slots. */
 function dom(text: string): HTMLElement {

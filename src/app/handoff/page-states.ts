@@ -1,0 +1,53 @@
+/**
+ * The page's view of the cells in the shape the hand-off code takes (the engine's
+ * CellState), so the page verifies a sealed document and lists its claims with the same
+ * code as the command line, from the values the worker sent.
+ */
+import type { CellViewState } from '../../../cells/view-api.ts';
+import { parseFormula } from '../../../cells/formula/model.ts';
+import { parseMarker, type Cell, type Document } from '../../doc/document.ts';
+import type { CellState } from '../../graph/engine.ts';
+import { namesRead, type NameUse } from '../../lang/ast.ts';
+import { MISSING } from '../../lang/values.ts';
+
+/** The name a cell defines, read from its text. */
+export function definedName(cell: Cell): string | null {
+  const m = parseMarker(cell.marker);
+  if (m.kind === 'table') return m.name;
+  if (m.kind === 'formula') return /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/.exec(cell.body)?.[1] ?? null;
+  return null;
+}
+
+/**
+ * Every cell's state as the engine would give it, or null while any cell is still being
+ * computed (a verdict on half-computed values would be wrong).
+ */
+export function settledStates(doc: Document, stateOf: (cell: Cell) => CellViewState | null): CellState[] | null {
+  const out: CellState[] = [];
+  for (const cell of doc.cells) {
+    const kind = parseMarker(cell.marker).kind;
+    const s = stateOf(cell);
+    const inert = kind === 'sealed' || !['note', 'table', 'formula'].includes(kind);
+    if (!inert && (s === null || s.status === 'pending' || s.value === null)) return null;
+    out.push({
+      id: cell.id,
+      kind,
+      name: inert ? null : definedName(cell),
+      value: s?.value ?? MISSING,
+      parts: s?.parts ?? null,
+      warnings: s?.warnings ?? [],
+      status: inert ? 'inert' : (s!.status as CellState['status']),
+      error: s?.error ?? null,
+      version: 0,
+      evaluations: 0,
+    });
+  }
+  return out;
+}
+
+/** The names a formula cell reads, from its text (for the claims that cast doubt on notes). */
+export function namesReadBy(cell: Cell | undefined): readonly NameUse[] {
+  if (cell === undefined || parseMarker(cell.marker).kind !== 'formula') return [];
+  const { statement } = parseFormula(cell.body);
+  return statement === null ? [] : namesRead(statement.expr);
+}

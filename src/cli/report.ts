@@ -1,0 +1,62 @@
+/**
+ * `furrow report FILE -o OUT.html`: one self-contained HTML report of the document
+ * (src/report/build.ts), written through a temporary file and a rename.
+ *
+ * Exit status: 0 when the report was written (a report of a document with errors or
+ * failing claims shows them; it is still a report); 2 when the file cannot be read or the
+ * report cannot be written.
+ */
+import { readFileSync } from 'node:fs';
+import { basename, resolve } from 'node:path';
+import { buildReport } from '../report/build.ts';
+import { readDataFiles } from './data-files.ts';
+import { CliFailure, loadDocument, type Output } from './main.ts';
+import { writeWhole } from './seal.ts';
+
+/** Builds the report of the document at `path` as HTML text. */
+export async function reportHtml(path: string): Promise<string> {
+  const { doc, engine } = loadDocument(path);
+  return buildReport({
+    name: basename(path),
+    bytes: readFileSync(path),
+    doc,
+    states: engine.states(),
+    readsOf: (id) => engine.reads(id),
+    files: readDataFiles(path, doc),
+  });
+}
+
+/** Runs `furrow report FILE -o OUT.html`; returns the exit status. */
+export async function reportCommand(args: readonly string[], o: Output, usage: string): Promise<number> {
+  const files: string[] = [];
+  let out: string | null = null;
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    if (a === '-o' || a === '--output') {
+      out = args[++i] ?? null;
+      if (out === null) {
+        o.err(`furrow: ${a} needs a file name.\n\n${usage}`);
+        return 2;
+      }
+    } else if (a.startsWith('-')) {
+      o.err(`furrow: unknown option ${a}\n\n${usage}`);
+      return 2;
+    } else files.push(a);
+  }
+  if (files.length !== 1 || out === null) {
+    o.err(`furrow: report takes one file and -o OUT.html.\n\n${usage}`);
+    return 2;
+  }
+  if (resolve(out) === resolve(files[0]!)) {
+    o.err('furrow: the report would overwrite the document; name another file after -o.');
+    return 2;
+  }
+  const html = await reportHtml(files[0]!);
+  try {
+    writeWhole(out, html);
+  } catch (err) {
+    throw new CliFailure(`the report cannot be written to ${out}: ${(err as Error).message}`);
+  }
+  o.out(`Wrote ${out} (${Math.round(html.length / 1024)} kB).`);
+  return 0;
+}

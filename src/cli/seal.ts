@@ -1,0 +1,77 @@
+/**
+ * `furrow seal FILE`: appends (or replaces) the document's sealed section, written through a
+ * temporary file beside it and a rename, so a crash never leaves half a document.
+ *
+ * Exit status: 0 when sealed and every cell evaluated; 1 when sealed but some cells hold
+ * errors (they are sealed as errors, and said so); 2 when the file cannot be read.
+ */
+import { closeSync, fsyncSync, openSync, renameSync, rmSync, writeSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { writeDocument } from '../doc/format.ts';
+import { prepareForSeal, sealDocument } from '../seal/seal.ts';
+import { claimsOf, namedValues } from '../seal/section.ts';
+import { readDataFiles } from './data-files.ts';
+import { loadDocument, type Output } from './main.ts';
+
+/**
+ * Writes text to a file through a temporary file in the same folder and a rename: the file
+ * holds either its old bytes or all of the new ones.
+ *
+ * @param beforeRename called after the temporary file is complete, before the rename (a test
+ *   kills the process there)
+ */
+export function writeWhole(path: string, text: string, beforeRename?: () => void): void {
+  const temp = join(dirname(path), `.${basename(path)}.${process.pid}.sealing`);
+  const fd = openSync(temp, 'w', 0o644);
+  try {
+    writeSync(fd, text);
+    fsyncSync(fd);
+  } catch (err) {
+    closeSync(fd);
+    rmSync(temp, { force: true });
+    throw err;
+  }
+  closeSync(fd);
+  beforeRename?.();
+  renameSync(temp, path);
+}
+
+/** What sealing did. */
+export interface SealOutcome {
+  readonly text: string;
+  readonly values: number;
+  readonly claims: number;
+  readonly errors: readonly string[];
+}
+
+/** Seals the document at `path` in place. Throws CliFailure when it cannot be read. */
+export function sealFile(path: string, beforeRename?: () => void): SealOutcome {
+  const { doc, engine } = loadDocument(path);
+  const prepared = prepareForSeal(doc);
+  engine.update(prepared);
+  const states = engine.states();
+  const sealed = sealDocument(prepared, states, readDataFiles(path, prepared));
+  const text = writeDocument(sealed);
+  writeWhole(path, text, beforeRename);
+  return {
+    text,
+    values: namedValues(states).length,
+    claims: claimsOf(states).length,
+    errors: states.flatMap((s, i) => (s.status === 'error' || s.status === 'upstream' ? [s.name ?? `cell ${i + 1} (${s.kind})`] : [])),
+  };
+}
+
+/** Runs `furrow seal FILE`; returns the exit status. */
+export function sealCommand(args: readonly string[], o: Output, usage: string): number {
+  if (args.length !== 1 || args[0]!.startsWith('-')) {
+    o.err(`furrow: seal takes one file.\n\n${usage}`);
+    return 2;
+  }
+  const path = args[0]!;
+  const r = sealFile(path);
+  const plural = (n: number, one: string, many: string): string => `${n} ${n === 1 ? one : many}`;
+  o.out(`Sealed ${path}: ${plural(r.values, 'named value', 'named values')} and ${plural(r.claims, 'claim', 'claims')}.`);
+  if (r.errors.length === 0) return 0;
+  o.out(`${r.errors.length === 1 ? '1 cell holds an error; it is' : `${r.errors.length} cells hold errors; they are`} sealed as ${r.errors.length === 1 ? 'an error' : 'errors'}: ${r.errors.join(', ')}.`);
+  return 1;
+}
