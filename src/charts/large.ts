@@ -4,6 +4,7 @@
  * arrays in one pass, so that a spec carries a few hundred cells and not 100,000 rows (the
  * spec travels through the worker, is compared on every evaluation and sits in the report).
  */
+import * as pm from '../stats/math/portable.ts';
 
 /** Past this many points a chart bins or samples (common practice, no source: one mark per pixel column or so). */
 export const MAX_POINTS = 5000;
@@ -30,21 +31,21 @@ export interface Bins {
  */
 export function roundBins(min: number, max: number, most: number): Bins {
   if (!(max > min)) {
-    const step = min === 0 ? 1 : 10 ** Math.floor(Math.log10(Math.abs(min)));
+    const step = min === 0 ? 1 : pm.pow(10, Math.floor(pm.log10(Math.abs(min))));
     return { start: min - step / 2, step, count: 1 };
   }
   const raw = (max - min) / most;
-  const e0 = Math.floor(Math.log10(raw));
+  const e0 = Math.floor(pm.log10(raw));
   // the smallest round width whose bins, started at a multiple of it, fit in `most`
   for (let e = e0; e <= e0 + 2; e++) {
     for (const m of [1, 2, 2.5, 5]) {
-      const step = m * 10 ** e;
+      const step = m * pm.pow(10, e);
       const start = Math.floor(min / step) * step;
       const count = Math.floor((max - start) / step) + 1;
       if (count <= most) return { start, step, count };
     }
   }
-  const step = 10 ** (e0 + 3);
+  const step = pm.pow(10, e0 + 3);
   const start = Math.floor(min / step) * step;
   return { start, step, count: Math.floor((max - start) / step) + 1 };
 }

@@ -4,6 +4,7 @@
  */
 import { mapNumbers } from '../lang/elementwise.ts';
 import type { Builtin } from './registry.ts';
+import * as pm from '../stats/math/portable.ts';
 
 function unary(name: string, f: (x: number) => number, doc: string, example: string): Builtin {
   return {
@@ -41,9 +42,9 @@ export function roundDecimal(x: number, digits: number): number {
 
 export const MATHS: readonly Builtin[] = [
   unary('sqrt', Math.sqrt, 'Square root. The square root of a negative number is NaN.', 'sqrt(fit.mse)'),
-  unary('ln', Math.log, 'Natural logarithm (base e). ln(0) is -∞; negative numbers give NaN.', 'ln(plots.count + 1)'),
-  unary('log10', Math.log10, 'Logarithm to base 10; log10(0) is -∞ and negative numbers give NaN.', 'log10(plots.colonies)'),
-  unary('exp', Math.exp, 'The exponential function, e to the power x.', 'exp(fit.means.mean)'),
+  unary('ln', pm.log, 'Natural logarithm (base e). ln(0) is -∞; negative numbers give NaN.', 'ln(plots.count + 1)'),
+  unary('log10', pm.log10, 'Logarithm to base 10; log10(0) is -∞ and negative numbers give NaN.', 'log10(plots.colonies)'),
+  unary('exp', pm.exp, 'The exponential function, e to the power x.', 'exp(fit.means.mean)'),
   unary('abs', Math.abs, 'Absolute value: the number without its sign.', 'abs(fit.residuals)'),
   {
     name: 'round',

@@ -21,6 +21,7 @@ import {
   type TextColumn,
   type Value,
 } from './values.ts';
+import { pow } from '../stats/math/portable.ts';
 
 type Scalar = number | string | boolean;
 type Kind = 'number' | 'text' | 'boolean';
@@ -72,7 +73,7 @@ function arith(op: BinaryOp, a: number, b: number): number {
     case '/':
       return a / b;
     default:
-      return a ** b;
+      return pow(a, b);
   }
 }
 
@@ -122,7 +123,7 @@ function arithNumbers(op: BinaryOp, a: Value, b: Value): Value | null {
       for (let i = 0; i < n; i++) out[i] = (x ? x[i]! : sa) / (y ? y[i]! : sb);
       break;
     default:
-      for (let i = 0; i < n; i++) out[i] = (x ? x[i]! : sa) ** (y ? y[i]! : sb);
+      for (let i = 0; i < n; i++) out[i] = pow(x ? x[i]! : sa, y ? y[i]! : sb);
   }
   let missing: Uint8Array | null = null;
   for (const c of [ac, bc]) {

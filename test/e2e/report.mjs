@@ -159,6 +159,7 @@ async function main() {
   writeFileSync(join(OUT, 'report-results.json'), JSON.stringify(results, null, 2));
   console.log(`e2e report: ${results.length - failed} passed, ${failed} failed`);
   process.exitCode = failed > 0 ? 1 : 0;
+  return { passed: results.length - failed, failed };
 }
 
 /** Waits until the page says every cell is up to date (or has its error). */
@@ -340,8 +341,14 @@ name: 'any cell shows the chain of cells its value depends on, back to the data,
   },
 ];
 
-await main();
+// `--json FILE` writes {passed, failed} of both parts, for the CI's count
+const jsonAt = args.indexOf('--json');
+const offline = await main();
+const total = { passed: offline.passed, failed: offline.failed };
 if (!args.includes('--no-page')) {
-  const { failed } = await runTests(pageTests, { build: !args.includes('--no-build') });
-  if (failed > 0) process.exitCode = 1;
+  const page = await runTests(pageTests, { build: !args.includes('--no-build') });
+  total.passed += page.passed;
+  total.failed += page.failed;
 }
+if (total.failed > 0) process.exitCode = 1;
+if (jsonAt >= 0) writeFileSync(args[jsonAt + 1], JSON.stringify(total));

@@ -3,6 +3,7 @@
  * on BigInt. Slow compared with the double path in shift.ts, and used only where that path
  * cannot stay exact.
  */
+import { powerOfTwo } from '../math/portable.ts';
 
 const bits = new DataView(new ArrayBuffer(8));
 
@@ -88,7 +89,7 @@ export function roundScaledInteger(integer: bigint, scale: number): number {
   let remaining = shift;
   while (remaining > 0) {
     const step = Math.min(remaining, 1000);
-    out *= 2 ** -step;
+    out *= powerOfTwo(-step);
     remaining -= step;
   }
   if (out !== 0 && Math.abs(out) < 2.2250738585072014e-308) {
@@ -105,5 +106,5 @@ function subnormalRound(num: bigint, den: bigint): number {
   const rem = scaled % den;
   const twice = rem * 2n;
   if (twice > den || (twice === den && (units & 1n) === 1n)) units += 1n;
-  return Number(units) * 2 ** -1074;
+  return Number(units) * powerOfTwo(-1074);
 }

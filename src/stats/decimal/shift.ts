@@ -21,6 +21,7 @@
  */
 import { EXACT_INTEGER_LIMIT, newDecimalScan, readDecimal, scanDecimal } from './scan.ts';
 import { decimalOfDouble, roundScaledInteger } from './exact.ts';
+import * as pm from '../math/portable.ts';
 
 /** Result of {@link shiftDecimals}. */
 export interface DecimalShift {
@@ -45,7 +46,12 @@ export class DecimalTextError extends Error {
 }
 
 /** Powers of ten that are exact doubles (10^0 .. 10^22). */
-const EXACT_POWERS: readonly number[] = Array.from({ length: 23 }, (_, k) => 10 ** k);
+// built by multiplication, each step exact (10^22 = 2^22 * 5^22 and 5^22 < 2^53), with no call to pow
+const EXACT_POWERS: readonly number[] = Array.from({ length: 23 }, (_, k) => {
+  let p = 1;
+  for (let i = 0; i < k; i++) p *= 10;
+  return p;
+});
 
 /**
  * How one scale of text (texts whose value is `significand * 10^scale`) is shifted on the
@@ -178,7 +184,7 @@ function chooseOffset(values: Float64Array): number {
   if (spread === 0) return lo;
   const magnitude = Math.max(Math.abs(lo), Math.abs(hi));
   if (magnitude < 2 * spread) return 0;
-  const grain = 2 ** Math.floor(Math.log2(spread));
+  const grain = pm.powerOfTwo(Math.floor(pm.log2(spread)));
   const middle = lo + spread / 2;
   return Math.round(middle / grain) * grain;
 }

@@ -83,7 +83,7 @@ export function compactFactor(f: Factor, counts: Int32Array): { factor: Factor; 
 /** Counts of each (a, b) combination, a varying fastest: `out[a + A * b]`. */
 export function crossCounts(a: Int32Array, levelsA: number, b: Int32Array, levelsB: number): Int32Array {
   const cells = levelsA * levelsB;
-  if (cells > 2 ** 28) throw new DesignError(messages.tooManyCells(cells));
+  if (cells > 268_435_456) throw new DesignError(messages.tooManyCells(cells));
   const out = new Int32Array(cells);
   for (let i = 0; i < a.length; i++) out[a[i]! + levelsA * b[i]!]! += 1;
   return out;

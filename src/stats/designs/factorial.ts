@@ -46,7 +46,7 @@ export function allTerms(k: number): number[][] {
 function cellCodes(factors: readonly Factor[], n: number): { codes: Int32Array; cells: number } {
   let cells = 1;
   for (const f of factors) cells *= f.levels.length;
-  if (cells > 2 ** 28) throw new DesignError(messages.tooManyCells(cells));
+  if (cells > 268_435_456) throw new DesignError(messages.tooManyCells(cells));
   const codes = new Int32Array(n);
   let stride = 1;
   for (const f of factors) {

@@ -10,6 +10,7 @@
  */
 import { tCritical } from '../dist/index.ts';
 import type { LenthMargins } from './types.ts';
+import * as pm from '../math/portable.ts';
 
 function median(sorted: readonly number[]): number {
   const k = sorted.length;
@@ -31,7 +32,7 @@ export function lenthMargins(effects: readonly number[], level = 0.95): LenthMar
   const df = m / 3;
   const me = tCritical(level, df) * pse;
   // Two-sided simultaneous level level^(1/m): its upper quantile is gamma = (1 + level^(1/m)) / 2.
-  const sme = tCritical(Math.pow(level, 1 / m), df) * pse;
+  const sme = tCritical(pm.pow(level, 1 / m), df) * pse;
   return {
     pse,
     me,

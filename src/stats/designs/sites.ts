@@ -22,6 +22,7 @@ import { DesignError } from './errors.ts';
 import { messages } from './messages.ts';
 import { bartlett } from './strata.ts';
 import type { AnovaTable, DesignFit, DesignOptions, Factor, SitesParts } from './types.ts';
+import { sq } from '../math/portable.ts';
 
 const DESIGN = 'series of randomized complete block trials across sites';
 
@@ -128,16 +129,16 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   const cellOf = Int32Array.from(site.codes, (u, i) => treatment.codes[i]! * s + u);
   const mTS = groupMeans(y, cellOf, t * s).mean;
   let ssSite = 0;
-  for (let u = 0; u < s; u++) ssSite += (mS[u]! - grand) ** 2;
+  for (let u = 0; u < s; u++) ssSite += sq(mS[u]! - grand);
   ssSite *= t * b;
   let ssBlocks = 0;
-  for (let k = 0; k < s * b; k++) ssBlocks += (mK[k]! - mS[Math.floor(k / b)]!) ** 2;
+  for (let k = 0; k < s * b; k++) ssBlocks += sq(mK[k]! - mS[Math.floor(k / b)]!);
   ssBlocks *= t;
   let ssT = 0;
-  for (let g = 0; g < t; g++) ssT += (mT[g]! - grand) ** 2;
+  for (let g = 0; g < t; g++) ssT += sq(mT[g]! - grand);
   ssT *= s * b;
   let ssTS = 0;
-  for (let g = 0; g < t; g++) for (let u = 0; u < s; u++) ssTS += (mTS[g * s + u]! - mT[g]! - mS[u]! + grand) ** 2;
+  for (let g = 0; g < t; g++) for (let u = 0; u < s; u++) ssTS += sq(mTS[g * s + u]! - mT[g]! - mS[u]! + grand);
   ssTS *= b;
   const residuals = new Float64Array(n);
   const fittedShifted = new Float64Array(n);

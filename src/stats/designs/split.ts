@@ -21,6 +21,7 @@ import { DesignError } from './errors.ts';
 import { messages } from './messages.ts';
 import { satterthwaite } from './strata.ts';
 import type { AnovaTable, DesignFit, DesignOptions, Factor, SplitParts } from './types.ts';
+import { sq } from '../math/portable.ts';
 
 const DESIGN = 'split plot in randomized complete blocks';
 
@@ -61,7 +62,7 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   if (bc.some((c) => c === 0)) throw new DesignError(messages.levelWithoutData('block', firstEmpty(block, bc)));
   if (b < 2) throw new DesignError(messages.tooFewLevels('subplot factor', sub.name, b));
   if (r < 2) throw new DesignError(messages.tooFewLevels('block', block.name, r));
-  if (a * b * r > 2 ** 28) throw new DesignError(messages.tooManyCells(a * b * r));
+  if (a * b * r > 268_435_456) throw new DesignError(messages.tooManyCells(a * b * r));
 
   // every whole plot (block k, whole level i) holds every subplot level exactly once
   const cellOf = new Int32Array(n); // (k, i, j) with j fastest
@@ -96,22 +97,22 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   const mAB = groupMeans(y, cellAB, a * b).mean;
 
   let ssR = 0;
-  for (let k = 0; k < r; k++) ssR += (mR[k]! - grand) ** 2;
+  for (let k = 0; k < r; k++) ssR += sq(mR[k]! - grand);
   ssR *= a * b;
   let ssA = 0;
-  for (let i = 0; i < a; i++) ssA += (mA[i]! - grand) ** 2;
+  for (let i = 0; i < a; i++) ssA += sq(mA[i]! - grand);
   ssA *= r * b;
   let ssB = 0;
-  for (let j = 0; j < b; j++) ssB += (mB[j]! - grand) ** 2;
+  for (let j = 0; j < b; j++) ssB += sq(mB[j]! - grand);
   ssB *= r * a;
   let ssWholeError = 0;
   for (let k = 0; k < r; k++) {
-    for (let i = 0; i < a; i++) ssWholeError += (mRA[k * a + i]! - mR[k]! - mA[i]! + grand) ** 2;
+    for (let i = 0; i < a; i++) ssWholeError += sq(mRA[k * a + i]! - mR[k]! - mA[i]! + grand);
   }
   ssWholeError *= b;
   let ssAB = 0;
   for (let i = 0; i < a; i++) {
-    for (let j = 0; j < b; j++) ssAB += (mAB[i * b + j]! - mA[i]! - mB[j]! + grand) ** 2;
+    for (let j = 0; j < b; j++) ssAB += sq(mAB[i * b + j]! - mA[i]! - mB[j]! + grand);
   }
   ssAB *= r;
 

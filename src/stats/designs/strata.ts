@@ -4,6 +4,7 @@
  * equal before they are pooled.
  */
 import { chi2Upper } from '../dist/index.ts';
+import * as pm from '../math/portable.ts';
 
 /**
  * Satterthwaite's (1946) approximate degrees of freedom of a sum of independent mean-square
@@ -48,11 +49,11 @@ export function bartlett(variances: readonly number[], dfs: readonly number[]): 
     const d = dfs[i]!;
     nu += d;
     pooled += d * v;
-    logSum += d * Math.log(v);
+    logSum += d * pm.log(v);
     inv += 1 / d;
   }
   pooled /= nu;
-  const m = nu * Math.log(pooled) - logSum;
+  const m = nu * pm.log(pooled) - logSum;
   const c = 1 + (inv - 1 / nu) / (3 * (k - 1));
   const statistic = m / c;
   return { statistic, df: k - 1, p: chi2Upper(statistic, k - 1) };

@@ -23,7 +23,7 @@ export function accumulateTwoWay(y: Float64Array, a: Factor, b: Factor, roleA: s
   const n = y.length;
   const A = a.levels.length;
   const B = b.levels.length;
-  if (A * B > 2 ** 28) throw new DesignError(messages.tooManyCells(A * B));
+  if (A * B > 268_435_456) throw new DesignError(messages.tooManyCells(A * B));
   const ca = a.codes;
   const cb = b.codes;
   const countA = new Int32Array(A);

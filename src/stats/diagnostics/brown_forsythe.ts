@@ -11,6 +11,7 @@ import { type GroupCodes, StatsInputError } from '../summary/groups.ts';
 import { splitByLevel } from '../summary/group_stats.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
 import { quantileSorted } from '../summary/quantile.ts';
+import { sq } from '../math/portable.ts';
 
 /** The result of {@link brownForsythe}. */
 export interface BrownForsytheResult {
@@ -63,7 +64,7 @@ export function brownForsythe(y: Float64Array, groups: GroupCodes): BrownForsyth
     const part = z.subarray(start[j]!, start[j + 1]!);
     if (part.length === 0) continue;
     const mj = mean(part);
-    between += part.length * (mj - grand) ** 2;
+    between += part.length * sq(mj - grand);
     within += sumSquaredDeviations(part, mj);
   }
   if (!(within > 0)) {

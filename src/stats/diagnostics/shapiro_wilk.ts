@@ -9,6 +9,7 @@
  */
 import { normalQuantile, normalUpper } from '../dist/index.ts';
 import { StatsInputError } from '../summary/groups.ts';
+import * as pm from '../math/portable.ts';
 
 /** The result of {@link shapiroWilk}. */
 export interface ShapiroWilkResult {
@@ -131,22 +132,22 @@ export function shapiroWilk(x: Float64Array): ShapiroWilkResult {
 function shapiroWilkP(w1: number, n: number): number {
   if (n === 3) {
     // Exact distribution for three values: P(W <= w) = (6 / pi) (asin(sqrt(w)) - pi / 3).
-    const p = (6 / Math.PI) * (Math.asin(Math.sqrt(1 - w1)) - Math.PI / 3);
+    const p = (6 / Math.PI) * (pm.asin(Math.sqrt(1 - w1)) - Math.PI / 3);
     return Math.min(1, Math.max(0, p));
   }
-  const y = Math.log(w1);
+  const y = pm.log(w1);
   if (n <= 11) {
     const gamma = poly(G, n);
     // Beyond the transformation's range: W far below anything the approximation was fitted
     // to; the p-value is then effectively zero.
     if (y >= gamma) return 0;
-    const yt = -Math.log(gamma - y);
+    const yt = -pm.log(gamma - y);
     const m = poly(C3, n);
-    const sd = Math.exp(poly(C4, n));
+    const sd = pm.exp(poly(C4, n));
     return normalUpper((yt - m) / sd);
   }
-  const ln = Math.log(n);
+  const ln = pm.log(n);
   const m = poly(C5, ln);
-  const sd = Math.exp(poly(C6, ln));
+  const sd = pm.exp(poly(C6, ln));
   return normalUpper((y - m) / sd);
 }

@@ -30,8 +30,9 @@ import betaincinv from '@stdlib/math-base-special-betaincinv';
 import betaln from '@stdlib/math-base-special-betaln';
 import gammainc from '@stdlib/math-base-special-gammainc';
 import erfc from '@stdlib/math-base-special-erfc';
+import * as pm from '../math/portable.ts';
 
-const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
+const LN_SQRT_2PI = 0.5 * pm.log(2 * Math.PI);
 
 // ---- normal -------------------------------------------------------------------------
 
@@ -52,15 +53,15 @@ export function normalQuantile(p: number): number {
   if (p === 1) return Infinity;
   // Work on the smaller tail: P(Z <= x) = p for p < 1/2, P(Z > x) = 1 - p (exact) otherwise.
   const lower = p < 0.5;
-  const target = Math.log(lower ? p : 1 - p);
+  const target = pm.log(lower ? p : 1 - p);
   let x = normalQuantileStdlib(p, 0, 1);
   if (!Number.isFinite(x)) x = (lower ? -1 : 1) * Math.sqrt(-2 * target);
   for (let i = 0; i < 8; i++) {
     // Newton on ln(tail) in x: d ln P / dx = +-phi(x) / P.
     const tail = lower ? normalUpper(-x) : normalUpper(x);
     const logDens = -0.5 * x * x - LN_SQRT_2PI;
-    const slope = (lower ? 1 : -1) * Math.exp(logDens - Math.log(tail));
-    const step = (Math.log(tail) - target) / slope;
+    const slope = (lower ? 1 : -1) * pm.exp(logDens - pm.log(tail));
+    const step = (pm.log(tail) - target) / slope;
     if (!Number.isFinite(step)) break;
     x -= step;
     if (Math.abs(step) <= 1e-16 * Math.max(1, Math.abs(x))) break;
@@ -131,7 +132,7 @@ function fLogDensity(f: number, df1: number, df2: number): number {
   const a = df1 / 2;
   const b = df2 / 2;
   const r = (df1 * f) / df2;
-  return a * Math.log(df1 / df2) + (a - 1) * Math.log(f) - (a + b) * Math.log1p(r) - betaln(a, b);
+  return a * pm.log(df1 / df2) + (a - 1) * pm.log(f) - (a + b) * pm.log1p(r) - betaln(a, b);
 }
 
 /**
@@ -152,13 +153,13 @@ function fSolve(prob: number, df1: number, df2: number, upper: boolean): number 
     f = (df2 * x) / (df1 * (1 - x));
   }
   if (!(f > 0 && f < Infinity)) f = 1;
-  const target = Math.log(prob);
-  let u = Math.log(f);
+  const target = pm.log(prob);
+  let u = pm.log(f);
   for (let i = 0; i < 60; i++) {
-    const fu = Math.exp(u);
+    const fu = pm.exp(u);
     const p = upper ? fUpper(fu, df1, df2) : fCdf(fu, df1, df2);
-    const slope = (upper ? -1 : 1) * Math.exp(Math.log(fu) + fLogDensity(fu, df1, df2) - Math.log(p));
-    let step = (Math.log(p) - target) / slope;
+    const slope = (upper ? -1 : 1) * pm.exp(pm.log(fu) + fLogDensity(fu, df1, df2) - pm.log(p));
+    let step = (pm.log(p) - target) / slope;
     if (!Number.isFinite(step)) break;
     // Newton on this curve only overshoots far out; keep steps moderate there.
     if (step > 5) step = 5;
@@ -166,7 +167,7 @@ function fSolve(prob: number, df1: number, df2: number, upper: boolean): number 
     u -= step;
     if (Math.abs(step) <= 2e-16 * Math.max(1, Math.abs(u))) break;
   }
-  return Math.exp(u);
+  return pm.exp(u);
 }
 
 /** The f with P(F <= f) = p. */

@@ -7,6 +7,7 @@
  * coefficient-decay test (see Trefethen, Approximation Theory and Approximation Practice,
  * SIAM 2013, chapters 3 and 8). Evaluation is by Clenshaw's recurrence.
  */
+import * as pm from '../math/portable.ts';
 
 /** A piecewise Chebyshev approximant on [breaks[0], breaks[last]]. */
 export interface PiecewiseChebyshev {
@@ -25,7 +26,7 @@ function chebCoefficients(values: Float64Array): Float64Array {
   for (let j = 0; j < m; j++) {
     let s = 0;
     for (let i = 0; i < m; i++) {
-      s += (values[i] as number) * Math.cos((Math.PI * j * (i + 0.5)) / m);
+      s += (values[i] as number) * pm.cos((Math.PI * j * (i + 0.5)) / m);
     }
     c[j] = ((j === 0 ? 1 : 2) * s) / m;
   }
@@ -79,7 +80,7 @@ export function fitPiecewiseChebyshev(
     const mid = 0.5 * (hi + lo);
     let scale = 0;
     for (let i = 0; i < m; i++) {
-      const t = Math.cos((Math.PI * (i + 0.5)) / m);
+      const t = pm.cos((Math.PI * (i + 0.5)) / m);
       const v = f(mid + half * t);
       values[i] = v;
       scale = Math.max(scale, Math.abs(v));

@@ -23,8 +23,9 @@ import betainc from '@stdlib/math-base-special-betainc';
 import gammainc from '@stdlib/math-base-special-gammainc';
 import gammaln from '@stdlib/math-base-special-gammaln';
 import { stirlingRemainder } from './scale.ts';
+import * as pm from '../math/portable.ts';
 
-const LN_2PI = Math.log(2 * Math.PI);
+const LN_2PI = pm.log(2 * Math.PI);
 const TINY = 1e-17;
 
 /**
@@ -37,8 +38,8 @@ function logPoisson(m: number, mu: number): number {
   if (m === 0) return -mu;
   const t = (m - mu) / mu;
   // m ln(m/mu) + mu - m = mu ((1 + t) ln(1 + t) - t), computed without cancellation.
-  const bd0 = Math.abs(t) < 0.1 ? mu * bd0Series(t) : m * Math.log(m / mu) + mu - m;
-  return -stirlingRemainder(m) - bd0 - 0.5 * (LN_2PI + Math.log(m));
+  const bd0 = Math.abs(t) < 0.1 ? mu * bd0Series(t) : m * pm.log(m / mu) + mu - m;
+  return -stirlingRemainder(m) - bd0 - 0.5 * (LN_2PI + pm.log(m));
 }
 
 /** (1 + t) ln(1 + t) - t = sum_{n >= 2} (-1)^n t^n / (n (n - 1)), for |t| < 0.1. */
@@ -69,7 +70,7 @@ interface Family {
 function poissonMixture(mu: number, fam: Family, upper: boolean): number {
   const m = Math.floor(mu);
   const lpm = logPoisson(m, mu);
-  const logMu = Math.log(mu);
+  const logMu = pm.log(mu);
   // Poisson bounds: P(J > j) <= p_{j+1} / (1 - mu / (j + 2)) for j + 2 > mu, and
   // P(J < j) <= p_{j-1} / (1 - (j - 1) / mu) for j - 1 < mu.
   if (!upper) {
@@ -77,26 +78,26 @@ function poissonMixture(mu: number, fam: Family, upper: boolean): number {
     let j = m;
     let lp = lpm;
     for (;;) {
-      const lpNext = lp + logMu - Math.log(j + 1);
+      const lpNext = lp + logMu - pm.log(j + 1);
       const ratio = mu / (j + 2);
-      if (ratio < 1 && Math.exp(lpNext) / (1 - ratio) < TINY) break;
+      if (ratio < 1 && pm.exp(lpNext) / (1 - ratio) < TINY) break;
       lp = lpNext;
       j++;
     }
     // Downward: I_j = I_{j+1} + T_j, adding positive terms.
     let I = fam.direct(j, false);
     let lT = fam.logT(j);
-    let sum = Math.exp(lp) * I;
+    let sum = pm.exp(lp) * I;
     while (j > 0) {
       lT -= fam.logRatio(j - 1);
-      lp -= logMu - Math.log(j);
+      lp -= logMu - pm.log(j);
       j--;
-      I += Math.exp(lT);
-      sum += Math.exp(lp) * I;
+      I += pm.exp(lT);
+      sum += pm.exp(lp) * I;
       // What is left is at most P(J < j) <= p_{j-1} / (1 - (j - 1) / mu).
       if (j - 1 < mu && j > 0) {
-        const lpPrev = lp - logMu + Math.log(j);
-        if (Math.exp(lpPrev) / (1 - (j - 1) / mu) < TINY * sum) break;
+        const lpPrev = lp - logMu + pm.log(j);
+        if (pm.exp(lpPrev) / (1 - (j - 1) / mu) < TINY * sum) break;
       }
     }
     return Math.min(1, sum);
@@ -105,50 +106,50 @@ function poissonMixture(mu: number, fam: Family, upper: boolean): number {
   let j = m;
   let lp = lpm;
   while (j > 0) {
-    const lpPrev = lp - logMu + Math.log(j);
+    const lpPrev = lp - logMu + pm.log(j);
     const ratio = (j - 1) / mu;
-    if (ratio < 1 && Math.exp(lpPrev) / (1 - ratio) < TINY) break;
+    if (ratio < 1 && pm.exp(lpPrev) / (1 - ratio) < TINY) break;
     lp = lpPrev;
     j--;
   }
   // Upward: U_{j+1} = U_j + T_j, adding positive terms.
   let U = fam.direct(j, true);
   let lT = fam.logT(j);
-  let sum = Math.exp(lp) * U;
+  let sum = pm.exp(lp) * U;
   for (let iter = 0; iter < 1_000_000; iter++) {
-    U += Math.exp(lT);
+    U += pm.exp(lT);
     lT += fam.logRatio(j);
-    lp += logMu - Math.log(j + 1);
+    lp += logMu - pm.log(j + 1);
     j++;
-    sum += Math.exp(lp) * U;
+    sum += pm.exp(lp) * U;
     // What is left is at most P(J > j) <= p_{j+1} / (1 - mu / (j + 2)), since U <= 1.
     const ratio = mu / (j + 2);
     if (ratio < 1) {
-      const lpNext = lp + logMu - Math.log(j + 1);
-      if (Math.exp(lpNext) / (1 - ratio) <= TINY * sum) break;
+      const lpNext = lp + logMu - pm.log(j + 1);
+      if (pm.exp(lpNext) / (1 - ratio) <= TINY * sum) break;
     }
   }
   return Math.min(1, sum);
 }
 
 function betaFamily(x: number, y: number, a: number, b: number): Family {
-  const lnx = Math.log(x);
-  const lny = Math.log(y);
+  const lnx = pm.log(x);
+  const lny = pm.log(y);
   const lgb = gammaln(b);
   return {
     direct: (j, upper) => (upper ? betainc(y, b, a + j, true, false) : betainc(x, a + j, b, true, false)),
     logT: (j) => gammaln(a + j + b) - gammaln(a + j + 1) - lgb + (a + j) * lnx + b * lny,
-    logRatio: (j) => lnx + Math.log((a + j + b) / (a + j + 1)),
+    logRatio: (j) => lnx + pm.log((a + j + b) / (a + j + 1)),
   };
 }
 
 function gammaFamily(h: number, a: number): Family {
   // I_j = P(Gamma(a + j) <= h); I_j - I_{j+1} = h^(a+j) e^(-h) / Gamma(a + j + 1).
-  const lnh = Math.log(h);
+  const lnh = pm.log(h);
   return {
     direct: (j, upper) => gammainc(h, a + j, true, upper),
     logT: (j) => (a + j) * lnh - h - gammaln(a + j + 1),
-    logRatio: (j) => lnh - Math.log(a + j + 1),
+    logRatio: (j) => lnh - pm.log(a + j + 1),
   };
 }
 

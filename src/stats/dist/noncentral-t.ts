@@ -15,6 +15,7 @@
 import erfc from '@stdlib/math-base-special-erfc';
 import { integrateScale, logScaleConstant, logScaleDensity, type ScaleIntegrand } from './scale.ts';
 import { scaleMode } from './mode.ts';
+import * as pm from '../math/portable.ts';
 
 /** P(Z <= x) for a standard normal Z, from the side that does not cancel. */
 function normalLower(x: number): number {
@@ -33,7 +34,7 @@ const slots = new Float64Array(1);
  */
 function mode(t: number, df: number, delta: number, sign: number): number {
   const c = logScaleConstant(df);
-  const logh = (s: number): number => logScaleDensity(s, df, c) + Math.log(normalLower(sign * (t * s - delta)));
+  const logh = (s: number): number => logScaleDensity(s, df, c) + pm.log(normalLower(sign * (t * s - delta)));
   return scaleMode(logh, Math.abs(t));
 }
 
@@ -44,7 +45,7 @@ function mode(t: number, df: number, delta: number, sign: number): number {
 function normalLogBend(x: number): number {
   if (x < -8) return 1;
   if (x > 38) return 0;
-  const m = Math.exp(-0.5 * x * x - 0.5 * Math.log(2 * Math.PI) - Math.log(normalLower(x)));
+  const m = pm.exp(-0.5 * x * x - 0.5 * pm.log(2 * Math.PI) - pm.log(normalLower(x)));
   return Math.min(1, Math.max(0, m * (m + x)));
 }
 

@@ -7,6 +7,7 @@
  * them avoids a hand-typed table of thirty-digit constants, and the Newton iteration reaches
  * full double precision in a handful of steps.
  */
+import * as portable from '../math/portable.ts';
 
 /** A Gauss-Legendre rule on [-1, 1]: m nodes and their weights. */
 export interface GaussRule {
@@ -24,7 +25,7 @@ export function gaussLegendre(m: number): GaussRule {
   const weights = new Float64Array(m);
   const half = Math.floor((m + 1) / 2);
   for (let i = 0; i < half; i++) {
-    let x = Math.cos((Math.PI * (i + 0.75)) / (m + 0.5));
+    let x = portable.cos((Math.PI * (i + 0.75)) / (m + 0.5));
     let dp = 0;
     for (let iter = 0; iter < 100; iter++) {
       // Three-term recurrence for P_m(x) and P_{m-1}(x).

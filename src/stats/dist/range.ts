@@ -32,6 +32,7 @@ import { integrateScale, type ScaleIntegrand } from './scale.ts';
 import { buildIntervalMax, intervalMax, type IntervalMax } from './bend.ts';
 import { normalQuantile, tQuantile } from './central.ts';
 import { scaleMode } from './mode.ts';
+import * as pm from '../math/portable.ts';
 
 const INNER = gaussLegendre(12);
 const INV_SQRT_2PI = 1 / Math.sqrt(2 * Math.PI);
@@ -43,8 +44,8 @@ function upperNormal(x: number): number {
 
 /** x^n - y^n for 0 <= y <= x, given d = x - y computed without cancellation. */
 function powDiff(x: number, d: number, n: number, xn: number): number {
-  if (d >= 0.5 * x) return xn - Math.pow(x - d, n);
-  return -xn * Math.expm1(n * Math.log1p(-d / x));
+  if (d >= 0.5 * x) return xn - pm.pow(x - d, n);
+  return -xn * pm.expm1(n * pm.log1p(-d / x));
 }
 
 /**
@@ -68,7 +69,7 @@ function shortNormalInterval(a: number, b: number): number {
   let s = 0;
   for (let i = 0; i < 10; i++) {
     const x = mid + half * (LEG10.nodes[i] as number);
-    s += (LEG10.weights[i] as number) * Math.exp(-0.5 * x * x);
+    s += (LEG10.weights[i] as number) * pm.exp(-0.5 * x * x);
   }
   return s * half * INV_SQRT_2PI;
 }
@@ -99,8 +100,8 @@ export function normalRangeDirect(w: number, k: number, mode: 'upper' | 'lowerSc
       const u = mid + half * (nodes[j] as number);
       const a = u - c;
       const b = u + c;
-      const pa = INV_SQRT_2PI * Math.exp(-0.5 * a * a);
-      const pb = INV_SQRT_2PI * Math.exp(-0.5 * b * b);
+      const pa = INV_SQRT_2PI * pm.exp(-0.5 * a * a);
+      const pb = INV_SQRT_2PI * pm.exp(-0.5 * b * b);
       let v: number;
       if (useUpper) {
         // A = P(Z > a), Ac = P(Z <= a); B = P(Z > b) (b >= 0, so B <= 1/2).
@@ -115,13 +116,13 @@ export function normalRangeDirect(w: number, k: number, mode: 'upper' | 'lowerSc
         }
         const B = upperNormal(b);
         const Bc = 1 - B;
-        v = pa * powDiff(A, B, n, Math.pow(A, n)) + pb * powDiff(Bc, Ac, n, Math.pow(Bc, n));
+        v = pa * powDiff(A, B, n, pm.pow(A, n)) + pb * powDiff(Bc, Ac, n, pm.pow(Bc, n));
       } else {
         let D: number;
         if (w <= 1) D = shortNormalInterval(a, b);
         else if (a >= 0) D = upperNormal(a) - upperNormal(b);
         else D = 1 - upperNormal(b) - upperNormal(-a);
-        v = (pa + pb) * Math.pow(D * invW, n);
+        v = (pa + pb) * pm.pow(D * invW, n);
       }
       sum += (weights[j] as number) * v;
     }
@@ -164,8 +165,8 @@ function buildTable(k: number): RangeTable {
   const rho = fitPiecewiseChebyshev(
     (w) => {
       if (w <= 0) return 0;
-      const upper = w > split ? normalRangeDirect(w, k, 'upper') : 1 - normalRangeDirect(w, k, 'lowerScaled') * Math.pow(w, k - 1);
-      return Math.log(upper) + 0.25 * w * w;
+      const upper = w > split ? normalRangeDirect(w, k, 'upper') : 1 - normalRangeDirect(w, k, 'lowerScaled') * pm.pow(w, k - 1);
+      return pm.log(upper) + 0.25 * w * w;
     },
     0,
     W_MAX,
@@ -175,7 +176,7 @@ function buildTable(k: number): RangeTable {
     (v, w) => 1e-14 * Math.max(1, v) + 4e-16 * 0.25 * w * w,
   );
   const lambda = fitPiecewiseChebyshev(
-    (w) => Math.log(normalRangeDirect(Math.max(w, 1e-300), k, 'lowerScaled')),
+    (w) => pm.log(normalRangeDirect(Math.max(w, 1e-300), k, 'lowerScaled')),
     0,
     split,
     [0.5, 1, 2, 3, 4],
@@ -185,7 +186,7 @@ function buildTable(k: number): RangeTable {
   // How fast ln(1 - W) and ln W bend, by second differences of the (smooth) approximants.
   const lnR = (w: number): number => evalChebyshev(rho, w) - 0.25 * w * w;
   const lnWreduced = (w: number): number =>
-    w <= split ? evalChebyshev(lambda, w) : Math.log1p(-Math.exp(lnR(w))) - (k - 1) * Math.log(w);
+    w <= split ? evalChebyshev(lambda, w) : pm.log1p(-pm.exp(lnR(w))) - (k - 1) * pm.log(w);
   const second = (fn: (w: number) => number, w: number): number => {
     const h = Math.max(1e-3 * w, 1e-4);
     const lo = Math.max(w - h, 1e-300);
@@ -234,12 +235,12 @@ export function normalRange(w: number, table: RangeTable, out: NormalRangeOut): 
     return;
   }
   const quarter = 0.25 * w * w;
-  const upper = Math.exp(evalChebyshev(table.rho, w) - quarter);
+  const upper = pm.exp(evalChebyshev(table.rho, w) - quarter);
   out.upper = upper;
   if (w <= table.split) {
     // Below the median the density comes from the lower table: W' = W (lambda' + (k-1)/w);
     // from the upper one it would be a small difference of two larger numbers.
-    const cdf = Math.exp(evalChebyshev(table.lambda, w) + (k - 1) * Math.log(w));
+    const cdf = pm.exp(evalChebyshev(table.lambda, w) + (k - 1) * pm.log(w));
     out.cdf = cdf;
     out.density = cdf * (evalChebyshevDerivative(table.lambda, w) + (k - 1) / w);
   } else {
@@ -266,7 +267,7 @@ function validDf(df: number): boolean {
 /** ln of the integrand's g(s) part at s: ln P(range > q s) or ln P(range <= q s). */
 function logG(s: number, q: number, table: RangeTable, upper: boolean): number {
   normalRange(q * s, table, scratch);
-  return Math.log(upper ? scratch.upper : scratch.cdf);
+  return pm.log(upper ? scratch.upper : scratch.cdf);
 }
 
 /**
@@ -274,7 +275,7 @@ function logG(s: number, q: number, table: RangeTable, upper: boolean): number {
  * golden-section refinement; it only places the first panel, so moderate precision suffices.
  */
 function outerMode(q: number, table: RangeTable, df: number, upper: boolean): number {
-  const logh = (s: number): number => (df - 1) * Math.log(s) - 0.5 * df * s * s + logG(s, q, table, upper);
+  const logh = (s: number): number => (df - 1) * pm.log(s) - 0.5 * df * s * s + logG(s, q, table, upper);
   return scaleMode(logh, q);
 }
 
@@ -310,7 +311,7 @@ function rangeIntegral(
   const bendMax = upper
     ? (lo: number, hi: number): number => q2 * intervalMax(table.bendUpper, q * lo, q * hi)
     : (lo: number, hi: number): number =>
-        q2 * intervalMax(table.bendLower, q * lo, q * hi) + (k - 1) / (Math.max(lo, 1e-150) ** 2);
+        q2 * intervalMax(table.bendLower, q * lo, q * hi) + (k - 1) / pm.sq(Math.max(lo, 1e-150));
   integrateScale(df, g, !upper, center, bendMax, 2, result);
 }
 
@@ -361,7 +362,7 @@ function solveRange(prob: number, k: number, df: number, tail: 'upper' | 'lower'
     // Near the centre the quantile loses its digits (0.5 + 1e-11 keeps few), and may come
     // out as 0. The density of t is largest at 0, so its quantile at 0.5 + e is at least
     // e / f(0): a bound that keeps its digits for any small probability.
-    const density0 = df === Infinity ? 1 / Math.sqrt(2 * Math.PI) : Math.exp(gammaln((df + 1) / 2) - gammaln(df / 2)) / Math.sqrt(df * Math.PI);
+    const density0 = df === Infinity ? 1 / Math.sqrt(2 * Math.PI) : pm.exp(gammaln((df + 1) / 2) - gammaln(df / 2)) / Math.sqrt(df * Math.PI);
     lo = Math.max(lo, (Math.SQRT2 * (prob / 2)) / density0);
   }
   // Upper bracket: P(Q > q) <= (k(k-1)/2) P(|T| sqrt 2 > q), so the quantile at alpha / pairs
@@ -376,17 +377,17 @@ function solveRange(prob: number, k: number, df: number, tail: 'upper' | 'lower'
   if (!(hi > lo)) hi = lo * 2;
   // Start from the two-group value for k = 2, else inside the bracket, pulled toward the
   // lower end where the Bonferroni bound is loose (small df).
-  let y = k === 2 ? Math.log(lo / (1 - 1e-6)) : Math.log(lo) + 0.35 * (Math.log(hi) - Math.log(lo));
-  let ylo = Math.log(lo);
-  let yhi = Math.log(hi);
-  const target = Math.log(prob);
+  let y = k === 2 ? pm.log(lo / (1 - 1e-6)) : pm.log(lo) + 0.35 * (pm.log(hi) - pm.log(lo));
+  let ylo = pm.log(lo);
+  let yhi = pm.log(hi);
+  const target = pm.log(prob);
   const res = new Float64Array(2);
   for (let iter = 0; iter < 60; iter++) {
-    const q = Math.exp(y);
+    const q = pm.exp(y);
     rangeIntegral(q, k, df, tail === 'upper', true, res);
     const p = res[0] as number;
     const dens = res[1] as number;
-    const F = Math.log(p) - target;
+    const F = pm.log(p) - target;
     if (Math.abs(F) < 4e-16) break;
     // d ln P / d ln q: -q f(q) / P(Q > q) for the upper tail, +q f(q) / P(Q <= q) for the lower.
     const dF = ((tail === 'upper' ? -1 : 1) * q * dens) / p;
@@ -400,7 +401,7 @@ function solveRange(prob: number, k: number, df: number, tail: 'upper' | 'lower'
     y = next;
     if (step < 1e-15 * Math.max(1, Math.abs(y)) && Math.abs(F) < 1e-9) break;
   }
-  return Math.exp(y);
+  return pm.exp(y);
 }
 
 /**

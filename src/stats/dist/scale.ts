@@ -14,8 +14,9 @@
 import gammaln from '@stdlib/math-base-special-gammaln';
 import gammainc from '@stdlib/math-base-special-gammainc';
 import { KRONROD15 } from './quadrature.ts';
+import * as pm from '../math/portable.ts';
 
-const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
+const LN_SQRT_2PI = 0.5 * pm.log(2 * Math.PI);
 
 /** Stirling's series remainder: lnGamma(x) - ((x - 1/2) ln x - x + ln sqrt(2 pi)). */
 export function stirlingRemainder(x: number): number {
@@ -25,7 +26,7 @@ export function stirlingRemainder(x: number): number {
     // Abramowitz and Stegun 6.1.41.
     return r * (1 / 12 - r2 * (1 / 360 - r2 * (1 / 1260 - r2 * (1 / 1680 - r2 / 1188))));
   }
-  return gammaln(x) - ((x - 0.5) * Math.log(x) - x + LN_SQRT_2PI);
+  return gammaln(x) - ((x - 0.5) * pm.log(x) - x + LN_SQRT_2PI);
 }
 
 /**
@@ -33,7 +34,7 @@ export function stirlingRemainder(x: number): number {
  * ln f(s) = c + df (ln s + (1 - s^2) / 2) - ln s, with c = ln sqrt(df / pi) - remainder(df/2).
  */
 export function logScaleConstant(df: number): number {
-  return 0.5 * Math.log(df / Math.PI) - stirlingRemainder(df / 2);
+  return 0.5 * pm.log(df / Math.PI) - stirlingRemainder(df / 2);
 }
 
 /** ln f(s) for the scale s = sqrt(X / df) (see the module comment). */
@@ -42,10 +43,10 @@ export function logScaleDensity(s: number, df: number, c: number): number {
   const e = s - 1;
   if (Math.abs(e) < 0.5) {
     // ln s + (1 - s^2)/2 = log1p(e) - e - e^2/2, accurate near s = 1 where large df lives.
-    return c + df * (Math.log1p(e) - e - 0.5 * e * e) - Math.log(s);
+    return c + df * (pm.log1p(e) - e - 0.5 * e * e) - pm.log(s);
   }
   // Far from 1 the terms do not cancel, and s - 1 would lose the digits of a small s.
-  return c + (df - 1) * Math.log(s) + 0.5 * df * (1 - s) * (1 + s);
+  return c + (df - 1) * pm.log(s) + 0.5 * df * (1 - s) * (1 + s);
 }
 
 /**
@@ -132,7 +133,7 @@ export function integrateScale(
   const kw = KRONROD15.kronrodWeights;
   const gw = KRONROD15.gaussWeights;
   const nodeValue = (s: number, into: Float64Array): void => {
-    const dens = Math.exp(logScaleDensity(s, df, c));
+    const dens = pm.exp(logScaleDensity(s, df, c));
     if (dens === 0) {
       for (let i = 0; i < width; i++) into[i] = 0;
       return;

@@ -1,6 +1,7 @@
 /**
  * Exact null distributions of the two Wilcoxon statistics for samples without ties.
  */
+import { powerOfTwo } from '../math/portable.ts';
 
 /**
  * Number of subsets of {1, ..., n} with each rank sum s = 0 .. n(n+1)/2: under the null
@@ -42,7 +43,7 @@ export function signedRankExactP(v: number, n: number): number {
     if (i <= s) lower += c[i]!;
     if (i >= s) upper += c[i]!;
   }
-  const total = 2 ** n;
+  const total = powerOfTwo(n);
   return Math.min(1, (2 * Math.min(lower, upper)) / total);
 }
 

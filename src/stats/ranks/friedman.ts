@@ -9,6 +9,7 @@
 import { chi2Upper } from '../dist/index.ts';
 import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
+import { sq } from '../math/portable.ts';
 
 /** The result of {@link friedman}. */
 export interface FriedmanResult {
@@ -90,7 +91,7 @@ export function friedman(
   }
   const centre = (b * (k + 1)) / 2;
   let spread = 0;
-  for (let t = 0; t < k; t++) spread += (rankSum[t]! - centre) ** 2;
+  for (let t = 0; t < k; t++) spread += sq(rankSum[t]! - centre);
   const correction = 1 - tieTerm / (b * k * (k * k - 1));
   if (!(correction > 0)) {
     throw new StatsInputError('every block has all its values equal, so there is nothing to rank');

@@ -6,6 +6,7 @@
 import { chi2Upper } from '../dist/index.ts';
 import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
+import { sq } from '../math/portable.ts';
 
 /** The result of {@link kruskalWallis}. */
 export interface KruskalWallisResult {
@@ -53,7 +54,7 @@ export function kruskalWallis(y: Float64Array, groups: GroupCodes): KruskalWalli
   for (let j = 0; j < k; j++) {
     const nj = counts[j]!;
     meanRank[j] = nj > 0 ? rankTotal[j]! / nj : NaN;
-    if (nj > 0) between += nj * (meanRank[j]! - centre) ** 2;
+    if (nj > 0) between += nj * sq(meanRank[j]! - centre);
   }
   const correction = 1 - tieTerm / (n * n * n - n);
   if (!(correction > 0)) {
