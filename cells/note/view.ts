@@ -14,7 +14,7 @@ import { Marked } from 'marked';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
 import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
-import { shared } from '../../src/app/theme.ts';
+import { shared } from '../../src/views/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { splitNote } from './model.ts';
 

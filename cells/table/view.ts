@@ -13,7 +13,7 @@
  * nothing is lost; a table read from a CSV file is shown read-only from its value.
  */
 import { LitElement, html, nothing, type PropertyValues, type TemplateResult } from 'lit';
-import { shared } from '../../src/app/theme.ts';
+import { shared } from '../../src/views/theme.ts';
 import { CsvError } from '../../src/doc/csv.ts';
 import { freshBody, parseMarker, visibleBody, type Cell } from '../../src/doc/document.ts';
 import type { Edit } from '../../src/doc/edits.ts';

@@ -19,7 +19,7 @@ import { Autosaver, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
 import { fileNameFor, pickFile, readFileText, saveText } from './files.ts';
 import { DocumentStore } from './store.ts';
-import { shared } from './theme.ts';
+import { shared } from '../views/theme.ts';
 
 /** A message shown in the banner under the toolbar. */
 interface Banner {

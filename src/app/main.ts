@@ -5,7 +5,7 @@
 import { loadSaved } from './autosave.ts';
 import type { FurrowApp } from './app.ts';
 import './app.ts';
-import { THEME_PROPERTIES } from './theme.ts';
+import { THEME_PROPERTIES } from '../views/theme.ts';
 
 const sheet = new CSSStyleSheet();
 sheet.replaceSync(`:root {${THEME_PROPERTIES}}`);

@@ -5,7 +5,8 @@
  */
 /// <reference lib="webworker" />
 import { BUILTINS } from '../functions/index.ts';
-import { describeParam, signature } from '../functions/registry.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
+import { describeParam, signature } from '../lang/builtins.ts';
 import { Engine } from '../graph/engine.ts';
 import { isRecord, isTable, type Value } from '../lang/values.ts';
 import { portable, type CellResult, type FromWorker, type ToWorker } from './protocol.ts';
@@ -16,6 +17,7 @@ const post = (m: FromWorker): void => scope.postMessage(m);
 let lastProgress = 0;
 const engine = new Engine({
   registry: BUILTINS,
+  kinds: CELL_KINDS,
   onProgress: (id, fraction) => {
     const t = performance.now();
     if (t - lastProgress > 50 || fraction >= 1) {

@@ -8,6 +8,7 @@ import { basename, dirname, join } from 'node:path';
 import { documentTitle, headerFields, parseMarker, type Document } from '../doc/document.ts';
 import { DocumentError, readDocument } from '../doc/format.ts';
 import { BUILTINS } from '../functions/index.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
 import { toJson } from '../lang/json.ts';
 import { typeOf } from '../lang/values.ts';
@@ -63,7 +64,7 @@ export function loadDocument(path: string): { doc: Document; engine: Engine; war
     if (err instanceof DocumentError) throw new CliFailure(`${path}: ${err.message}`);
     throw err;
   }
-  const engine = new Engine({ registry: BUILTINS });
+  const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
   for (const cell of doc.cells) {
     const m = parseMarker(cell.marker);
     if (m.kind !== 'table' || m.file === null) continue;

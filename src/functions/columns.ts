@@ -8,7 +8,7 @@ import { formatNumber } from '../lang/format.ts';
 import { plural } from '../lang/messages.ts';
 import type { Column, NumberColumn } from '../lang/values.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
-import type { CallContext } from './registry.ts';
+import type { CallContext } from '../lang/builtins.ts';
 
 /** A factor as the statistics see it. */
 export interface Factor {

@@ -27,7 +27,7 @@ import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnosti
 import { MAX_GROUPS } from '../stats/dist/index.ts';
 import { completeRows, factorOf, responseOf, type Factor } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
-import type { Builtin, CallContext } from './registry.ts';
+import type { Builtin, CallContext } from '../lang/builtins.ts';
 
 /** What a fit record keeps for later functions. */
 export interface FitInternal {

@@ -6,7 +6,7 @@ import { CLAIMS } from './claims.ts';
 import { DESIGNS } from './designs.ts';
 import { DISTRIBUTIONS } from './distributions.ts';
 import { MATHS } from './maths.ts';
-import { Registry } from './registry.ts';
+import { Registry } from '../lang/builtins.ts';
 import { SUMMARIES } from './summaries.ts';
 import { TWO_GROUPS } from './two_groups.ts';
 

@@ -6,7 +6,7 @@ import { UsageError } from '../lang/errors.ts';
 import { numberColumn, table, textColumn, type Column, type NumberColumn } from '../lang/values.ts';
 import * as S from '../stats/summary/index.ts';
 import { completeRows, completeValues, factorOf, levelName, plainValues, responseOf } from './columns.ts';
-import type { Builtin, CallContext } from './registry.ts';
+import type { Builtin, CallContext } from '../lang/builtins.ts';
 
 const X = { name: 'x', type: 'numbers' as const, doc: 'A column of numbers; missing values are left out.' };
 

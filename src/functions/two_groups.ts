@@ -7,7 +7,7 @@ import { paired, twoSample } from '../stats/two_groups/index.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import { completeRows, factorOf, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
-import type { Builtin, CallContext } from './registry.ts';
+import type { Builtin, CallContext } from '../lang/builtins.ts';
 
 const LEVEL = { name: 'level', type: 'level' as const, default: 0.95, doc: 'Confidence level of the interval.' };
 

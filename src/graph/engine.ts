@@ -15,10 +15,9 @@
  *
  * The engine touches no DOM; it runs in Node, in the page and in a Web Worker.
  */
-import { CELL_KINDS } from '../../cells/kinds.ts';
 import type { Cell, Document } from '../doc/document.ts';
 import { parseMarker } from '../doc/document.ts';
-import type { Registry } from '../functions/registry.ts';
+import type { Registry } from '../lang/builtins.ts';
 import type { NameUse } from '../lang/ast.ts';
 import { LangError } from '../lang/errors.ts';
 import type { EvalEnv, Lookup, Scope } from '../lang/evaluate.ts';
@@ -51,7 +50,7 @@ export interface CellState {
 /** Options of an engine. */
 export interface EngineOptions {
   readonly registry: Registry;
-  readonly kinds?: ReadonlyMap<string, CellKind>;
+  readonly kinds: ReadonlyMap<string, CellKind>;
   /** Reports progress of a long evaluation: the cell and a fraction from 0 to 1. */
   readonly onProgress?: (cellId: string, fraction: number) => void;
   /**
@@ -104,7 +103,7 @@ export class Engine {
 
   constructor(options: EngineOptions) {
     this.registry = options.registry;
-    this.kinds = options.kinds ?? CELL_KINDS;
+    this.kinds = options.kinds;
     this.onProgress = options.onProgress;
     this.onStep = options.onStep;
     this.stepAfterMs = options.stepAfterMs ?? 150;
@@ -377,29 +376,6 @@ export class Engine {
     const defs = this.definers.get(name);
     if (defs === undefined || defs.length !== 1) return undefined;
     return this.slots.get(defs[0]!)!.value;
-  }
-
-  /** The cells that read a cell, directly or not (what an edit of it would re-evaluate). */
-  dependents(id: string): string[] {
-    const out: string[] = [];
-    const name = this.slots.get(id)?.analysis.defines?.name;
-    if (name === undefined) return out;
-    const seen = new Set<string>([id]);
-    const queue = [name];
-    while (queue.length > 0) {
-      const n = queue.shift()!;
-      for (const other of this.order) {
-        if (seen.has(other)) continue;
-        const s = this.slots.get(other)!;
-        if (s.analysis.reads.some((u) => u.name === n)) {
-          seen.add(other);
-          out.push(other);
-          const d = s.analysis.defines?.name;
-          if (d !== undefined) queue.push(d);
-        }
-      }
-    }
-    return out;
   }
 }
 

@@ -3,6 +3,7 @@ import { applyEdit, type Edit } from '../../src/doc/edits.ts';
 import type { Document } from '../../src/doc/document.ts';
 import { readDocument, writeDocument } from '../../src/doc/format.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
 import { Engine } from '../../src/graph/engine.ts';
 import { isError, type ErrorValue } from '../../src/lang/values.ts';
 import { doc } from '../helpers.ts';
@@ -11,7 +12,7 @@ import { doc } from '../helpers.ts';
 function setup(...formulas: string[]): { engine: Engine; d: Document; ids: Map<string, string> } {
   const text = doc(...formulas.flatMap((f) => ['--- formula', f]));
   const d = readDocument(text).document;
-  const engine = new Engine({ registry: BUILTINS });
+  const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
   engine.update(d);
   const ids = new Map<string, string>();
   for (const c of d.cells) {
@@ -153,7 +154,7 @@ describe('notes', () => {
   it('read names in placeholders and follow their values', () => {
     const text = doc('--- formula', 'x = 2', '--- note', 'x is {x}, twice is {x * 2}, a brace: \\{ok}.', '');
     let d = readDocument(text).document;
-    const engine = new Engine({ registry: BUILTINS });
+    const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
     engine.update(d);
     const note = d.cells[1]!.id;
     expect(engine.state(note)!.value).toBe('x is 2, twice is 4, a brace: \\{ok}.');
@@ -178,7 +179,7 @@ describe('notes', () => {
 });
 
 function runText(text: string) {
-  const engine = new Engine({ registry: BUILTINS });
+  const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
   engine.update(readDocument(text).document);
   return { engine, states: engine.states() };
 }
@@ -197,14 +198,14 @@ describe('progress of a long update', () => {
     const text = doc(...Array.from({ length: 30 }, (_, i) => ['--- formula', i === 0 ? 'v0 = 1' : `v${i} = v${i - 1} + 1`]).flat());
     const steps: [string, number, number][] = [];
     // a negative delay: every cell counts as late, so every one is reported
-    const engine = new Engine({ registry: BUILTINS, onStep: (id, done, total) => steps.push([id, done, total]), stepAfterMs: -1 });
+    const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS, onStep: (id, done, total) => steps.push([id, done, total]), stepAfterMs: -1 });
     const d = readDocument(text).document;
     engine.update(d);
     expect(steps).toHaveLength(30);
     expect(steps[0]).toEqual([d.cells[0]!.id, 0, 30]);
     expect(steps[29]).toEqual([d.cells[29]!.id, 29, 30]);
     const quiet: unknown[] = [];
-    const e2 = new Engine({ registry: BUILTINS, onStep: (...a) => quiet.push(a), stepAfterMs: 60_000 });
+    const e2 = new Engine({ registry: BUILTINS, kinds: CELL_KINDS, onStep: (...a) => quiet.push(a), stepAfterMs: 60_000 });
     e2.update(d);
     expect(quiet).toHaveLength(0);
   });
