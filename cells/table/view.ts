@@ -15,7 +15,8 @@
 import { LitElement, html, nothing, type PropertyValues, type TemplateResult } from 'lit';
 import { shared } from '../../src/views/theme.ts';
 import { CsvError } from '../../src/doc/csv.ts';
-import { freshBody, parseMarker, visibleBody, type Cell } from '../../src/doc/document.ts';
+import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
+import { tableMarker, writeTableMarker } from './model.ts';
 import type { Edit } from '../../src/doc/edits.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
 import { isTable, type Table } from '../../src/lang/values.ts';
@@ -177,11 +178,11 @@ export class TableCellView extends LitElement {
 
   /** The CSV file a table reads, or null for a table with a body. */
   private get file(): string | null {
-    return this.cell ? parseMarker(this.cell.marker).file : null;
+    return this.cell ? tableMarker(this.cell).file : null;
   }
 
   private get tableName(): string | null {
-    return this.cell ? parseMarker(this.cell.marker).name : null;
+    return this.cell ? tableMarker(this.cell).name : null;
   }
 
   private get readOnly(): boolean {
@@ -238,7 +239,7 @@ export class TableCellView extends LitElement {
       this.sel = at(0, 0);
       this.textPinned = false;
     }
-    if (parseMarker(cell.marker).file !== null) {
+    if (tableMarker(cell).file !== null) {
       this.grid = null;
       this.gridError = null;
       this.readBody = null;
@@ -941,8 +942,8 @@ export class TableCellView extends LitElement {
       return false;
     }
     this.nameProblem = null;
-    const m = parseMarker(this.cell.marker);
-    const marker = `table ${name}${m.file !== null ? ` from ${m.file}` : ''}${m.extra.length > 0 ? ` ${m.extra.join(' ')}` : ''}`;
+    const m = tableMarker(this.cell);
+    const marker = writeTableMarker(name, m.file, m.extra);
     this.send({ type: 'marker', id: this.cell.id, marker });
     return true;
   }

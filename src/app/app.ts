@@ -11,7 +11,9 @@ import { LitElement, css, html, nothing } from 'lit';
 import { repeat } from 'lit/directives/repeat.js';
 import { CELL_VIEWS } from '../../cells/views.ts';
 import { EDIT_EVENT, type CellViewState, type EditEventDetail } from '../../cells/view-api.ts';
-import { documentTitle, formatMarker, freshBody, headerFields, parseMarker, type Cell, type Document } from '../doc/document.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
+import { documentTitle, headerFields, markerKind, type Cell, type Document } from '../doc/document.ts';
+import type { CellKind } from '../graph/cell-kind.ts';
 import { freshCellId, withTitle, type Edit } from '../doc/edits.ts';
 import { DocumentError, readDocument, writeDocument } from '../doc/format.ts';
 import { isPlainName } from '../lang/lexer.ts';
@@ -35,38 +37,22 @@ const STATUS_WORDS: Record<string, string> = {
   inert: 'kept, not evaluated',
 };
 
-/** What a new cell of each kind starts with. */
-function newCell(doc: Document, kind: 'note' | 'table' | 'formula'): Cell {
-  const id = freshCellId(doc);
-  const names = new Set(doc.cells.map((c) => parseMarker(c.marker).name).filter((n): n is string => n !== null));
-  for (const c of doc.cells) {
-    const m = /^\s*([A-Za-z_]\w*)\s*=/.exec(c.body);
-    if (m) names.add(m[1]!);
-  }
+/** A new cell of a kind, named with the first name of its pattern not yet taken. */
+function newCell(doc: Document, kind: CellKind): Cell | null {
+  if (kind.template === undefined) return null;
+  const names = new Set(doc.cells.map((c) => CELL_KINDS.nameOf(c)).filter((n): n is string => n !== null));
   const fresh = (base: string): string => {
     for (let k = 1; ; k++) {
       const n = `${base}${k}`;
       if (!names.has(n)) return n;
     }
   };
-  switch (kind) {
-    case 'note':
-      return { id, marker: 'note', eol: '\n', body: freshBody('') };
-    case 'table':
-      return { id, marker: formatMarker('table', fresh('table')), eol: '\n', body: freshBody('block,treatment,response\n1,,\n') };
-    case 'formula':
-      // the space after "=" stays, ready for typing
-      return { id, marker: 'formula', eol: '\n', body: `${fresh('value')} = \n\n` };
-  }
+  const { marker, body } = kind.template(fresh);
+  return { id: freshCellId(doc), marker, eol: '\n', body };
 }
 
-/** The name a cell defines, as the margin shows it. */
-function cellName(cell: Cell): string | null {
-  const m = parseMarker(cell.marker);
-  if (m.kind === 'table') return m.name;
-  if (m.kind === 'formula') return /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/.exec(cell.body)?.[1] ?? null;
-  return null;
-}
+/** The kinds the page offers to add, in their listed order. */
+const ADDABLE = CELL_KINDS.all().filter((k) => k.template !== undefined);
 
 /** The page. */
 export class FurrowApp extends LitElement {
@@ -112,7 +98,7 @@ export class FurrowApp extends LitElement {
 
   /** Starts the page on a document (and the CSV files its tables name). */
   start(text: string, options: { fileName: string | null; files?: ReadonlyArray<readonly [string, string]>; samples?: ReadonlyMap<string, string>; notice?: string }): void {
-    const doc = readDocument(text).document;
+    const doc = readDocument(text, { kinds: CELL_KINDS }).document;
     this.doc = doc;
     this.fileName = options.fileName;
     this.samples = options.samples ?? new Map();
@@ -189,15 +175,15 @@ export class FurrowApp extends LitElement {
   private readonly onDrop = (e: DragEvent): void => {
     const file = e.dataTransfer?.files[0];
     if (file === undefined) return;
-    // a drop onto a table's grid is the grid's own import
-    if (e.composedPath().some((t) => t instanceof HTMLElement && t.tagName === 'FURROW-TABLE-CELL')) return;
+    // a cell view that takes a drop itself says so by preventing the default
+    if (e.defaultPrevented) return;
     e.preventDefault();
     void readFileText(file).then(
       (text) => {
         if (/\.csv$/i.test(file.name)) {
           this.files.set(file.name, text);
           this.bridge.files([[file.name, text]]);
-          this.bridge.update(this.doc, this.doc.cells.filter((c) => parseMarker(c.marker).file === file.name).map((c) => c.id));
+          this.bridge.update(this.doc, this.cellsReading(file.name));
           this.scheduleSave();
           this.banner = { kind: 'info', text: `Attached ${file.name}.` };
           return;
@@ -257,8 +243,14 @@ export class FurrowApp extends LitElement {
 
   // ---- document operations ------------------------------------------------------------
 
-  private addCell(kind: 'note' | 'table' | 'formula', index: number): void {
+  /** The ids of the cells that read a file beside the document. */
+  private cellsReading(file: string): string[] {
+    return this.doc.cells.filter((c) => CELL_KINDS.filesRead(c).includes(file)).map((c) => c.id);
+  }
+
+  private addCell(kind: CellKind, index: number): void {
     const cell = newCell(this.doc, kind);
+    if (cell === null) return;
     this.apply({ type: 'insert', index, cell });
     void this.updateComplete.then(() => {
       const el = this.renderRoot.querySelector<HTMLElement>(`[data-cell="${cell.id}"]`);
@@ -280,18 +272,19 @@ export class FurrowApp extends LitElement {
 
   private rename(cell: Cell, name: string): void {
     this.renaming = null;
-    const old = cellName(cell);
+    const kind = CELL_KINDS.of(cell);
+    const old = CELL_KINDS.nameOf(cell);
     if (name === old || name === '') return;
     if (!isPlainName(name)) {
       this.banner = { kind: 'problem', text: `"${name}" cannot be a name: it starts with a letter or _, then letters, digits or _.` };
       return;
     }
-    const m = parseMarker(cell.marker);
-    if (m.kind === 'table') this.apply({ type: 'marker', id: cell.id, marker: formatMarker('table', name, m.file) });
-    else if (m.kind === 'formula') {
-      const body = old === null ? `${name} = ${cell.body.replace(/^\s+/, '')}` : cell.body.replace(/^(\s*)[A-Za-z_][A-Za-z0-9_]*/, `$1${name}`);
-      this.apply({ type: 'body', id: cell.id, body });
-    }
+    if (kind?.rename === undefined) return;
+    const text = kind.rename(cell, name);
+    const edits: Edit[] = [];
+    if (text.marker !== cell.marker) edits.push({ type: 'marker', id: cell.id, marker: text.marker });
+    if (text.body !== cell.body) edits.push({ type: 'body', id: cell.id, body: text.body });
+    if (edits.length > 0) this.apply(edits.length === 1 ? edits[0]! : { type: 'batch', edits });
   }
 
   private setTitle(title: string): void {
@@ -307,14 +300,11 @@ export class FurrowApp extends LitElement {
   /** Opens a document from text; a text that is not a document changes nothing. */
   openText(text: string, fileName: string | null): boolean {
     try {
-      const doc = readDocument(text).document;
+      const doc = readDocument(text, { kinds: CELL_KINDS }).document;
       this.fileName = fileName;
       this.store.load(doc);
       this.savedToFile = true;
-      const missing = doc.cells
-        .map((c) => parseMarker(c.marker))
-        .filter((m) => m.kind === 'table' && m.file !== null && !this.files.has(m.file))
-        .map((m) => m.file!);
+      const missing = [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
       this.banner = missing.length
         ? { kind: 'info', text: `Opened ${fileName ?? 'the document'}. Its tables read ${missing.join(', ')}: attach ${missing.length === 1 ? 'that file' : 'those files'} with "Attach CSV".` }
         : { kind: 'info', text: `Opened ${fileName ?? 'the document'}.` };
@@ -345,7 +335,7 @@ export class FurrowApp extends LitElement {
       if (f === null) return;
       this.files.set(f.name, f.text);
       this.bridge.files([[f.name, f.text]]);
-      this.bridge.update(this.doc, this.doc.cells.filter((c) => parseMarker(c.marker).file === f.name).map((c) => c.id));
+      this.bridge.update(this.doc, this.cellsReading(f.name));
       this.scheduleSave();
       this.banner = { kind: 'info', text: `Attached ${f.name}.` };
     } catch (err) {
@@ -449,7 +439,7 @@ export class FurrowApp extends LitElement {
     const step = this.bridge.step;
     if (step !== null && pending > 0) {
       const cell = this.doc.cells.find((c) => c.id === step.id);
-      parts.push(`evaluating ${cell ? (cellName(cell) ?? 'a cell') : 'a cell'}: ${step.done} of ${step.total} cells checked…`);
+      parts.push(`evaluating ${cell ? (CELL_KINDS.nameOf(cell) ?? 'a cell') : 'a cell'}: ${step.done} of ${step.total} cells checked…`);
     } else if (pending > 0) parts.push(`re-evaluating ${pending} ${pending === 1 ? 'cell' : 'cells'}…`);
     else if (errors > 0) {
       parts.push(`${errors} ${errors === 1 ? 'cell has' : 'cells have'} an error${upstream > 0 ? `, ${upstream} ${upstream === 1 ? 'depends' : 'depend'} on ${errors === 1 ? 'it' : 'them'}` : ''}`);
@@ -799,28 +789,28 @@ export class FurrowApp extends LitElement {
         )}
         <div class="add">
           <span>Add</span>
-          <button @click=${() => this.addCell('note', this.doc.cells.length)}>+ note</button>
-          <button @click=${() => this.addCell('table', this.doc.cells.length)}>+ table</button>
-          <button @click=${() => this.addCell('formula', this.doc.cells.length)}>+ formula</button>
+          ${ADDABLE.map((k) => html`<button @click=${() => this.addCell(k, this.doc.cells.length)}>+ ${k.label}</button>`)}
         </div>
       </main>
     `;
   }
 
   private renderCell(cell: Cell, index: number, catalogue: ReturnType<EvaluationBridge['catalogue']>) {
-    const m = parseMarker(cell.marker);
+    const word = markerKind(cell.marker);
+    const kind = CELL_KINDS.get(word);
     const state = this.drawState(cell);
     const status = state?.status ?? 'pending';
-    const view = CELL_VIEWS.get(m.kind);
-    const name = cellName(cell);
+    const view = CELL_VIEWS.get(word);
+    const name = CELL_KINDS.nameOf(cell);
     const upstreamName = status === 'upstream' ? (state?.error?.upstream ?? null) : null;
-    return html`<section class="cell ${status}" data-cell=${cell.id} data-kind=${m.kind} data-name=${name ?? ''} data-status=${status} aria-label="${m.kind} ${name ?? ''}">
+    return html`<section class="cell ${status}" data-cell=${cell.id} data-kind=${word} data-name=${name ?? ''} data-status=${status} aria-label="${word} ${name ?? ''}">
       <div class="margin">
-        <span class="kind">${m.kind || 'cell'}</span>
-        ${m.kind === 'table'
-          ? html`<span class="name" title="Rename the table in its own header">${name ?? '(unnamed)'}</span>`
-          : m.kind === 'formula'
-          ? this.renaming === cell.id
+        <span class="kind">${kind?.label ?? (word || 'cell')}</span>
+        ${kind === undefined || (kind.rename === undefined && name === null)
+          ? nothing
+          : kind.rename === undefined
+          ? html`<span class="name" title="Rename it in the cell itself">${name ?? '(unnamed)'}</span>`
+          : this.renaming === cell.id
             ? html`<input
                 class="name-input"
                 aria-label="New name"
@@ -831,8 +821,7 @@ export class FurrowApp extends LitElement {
                 }}
                 @blur=${(e: Event) => this.rename(cell, (e.target as HTMLInputElement).value.trim())}
               />`
-            : html`<button class="name" title="Rename" @click=${() => this.startRename(cell.id)}>${name ?? '(unnamed)'}</button>`
-          : nothing}
+            : html`<button class="name" title="Rename" @click=${() => this.startRename(cell.id)}>${name ?? '(unnamed)'}</button>`}
         ${STATUS_WORDS[status]
           ? html`<span class="state-word" title=${state?.error?.message ?? ''}>${STATUS_WORDS[status]}${upstreamName ? html`: <code>${upstreamName}</code>` : nothing}</span>`
           : nothing}
@@ -846,9 +835,7 @@ export class FurrowApp extends LitElement {
         ${view ? view(cell, state, catalogue) : html`<div class="inert"><pre>--- ${cell.marker}\n${cell.body}</pre></div>`}
       </div>
       <div class="insert" role="toolbar" aria-label="Add a cell below">
-        <button title="Add a note below" @click=${() => this.addCell('note', index + 1)}>+ note</button>
-        <button title="Add a table below" @click=${() => this.addCell('table', index + 1)}>+ table</button>
-        <button title="Add a formula below" @click=${() => this.addCell('formula', index + 1)}>+ formula</button>
+        ${ADDABLE.map((k) => html`<button title="Add a ${k.label} below" @click=${() => this.addCell(k, index + 1)}>+ ${k.label}</button>`)}
       </div>
     </section>`;
   }

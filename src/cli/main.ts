@@ -5,15 +5,15 @@
  */
 import { readFileSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import { documentTitle, headerFields, parseMarker, type Document } from '../doc/document.ts';
+import { documentTitle, headerFields, isSafeFileName, type Document } from '../doc/document.ts';
 import { DocumentError, readDocument } from '../doc/format.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
+import type { CellKinds } from '../graph/kinds.ts';
 import { toJson } from '../lang/json.ts';
 import { typeOf } from '../lang/values.ts';
 import { valueText } from './text.ts';
-import { isSafeFileName } from '../../cells/table/model.ts';
 
 const USAGE = `Usage: furrow run FILE [--json]
 
@@ -52,31 +52,32 @@ function readText(path: string, what: string): string {
 }
 
 /** Loads a document and the CSV files its tables name. */
-export function loadDocument(path: string): { doc: Document; engine: Engine; warnings: string[] } {
+export function loadDocument(path: string, kinds: CellKinds = CELL_KINDS): { doc: Document; engine: Engine; warnings: string[] } {
   const text = readText(path, 'The file');
   let doc: Document;
   const warnings: string[] = [];
   try {
-    const r = readDocument(text);
+    const r = readDocument(text, { kinds });
     doc = r.document;
     for (const w of r.warnings) warnings.push(`line ${w.line}: ${w.message}`);
   } catch (err) {
     if (err instanceof DocumentError) throw new CliFailure(`${path}: ${err.message}`);
     throw err;
   }
-  const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
+  const engine = new Engine({ registry: BUILTINS, kinds });
   for (const cell of doc.cells) {
-    const m = parseMarker(cell.marker);
-    if (m.kind !== 'table' || m.file === null) continue;
-    if (!isSafeFileName(m.file)) continue; // the table cell itself reports this
-    const csvPath = join(dirname(path), m.file);
-    try {
-      engine.setFile(m.file, readText(csvPath, `The CSV file`));
-    } catch (err) {
-      if (err instanceof CliFailure) {
-        throw new CliFailure(`${path}: table ${m.name ?? ''} names ${m.file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
+    for (const file of kinds.filesRead(cell)) {
+      // a name that leaves the document's folder is never opened: the cell itself reports it
+      if (!isSafeFileName(file)) continue;
+      try {
+        engine.setFile(file, readText(join(dirname(path), file), `The CSV file`));
+      } catch (err) {
+        if (err instanceof CliFailure) {
+          const heading = kinds.of(cell)!.printing.heading(kinds.nameOf(cell));
+          throw new CliFailure(`${path}: ${heading} names ${file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
+        }
+        throw err;
       }
-      throw err;
     }
   }
   engine.update(doc);
@@ -106,7 +107,7 @@ function position(body: string, offset: number, markerLine: number): string {
   return `line ${line}, column ${col}`;
 }
 
-function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], o: Output): void {
+function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], kinds: CellKinds, o: Output): void {
   o.out(`${documentTitle(doc)}  (${basename(path)})`);
   const caution = headerFields(doc).get('caution');
   if (caution) o.out(`Caution: ${caution}`);
@@ -114,9 +115,13 @@ function humanReport(path: string, doc: Document, states: CellState[], warnings:
   o.out('');
   const lines = markerLines(doc);
   const where = (i: number, e: { from: number; to: number }): string =>
-    e.from === 0 && e.to === 0 && doc.cells[i]!.marker.startsWith('table') ? `line ${lines[i]}` : position(doc.cells[i]!.body, e.from, lines[i]!);
+    e.from === 0 && e.to === 0 && kinds.of(doc.cells[i]!)?.printing.faultsOnMarker === true
+      ? `line ${lines[i]}`
+      : position(doc.cells[i]!.body, e.from, lines[i]!);
   states.forEach((s, i) => {
-    const label = s.kind === 'table' ? `table ${s.name ?? ''}` : s.name !== null ? `${s.kind} ${s.name}` : s.kind;
+    const cell = doc.cells[i]!;
+    const kind = kinds.of(cell);
+    const label = kind !== undefined ? kind.printing.heading(kind.nameOf(cell) ?? s.name) : s.kind;
     const v = s.value;
     const e = s.error;
     if (s.status === 'inert') {
@@ -158,7 +163,7 @@ function jsonReport(states: CellState[]): string {
 }
 
 /** Runs the command line with arguments; returns the exit status. */
-export function main(argv: readonly string[], o: Output): number {
+export function main(argv: readonly string[], o: Output, kinds: CellKinds = CELL_KINDS): number {
   const args = argv.filter((a) => a !== '--json');
   const json = argv.includes('--json');
   if (args.length === 0 || args[0] === 'help' || args[0] === '--help' || args[0] === '-h') {
@@ -180,10 +185,10 @@ export function main(argv: readonly string[], o: Output): number {
     return 2;
   }
   try {
-    const { doc, engine, warnings } = loadDocument(file);
+    const { doc, engine, warnings } = loadDocument(file, kinds);
     const states = engine.states();
     if (json) o.out(jsonReport(states));
-    else humanReport(file, doc, states, warnings, o);
+    else humanReport(file, doc, states, warnings, kinds, o);
     if (json) for (const w of warnings) o.err(`furrow: warning, ${w}`);
     return states.some((s) => s.status === 'error' || s.status === 'upstream') ? 1 : 0;
   } catch (err) {

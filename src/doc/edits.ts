@@ -3,7 +3,7 @@
  * undoes it, so undo and redo need nothing else, and the same edits travel to the worker
  * that evaluates and to the autosave store.
  */
-import { parseMarker, type Cell, type Document } from './document.ts';
+import type { Cell, Document } from './document.ts';
 
 export type Edit =
   | { readonly type: 'body'; readonly id: string; readonly body: string }
@@ -98,9 +98,4 @@ export function withTitle(header: string, title: string): string {
   const clean = title.replace(/[\r\n]+/g, ' ').trim();
   if (/^title:.*$/m.test(header)) return header.replace(/^title:.*$/m, `title: ${clean}`);
   return `title: ${clean}\n${header}`;
-}
-
-/** The names that table cells of a document define (for renaming checks). */
-export function tableNames(doc: Document): string[] {
-  return doc.cells.map((c) => parseMarker(c.marker)).filter((m) => m.kind === 'table' && m.name).map((m) => m.name!);
 }

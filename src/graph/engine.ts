@@ -16,7 +16,7 @@
  * The engine touches no DOM; it runs in Node, in the page and in a Web Worker.
  */
 import type { Cell, Document } from '../doc/document.ts';
-import { parseMarker } from '../doc/document.ts';
+import { markerKind } from '../doc/document.ts';
 import type { Registry } from '../lang/builtins.ts';
 import type { NameUse } from '../lang/ast.ts';
 import { LangError } from '../lang/errors.ts';
@@ -24,6 +24,7 @@ import type { EvalEnv, Lookup, Scope } from '../lang/evaluate.ts';
 import { msg } from '../lang/messages.ts';
 import { MISSING, errorValue, isError, sameValue, type ErrorValue, type Value } from '../lang/values.ts';
 import type { CellAnalysis, CellKind, FileSource } from './cell-kind.ts';
+import type { CellKinds } from './kinds.ts';
 
 /** How a cell stands, at a glance. */
 export type CellStatus = 'ok' | 'error' | 'upstream' | 'inert';
@@ -50,7 +51,7 @@ export interface CellState {
 /** Options of an engine. */
 export interface EngineOptions {
   readonly registry: Registry;
-  readonly kinds: ReadonlyMap<string, CellKind>;
+  readonly kinds: CellKinds;
   /** Reports progress of a long evaluation: the cell and a fraction from 0 to 1. */
   readonly onProgress?: (cellId: string, fraction: number) => void;
   /**
@@ -87,7 +88,7 @@ const INERT: CellAnalysis = {
 /** The evaluation engine for one document. */
 export class Engine {
   private readonly registry: Registry;
-  private readonly kinds: ReadonlyMap<string, CellKind>;
+  private readonly kinds: CellKinds;
   private readonly onProgress: ((cellId: string, fraction: number) => void) | undefined;
   private readonly onStep: ((cellId: string, done: number, total: number) => void) | undefined;
   private readonly stepAfterMs: number;
@@ -131,15 +132,14 @@ export class Engine {
     const present = new Set<string>();
     for (const cell of doc.cells) {
       present.add(cell.id);
-      const m = parseMarker(cell.marker);
-      const fileKey = m.file !== null ? `#${this.files.get(m.file)?.version ?? 'none'}` : '';
+      const kind = this.kinds.of(cell);
+      const fileKey = (kind?.filesRead(cell) ?? []).map((f) => `#${this.files.get(f)?.version ?? 'none'}`).join('');
       const key = `${cell.marker}\u0000${fileKey}\u0000${cell.body}`;
       const slot = this.slots.get(cell.id);
       if (slot !== undefined && slot.key === key) {
         slot.cell = cell;
         continue;
       }
-      const kind = this.kinds.get(m.kind);
       const analysis = kind === undefined ? INERT : safeAnalyse(kind, cell, { files: fileSource });
       if (slot === undefined) {
         this.slots.set(cell.id, {
@@ -332,7 +332,6 @@ export class Engine {
   state(id: string): CellState | undefined {
     const slot = this.slots.get(id);
     if (slot === undefined) return undefined;
-    const m = parseMarker(slot.cell.marker);
     const v = slot.value;
     const failure = isError(v) ? v : (slot.parts?.find(isError) as ErrorValue | undefined);
     const status: CellStatus = !slot.analysis.evaluates
@@ -344,7 +343,7 @@ export class Engine {
           : 'error';
     return {
       id,
-      kind: m.kind,
+      kind: markerKind(slot.cell.marker),
       name: slot.analysis.defines?.name ?? null,
       value: v,
       parts: slot.parts,

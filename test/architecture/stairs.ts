@@ -31,10 +31,10 @@ const isPackage = (...names: string[]) => (p: string): boolean =>
     : false;
 
 /**
- * The engine half of a cell kind: `cells/kinds.ts` and each kind's `model*.ts`. Everything
+ * The engine half of a cell kind: `cells/kinds.ts` and each kind's `kind.ts` and `model*.ts`. Everything
  * else under cells/ is the view half (its lit element and the helpers only it uses).
  */
-const isCellModel = (p: string): boolean => p === 'cells/kinds.ts' || /^cells\/[^/]+\/model[^/]*\.ts$/.test(p);
+const isCellModel = (p: string): boolean => p === 'cells/kinds.ts' || /^cells\/[^/]+\/(model[^/]*|kind)\.ts$/.test(p);
 const isCellView = (p: string): boolean => p.startsWith('cells/') && !isCellModel(p);
 
 /** Engine code: runs unchanged in Node, in the page and in a worker. */
