@@ -68,8 +68,6 @@ import { tableCellStyles } from './view-styles.ts';
 const PRINT_LIMIT = 2000;
 /** The largest CSV file the import reads. */
 const IMPORT_LIMIT_MB = 64;
-/** Own edits remembered until the shell hands them back. */
-const ECHO_LIMIT = 8;
 
 interface EditorState {
   readonly pos: Pos;
@@ -125,8 +123,6 @@ export class TableCellView extends LitElement {
   private gridError: CsvError | null = null;
   /** The body text that `grid` or `gridError` came from. */
   private readBody: string | null = null;
-  /** Bodies this view sent that the shell has not handed back yet. */
-  private echoes: string[] = [];
   private cellId: string | null = null;
   private sourceCache: { key: BodyGrid | Table; source: FieldSource; widths: number[] } | null = null;
   private viewTop = 0;
@@ -226,7 +222,7 @@ export class TableCellView extends LitElement {
     }
   }
 
-  /** Reads a new cell: keeps the grid when the body is one this view wrote. */
+  /** Reads a new cell: keeps the grid when the body is the one this view shows. */
   private takeCell(): void {
     const cell = this.cell;
     if (cell.id !== this.cellId) {
@@ -234,7 +230,6 @@ export class TableCellView extends LitElement {
       this.grid = null;
       this.gridError = null;
       this.readBody = null;
-      this.echoes = [];
       this.editor = null;
       this.sel = at(0, 0);
       this.textPinned = false;
@@ -245,18 +240,11 @@ export class TableCellView extends LitElement {
       this.readBody = null;
       return;
     }
+    // The store applies each edit at once and the shell hands bodies back in order, so a
+    // body this view sent comes back as the one it shows; any other body (undo, another
+    // view) is read afresh.
     const body = cell.body;
-    if (body === this.readBody) {
-      this.echoes = [];
-      return;
-    }
-    const i = this.echoes.indexOf(body);
-    if (i >= 0) {
-      // an older edit of ours coming back: the view already shows a newer one
-      this.echoes = this.echoes.slice(i + 1);
-      return;
-    }
-    this.echoes = [];
+    if (body === this.readBody) return;
     this.read(body);
     if (this.editor !== null && !this.grid) this.editor = null;
   }
@@ -279,8 +267,6 @@ export class TableCellView extends LitElement {
     this.grid = next;
     this.gridError = null;
     this.readBody = next.text;
-    this.echoes.push(next.text);
-    if (this.echoes.length > ECHO_LIMIT) this.echoes.shift();
     this.send({ type: 'body', id: this.cell.id, body: next.text }, mergeKey);
     this.requestUpdate();
   }
@@ -960,8 +946,6 @@ export class TableCellView extends LitElement {
     const body = freshBody(text);
     this.textPinned = true;
     this.read(body);
-    this.echoes.push(body);
-    if (this.echoes.length > ECHO_LIMIT) this.echoes.shift();
     this.send({ type: 'body', id: this.cell.id, body }, `text:${this.cell.id}`);
     this.requestUpdate();
   };

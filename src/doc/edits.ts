@@ -99,3 +99,28 @@ export function withTitle(header: string, title: string): string {
   if (/^title:.*$/m.test(header)) return header.replace(/^title:.*$/m, `title: ${clean}`);
   return `title: ${clean}\n${header}`;
 }
+
+/**
+ * The cells an edit touches: those whose marker or body it sets, those it adds, removes or
+ * moves. A header edit touches none. The evaluation worker tells the engine these, so that
+ * nobody compares whole documents to learn what changed.
+ */
+export function cellsTouched(edit: Edit, into: Set<string> = new Set()): Set<string> {
+  switch (edit.type) {
+    case 'body':
+    case 'marker':
+    case 'delete':
+    case 'move':
+      into.add(edit.id);
+      break;
+    case 'insert':
+      into.add(edit.cell.id);
+      break;
+    case 'header':
+      break;
+    case 'batch':
+      for (const e of edit.edits) cellsTouched(e, into);
+      break;
+  }
+  return into;
+}

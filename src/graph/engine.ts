@@ -48,6 +48,14 @@ export interface CellState {
   readonly evaluations: number;
 }
 
+/** Options of one update. */
+export interface UpdateOptions {
+  /** The cells whose text changed since the last update (all others are taken as they were). */
+  readonly touched?: ReadonlySet<string>;
+  /** Hears, before evaluation starts, the cells that may get a new value, in evaluation order. */
+  readonly onPlanned?: (ids: readonly string[]) => void;
+}
+
 /** Options of an engine. */
 export interface EngineOptions {
   readonly registry: Registry;
@@ -64,7 +72,8 @@ export interface EngineOptions {
 
 interface Slot {
   cell: Cell;
-  key: string;
+  /** The versions of the files the cell reads, when it was last analysed. */
+  fileKey: string;
   analysis: CellAnalysis;
   analysisVersion: number;
   value: Value;
@@ -124,27 +133,40 @@ export class Engine {
   /**
    * Brings the engine to a new version of the document and evaluates what the change
    * touches. Returns the ids of the cells that were evaluated, in the order they ran.
+   *
+   * `touched` names the cells whose text the change set (src/doc/edits.ts `cellsTouched`):
+   * only those are read again; without it, every cell's text is compared with the last.
+   * `onPlanned` hears, before evaluation starts, which cells may get a new value.
    */
-  update(doc: Document): string[] {
+  update(doc: Document, options: UpdateOptions = {}): string[] {
     this.doc = doc;
     const fileSource: FileSource = { read: (name) => this.files.get(name)?.text };
+    const touched = options.touched;
     // 1. analyse changed cells
     const present = new Set<string>();
+    const changedNames = new Set<string>();
+    const reanalysed: string[] = [];
     for (const cell of doc.cells) {
       present.add(cell.id);
+      const slot = this.slots.get(cell.id);
       const kind = this.kinds.of(cell);
       const fileKey = (kind?.filesRead(cell) ?? []).map((f) => `#${this.files.get(f)?.version ?? 'none'}`).join('');
-      const key = `${cell.marker}\u0000${fileKey}\u0000${cell.body}`;
-      const slot = this.slots.get(cell.id);
-      if (slot !== undefined && slot.key === key) {
-        slot.cell = cell;
-        continue;
+      if (slot !== undefined && slot.fileKey === fileKey) {
+        const same = touched !== undefined ? !touched.has(cell.id) : slot.cell.marker === cell.marker && slot.cell.body === cell.body;
+        if (same) {
+          slot.cell = cell;
+          continue;
+        }
       }
       const analysis = kind === undefined ? INERT : safeAnalyse(kind, cell, { files: fileSource });
+      reanalysed.push(cell.id);
+      if (analysis.defines !== null) changedNames.add(analysis.defines.name);
+      const before = slot?.analysis.defines;
+      if (before != null) changedNames.add(before.name);
       if (slot === undefined) {
         this.slots.set(cell.id, {
           cell,
-          key,
+          fileKey,
           analysis,
           analysisVersion: 1,
           value: MISSING,
@@ -157,15 +179,21 @@ export class Engine {
         });
       } else {
         slot.cell = cell;
-        slot.key = key;
+        slot.fileKey = fileKey;
         slot.analysis = analysis;
         slot.analysisVersion++;
       }
     }
-    for (const id of [...this.slots.keys()]) if (!present.has(id)) this.slots.delete(id);
+    for (const [id, slot] of [...this.slots]) {
+      if (present.has(id)) continue;
+      const d = slot.analysis.defines;
+      if (d !== null) changedNames.add(d.name);
+      this.slots.delete(id);
+    }
 
     // 2. resolve names, 3. order
     this.resolve(doc);
+    options.onPlanned?.(this.downstream(reanalysed, changedNames));
 
     // 4. evaluate what changed
     const ran: string[] = [];
@@ -183,6 +211,37 @@ export class Engine {
       ran.push(id);
     }
     return ran;
+  }
+
+  /**
+   * The cells that may get a new value: the cells read again, and every cell that defines
+   * or reads, directly or not, a name one of them defined before or defines now.
+   */
+  private downstream(start: readonly string[], names: ReadonlySet<string>): string[] {
+    const out = new Set(start);
+    const queue = [...names];
+    const readersOf = new Map<string, string[]>();
+    for (const id of this.order) {
+      for (const u of this.slots.get(id)!.analysis.reads) {
+        const list = readersOf.get(u.name);
+        if (list === undefined) readersOf.set(u.name, [id]);
+        else if (list[list.length - 1] !== id) list.push(id);
+      }
+    }
+    const seenNames = new Set<string>();
+    while (queue.length > 0) {
+      const name = queue.pop()!;
+      if (seenNames.has(name)) continue;
+      seenNames.add(name);
+      // the definers of a name a change gave or took may gain or lose a duplicate
+      for (const id of [...(this.definers.get(name) ?? []), ...(readersOf.get(name) ?? [])]) {
+        if (out.has(id)) continue;
+        out.add(id);
+        const d = this.slots.get(id)!.analysis.defines;
+        if (d !== null) queue.push(d.name);
+      }
+    }
+    return this.order.filter((id) => out.has(id));
   }
 
   private resolve(doc: Document): void {
