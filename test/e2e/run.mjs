@@ -7,91 +7,13 @@ import { cpus } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { check, runTests } from './harness.mjs';
+import { keepingTests } from './keeping.mjs';
+import { cellText, noteText, statusOf, settled, shownF, field, openDocument } from './page.mjs';
 
 const args = process.argv.slice(2);
 const jsonAt = args.indexOf('--json');
 const json = jsonAt >= 0 ? args[jsonAt + 1] : null;
 const build = !args.includes('--no-build');
-
-/** The text a cell shows, through shadow roots. */
-async function cellText(page, name) {
-  return page.evaluate((n) => {
-    const sec = document.querySelector('furrow-app').shadowRoot.querySelector(`section[data-name="${n}"]`);
-    if (!sec) return null;
-    const walk = (node) => {
-      let out = '';
-      for (const child of node.childNodes) {
-        if (child.nodeType === 3) out += child.textContent;
-        else if (child.nodeType === 1) {
-          if (child.shadowRoot) out += walk(child.shadowRoot);
-          out += walk(child);
-          if (/^(DIV|P|LI|TR|H\d|SECTION)$/.test(child.tagName)) out += '\n';
-          if (/^(TD|TH)$/.test(child.tagName)) out += ' ';
-        }
-      }
-      return out;
-    };
-    return walk(sec).replace(/[ \t]+/g, ' ');
-  }, name);
-}
-
-/** The text of the note that holds a heading or phrase, through shadow roots. */
-async function noteText(page, holding) {
-  return page.evaluate((h) => {
-    const notes = document.querySelector('furrow-app').shadowRoot.querySelectorAll('section[data-kind="note"] furrow-note-cell');
-    for (const el of notes) {
-      const t = el.shadowRoot.textContent.replace(/\s+/g, ' ');
-      if (t.includes(h)) return t;
-    }
-    return null;
-  }, holding);
-}
-
-async function statusOf(page, name) {
-  return page.evaluate((n) => document.querySelector('furrow-app').shadowRoot.querySelector(`section[data-name="${n}"]`)?.dataset.status ?? null, name);
-}
-
-/** Waits until the page says every cell is up to date (or has its error). */
-async function settled(page) {
-  await page.waitForFunction(() => document.querySelector('furrow-app')?.bridge !== undefined);
-  await page.evaluate(() => document.querySelector('furrow-app').settled());
-  await page.waitForFunction(() => {
-    const app = document.querySelector('furrow-app');
-    const secs = app?.shadowRoot?.querySelectorAll('section.cell');
-    return secs && secs.length > 0 && [...secs].every((s) => s.dataset.status !== 'pending');
-  });
-}
-
-/** The analysis-of-variance F of the first row, as shown in the fit cell. */
-async function shownF(page) {
-  return page.evaluate(() => {
-    const sec = document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="fit"]');
-    const value = sec.querySelector('furrow-formula-cell').shadowRoot.querySelector('furrow-value');
-    const tables = value.shadowRoot.querySelectorAll('table');
-    for (const t of tables) {
-      const head = [...t.querySelectorAll('th')].map((th) => th.textContent.trim());
-      const fi = head.indexOf('F');
-      if (fi >= 0) return t.querySelector('tbody tr').children[fi].textContent.trim();
-    }
-    return null;
-  });
-}
-
-/** A grid field of a table cell. */
-function field(page, table, r, c) {
-  return page.locator(`section[data-name="${table}"] furrow-table-cell [role="gridcell"][data-r="${r}"][data-c="${c}"]`);
-}
-
-async function openDocument(page, text, name = 'dropped.furrow') {
-  await page.evaluate(
-    ({ text, name }) => {
-      const dt = new DataTransfer();
-      dt.items.add(new File([text], name, { type: 'text/plain' }));
-      window.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
-    },
-    { text, name },
-  );
-}
 
 /** Figures measured on the way, written to test-output/e2e/measured.json. */
 const measured = {};
@@ -484,6 +406,8 @@ tests.push({
     statSync('dist/index.html');
   },
 });
+
+tests.push(...keepingTests(measured));
 
 const { failed } = await runTests(tests, { build, json });
 writeFileSync(`test-output/e2e/measured.json`, `${JSON.stringify({ machine: cpus()[0]?.model ?? 'unknown', ...measured }, null, 2)}\n`);
