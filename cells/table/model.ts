@@ -7,6 +7,7 @@
 import { isSafeFileName, type Cell, type Marker } from '../../src/doc/document.ts';
 import { CsvError, parseCsv, type CsvGrid } from '../../src/doc/csv.ts';
 import type { AnalyseEnv, CellAnalysis } from '../../src/graph/cell-kind.ts';
+import { KeptTable, rereadTable, tableWork } from './model-rows.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
 import { msg } from '../../src/lang/messages.ts';
 import {
@@ -133,8 +134,16 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
     if (t === undefined) return fail(errorValue(msg.csvFileMissing(m.file), 0, 0));
     text = t;
   }
+  // a body edited since the last reading: read only the lines the edit changed
+  const kept = env.previous?.kept;
+  if (m.file === null && kept instanceof KeptTable) {
+    const again = rereadTable(kept, text, columnFromFields);
+    if (again !== null) return { name, file: null, grid: again.grid, value: again.value, error: null };
+  }
   try {
     const grid = parseCsv(text);
+    tableWork.rowsRead += grid.rows.length + 1;
+    tableWork.columnsBuilt += grid.header.length;
     return { name, file: m.file, grid, value: tableFromGrid(grid), error: null };
   } catch (err) {
     if (!(err instanceof CsvError)) throw err;
@@ -154,5 +163,6 @@ export function analyseTable(cell: Cell, env: AnalyseEnv): CellAnalysis {
     problem: r.error,
     evaluates: true,
     evaluate: () => ({ value: r.value! }),
+    kept: r.file === null && r.grid !== null && r.value !== null ? new KeptTable(cell.body, r.grid, r.value) : undefined,
   };
 }

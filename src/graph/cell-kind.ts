@@ -19,6 +19,12 @@ export interface FileSource {
 /** What analysis of a cell may consult. */
 export interface AnalyseEnv {
   readonly files: FileSource;
+  /**
+   * The same cell's analysis before this change, if it had one: a kind may read the new
+   * text faster from what it kept (`CellAnalysis.kept`), as a table re-reads only the
+   * rows an edit changed.
+   */
+  readonly previous?: CellAnalysis | null;
 }
 
 /** The result of evaluating a cell. */
@@ -40,6 +46,8 @@ export interface CellAnalysis {
   evaluate(env: EvalEnv): CellOutput;
   /** False for kinds the engine keeps but does not evaluate. */
   readonly evaluates: boolean;
+  /** What the kind keeps to read the cell's next version faster (its own business). */
+  readonly kept?: unknown;
 }
 
 /** The marker line and body of a cell, as a new cell or a rename writes them. */

@@ -23,7 +23,7 @@ import { LangError } from '../lang/errors.ts';
 import type { EvalEnv, Lookup, Scope } from '../lang/evaluate.ts';
 import { msg } from '../lang/messages.ts';
 import { MISSING, errorValue, isError, sameValue, type ErrorValue, type Value } from '../lang/values.ts';
-import type { CellAnalysis, CellKind, FileSource } from './cell-kind.ts';
+import type { AnalyseEnv, CellAnalysis, CellKind, FileSource } from './cell-kind.ts';
 import type { CellKinds } from './kinds.ts';
 
 /** How a cell stands, at a glance. */
@@ -158,7 +158,7 @@ export class Engine {
           continue;
         }
       }
-      const analysis = kind === undefined ? INERT : safeAnalyse(kind, cell, { files: fileSource });
+      const analysis = kind === undefined ? INERT : safeAnalyse(kind, cell, { files: fileSource, previous: slot?.analysis ?? null });
       reanalysed.push(cell.id);
       if (analysis.defines !== null) changedNames.add(analysis.defines.name);
       const before = slot?.analysis.defines;
@@ -437,7 +437,7 @@ export class Engine {
   }
 }
 
-function safeAnalyse(kind: CellKind, cell: Cell, env: { files: FileSource }): CellAnalysis {
+function safeAnalyse(kind: CellKind, cell: Cell, env: AnalyseEnv): CellAnalysis {
   try {
     return kind.analyse(cell, env);
   } catch (err) {
