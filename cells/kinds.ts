@@ -1,15 +1,14 @@
 /**
- * The cell kinds the engine knows, one line each. A new kind is a folder under cells/ with
- * its model (a CellKind) and its view, plus one line here.
+ * The cell kinds, one line each. A kind is a folder under cells/ whose `kind.ts` describes
+ * it (marker grammar, new-cell template, name, margin label, printing, analysis) and whose
+ * view is listed in cells/views.ts. The engine, the shell and the command line are handed
+ * this collection; none of them names a kind.
  */
-import type { CellKind } from '../src/graph/cell-kind.ts';
-import { formulaKind } from './formula/model.ts';
-import { noteKind } from './note/model.ts';
-import { tableKind } from './table/model.ts';
+import { CellKinds } from '../src/graph/kinds.ts';
+import { formulaKind } from './formula/kind.ts';
+import { noteKind } from './note/kind.ts';
+import { sealedKind } from './sealed/kind.ts';
+import { tableKind } from './table/kind.ts';
 
-/** Every evaluated cell kind, by marker word. */
-export const CELL_KINDS: ReadonlyMap<string, CellKind> = new Map([
-  [noteKind.kind, noteKind],
-  [tableKind.kind, tableKind],
-  [formulaKind.kind, formulaKind],
-]);
+/** Every kind, in the order the page offers to add them. */
+export const CELL_KINDS = new CellKinds([noteKind, tableKind, formulaKind, sealedKind]);

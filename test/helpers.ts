@@ -3,6 +3,7 @@
  */
 import { readDocument } from '../src/doc/format.ts';
 import { BUILTINS } from '../src/functions/index.ts';
+import { CELL_KINDS } from '../cells/kinds.ts';
 import { Engine, type CellState } from '../src/graph/engine.ts';
 import type { Value } from '../src/lang/values.ts';
 
@@ -13,7 +14,7 @@ export function doc(...lines: string[]): string {
 
 /** Evaluates a document's text; returns the engine and its states. */
 export function run(text: string): { engine: Engine; states: CellState[] } {
-  const engine = new Engine({ registry: BUILTINS });
+  const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
   engine.update(readDocument(text).document);
   return { engine, states: engine.states() };
 }

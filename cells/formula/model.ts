@@ -3,7 +3,7 @@
  * section 2). The body is the formula's text; ranges in errors are offsets into it.
  */
 import type { Cell } from '../../src/doc/document.ts';
-import type { CellAnalysis, CellKind } from '../../src/graph/cell-kind.ts';
+import type { CellAnalysis } from '../../src/graph/cell-kind.ts';
 import { namesRead, type Statement } from '../../src/lang/ast.ts';
 import { LangError } from '../../src/lang/errors.ts';
 import { evaluate } from '../../src/lang/evaluate.ts';
@@ -21,31 +21,28 @@ export function parseFormula(text: string): { statement: Statement | null; error
   }
 }
 
-/** The formula kind. */
-export const formulaKind: CellKind = {
-  kind: 'formula',
-  analyse(cell: Cell): CellAnalysis {
-    const { statement, error } = parseFormula(cell.body);
-    if (statement === null) {
-      const e = error!;
-      // A definition that does not parse still claims its name, so the cells that read it
-      // say "reads x, which has an error" rather than "there is no x".
-      const claimed = /^(\s*)([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/.exec(cell.body);
-      const name = claimed !== null && isPlainName(claimed[2]!) ? claimed[2]! : null;
-      return {
-        defines: name === null ? null : { name, from: claimed![1]!.length, to: claimed![1]!.length + name.length },
-        reads: [],
-        problem: errorValue(e.message, e.from, e.to),
-        evaluates: true,
-        evaluate: () => ({ value: MISSING }),
-      };
-    }
+/** What a formula defines and reads, and how it evaluates. */
+export function analyseFormula(cell: Cell): CellAnalysis {
+  const { statement, error } = parseFormula(cell.body);
+  if (statement === null) {
+    const e = error!;
+    // A definition that does not parse still claims its name, so the cells that read it
+    // say "reads x, which has an error" rather than "there is no x".
+    const claimed = /^(\s*)([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/.exec(cell.body);
+    const name = claimed !== null && isPlainName(claimed[2]!) ? claimed[2]! : null;
     return {
-      defines: statement.name === null ? null : { name: statement.name, from: statement.nameFrom, to: statement.nameTo },
-      reads: namesRead(statement.expr),
-      problem: null,
+      defines: name === null ? null : { name, from: claimed![1]!.length, to: claimed![1]!.length + name.length },
+      reads: [],
+      problem: errorValue(e.message, e.from, e.to),
       evaluates: true,
-      evaluate: (env) => ({ value: evaluate(statement.expr, env) }),
+      evaluate: () => ({ value: MISSING }),
     };
-  },
-};
+  }
+  return {
+    defines: statement.name === null ? null : { name: statement.name, from: statement.nameFrom, to: statement.nameTo },
+    reads: namesRead(statement.expr),
+    problem: null,
+    evaluates: true,
+    evaluate: (env) => ({ value: evaluate(statement.expr, env) }),
+  };
+}

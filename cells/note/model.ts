@@ -6,7 +6,7 @@
  * the parts, so the rest of the note still reads.
  */
 import type { Cell } from '../../src/doc/document.ts';
-import type { CellAnalysis, CellKind } from '../../src/graph/cell-kind.ts';
+import type { CellAnalysis } from '../../src/graph/cell-kind.ts';
 import { namesRead, type Expr, type NameUse } from '../../src/lang/ast.ts';
 import { LangError } from '../../src/lang/errors.ts';
 import { evaluate } from '../../src/lang/evaluate.ts';
@@ -122,46 +122,43 @@ function shift(uses: NameUse[], offset: number): NameUse[] {
   return uses.map((u) => ({ name: u.name, from: u.from + offset, to: u.to + offset }));
 }
 
-/** The note kind. */
-export const noteKind: CellKind = {
-  kind: 'note',
-  analyse(cell: Cell): CellAnalysis {
-    const text = cell.body;
-    const pieces = splitNote(text);
-    const reads: NameUse[] = [];
-    for (const p of pieces) {
-      if (p.type === 'placeholder' && p.expr !== null) reads.push(...shift(namesRead(p.expr), p.from + 1));
-    }
-    return {
-      defines: null,
-      reads,
-      problem: null,
-      evaluates: true,
-      evaluate(env) {
-        const parts: Value[] = [];
-        let out = '';
-        for (const p of pieces) {
-          if (p.type === 'text') {
-            out += p.text;
-            continue;
-          }
-          let v: Value;
-          if (p.error !== null) v = p.error;
-          else {
-            try {
-              v = evaluate(p.expr!, env);
-            } catch (err) {
-              if (!(err instanceof LangError)) throw err;
-              const offset = p.from + 1;
-              v = errorValue(err.message, err.from + offset, err.to + offset, err.upstream);
-            }
-          }
-          parts.push(v);
-          // a failed placeholder stays as written; its error is in `parts`
-          out += isError(v) ? p.raw : formatInline(v);
+/** What a note reads and how its placeholders evaluate. */
+export function analyseNote(cell: Cell): CellAnalysis {
+  const text = cell.body;
+  const pieces = splitNote(text);
+  const reads: NameUse[] = [];
+  for (const p of pieces) {
+    if (p.type === 'placeholder' && p.expr !== null) reads.push(...shift(namesRead(p.expr), p.from + 1));
+  }
+  return {
+    defines: null,
+    reads,
+    problem: null,
+    evaluates: true,
+    evaluate(env) {
+      const parts: Value[] = [];
+      let out = '';
+      for (const p of pieces) {
+        if (p.type === 'text') {
+          out += p.text;
+          continue;
         }
-        return { value: out.replace(/(\r?\n)+$/, ''), parts };
-      },
-    };
-  },
-};
+        let v: Value;
+        if (p.error !== null) v = p.error;
+        else {
+          try {
+            v = evaluate(p.expr!, env);
+          } catch (err) {
+            if (!(err instanceof LangError)) throw err;
+            const offset = p.from + 1;
+            v = errorValue(err.message, err.from + offset, err.to + offset, err.upstream);
+          }
+        }
+        parts.push(v);
+        // a failed placeholder stays as written; its error is in `parts`
+        out += isError(v) ? p.raw : formatInline(v);
+      }
+      return { value: out.replace(/(\r?\n)+$/, ''), parts };
+    },
+  };
+}

@@ -13,7 +13,7 @@ import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
 import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
-import { shared } from '../../src/app/theme.ts';
+import { shared } from '../../src/views/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { splitNote } from './model.ts';
 import { ATTRIBUTE_SLOT, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';

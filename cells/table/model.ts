@@ -4,9 +4,10 @@
  * every non-empty field is true or false; text otherwise. An empty field is missing. The
  * decimal text of each number is kept for exact work (language.md section 5).
  */
-import { parseMarker, type Cell } from '../../src/doc/document.ts';
+import { isSafeFileName, type Cell, type Marker } from '../../src/doc/document.ts';
 import { CsvError, parseCsv, type CsvGrid } from '../../src/doc/csv.ts';
-import type { AnalyseEnv, CellAnalysis, CellKind } from '../../src/graph/cell-kind.ts';
+import type { AnalyseEnv, CellAnalysis } from '../../src/graph/cell-kind.ts';
+import { KeptTable, rereadTable, tableWork } from './model-rows.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
 import { msg } from '../../src/lang/messages.ts';
 import {
@@ -100,14 +101,33 @@ export interface TableRead {
   readonly error: ErrorValue | null;
 }
 
-/** True when a file name a document gives stays in the document's own folder. */
-export function isSafeFileName(file: string): boolean {
-  return !/[\\/:\0]/.test(file) && file !== '.' && file !== '..' && !file.startsWith('.') && file.length <= 255;
+/**
+ * The table's marker grammar, after the word "table": `NAME` or `NAME from FILE`. The file
+ * name is the rest of the line, so a name with spaces still works.
+ */
+export function readTableMarker(rest: string): Omit<Marker, 'kind'> {
+  const words = rest.split(/[ \t]+/).filter((w) => w.length > 0);
+  const name = words[0] ?? null;
+  if (words[1] === 'from') {
+    const file = rest.replace(/^\s*\S+\s+from\s+/, '').trim();
+    return { name, file: file === '' ? null : file, extra: [] };
+  }
+  return { name, file: null, extra: words.slice(1) };
+}
+
+/** A table's marker line, keeping the words its grammar does not use. */
+export function writeTableMarker(name: string, file: string | null, extra: readonly string[] = []): string {
+  return `table ${name}${file !== null ? ` from ${file}` : ''}${extra.length > 0 ? ` ${extra.join(' ')}` : ''}`;
+}
+
+/** The marker of a table cell. */
+export function tableMarker(cell: Cell): Omit<Marker, 'kind'> {
+  return readTableMarker(cell.marker.replace(/^[ \t]*\S+[ \t]*/, ''));
 }
 
 /** Reads a table cell (body or CSV file). */
 export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
-  const m = parseMarker(cell.marker);
+  const m = tableMarker(cell);
   const name = m.name;
   const fail = (e: ErrorValue): TableRead => ({ name, file: m.file, grid: null, value: null, error: e });
   if (name === null) return fail(errorValue(msg.missingTableName(), 0, 0));
@@ -119,8 +139,20 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
     if (t === undefined) return fail(errorValue(msg.csvFileMissing(m.file), 0, 0));
     text = t;
   }
+  // a body edited since the last reading: read only the lines the edit changed
+  const kept = env.previous?.kept;
+  if (m.file === null && kept instanceof KeptTable) {
+    const again = rereadTable(kept, text, columnFromFields);
+    if (again !== null) {
+      if (again.grid.rows.length > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(again.grid.rows.length, MAX_TABLE_ROWS), 0, 0));
+      if (again.grid.header.length > MAX_TABLE_COLUMNS) return fail(errorValue(msg.tooManyColumns(again.grid.header.length, MAX_TABLE_COLUMNS), 0, 0));
+      return { name, file: null, grid: again.grid, value: again.value, error: null };
+    }
+  }
   try {
     const grid = parseCsv(text);
+    tableWork.rowsRead += grid.rows.length + 1;
+    tableWork.columnsBuilt += grid.header.length;
     if (grid.rows.length > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(grid.rows.length, MAX_TABLE_ROWS), 0, 0));
     if (grid.header.length > MAX_TABLE_COLUMNS) return fail(errorValue(msg.tooManyColumns(grid.header.length, MAX_TABLE_COLUMNS), 0, 0));
     return { name, file: m.file, grid, value: tableFromGrid(grid), error: null };
@@ -159,20 +191,18 @@ export function lookalikeNames(names: readonly string[]): string[] {
   return out;
 }
 
-/** The table kind. */
-export const tableKind: CellKind = {
-  kind: 'table',
-  analyse(cell: Cell, env: AnalyseEnv): CellAnalysis {
-    const r = readTable(cell, env);
-    return {
-      defines: r.name !== null && isPlainName(r.name) ? { name: r.name, from: -1, to: -1 } : null,
-      reads: [],
-      problem: r.error,
-      evaluates: true,
-      evaluate: (env) => {
-        if (r.value !== null) for (const w of lookalikeNames(r.value.names)) env.warn(w);
-        return { value: r.value! };
-      },
-    };
-  },
-};
+/** What a table cell defines and how it evaluates. */
+export function analyseTable(cell: Cell, env: AnalyseEnv): CellAnalysis {
+  const r = readTable(cell, env);
+  return {
+    defines: r.name !== null && isPlainName(r.name) ? { name: r.name, from: -1, to: -1 } : null,
+    reads: [],
+    problem: r.error,
+    evaluates: true,
+    evaluate: (ev) => {
+      if (r.value !== null) for (const w of lookalikeNames(r.value.names)) ev.warn(w);
+      return { value: r.value! };
+    },
+    kept: r.file === null && r.grid !== null && r.value !== null ? new KeptTable(cell.body, r.grid, r.value) : undefined,
+  };
+}

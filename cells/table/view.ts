@@ -13,10 +13,11 @@
  * nothing is lost; a table read from a CSV file is shown read-only from its value.
  */
 import { LitElement, html, nothing, type PropertyValues, type TemplateResult } from 'lit';
-import { shared } from '../../src/app/theme.ts';
+import { shared } from '../../src/views/theme.ts';
 import { CsvError } from '../../src/doc/csv.ts';
 import { decodeUtf8 } from '../../src/doc/utf8.ts';
-import { freshBody, parseMarker, visibleBody, type Cell } from '../../src/doc/document.ts';
+import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
+import { tableMarker, writeTableMarker } from './model.ts';
 import type { Edit } from '../../src/doc/edits.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
 import { isTable, type Table } from '../../src/lang/values.ts';
@@ -68,8 +69,6 @@ import { tableCellStyles } from './view-styles.ts';
 const PRINT_LIMIT = 2000;
 /** The largest CSV file the import reads. */
 const IMPORT_LIMIT_MB = 64;
-/** Own edits remembered until the shell hands them back. */
-const ECHO_LIMIT = 8;
 
 interface EditorState {
   readonly pos: Pos;
@@ -125,8 +124,6 @@ export class TableCellView extends LitElement {
   private gridError: CsvError | null = null;
   /** The body text that `grid` or `gridError` came from. */
   private readBody: string | null = null;
-  /** Bodies this view sent that the shell has not handed back yet. */
-  private echoes: string[] = [];
   private cellId: string | null = null;
   private sourceCache: { key: BodyGrid | Table; source: FieldSource; widths: number[] } | null = null;
   private viewTop = 0;
@@ -178,11 +175,11 @@ export class TableCellView extends LitElement {
 
   /** The CSV file a table reads, or null for a table with a body. */
   private get file(): string | null {
-    return this.cell ? parseMarker(this.cell.marker).file : null;
+    return this.cell ? tableMarker(this.cell).file : null;
   }
 
   private get tableName(): string | null {
-    return this.cell ? parseMarker(this.cell.marker).name : null;
+    return this.cell ? tableMarker(this.cell).name : null;
   }
 
   private get readOnly(): boolean {
@@ -226,7 +223,7 @@ export class TableCellView extends LitElement {
     }
   }
 
-  /** Reads a new cell: keeps the grid when the body is one this view wrote. */
+  /** Reads a new cell: keeps the grid when the body is the one this view shows. */
   private takeCell(): void {
     const cell = this.cell;
     if (cell.id !== this.cellId) {
@@ -234,29 +231,21 @@ export class TableCellView extends LitElement {
       this.grid = null;
       this.gridError = null;
       this.readBody = null;
-      this.echoes = [];
       this.editor = null;
       this.sel = at(0, 0);
       this.textPinned = false;
     }
-    if (parseMarker(cell.marker).file !== null) {
+    if (tableMarker(cell).file !== null) {
       this.grid = null;
       this.gridError = null;
       this.readBody = null;
       return;
     }
+    // The store applies each edit at once and the shell hands bodies back in order, so a
+    // body this view sent comes back as the one it shows; any other body (undo, another
+    // view) is read afresh.
     const body = cell.body;
-    if (body === this.readBody) {
-      this.echoes = [];
-      return;
-    }
-    const i = this.echoes.indexOf(body);
-    if (i >= 0) {
-      // an older edit of ours coming back: the view already shows a newer one
-      this.echoes = this.echoes.slice(i + 1);
-      return;
-    }
-    this.echoes = [];
+    if (body === this.readBody) return;
     this.read(body);
     if (this.editor !== null && !this.grid) this.editor = null;
   }
@@ -279,8 +268,6 @@ export class TableCellView extends LitElement {
     this.grid = next;
     this.gridError = null;
     this.readBody = next.text;
-    this.echoes.push(next.text);
-    if (this.echoes.length > ECHO_LIMIT) this.echoes.shift();
     this.send({ type: 'body', id: this.cell.id, body: next.text }, mergeKey);
     this.requestUpdate();
   }
@@ -942,8 +929,8 @@ export class TableCellView extends LitElement {
       return false;
     }
     this.nameProblem = null;
-    const m = parseMarker(this.cell.marker);
-    const marker = `table ${name}${m.file !== null ? ` from ${m.file}` : ''}${m.extra.length > 0 ? ` ${m.extra.join(' ')}` : ''}`;
+    const m = tableMarker(this.cell);
+    const marker = writeTableMarker(name, m.file, m.extra);
     this.send({ type: 'marker', id: this.cell.id, marker });
     return true;
   }
@@ -960,8 +947,6 @@ export class TableCellView extends LitElement {
     const body = freshBody(text);
     this.textPinned = true;
     this.read(body);
-    this.echoes.push(body);
-    if (this.echoes.length > ECHO_LIMIT) this.echoes.shift();
     this.send({ type: 'body', id: this.cell.id, body }, `text:${this.cell.id}`);
     this.requestUpdate();
   };

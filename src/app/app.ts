@@ -1,75 +1,64 @@
 /**
- * `<furrow-app>`: the page. It owns the document (with its history), the evaluation
- * worker and autosave, and lays the cells out as a sheet: each cell with a margin that says
- * what it is, what it is called and how it stands.
+ * `<furrow-app>`: the page. It owns the document's history (the store), the evaluation
+ * worker's bridge and the keeping of documents, and lays the cells out as a sheet: each
+ * cell with a margin that says what it is, what it is called and how it stands.
  *
- *   edit in a view --(Edit)--> store (undo/redo) --> worker (evaluate what changed)
- *                                        \--> autosave (IndexedDB)
- *   worker results --> bridge (per-cell states) --> views
+ *   view --Edit--> store (undo/redo) --Edit--> bridge --Edit--> worker: document + engine
+ *                    \--> keeper (autosave per document, lazy)              |
+ *   view <-- cell states and values <-- bridge <-- results + plans ---------+
+ *
+ * Pieces with one job each: src/app/keeper.ts (which document, kept where), drop.ts
+ * (files dropped on the page), visible-cells.ts (cells on screen first), cell-margin.ts
+ * (the margin), app-styles.ts (the look); the words are in src/messages/page.ts.
  */
-import { LitElement, css, html, nothing } from 'lit';
+import { LitElement, html, nothing } from 'lit';
 import { repeat } from 'lit/directives/repeat.js';
+import { CELL_KINDS } from '../../cells/kinds.ts';
+import { EDIT_EVENT, type EditEventDetail } from '../../cells/view-api.ts';
 import { CELL_VIEWS } from '../../cells/views.ts';
-import { EDIT_EVENT, type CellViewState, type EditEventDetail } from '../../cells/view-api.ts';
-import { documentTitle, formatMarker, freshBody, headerFields, parseMarker, type Cell, type Document } from '../doc/document.ts';
+import { documentTitle, headerFields, markerKind, type Cell, type Document } from '../doc/document.ts';
 import { freshCellId, withTitle, type Edit } from '../doc/edits.ts';
 import { DocumentError, readDocument, writeDocument } from '../doc/format.ts';
 import { NotUtf8Error } from '../doc/utf8.ts';
+import type { CellKind } from '../graph/cell-kind.ts';
 import { isPlainName } from '../lang/lexer.ts';
-import { Autosaver, type SavedState } from './autosave.ts';
+import { pageMsg } from '../messages/page.ts';
+import { shared } from '../views/theme.ts';
+import { appStyles } from './app-styles.ts';
+import { fileKey, forget, listSaved, loadSaved, newKey, sampleKey, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
-import { fileNameFor, pickFile, readFileText, saveText } from './files.ts';
+import { cellMargin } from './cell-margin.ts';
+import { FileDrop } from './drop.ts';
+import { fileNameFor, pickFile, saveText } from './files.ts';
+import { DocumentKeeper, type Opening } from './keeper.ts';
 import { DocumentStore } from './store.ts';
 import './handoff/hand-off.ts';
 import { documentFromReport } from './handoff/report-open.ts';
-import { shared } from './theme.ts';
+import { VisibleCells } from './visible-cells.ts';
 
-/** A message shown in the banner under the toolbar. */
+/** A message shown in the banner under the toolbar, with buttons for what may follow. */
 interface Banner {
   readonly kind: 'info' | 'problem';
   readonly text: string;
+  readonly actions?: readonly { readonly label: string; readonly run: () => void }[];
 }
 
-const STATUS_WORDS: Record<string, string> = {
-  ok: '',
-  pending: 're-evaluating',
-  error: 'error',
-  upstream: 'depends on an error',
-  inert: 'kept, not evaluated',
-};
-
-/** What a new cell of each kind starts with. */
-function newCell(doc: Document, kind: 'note' | 'table' | 'formula'): Cell {
-  const id = freshCellId(doc);
-  const names = new Set(doc.cells.map((c) => parseMarker(c.marker).name).filter((n): n is string => n !== null));
-  for (const c of doc.cells) {
-    const m = /^\s*([A-Za-z_]\w*)\s*=/.exec(c.body);
-    if (m) names.add(m[1]!);
-  }
+/** A new cell of a kind, named with the first name of its pattern not yet taken. */
+function newCell(doc: Document, kind: CellKind): Cell | null {
+  if (kind.template === undefined) return null;
+  const names = new Set(doc.cells.map((c) => CELL_KINDS.nameOf(c)).filter((n): n is string => n !== null));
   const fresh = (base: string): string => {
     for (let k = 1; ; k++) {
       const n = `${base}${k}`;
       if (!names.has(n)) return n;
     }
   };
-  switch (kind) {
-    case 'note':
-      return { id, marker: 'note', eol: '\n', body: freshBody('') };
-    case 'table':
-      return { id, marker: formatMarker('table', fresh('table')), eol: '\n', body: freshBody('block,treatment,response\n1,,\n') };
-    case 'formula':
-      // the space after "=" stays, ready for typing
-      return { id, marker: 'formula', eol: '\n', body: `${fresh('value')} = \n\n` };
-  }
+  const { marker, body } = kind.template(fresh);
+  return { id: freshCellId(doc), marker, eol: '\n', body };
 }
 
-/** The name a cell defines, as the margin shows it. */
-function cellName(cell: Cell): string | null {
-  const m = parseMarker(cell.marker);
-  if (m.kind === 'table') return m.name;
-  if (m.kind === 'formula') return /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/.exec(cell.body)?.[1] ?? null;
-  return null;
-}
+/** The kinds the page offers to add, in their listed order. */
+const ADDABLE = CELL_KINDS.all().filter((k) => k.template !== undefined);
 
 /** The page. */
 export class FurrowApp extends LitElement {
@@ -78,6 +67,7 @@ export class FurrowApp extends LitElement {
     banner: { state: true },
     renaming: { state: true },
     tick: { state: true },
+    kept: { state: true },
   };
 
   declare doc: Document;
@@ -85,66 +75,80 @@ export class FurrowApp extends LitElement {
   declare renaming: string | null;
   /** Bumped when cell states change, so the cells re-render. */
   declare tick: number;
+  /** Other documents kept in this browser, newest first. */
+  declare kept: readonly SavedState[];
 
   private store!: DocumentStore;
   private bridge!: EvaluationBridge;
-  private readonly autosaver = new Autosaver();
+  private readonly keeper: DocumentKeeper;
   private fileName: string | null = null;
   private fileHandle: FileSystemFileHandle | null = null;
   private files = new Map<string, string>();
-  private savedToFile = true;
   private saveProblem: string | null = null;
   private samples: ReadonlyMap<string, string> = new Map();
-  /**
-   * Cells on screen (or near it). A wave of new values renders these first; cells off
-   * screen keep the state they were last drawn with until the next frame, so that an edit
-   * in a long document shows its visible consequences at once.
-   */
-  private readonly onScreen = new Set<string>();
-  private readonly drawn = new Map<string, CellViewState | null>();
-  private catchUp = false;
-  private catchUpScheduled = false;
-  private observer: IntersectionObserver | null = null;
+  private readonly visible = new VisibleCells(this, (id) => this.bridge.state(id));
 
   constructor() {
     super();
     this.banner = null;
     this.renaming = null;
     this.tick = 0;
-  }
-
-  /** Starts the page on a document (and the CSV files its tables name). */
-  start(text: string, options: { fileName: string | null; files?: ReadonlyArray<readonly [string, string]>; samples?: ReadonlyMap<string, string>; notice?: string }): void {
-    const doc = readDocument(text).document;
-    this.doc = doc;
-    this.fileName = options.fileName;
-    this.samples = options.samples ?? new Map();
-    this.files = new Map(options.files ?? []);
-    this.store = new DocumentStore(doc);
-    this.bridge = new EvaluationBridge({
-      onStates: () => {
+    this.kept = [];
+    this.keeper = new DocumentKeeper({
+      state: () => ({ text: writeDocument(this.store.document), title: documentTitle(this.store.document), fileName: this.fileName, files: [...this.files] }),
+      saved: (ok, error) => {
+        this.saveProblem = ok ? null : (error ?? 'unknown');
         this.tick++;
       },
-      onFailure: (message) => {
-        this.banner = { kind: 'problem', text: message };
+      shared: () => {
+        this.banner = { kind: 'info', text: pageMsg.sharedWithTab() };
+      },
+      savedElsewhere: () => {
+        this.banner = { kind: 'info', text: pageMsg.savedInOtherTab(), actions: [{ label: pageMsg.reload(), run: () => void this.reopenKept(this.keeper.key) }] };
       },
     });
-    if (this.files.size > 0) this.bridge.files([...this.files]);
-    this.store.subscribe((d, reason) => {
-      const before = this.doc;
-      this.doc = d;
-      const changed = reason === 'load' ? 'all' : changedCells(before, d);
-      this.bridge.update(d, changed);
-      if (reason !== 'load') this.savedToFile = false;
-      this.scheduleSave();
+    new FileDrop(this, {
+      csv: (name, text) => this.attach(name, text),
+      document: (name, text) => {
+        if (this.openText(text, name)) this.fileHandle = null;
+      },
+      problem: (text) => {
+        this.banner = { kind: 'problem', text };
+      },
     });
-    this.autosaver.onSaved = (ok, error) => {
-      this.saveProblem = ok ? null : (error ?? 'unknown');
-      this.tick++;
-    };
-    this.bridge.update(doc, 'all');
+  }
+
+  /** Starts the page on a document (see DocumentKeeper.initial for which). */
+  start(opening: Opening, options: { samples?: ReadonlyMap<string, string>; notice?: string } = {}): void {
+    this.samples = options.samples ?? new Map();
+    if (this.store === undefined) this.setUp();
+    if (!this.open(opening)) throw new DocumentError(pageMsg.keptUnreadable());
     if (options.notice) this.banner = { kind: 'info', text: options.notice };
-    this.scheduleSave();
+  }
+
+  /** The store and the worker's bridge, made once for the page's life. */
+  private setUp(): void {
+    const empty: Document = { bom: false, firstLine: 'furrow 1', firstEol: '\n', header: '', cells: [] };
+    this.store = new DocumentStore(empty);
+    this.bridge = new EvaluationBridge(
+      {
+        onStates: () => {
+          this.tick++;
+        },
+        onFailure: (message) => {
+          this.banner = { kind: 'problem', text: message };
+        },
+      },
+      () => this.store.document,
+    );
+    this.store.subscribe((d, reason, edit) => {
+      this.doc = d;
+      if (edit === null) this.bridge.load(d);
+      else {
+        this.bridge.edit(edit);
+        this.keeper.touch();
+      }
+    });
   }
 
   /** Waits until every evaluation sent has come back (for tests and measurements). */
@@ -154,12 +158,7 @@ export class FurrowApp extends LitElement {
 
   /** Writes what autosave is holding (before the page goes away). */
   flushSave(): Promise<void> {
-    return this.autosaver.flush();
-  }
-
-  private scheduleSave(): void {
-    const state: SavedState = { text: writeDocument(this.doc), fileName: this.fileName, files: [...this.files], savedAt: Date.now() };
-    this.autosaver.schedule(state);
+    return this.keeper.flush();
   }
 
   override connectedCallback(): void {
@@ -168,9 +167,8 @@ export class FurrowApp extends LitElement {
     this.addEventListener('furrow-undo', this.onUndo);
     this.addEventListener('furrow-redo', this.onRedo);
     window.addEventListener('keydown', this.onKeydown);
-    window.addEventListener('pagehide', this.onPageHide);
-    window.addEventListener('dragover', this.onDragOver);
-    window.addEventListener('drop', this.onDrop);
+    window.addEventListener('pagehide', this.onLeave);
+    document.addEventListener('visibilitychange', this.onVisibility);
   }
 
   override disconnectedCallback(): void {
@@ -179,43 +177,16 @@ export class FurrowApp extends LitElement {
     this.removeEventListener('furrow-undo', this.onUndo);
     this.removeEventListener('furrow-redo', this.onRedo);
     window.removeEventListener('keydown', this.onKeydown);
-    window.removeEventListener('pagehide', this.onPageHide);
-    window.removeEventListener('dragover', this.onDragOver);
-    window.removeEventListener('drop', this.onDrop);
+    window.removeEventListener('pagehide', this.onLeave);
+    document.removeEventListener('visibilitychange', this.onVisibility);
   }
 
-  private readonly onDragOver = (e: DragEvent): void => {
-    if (e.dataTransfer?.types.includes('Files')) e.preventDefault();
+  private readonly onLeave = (): void => {
+    this.keeper.leave();
   };
 
-  /** A dropped .furrow file opens (nothing is lost if it is not a document); a .csv is attached. */
-  private readonly onDrop = (e: DragEvent): void => {
-    const file = e.dataTransfer?.files[0];
-    if (file === undefined) return;
-    // a drop onto a table's grid is the grid's own import
-    if (e.composedPath().some((t) => t instanceof HTMLElement && t.tagName === 'FURROW-TABLE-CELL')) return;
-    e.preventDefault();
-    void readFileText(file).then(
-      (text) => {
-        if (/\.csv$/i.test(file.name)) {
-          this.files.set(file.name, text);
-          this.bridge.files([[file.name, text]]);
-          this.bridge.update(this.doc, this.doc.cells.filter((c) => parseMarker(c.marker).file === file.name).map((c) => c.id));
-          this.scheduleSave();
-          this.banner = { kind: 'info', text: `Attached ${file.name}.` };
-          return;
-        }
-        if (!this.confirmReplace()) return;
-        if (this.openText(text, file.name)) this.fileHandle = null;
-      },
-      () => {
-        this.banner = { kind: 'problem', text: `${file.name} was not opened: it is not UTF-8 text, so it is not a Furrow document. Nothing on the page was changed.` };
-      },
-    );
-  };
-
-  private readonly onPageHide = (): void => {
-    void this.autosaver.flush();
+  private readonly onVisibility = (): void => {
+    if (document.visibilityState === 'hidden') this.keeper.leave();
   };
 
   private readonly onEdit = (e: CustomEvent<EditEventDetail>): void => {
@@ -227,16 +198,16 @@ export class FurrowApp extends LitElement {
     try {
       this.store.apply(edit, mergeKey);
     } catch (err) {
-      this.banner = { kind: 'problem', text: `That change could not be made: ${err instanceof Error ? err.message : String(err)}` };
+      this.banner = { kind: 'problem', text: pageMsg.editRefused(err instanceof Error ? err.message : String(err)) };
     }
   }
 
   private readonly onUndo = (): void => {
-    if (!this.store.undo()) this.banner = { kind: 'info', text: 'Nothing to undo.' };
+    if (!this.store.undo()) this.banner = { kind: 'info', text: pageMsg.nothingToUndo() };
   };
 
   private readonly onRedo = (): void => {
-    if (!this.store.redo()) this.banner = { kind: 'info', text: 'Nothing to redo.' };
+    if (!this.store.redo()) this.banner = { kind: 'info', text: pageMsg.nothingToRedo() };
   };
 
   private readonly onKeydown = (e: KeyboardEvent): void => {
@@ -260,8 +231,9 @@ export class FurrowApp extends LitElement {
 
   // ---- document operations ------------------------------------------------------------
 
-  private addCell(kind: 'note' | 'table' | 'formula', index: number): void {
+  private addCell(kind: CellKind, index: number): void {
     const cell = newCell(this.doc, kind);
+    if (cell === null) return;
     this.apply({ type: 'insert', index, cell });
     void this.updateComplete.then(() => {
       const el = this.renderRoot.querySelector<HTMLElement>(`[data-cell="${cell.id}"]`);
@@ -271,7 +243,7 @@ export class FurrowApp extends LitElement {
 
   private deleteCell(cell: Cell): void {
     this.apply({ type: 'delete', id: cell.id });
-    this.banner = { kind: 'info', text: 'Cell deleted. Undo (Ctrl+Z) brings it back.' };
+    this.banner = { kind: 'info', text: pageMsg.cellDeleted() };
   }
 
   private moveCell(cell: Cell, by: number): void {
@@ -283,18 +255,19 @@ export class FurrowApp extends LitElement {
 
   private rename(cell: Cell, name: string): void {
     this.renaming = null;
-    const old = cellName(cell);
+    const kind = CELL_KINDS.of(cell);
+    const old = CELL_KINDS.nameOf(cell);
     if (name === old || name === '') return;
     if (!isPlainName(name)) {
-      this.banner = { kind: 'problem', text: `"${name}" cannot be a name: it starts with a letter or _, then letters, digits or _.` };
+      this.banner = { kind: 'problem', text: pageMsg.notAName(name) };
       return;
     }
-    const m = parseMarker(cell.marker);
-    if (m.kind === 'table') this.apply({ type: 'marker', id: cell.id, marker: formatMarker('table', name, m.file) });
-    else if (m.kind === 'formula') {
-      const body = old === null ? `${name} = ${cell.body.replace(/^\s+/, '')}` : cell.body.replace(/^(\s*)[A-Za-z_][A-Za-z0-9_]*/, `$1${name}`);
-      this.apply({ type: 'body', id: cell.id, body });
-    }
+    if (kind?.rename === undefined) return;
+    const text = kind.rename(cell, name);
+    const edits: Edit[] = [];
+    if (text.marker !== cell.marker) edits.push({ type: 'marker', id: cell.id, marker: text.marker });
+    if (text.body !== cell.body) edits.push({ type: 'body', id: cell.id, body: text.body });
+    if (edits.length > 0) this.apply(edits.length === 1 ? edits[0]! : { type: 'batch', edits });
   }
 
   private setTitle(title: string): void {
@@ -302,61 +275,117 @@ export class FurrowApp extends LitElement {
     this.apply({ type: 'header', header: withTitle(this.doc.header, title) });
   }
 
-  private confirmReplace(): boolean {
-    if (this.savedToFile) return true;
-    return window.confirm('Replace the current document? Its latest state is kept in this browser only until another document replaces it; save it to a file first if you need it.');
-  }
+  // ---- opening, keeping, saving -------------------------------------------------------
 
-  /** Opens a document from text; a text that is not a document changes nothing. */
-  openText(text: string, fileName: string | null): boolean {
-    const report = documentFromReport(text);
-    if (report !== null) [text, fileName] = [report.text, report.name];
-    for (const [n, t] of report?.files ?? []) this.files.set(n, t);
-    if (report !== null && report.files.length > 0) this.bridge.files(report.files);
+  /**
+   * Opens a document in its own slot; the one open before stays kept in its slot. A text
+   * that is not a document changes nothing and says why.
+   */
+  private open(o: Opening): boolean {
+    let doc: Document;
     try {
-      const doc = readDocument(text).document;
-      this.fileName = fileName;
-      this.store.load(doc);
-      this.savedToFile = true;
-      const missing = doc.cells
-        .map((c) => parseMarker(c.marker))
-        .filter((m) => m.kind === 'table' && m.file !== null && !this.files.has(m.file))
-        .map((m) => m.file!);
-      this.banner = missing.length
-        ? { kind: 'info', text: `Opened ${fileName ?? 'the document'}. Its tables read ${missing.join(', ')}: attach ${missing.length === 1 ? 'that file' : 'those files'} with "Attach CSV".` }
-        : { kind: 'info', text: `Opened ${fileName ?? 'the document'}.` };
-      return true;
+      doc = readDocument(o.text, { kinds: CELL_KINDS }).document;
     } catch (err) {
       if (err instanceof DocumentError) {
-        this.banner = { kind: 'problem', text: `${fileName ?? 'That file'} was not opened: ${err.message} Nothing on the page was changed.` };
+        this.banner = { kind: 'problem', text: pageMsg.notOpened(o.fileName, err.message) };
         return false;
       }
       throw err;
     }
+    // the document open until now is written to its own slot before this one takes over
+    void this.keeper.take(o.key).then(() => this.refreshKept());
+    this.fileName = o.fileName;
+    for (const [name, text] of o.files) this.files.set(name, text);
+    if (o.files.length > 0) this.bridge.files(o.files);
+    this.renaming = null;
+    this.store.load(doc);
+    const missing = [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
+    this.banner =
+      o.original !== undefined
+        ? { kind: 'info', text: o.notice ?? '', actions: [{ label: pageMsg.openOriginal(), run: () => void this.openOriginal(o.original!.name, o.original!.text) }] }
+        : o.notice !== undefined
+          ? { kind: 'info', text: o.notice }
+          : missing.length > 0
+            ? { kind: 'info', text: pageMsg.openedMissingFiles(o.fileName, missing) }
+            : null;
+    return true;
+  }
+
+  /** Opens a document's text read from a file (or dropped): its slot is the file's name. */
+  openText(text: string, fileName: string): boolean {
+    // a report made by Furrow carries its document and CSV files: it opens as that document
+    const report = documentFromReport(text);
+    if (report !== null) [text, fileName] = [report.text, report.name];
+    const key = fileKey(fileName);
+    const opened = this.open({ key, text, fileName, files: report?.files ?? [] });
+    if (!opened) return false;
+    if (this.banner === null) this.banner = { kind: 'info', text: pageMsg.opened(fileName) };
+    // a kept state of the same file with other text (edits never saved to it) is kept aside
+    void loadSaved(key).then(async (kept) => {
+      if (kept !== null && kept.text !== text) await this.keeper.keepAside(kept);
+      this.keeper.touch();
+      await this.refreshKept();
+    });
+    return true;
+  }
+
+  /** The original of a sample, instead of the edited copy: the copy is kept aside first. */
+  private async openOriginal(name: string, text: string): Promise<void> {
+    await this.keeper.flush();
+    const kept = await loadSaved(this.keeper.key);
+    const title = kept !== null ? await this.keeper.keepAside(kept) : documentTitle(this.doc);
+    await forget(sampleKey(name));
+    this.fileHandle = null;
+    if (this.open({ key: sampleKey(name), text, fileName: name, files: [] })) {
+      this.banner = { kind: 'info', text: pageMsg.originalOpen(name, title) };
+    }
+  }
+
+  private async openSample(name: string): Promise<void> {
+    const text = this.samples.get(name);
+    if (text === undefined) return;
+    const o = await DocumentKeeper.sample(name, text);
+    this.fileHandle = null;
+    this.open(o);
+  }
+
+  /** Opens a document kept in this browser. */
+  private async reopenKept(key: string): Promise<void> {
+    const kept = await loadSaved(key);
+    if (kept === null) return;
+    this.fileHandle = null;
+    this.open({ key: kept.key, text: kept.text, fileName: kept.fileName, files: kept.files });
+  }
+
+  private async refreshKept(): Promise<void> {
+    this.kept = (await listSaved()).filter((s) => s.key !== this.keeper.key);
   }
 
   private async openFile(): Promise<void> {
     try {
       const f = await pickFile();
       if (f === null) return;
-      if (!this.confirmReplace()) return;
       if (this.openText(f.text, f.name)) this.fileHandle = f.handle;
     } catch (err) {
-      this.banner = { kind: 'problem', text: `The file could not be read${err instanceof NotUtf8Error ? ': it is not UTF-8 text, so it is not a Furrow document' : `: ${String(err)}`}. Nothing on the page was changed.` };
+      this.banner = { kind: 'problem', text: pageMsg.unreadable(err instanceof NotUtf8Error, String(err)) };
     }
+  }
+
+  /** A CSV file for the tables that name it: the worker re-evaluates the cells that read it. */
+  private attach(name: string, text: string): void {
+    this.files.set(name, text);
+    this.bridge.files([[name, text]]);
+    this.keeper.touch();
+    this.banner = { kind: 'info', text: pageMsg.attached(name) };
   }
 
   private async attachCsv(): Promise<void> {
     try {
       const f = await pickFile('.csv,text/csv,text/plain');
       if (f === null) return;
-      this.files.set(f.name, f.text);
-      this.bridge.files([[f.name, f.text]]);
-      this.bridge.update(this.doc, this.doc.cells.filter((c) => parseMarker(c.marker).file === f.name).map((c) => c.id));
-      this.scheduleSave();
-      this.banner = { kind: 'info', text: `Attached ${f.name}.` };
+      this.attach(f.name, f.text);
     } catch (err) {
-      this.banner = { kind: 'problem', text: `The CSV file could not be read: ${String(err)}.` };
+      this.banner = { kind: 'problem', text: pageMsg.csvUnreadable(String(err)) };
     }
   }
 
@@ -365,89 +394,31 @@ export class FurrowApp extends LitElement {
       const name = this.fileName ?? fileNameFor(documentTitle(this.doc));
       this.fileHandle = await saveText(writeDocument(this.doc), name, this.fileHandle);
       this.fileName = this.fileHandle?.name ?? name;
-      this.savedToFile = true;
-      this.banner = { kind: 'info', text: `Saved as ${this.fileName}.` };
+      // from now on the document is kept under its file's name; a new document's slot empties
+      const before = this.keeper.key;
+      await this.keeper.take(fileKey(this.fileName));
+      this.keeper.touch();
+      if (before.startsWith('new:')) await forget(before);
+      void this.refreshKept();
+      this.banner = { kind: 'info', text: pageMsg.savedAs(this.fileName) };
     } catch (err) {
-      this.banner = { kind: 'problem', text: `Saving failed: ${String(err)}. The document is still kept in this browser.` };
+      this.banner = { kind: 'problem', text: pageMsg.saveFailed(String(err)) };
     }
   }
 
   private newDocument(): void {
-    if (!this.confirmReplace()) return;
     this.fileHandle = null;
-    this.openText('furrow 1\ntitle: Untitled trial\n\n--- note\nWhat is compared, on what, and why.\n\n', null);
-    this.banner = null;
-  }
-
-  private openSample(name: string): void {
-    const text = this.samples.get(name);
-    if (text === undefined || !this.confirmReplace()) return;
-    this.fileHandle = null;
-    this.openText(text, name);
+    this.open({ key: newKey(), text: pageMsg.newDocumentText(), fileName: null, files: [] });
   }
 
   // ---- rendering ---------------------------------------------------------------------
-
-  private stateOf(cell: Cell): CellViewState | null {
-    return this.bridge.state(cell.id);
-  }
-
-  /** The state to draw a cell with now (see `onScreen`). */
-  private drawState(cell: Cell): CellViewState | null {
-    const latest = this.bridge.state(cell.id);
-    if (this.catchUp || this.onScreen.has(cell.id) || !this.drawn.has(cell.id)) {
-      this.drawn.set(cell.id, latest);
-      return latest;
-    }
-    const old = this.drawn.get(cell.id)!;
-    if (old !== latest) this.scheduleCatchUp();
-    return old;
-  }
-
-  private scheduleCatchUp(): void {
-    if (this.catchUpScheduled) return;
-    this.catchUpScheduled = true;
-    // after this frame is painted, draw the rest
-    requestAnimationFrame(() =>
-      setTimeout(() => {
-        this.catchUpScheduled = false;
-        this.catchUp = true;
-        this.requestUpdate();
-        void this.updateComplete.then(() => {
-          this.catchUp = false;
-        });
-      }, 0),
-    );
-  }
-
-  override updated(): void {
-    if (this.observer === null) {
-      this.observer = new IntersectionObserver(
-        (entries) => {
-          for (const e of entries) {
-            const id = (e.target as HTMLElement).dataset.cell;
-            if (id === undefined) continue;
-            if (e.isIntersecting) {
-              this.onScreen.add(id);
-              if (this.drawn.get(id) !== this.bridge.state(id)) this.requestUpdate();
-            } else this.onScreen.delete(id);
-          }
-        },
-        { rootMargin: '300px 0px' },
-      );
-    }
-    for (const sec of this.renderRoot.querySelectorAll<HTMLElement>('section.cell:not([data-watched])')) {
-      sec.dataset.watched = '';
-      this.observer.observe(sec);
-    }
-  }
 
   private summary(): string {
     let errors = 0;
     let upstream = 0;
     let pending = 0;
     for (const c of this.doc.cells) {
-      const s = this.stateOf(c)?.status;
+      const s = this.bridge.state(c.id)?.status;
       if (s === 'error') errors++;
       if (s === 'upstream') upstream++;
       if (s === 'pending') pending++;
@@ -456,296 +427,15 @@ export class FurrowApp extends LitElement {
     const step = this.bridge.step;
     if (step !== null && pending > 0) {
       const cell = this.doc.cells.find((c) => c.id === step.id);
-      parts.push(`evaluating ${cell ? (cellName(cell) ?? 'a cell') : 'a cell'}: ${step.done} of ${step.total} cells checked…`);
-    } else if (pending > 0) parts.push(`re-evaluating ${pending} ${pending === 1 ? 'cell' : 'cells'}…`);
-    else if (errors > 0) {
-      parts.push(`${errors} ${errors === 1 ? 'cell has' : 'cells have'} an error${upstream > 0 ? `, ${upstream} ${upstream === 1 ? 'depends' : 'depend'} on ${errors === 1 ? 'it' : 'them'}` : ''}`);
-    }
-    else parts.push('every cell up to date');
-    parts.push(this.saveProblem ? `not kept in this browser (${this.saveProblem})` : 'kept in this browser');
+      parts.push(pageMsg.evaluatingStep(cell ? CELL_KINDS.nameOf(cell) : null, step.done, step.total));
+    } else if (pending > 0) parts.push(pageMsg.reEvaluating(pending));
+    else if (errors > 0) parts.push(pageMsg.cellsWithErrors(errors, upstream));
+    else parts.push(pageMsg.allUpToDate());
+    parts.push(this.saveProblem ? pageMsg.notKept(this.saveProblem) : pageMsg.kept());
     return parts.join(' · ');
   }
 
-  static override styles = [
-    shared,
-    css`
-      :host {
-        display: block;
-        min-height: 100vh;
-        background: var(--paper);
-      }
-      .bar {
-        position: sticky;
-        top: 0;
-        z-index: 5;
-        display: flex;
-        align-items: center;
-        gap: 0.4rem;
-        padding: 0.45rem 1.5rem;
-        background: color-mix(in srgb, var(--paper) 92%, transparent);
-        backdrop-filter: blur(4px);
-        border-bottom: 1px solid var(--rule);
-        font-size: 0.82rem;
-      }
-      .mark {
-        font-family: var(--font-text);
-        font-weight: 700;
-        letter-spacing: 0.14em;
-        font-size: 0.8rem;
-        color: var(--accent);
-        margin-right: 0.8rem;
-      }
-      .sep {
-        width: 1px;
-        height: 1.1rem;
-        background: var(--rule-strong);
-        margin: 0 0.3rem;
-      }
-      .bar select {
-        font: inherit;
-        font-size: 0.8rem;
-        color: var(--ink-soft);
-        background: transparent;
-        border: 1px solid var(--rule-strong);
-        border-radius: var(--radius);
-        padding: 0.1rem 0.3rem;
-      }
-      .status {
-        margin-left: auto;
-        color: var(--muted);
-        font-size: 0.78rem;
-      }
-      .banner {
-        max-width: 58rem;
-        margin: 0.8rem auto 0;
-        padding: 0.45rem 0.8rem;
-        font-size: 0.86rem;
-        border-radius: var(--radius);
-        display: flex;
-        gap: 0.8rem;
-        align-items: baseline;
-      }
-      .banner.info {
-        background: var(--accent-soft);
-        color: var(--ink);
-      }
-      .banner.problem {
-        background: var(--error-soft);
-        color: var(--error);
-      }
-      .banner button {
-        margin-left: auto;
-        border: none;
-      }
-      main {
-        max-width: 58rem;
-        margin: 0 auto;
-        padding: 1.6rem 1.5rem 5rem;
-      }
-      header {
-        margin: 0 0 1.6rem 8rem;
-      }
-      .title {
-        font-family: var(--font-text);
-        font-size: 1.9rem;
-        font-weight: 600;
-        line-height: 1.2;
-        color: var(--ink);
-        border: none;
-        background: transparent;
-        width: 100%;
-        padding: 0;
-        margin: 0;
-        resize: none;
-        field-sizing: content;
-      }
-      .title:focus {
-        outline: none;
-        box-shadow: 0 2px 0 var(--accent-soft);
-      }
-      .byline {
-        font-family: var(--font-text);
-        color: var(--ink-soft);
-        margin-top: 0.3rem;
-      }
-      .caution {
-        margin-top: 1rem;
-        padding: 0.55rem 0.8rem;
-        border-left: 3px solid var(--upstream);
-        background: var(--upstream-soft);
-        font-size: 0.9rem;
-        line-height: 1.45;
-      }
-      .caution b {
-        font-size: 0.72rem;
-        letter-spacing: 0.08em;
-        text-transform: uppercase;
-        color: var(--upstream);
-        margin-right: 0.4rem;
-      }
-      .cell {
-        display: grid;
-        grid-template-columns: 7rem 1fr;
-        column-gap: 1rem;
-        padding: 0.7rem 0;
-        border-top: 1px solid var(--rule);
-        position: relative;
-      }
-      .margin {
-        text-align: right;
-        padding-top: 0.15rem;
-        font-size: 0.78rem;
-        line-height: 1.3;
-        border-right: 3px solid transparent;
-        padding-right: 0.7rem;
-        min-height: 1.6rem;
-      }
-      .cell.error .margin {
-        border-right-color: var(--error);
-      }
-      .cell.upstream .margin {
-        border-right-color: var(--upstream);
-      }
-      .cell.pending .margin {
-        border-right-color: var(--pending);
-      }
-      .kind {
-        font-size: 0.66rem;
-        letter-spacing: 0.1em;
-        text-transform: uppercase;
-        color: var(--muted);
-      }
-      .name {
-        display: block;
-        font-family: var(--font-code);
-        font-size: 0.8rem;
-        color: var(--ink);
-        overflow-wrap: anywhere;
-        background: none;
-        border: none;
-        padding: 0;
-        cursor: text;
-        text-align: right;
-        width: 100%;
-      }
-      .name:hover {
-        color: var(--accent);
-      }
-      .name-input {
-        font-family: var(--font-code);
-        font-size: 0.8rem;
-        width: 100%;
-        box-sizing: border-box;
-        text-align: right;
-      }
-      .state-word {
-        display: block;
-        margin-top: 0.2rem;
-        font-size: 0.72rem;
-      }
-      .cell.error .state-word {
-        color: var(--error);
-      }
-      .cell.upstream .state-word {
-        color: var(--upstream);
-      }
-      .cell.pending .state-word {
-        color: var(--pending);
-      }
-      .body {
-        min-width: 0;
-      }
-      .tools {
-        display: flex;
-        justify-content: flex-end;
-        gap: 0.2rem;
-        margin-top: 0.4rem;
-        opacity: 0;
-        transition: opacity 0.12s;
-      }
-      .tools button {
-        padding: 0 0.35rem;
-        line-height: 1.25rem;
-        font-size: 0.72rem;
-      }
-      .insert {
-        position: absolute;
-        left: 8rem;
-        bottom: -0.75rem;
-        z-index: 2;
-        display: flex;
-        gap: 0.3rem;
-        opacity: 0;
-        transition: opacity 0.12s;
-      }
-      .insert button {
-        font-size: 0.72rem;
-        padding: 0 0.4rem;
-        line-height: 1.25rem;
-        background: var(--paper);
-      }
-      .cell:hover .tools,
-      .cell:focus-within .tools,
-      .cell:hover .insert,
-      .cell:focus-within .insert {
-        opacity: 1;
-      }
-      .inert pre {
-        font-family: var(--font-code);
-        font-size: 0.82rem;
-        color: var(--ink-soft);
-        white-space: pre-wrap;
-        margin: 0;
-      }
-      .add {
-        display: flex;
-        gap: 0.4rem;
-        margin: 0.2rem 0 0 8rem;
-        padding-top: 0.6rem;
-        border-top: 1px solid var(--rule);
-      }
-      .add span {
-        color: var(--muted);
-        font-size: 0.8rem;
-        align-self: center;
-        margin-right: 0.3rem;
-      }
-      @media (max-width: 720px) {
-        header,
-        .add {
-          margin-left: 0;
-        }
-        .cell {
-          grid-template-columns: 1fr;
-        }
-        .margin {
-          text-align: left;
-          border-right: none;
-          border-left: 3px solid transparent;
-          padding: 0 0 0.3rem 0.5rem;
-        }
-      }
-      @media print {
-        :host {
-          background: white;
-        }
-        .bar,
-        .tools,
-        .insert,
-        .add,
-        .banner {
-          display: none;
-        }
-        main {
-          max-width: none;
-          padding: 0;
-        }
-        .cell {
-          break-inside: avoid;
-        }
-      }
-    `,
-  ];
+  static override styles = [shared, appStyles];
 
   override render() {
     if (!this.doc) return html`<main>Loading…</main>`;
@@ -763,12 +453,27 @@ export class FurrowApp extends LitElement {
               aria-label="Open a sample"
               @change=${(e: Event) => {
                 const s = e.target as HTMLSelectElement;
-                if (s.value) this.openSample(s.value);
+                if (s.value) void this.openSample(s.value);
                 s.value = '';
               }}
             >
               <option value="">Samples…</option>
               ${[...this.samples.keys()].map((k) => html`<option value=${k}>${k.replace(/\.furrow$/, '')}</option>`)}
+            </select>`
+          : nothing}
+        ${this.kept.length > 0
+          ? html`<select
+              class="kept"
+              aria-label="Open a document kept in this browser"
+              @focus=${() => void this.refreshKept()}
+              @change=${(e: Event) => {
+                const s = e.target as HTMLSelectElement;
+                if (s.value) void this.reopenKept(s.value);
+                s.value = '';
+              }}
+            >
+              <option value="">${pageMsg.keptList()}</option>
+              ${this.kept.map((k) => html`<option value=${k.key}>${pageMsg.keptEntry(k.title, pageMsg.keptWhere(k.key))}</option>`)}
             </select>`
           : nothing}
         <span class="sep"></span>
@@ -778,7 +483,9 @@ export class FurrowApp extends LitElement {
       </nav>
       ${this.banner
         ? html`<div class="banner ${this.banner.kind}" role=${this.banner.kind === 'problem' ? 'alert' : 'status'}>
-            <span>${this.banner.text}</span><button @click=${() => (this.banner = null)} aria-label="Dismiss">✕</button>
+            <span>${this.banner.text}</span>
+            ${(this.banner.actions ?? []).map((a) => html`<button class="action" @click=${a.run}>${a.label}</button>`)}
+            <button @click=${() => (this.banner = null)} aria-label="Dismiss">✕</button>
           </div>`
         : nothing}
       <main>
@@ -799,7 +506,7 @@ export class FurrowApp extends LitElement {
           ${fields.get('author') ? html`<div class="byline">${fields.get('author')}</div>` : nothing}
           ${fields.get('caution') ? html`<div class="caution" role="note"><b>Caution</b>${fields.get('caution')}</div>` : nothing}
         </header>
-        <furrow-hand-off .doc=${this.doc} .stateOf=${(c: Cell) => this.drawState(c)} .files=${this.files} .fileName=${this.fileName}></furrow-hand-off>
+        <furrow-hand-off .doc=${this.doc} .stateOf=${(c: Cell) => this.visible.stateFor(c.id)} .files=${this.files} .fileName=${this.fileName}></furrow-hand-off>
         ${repeat(
           this.doc.cells,
           (c) => c.id,
@@ -807,57 +514,36 @@ export class FurrowApp extends LitElement {
         )}
         <div class="add">
           <span>Add</span>
-          <button @click=${() => this.addCell('note', this.doc.cells.length)}>+ note</button>
-          <button @click=${() => this.addCell('table', this.doc.cells.length)}>+ table</button>
-          <button @click=${() => this.addCell('formula', this.doc.cells.length)}>+ formula</button>
+          ${ADDABLE.map((k) => html`<button @click=${() => this.addCell(k, this.doc.cells.length)}>+ ${k.label}</button>`)}
         </div>
       </main>
     `;
   }
 
   private renderCell(cell: Cell, index: number, catalogue: ReturnType<EvaluationBridge['catalogue']>) {
-    const m = parseMarker(cell.marker);
-    const state = this.drawState(cell);
+    const word = markerKind(cell.marker);
+    const kind = CELL_KINDS.get(word);
+    const state = this.visible.stateFor(cell.id);
     const status = state?.status ?? 'pending';
-    const view = CELL_VIEWS.get(m.kind);
-    const name = cellName(cell);
-    const upstreamName = status === 'upstream' ? (state?.error?.upstream ?? null) : null;
-    return html`<section class="cell ${status}" data-cell=${cell.id} data-kind=${m.kind} data-name=${name ?? ''} data-status=${status} aria-label="${m.kind} ${name ?? ''}">
-      <div class="margin">
-        <span class="kind">${m.kind || 'cell'}</span>
-        ${m.kind === 'table'
-          ? html`<span class="name" title="Rename the table in its own header">${name ?? '(unnamed)'}</span>`
-          : m.kind === 'formula'
-          ? this.renaming === cell.id
-            ? html`<input
-                class="name-input"
-                aria-label="New name"
-                .value=${name ?? ''}
-                @keydown=${(e: KeyboardEvent) => {
-                  if (e.key === 'Enter') this.rename(cell, (e.target as HTMLInputElement).value.trim());
-                  if (e.key === 'Escape') this.renaming = null;
-                }}
-                @blur=${(e: Event) => this.rename(cell, (e.target as HTMLInputElement).value.trim())}
-              />`
-            : html`<button class="name" title="Rename" @click=${() => this.startRename(cell.id)}>${name ?? '(unnamed)'}</button>`
-          : nothing}
-        ${STATUS_WORDS[status]
-          ? html`<span class="state-word" title=${state?.error?.message ?? ''}>${STATUS_WORDS[status]}${upstreamName ? html`: <code>${upstreamName}</code>` : nothing}</span>`
-          : nothing}
-        <span class="tools" role="toolbar" aria-label="Cell tools">
-          <button title="Move up" aria-label="Move up" ?disabled=${index === 0} @click=${() => this.moveCell(cell, -1)}>↑</button>
-          <button title="Move down" aria-label="Move down" ?disabled=${index === this.doc.cells.length - 1} @click=${() => this.moveCell(cell, 1)}>↓</button>
-          <button title="Delete this cell (undo brings it back)" aria-label="Delete" @click=${() => this.deleteCell(cell)}>✕</button>
-          <button title="Where this value comes from" aria-label="Where this value comes from" @click=${() => this.dispatchEvent(new CustomEvent('furrow-trace', { detail: cell.id }))}>⇡</button>
-        </span>
-      </div>
+    const view = CELL_VIEWS.get(word);
+    const name = CELL_KINDS.nameOf(cell);
+    return html`<section class="cell ${status}" data-cell=${cell.id} data-kind=${word} data-name=${name ?? ''} data-status=${status} aria-label="${word} ${name ?? ''}">
+      ${cellMargin(
+        { word, kind, name, state, status, renaming: this.renaming === cell.id, first: index === 0, last: index === this.doc.cells.length - 1 },
+        {
+          startRename: () => this.startRename(cell.id),
+          rename: (n) => this.rename(cell, n),
+          cancelRename: () => (this.renaming = null),
+          move: (by) => this.moveCell(cell, by),
+          remove: () => this.deleteCell(cell),
+          trace: () => this.dispatchEvent(new CustomEvent('furrow-trace', { detail: cell.id })),
+        },
+      )}
       <div class="body">
         ${view ? view(cell, state, catalogue) : html`<div class="inert"><pre>--- ${cell.marker}\n${cell.body}</pre></div>`}
       </div>
       <div class="insert" role="toolbar" aria-label="Add a cell below">
-        <button title="Add a note below" @click=${() => this.addCell('note', index + 1)}>+ note</button>
-        <button title="Add a table below" @click=${() => this.addCell('table', index + 1)}>+ table</button>
-        <button title="Add a formula below" @click=${() => this.addCell('formula', index + 1)}>+ formula</button>
+        ${ADDABLE.map((k) => html`<button title=${pageMsg.addBelow(k.label)} @click=${() => this.addCell(k, index + 1)}>+ ${k.label}</button>`)}
       </div>
     </section>`;
   }
@@ -870,19 +556,6 @@ export class FurrowApp extends LitElement {
       input?.select();
     });
   }
-}
-
-/** The ids of cells whose text differs between two versions of a document. */
-function changedCells(before: Document, after: Document): string[] {
-  const old = new Map(before.cells.map((c) => [c.id, c]));
-  const out: string[] = [];
-  for (const c of after.cells) {
-    const o = old.get(c.id);
-    if (o === undefined || o.body !== c.body || o.marker !== c.marker) out.push(c.id);
-  }
-  // cells that read a deleted cell's name change too: the bridge follows readers from these
-  for (const c of before.cells) if (!after.cells.some((a) => a.id === c.id)) out.push(c.id);
-  return out;
 }
 
 if (!customElements.get('furrow-app')) customElements.define('furrow-app', FurrowApp);

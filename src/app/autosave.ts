@@ -1,80 +1,216 @@
 /**
- * Autosave: every change of the document is written to IndexedDB (debounced), and the
- * page reopens the last state. CSV files that tables name are kept beside it.
+ * Autosave, one slot per document. Each document (a file by its name, a sample by its
+ * name, a new document by an id of its own) keeps its own latest state in IndexedDB, so
+ * opening one never replaces another.
+ *
+ * Saving is lazy: an edit only marks the document changed and restarts a short timer; the
+ * text is written when typing pauses, and at once when the page is hidden or goes away.
+ * Because IndexedDB may not finish a write started while the page unloads, that last write
+ * also leaves a synchronous copy in localStorage, which the next visit takes when it is
+ * newer (`rescued`), so the last edit is never lost.
  */
 const DB = 'furrow';
-const STORE = 'saved';
-const KEY = 'current';
+const STORE = 'documents';
+const OLD_STORE = 'saved';
+const RESCUE_PREFIX = 'furrow-rescue:';
+/** The slot the browser held last (a new tab reopens it). */
+export const LAST_KEY = 'furrow-last';
 
-/** What is kept between visits. */
+/** What a document's slot keeps between visits. */
 export interface SavedState {
+  /** The slot: "file:NAME", "sample:NAME" or "new:ID". */
+  readonly key: string;
   readonly text: string;
+  readonly title: string;
   /** The file name it was opened from or saved to, if any. */
   readonly fileName: string | null;
   readonly files: ReadonlyArray<readonly [string, string]>;
   readonly savedAt: number;
 }
 
+/** The slot of a document opened from (or saved to) a file. */
+export const fileKey = (name: string): string => `file:${name}`;
+/** The slot of a sample. */
+export const sampleKey = (name: string): string => `sample:${name}`;
+
+let newIds = 0;
+/** The slot of a new document: the time it was made, and a count within this page. */
+export const newKey = (now = Date.now()): string => `new:${now.toString(36)}-${(newIds++).toString(36)}`;
+
 function open(): Promise<IDBDatabase> {
   return new Promise((resolve, reject) => {
-    const req = indexedDB.open(DB, 1);
-    req.onupgradeneeded = () => req.result.createObjectStore(STORE);
+    const req = indexedDB.open(DB, 2);
+    req.onupgradeneeded = () => {
+      const db = req.result;
+      if (!db.objectStoreNames.contains(STORE)) db.createObjectStore(STORE, { keyPath: 'key' });
+      // version 1 kept one slot for everything: its document moves to a slot of its own
+      if (db.objectStoreNames.contains(OLD_STORE)) {
+        const tx = req.transaction!;
+        const get = tx.objectStore(OLD_STORE).get('current');
+        get.onsuccess = () => {
+          const old = get.result as { text?: unknown; fileName?: unknown; files?: unknown; savedAt?: unknown } | undefined;
+          if (old !== undefined && typeof old.text === 'string') {
+            const fileName = typeof old.fileName === 'string' ? old.fileName : null;
+            const state: SavedState = {
+              key: fileName !== null ? fileKey(fileName) : newKey(),
+              text: old.text,
+              title: /^title:[ \t]?(.*)$/m.exec(old.text)?.[1]?.trim() || 'Untitled trial',
+              fileName,
+              files: Array.isArray(old.files) ? (old.files as [string, string][]) : [],
+              savedAt: typeof old.savedAt === 'number' ? old.savedAt : Date.now(),
+            };
+            tx.objectStore(STORE).put(state);
+            try {
+              localStorage.setItem(LAST_KEY, state.key);
+            } catch {
+              // storage refused: the document is still listed under "Kept in this browser"
+            }
+          }
+          db.deleteObjectStore(OLD_STORE);
+        };
+      }
+    };
     req.onsuccess = () => resolve(req.result);
     req.onerror = () => reject(req.error ?? new Error('IndexedDB unavailable'));
   });
 }
 
-/** Reads the saved state, or null when there is none (or storage is unavailable). */
-export async function loadSaved(): Promise<SavedState | null> {
+/** A document's saved state (the newer of IndexedDB's and a rescue copy), or null. */
+export async function loadSaved(key: string): Promise<SavedState | null> {
+  let stored: SavedState | null = null;
   try {
     const db = await open();
-    return await new Promise((resolve, reject) => {
-      const req = db.transaction(STORE, 'readonly').objectStore(STORE).get(KEY);
+    stored = await new Promise((resolve, reject) => {
+      const req = db.transaction(STORE, 'readonly').objectStore(STORE).get(key);
       req.onsuccess = () => resolve((req.result as SavedState | undefined) ?? null);
       req.onerror = () => reject(req.error);
     });
   } catch {
-    return null;
+    stored = null;
+  }
+  const rescue = rescued(key);
+  return rescue !== null && (stored === null || rescue.savedAt > stored.savedAt) ? rescue : stored;
+}
+
+/** Every saved document, newest first, without their texts' bodies read by anyone but the caller. */
+export async function listSaved(): Promise<SavedState[]> {
+  try {
+    const db = await open();
+    const all = await new Promise<SavedState[]>((resolve, reject) => {
+      const req = db.transaction(STORE, 'readonly').objectStore(STORE).getAll();
+      req.onsuccess = () => resolve(req.result as SavedState[]);
+      req.onerror = () => reject(req.error);
+    });
+    return all.sort((a, b) => b.savedAt - a.savedAt);
+  } catch {
+    return [];
   }
 }
 
-/** Writes the state now. */
+/** Writes a state now. */
 export async function saveNow(state: SavedState): Promise<void> {
   const db = await open();
   await new Promise<void>((resolve, reject) => {
     const tx = db.transaction(STORE, 'readwrite');
-    tx.objectStore(STORE).put(state, KEY);
+    tx.objectStore(STORE).put(state);
+    tx.oncomplete = () => resolve();
+    tx.onerror = () => reject(tx.error);
+  });
+  // the slot holds this state now: an older rescue copy would only mislead
+  try {
+    const r = rescued(state.key);
+    if (r !== null && r.savedAt <= state.savedAt) localStorage.removeItem(RESCUE_PREFIX + state.key);
+  } catch {
+    // storage unavailable: nothing to clear
+  }
+}
+
+/** Empties a slot (its document is kept elsewhere now). */
+export async function forget(key: string): Promise<void> {
+  try {
+    localStorage.removeItem(RESCUE_PREFIX + key);
+  } catch {
+    // storage unavailable: nothing to clear
+  }
+  const db = await open();
+  await new Promise<void>((resolve, reject) => {
+    const tx = db.transaction(STORE, 'readwrite');
+    tx.objectStore(STORE).delete(key);
     tx.oncomplete = () => resolve();
     tx.onerror = () => reject(tx.error);
   });
 }
 
-/** Debounced saving: the last state wins; `flush` writes what is waiting. */
+/** The rescue copy of a slot, if one was left when a page went away. */
+function rescued(key: string): SavedState | null {
+  try {
+    const raw = localStorage.getItem(RESCUE_PREFIX + key);
+    if (raw === null) return null;
+    const s = JSON.parse(raw) as SavedState;
+    return typeof s.text === 'string' && s.key === key ? s : null;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * Lazy saving of the open document. `touch()` costs a timer; the state is built (the
+ * document written to text) only when saving.
+ */
 export class Autosaver {
   private timer: ReturnType<typeof setTimeout> | null = null;
-  private waiting: SavedState | null = null;
+  private dirty = false;
   private writing: Promise<void> = Promise.resolve();
-  /** Called after each write with its outcome. */
-  onSaved: (ok: boolean, error?: string) => void = () => {};
+  private readonly build: () => SavedState;
+  private readonly delayMs: number;
+  /** Called after each write with its outcome and the state written. */
+  onSaved: (ok: boolean, state: SavedState, error?: string) => void = () => {};
 
-  schedule(state: SavedState, delayMs = 250): void {
-    this.waiting = state;
-    if (this.timer !== null) clearTimeout(this.timer);
-    this.timer = setTimeout(() => void this.flush(), delayMs);
+  constructor(build: () => SavedState, delayMs = 400) {
+    this.build = build;
+    this.delayMs = delayMs;
   }
 
-  async flush(): Promise<void> {
+  /** True while a change waits to be written. */
+  get waiting(): boolean {
+    return this.dirty;
+  }
+
+  /** The document changed: write it when typing pauses. */
+  touch(): void {
+    this.dirty = true;
+    if (this.timer !== null) clearTimeout(this.timer);
+    this.timer = setTimeout(() => void this.flush(), this.delayMs);
+  }
+
+  /** Writes what is waiting, now. */
+  flush(built?: SavedState): Promise<void> {
     if (this.timer !== null) clearTimeout(this.timer);
     this.timer = null;
-    const s = this.waiting;
-    this.waiting = null;
-    if (s === null) return this.writing;
+    if (!this.dirty) return this.writing;
+    this.dirty = false;
+    const s = built ?? this.build();
     this.writing = this.writing.then(() =>
       saveNow(s).then(
-        () => this.onSaved(true),
-        (e: unknown) => this.onSaved(false, e instanceof Error ? e.message : String(e)),
+        () => this.onSaved(true, s),
+        (e: unknown) => this.onSaved(false, s, e instanceof Error ? e.message : String(e)),
       ),
     );
     return this.writing;
+  }
+
+  /**
+   * The page is going away: start the write, and leave a synchronous copy in localStorage
+   * in case the write does not finish before the page is gone.
+   */
+  leave(): void {
+    if (!this.dirty) return;
+    const s = this.build();
+    try {
+      localStorage.setItem(RESCUE_PREFIX + s.key, JSON.stringify(s));
+    } catch {
+      // too large for localStorage, or storage refused: the IndexedDB write still runs
+    }
+    void this.flush(s);
   }
 }

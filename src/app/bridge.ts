@@ -1,10 +1,12 @@
 /**
- * The page's side of the evaluation worker: sends each new version of the document, marks
- * the cells an edit will recompute as 'pending' at once (so the page says which numbers are
- * about to change), and folds the worker's results into per-cell states.
+ * The page's side of the evaluation worker: sends the document when one is opened and then
+ * each edit the store applied, marks the cells the worker says an edit may change as
+ * 'pending' when the answer is slow (so the page says which numbers are about to change),
+ * and folds the worker's results into per-cell states.
  */
 import type { BuiltinInfo, CellViewState, NameCatalogue } from '../../cells/view-api.ts';
 import type { Document } from '../doc/document.ts';
+import type { Edit } from '../doc/edits.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
 
 export interface BridgeEvents {
@@ -26,12 +28,16 @@ export class EvaluationBridge {
   private readonly worker: Worker;
   private seq = 0;
   private readonly states = new Map<string, CellViewState>();
-  private readers = new Map<string, readonly string[]>();
   /** Cells marked pending, with the update that marked them. */
   private readonly pending = new Map<string, number>();
+  /** Updates sent and not yet answered. */
+  private readonly unanswered = new Set<number>();
+  /** When each unanswered update was sent. */
+  private readonly sentAt = new Map<number, number>();
   private builtins: readonly BuiltinInfo[] = [];
   private cellNames: NameCatalogue['cells'] = [];
-  private lastDoc: Document | null = null;
+  /** The page's document, sent again if the worker falls out of step. */
+  private readonly current: () => Document;
   /** Milliseconds the worker took for the last update. */
   lastMillis = 0;
   /** Where a long update stands, while it runs. */
@@ -40,8 +46,9 @@ export class EvaluationBridge {
   private waiters: (() => void)[] = [];
   private readonly events: BridgeEvents;
 
-  constructor(events: BridgeEvents, factory: WorkerFactory = defaultWorker) {
+  constructor(events: BridgeEvents, current: () => Document, factory: WorkerFactory = defaultWorker) {
     this.events = events;
+    this.current = current;
     this.worker = factory();
     this.worker.onmessage = (e: MessageEvent<FromWorker>) => this.receive(e.data);
     this.worker.onerror = (e) => events.onFailure(`The evaluation worker stopped: ${e.message || 'unknown error'}. Reload the page; your document is saved.`);
@@ -59,52 +66,61 @@ export class EvaluationBridge {
 
   /** True while an update has not come back. */
   get busy(): boolean {
-    return this.pending.size > 0;
+    return this.unanswered.size > 0;
   }
 
-  /** Sends CSV files that tables may name. */
+  /** Sends CSV files that tables may name; the cells that read them re-evaluate. */
   files(files: ReadonlyArray<readonly [string, string | undefined]>): void {
-    this.post({ type: 'files', files });
+    this.post({ type: 'files', seq: this.next(), files });
   }
 
-  /** Sends a new version of the document; `edited` are the cells whose text changed. */
-  update(doc: Document, edited: Iterable<string> | 'all' = 'all'): void {
+  /** Sends a document opened (or reloaded): the worker evaluates all of it. */
+  load(doc: Document): void {
+    this.post({ type: 'load', seq: this.next(), doc });
+  }
+
+  /** Sends an edit the store applied: the worker applies it to its document too. */
+  edit(edit: Edit): void {
+    this.post({ type: 'edit', seq: this.next(), edit });
+  }
+
+  /** Resolves when the worker has answered every update sent so far. */
+  settled(): Promise<void> {
+    if (this.unanswered.size === 0) return Promise.resolve();
+    return new Promise((resolve) => this.waiters.push(resolve));
+  }
+
+  private next(): number {
     const seq = ++this.seq;
-    const start = edited === 'all' ? doc.cells.map((c) => c.id) : [...edited];
-    // everything downstream of an edited cell may change: mark it at once
-    const queue = [...start];
-    const seen = new Set<string>();
-    while (queue.length > 0) {
-      const id = queue.pop()!;
-      if (seen.has(id)) continue;
-      seen.add(id);
-      for (const r of this.readers.get(id) ?? []) queue.push(r);
-    }
-    for (const id of seen) this.pending.set(id, seq);
-    this.lastDoc = doc;
-    this.post({ type: 'update', seq, doc });
-    // Say "re-evaluating" only when the answer is slow to come: a quick evaluation then
-    // shows its new values without the page flickering through a pending state first.
+    this.unanswered.add(seq);
+    this.sentAt.set(seq, performance.now());
+    return seq;
+  }
+
+  private post(m: ToWorker): void {
+    this.worker.postMessage(m);
+  }
+
+  /**
+   * The worker's plan for an update: the cells that may change. Say "re-evaluating" only
+   * when the answer is slow to come (PENDING_DELAY_MS after the update was sent): a quick
+   * evaluation then shows its new values without the page flickering through a pending
+   * state first.
+   */
+  private plan(seq: number, ids: readonly string[]): void {
+    if (!this.unanswered.has(seq)) return;
+    for (const id of ids) this.pending.set(id, seq);
+    const wait = Math.max(0, PENDING_DELAY_MS - (performance.now() - (this.sentAt.get(seq) ?? 0)));
     setTimeout(() => {
       const changed = new Set<string>();
-      for (const id of seen) {
+      for (const id of ids) {
         if (this.pending.get(id) !== seq) continue;
         const old = this.states.get(id);
         this.states.set(id, { status: 'pending', value: old?.value ?? null, parts: old?.parts ?? null, warnings: old?.warnings ?? [], error: old?.error ?? null, progress: null });
         changed.add(id);
       }
       if (changed.size > 0) this.events.onStates(changed);
-    }, PENDING_DELAY_MS);
-  }
-
-  /** Resolves when the worker has answered every update sent so far. */
-  settled(): Promise<void> {
-    if (this.pending.size === 0) return Promise.resolve();
-    return new Promise((resolve) => this.waiters.push(resolve));
-  }
-
-  private post(m: ToWorker): void {
-    this.worker.postMessage(m);
+    }, wait);
   }
 
   private previous = new Map<string, CellViewState>();
@@ -131,8 +147,16 @@ export class EvaluationBridge {
         this.events.onStates(new Set([m.id]));
         return;
       }
+      case 'planned':
+        this.plan(m.seq, m.ids);
+        return;
       case 'failure':
         this.clearPending(m.seq, new Set());
+        if (m.outOfStep) {
+          // the worker's document no longer follows the page's: send the page's again
+          this.load(this.current());
+          return;
+        }
         this.events.onFailure(`Evaluation failed: ${m.message}`);
         return;
       case 'result': {
@@ -149,24 +173,33 @@ export class EvaluationBridge {
           }
           changed.add(r.id);
         }
-        this.readers = new Map(m.readers);
         this.step = null;
         this.cellNames = m.cells;
         this.lastMillis = m.millis;
-        this.clearPending(m.seq, changed);
         // forget cells that left the document
-        if (this.lastDoc !== null) {
-          const ids = new Set(this.lastDoc.cells.map((c) => c.id));
-          for (const id of [...this.states.keys()]) if (!ids.has(id)) this.states.delete(id);
+        for (const id of m.gone) {
+          this.states.delete(id);
+          this.previous.delete(id);
+          this.pending.delete(id);
         }
+        this.clearPending(m.seq, changed);
         this.events.onStates(changed);
         return;
       }
     }
   }
 
-  /** Cells marked pending by updates up to `seq` that did not run: back to their last state. */
+  /**
+   * Update `seq` is answered: cells it (or an earlier update) marked pending that did not
+   * run go back to their last state.
+   */
   private clearPending(seq: number, changed: Set<string>): void {
+    for (const s of this.unanswered) {
+      if (s <= seq) {
+        this.unanswered.delete(s);
+        this.sentAt.delete(s);
+      }
+    }
     for (const [id, mark] of [...this.pending]) {
       if (mark > seq) continue;
       this.pending.delete(id);
@@ -177,7 +210,7 @@ export class EvaluationBridge {
         changed.add(id);
       }
     }
-    if (this.pending.size === 0) {
+    if (this.unanswered.size === 0) {
       const w = this.waiters;
       this.waiters = [];
       for (const f of w) f();

@@ -1,11 +1,13 @@
 /**
- * The page's entry: restores the last state from this browser (or opens a sample), and
- * starts the app. `?sample=NAME` opens a sample and `?fresh` ignores the saved state.
+ * The page's entry: opens the document this tab (or this browser) held last, or a sample,
+ * and starts the app. `?sample=NAME` opens a sample (offering the edited copy when there is
+ * one) and `?fresh` opens the first sample as a new document, leaving every kept one alone.
  */
-import { loadSaved } from './autosave.ts';
+import { pageMsg } from '../messages/page.ts';
+import { DocumentKeeper } from './keeper.ts';
 import type { FurrowApp } from './app.ts';
 import './app.ts';
-import { THEME_PROPERTIES } from './theme.ts';
+import { THEME_PROPERTIES } from '../views/theme.ts';
 
 const sheet = new CSSStyleSheet();
 sheet.replaceSync(`:root {${THEME_PROPERTIES}}`);
@@ -19,24 +21,13 @@ async function boot(): Promise<void> {
   const app = document.querySelector<FurrowApp>('furrow-app');
   if (app === null) return;
   const params = new URLSearchParams(location.search);
-  const asked = params.get('sample');
-  const sampleName = asked !== null && samples.has(asked) ? asked : DEFAULT_SAMPLE;
-  const saved = params.has('fresh') || asked !== null ? null : await loadSaved();
-  if (saved !== null) {
-    try {
-      app.start(saved.text, { fileName: saved.fileName, files: saved.files, samples });
-      return;
-    } catch {
-      // a saved state that no longer reads: keep it in storage, open the sample, and say so
-      app.start(samples.get(sampleName)!, {
-        fileName: sampleName,
-        samples,
-        notice: 'The document kept in this browser could not be read; a sample is open instead.',
-      });
-      return;
-    }
+  const opening = await DocumentKeeper.initial(params, samples, DEFAULT_SAMPLE);
+  try {
+    app.start(opening, { samples });
+  } catch {
+    // a kept state that no longer reads stays in its slot; the first sample opens instead
+    app.start(await DocumentKeeper.sample(DEFAULT_SAMPLE, samples.get(DEFAULT_SAMPLE)!), { samples, notice: pageMsg.keptUnreadable() });
   }
-  app.start(samples.get(sampleName) ?? 'furrow 1\ntitle: Untitled trial\n', { fileName: sampleName, samples });
 }
 
 void boot();

@@ -5,15 +5,21 @@
  */
 import type { NameCatalogue } from '../../cells/view-api.ts';
 import type { Document } from '../doc/document.ts';
+import type { Edit } from '../doc/edits.ts';
 import type { CellStatus } from '../graph/engine.ts';
 import type { ErrorValue, Value } from '../lang/values.ts';
 
-/** Page to worker. */
+/**
+ * Page to worker. The worker holds the document: it is sent whole once (when a document is
+ * opened) and then changed by the same edits the page's store applied, in the same order.
+ */
 export type ToWorker =
-  /** Evaluate this version of the document (the worker evaluates only what changed). */
-  | { readonly type: 'update'; readonly seq: number; readonly doc: Document }
-  /** CSV files beside the document, by name (undefined removes one). */
-  | { readonly type: 'files'; readonly files: ReadonlyArray<readonly [string, string | undefined]> };
+  /** Take this document and evaluate it. */
+  | { readonly type: 'load'; readonly seq: number; readonly doc: Document }
+  /** Apply this edit to the document held and evaluate what it touched. */
+  | { readonly type: 'edit'; readonly seq: number; readonly edit: Edit }
+  /** CSV files beside the document, by name (undefined removes one); the cells reading them re-evaluate. */
+  | { readonly type: 'files'; readonly seq: number; readonly files: ReadonlyArray<readonly [string, string | undefined]> };
 
 /** One evaluated cell. */
 export interface CellResult {
@@ -28,20 +34,26 @@ export interface CellResult {
 /** Worker to page. */
 export type FromWorker =
   | { readonly type: 'ready'; readonly builtins: NameCatalogue['builtins'] }
+  /** Before evaluating: the cells that may get a new value (the page may mark them). */
+  | { readonly type: 'planned'; readonly seq: number; readonly ids: readonly string[] }
   | {
       readonly type: 'result';
       readonly seq: number;
       /** The cells that ran, in the order they ran. */
       readonly results: readonly CellResult[];
-      /** For every cell, the ids of the cells that read it directly. */
-      readonly readers: ReadonlyArray<readonly [string, readonly string[]]>;
+      /** The cells that left the document with this update. */
+      readonly gone: readonly string[];
       readonly cells: NameCatalogue['cells'];
       readonly millis: number;
     }
   | { readonly type: 'progress'; readonly id: string; readonly fraction: number }
   /** A long update is under way: `done` of `total` cells checked, `id` running now. */
   | { readonly type: 'step'; readonly id: string; readonly done: number; readonly total: number }
-  | { readonly type: 'failure'; readonly seq: number; readonly message: string };
+  /**
+   * An update failed. `outOfStep` says the worker's document no longer follows the page's
+   * (an edit did not apply): the page sends its document again.
+   */
+  | { readonly type: 'failure'; readonly seq: number; readonly message: string; readonly outOfStep: boolean };
 
 /** A value without engine-only parts, ready to post. */
 export function portable(v: Value): Value {

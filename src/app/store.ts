@@ -17,7 +17,11 @@ interface Step {
 /** Why the document changed, for listeners. */
 export type ChangeReason = 'edit' | 'undo' | 'redo' | 'load';
 
-export type Listener = (doc: Document, reason: ChangeReason) => void;
+/**
+ * Hears each change: the new document, why, and the edit that made it (the edit applied,
+ * which for an undo is the inverse); null when a whole document was loaded.
+ */
+export type Listener = (doc: Document, reason: ChangeReason, edit: Edit | null) => void;
 
 const MERGE_WINDOW_MS = 1000;
 const HISTORY_LIMIT = 500;
@@ -52,8 +56,8 @@ export class DocumentStore {
     return () => this.listeners.delete(listener);
   }
 
-  private emit(reason: ChangeReason): void {
-    for (const l of this.listeners) l(this.current, reason);
+  private emit(reason: ChangeReason, edit: Edit | null): void {
+    for (const l of this.listeners) l(this.current, reason, edit);
   }
 
   /** Applies an edit as a new step of history (or merged into the last one). */
@@ -70,7 +74,7 @@ export class DocumentStore {
     }
     this.redoStack = [];
     this.current = document;
-    this.emit('edit');
+    this.emit('edit', edit);
   }
 
   undo(): boolean {
@@ -78,7 +82,7 @@ export class DocumentStore {
     if (step === undefined) return false;
     this.current = applyEdit(this.current, step.inverse).document;
     this.redoStack.push(step);
-    this.emit('undo');
+    this.emit('undo', step.inverse);
     return true;
   }
 
@@ -88,7 +92,7 @@ export class DocumentStore {
     const { document, inverse } = applyEdit(this.current, step.forward);
     this.current = document;
     this.undoStack.push({ ...step, inverse, mergeKey: null });
-    this.emit('redo');
+    this.emit('redo', step.forward);
     return true;
   }
 
@@ -97,6 +101,6 @@ export class DocumentStore {
     this.current = doc;
     this.undoStack = [];
     this.redoStack = [];
-    this.emit('load');
+    this.emit('load', null);
   }
 }

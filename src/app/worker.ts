@@ -1,11 +1,15 @@
 /**
  * The evaluation worker: the engine runs here, so that typing never waits for an analysis
- * of a large table. It receives whole documents and evaluates only what changed (the engine
- * compares cells by id and text).
+ * of a large table. It holds the document: it receives it whole when one is opened, then
+ * the page's edits, applies each, and tells the engine which cells the edit touched, so
+ * nobody compares documents to learn what changed.
  */
 /// <reference lib="webworker" />
+import type { Document } from '../doc/document.ts';
+import { applyEdit, cellsTouched } from '../doc/edits.ts';
 import { BUILTINS } from '../functions/index.ts';
-import { describeParam, signature } from '../functions/registry.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
+import { describeParam, signature } from '../lang/builtins.ts';
 import { Engine } from '../graph/engine.ts';
 import { isRecord, isTable, type Value } from '../lang/values.ts';
 import { portable, type CellResult, type FromWorker, type ToWorker } from './protocol.ts';
@@ -16,6 +20,7 @@ const post = (m: FromWorker): void => scope.postMessage(m);
 let lastProgress = 0;
 const engine = new Engine({
   registry: BUILTINS,
+  kinds: CELL_KINDS,
   onProgress: (id, fraction) => {
     const t = performance.now();
     if (t - lastProgress > 50 || fraction >= 1) {
@@ -45,15 +50,40 @@ function typeName(v: Value): string {
   return v.kind === 'record' && v.tag ? v.tag : v.kind;
 }
 
+let doc: Document | null = null;
+
 scope.onmessage = (e: MessageEvent<ToWorker>) => {
   const m = e.data;
-  if (m.type === 'files') {
-    for (const [name, text] of m.files) engine.setFile(name, text);
+  const t0 = performance.now();
+  let touched: Set<string> | undefined;
+  let gone: string[] = [];
+  // 1. bring the document held here up to the page's
+  try {
+    if (m.type === 'load') {
+      gone = doc === null ? [] : doc.cells.map((c) => c.id).filter((id) => !m.doc.cells.some((c) => c.id === id));
+      doc = m.doc;
+    } else if (m.type === 'edit') {
+      if (doc === null) throw new Error('an edit arrived before a document');
+      const next = applyEdit(doc, m.edit).document;
+      touched = cellsTouched(m.edit);
+      gone = [...touched].filter((id) => !next.cells.some((c) => c.id === id));
+      doc = next;
+    } else {
+      for (const [name, text] of m.files) engine.setFile(name, text);
+      if (doc === null) {
+        post({ type: 'result', seq: m.seq, results: [], gone: [], cells: [], millis: 0 });
+        return;
+      }
+      // the engine sees the files' new versions by itself; no cell text changed
+      touched = new Set();
+    }
+  } catch (err) {
+    post({ type: 'failure', seq: m.seq, message: err instanceof Error ? err.message : String(err), outOfStep: true });
     return;
   }
-  const t0 = performance.now();
+  // 2. evaluate what changed
   try {
-    const ran = engine.update(m.doc);
+    const ran = engine.update(doc, { touched, onPlanned: (ids) => post({ type: 'planned', seq: m.seq, ids }) });
     const results: CellResult[] = ran.map((id) => {
       const s = engine.state(id)!;
       return {
@@ -65,27 +95,13 @@ scope.onmessage = (e: MessageEvent<ToWorker>) => {
         error: s.error,
       };
     });
-    const readers: [string, string[]][] = m.doc.cells.map((c) => [c.id, []]);
-    const byName = new Map<string, string>();
-    for (const c of m.doc.cells) {
-      const n = engine.state(c.id)?.name;
-      if (n) byName.set(n, c.id);
-    }
-    const index = new Map(readers.map((r) => [r[0], r[1]] as const));
-    for (const c of m.doc.cells) {
-      for (const use of engine.reads(c.id)) {
-        const src = byName.get(use.name);
-        const list = src === undefined ? undefined : index.get(src);
-        if (list !== undefined && !list.includes(c.id)) list.push(c.id);
-      }
-    }
     const cells = engine.definedNames().map((name) => {
       const v = engine.valueOf(name);
       return { name, type: v === undefined ? 'unknown' : typeName(v), members: v === undefined ? [] : members(v) };
     });
-    post({ type: 'result', seq: m.seq, results, readers, cells, millis: performance.now() - t0 });
+    post({ type: 'result', seq: m.seq, results, gone, cells, millis: performance.now() - t0 });
   } catch (err) {
-    post({ type: 'failure', seq: m.seq, message: err instanceof Error ? err.message : String(err) });
+    post({ type: 'failure', seq: m.seq, message: err instanceof Error ? err.message : String(err), outOfStep: false });
   }
 };
 

@@ -28,7 +28,7 @@ export const SHAPES = ['circle', 'square', 'triangle-up', 'diamond', 'cross', 't
 export const POINT_SHAPE = 'circle';
 export const MARKED_SHAPE = 'triangle-up';
 
-/** Ink and rule colours: the page's own (src/app/theme.ts; engine code cannot import it). */
+/** Ink and rule colours: the page's own (src/views/theme.ts; engine code cannot import it). */
 export const INK = '#1d2125';
 export const INK_SOFT = '#4a5058';
 export const MUTED = '#7a7f87';
@@ -42,7 +42,7 @@ const SHEET = '#ffffff';
  */
 export const COUNT_RANGE = ['#cfdeeb', '#00446b'] as const;
 
-/** The page's font stacks (src/app/theme.ts: --font-ui and --font-text). */
+/** The page's font stacks (src/views/theme.ts: --font-ui and --font-text). */
 export const FONT_UI = 'system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif';
 export const FONT_TEXT = '"Iowan Old Style", "Palatino Linotype", Palatino, "Book Antiqua", Georgia, serif';
 

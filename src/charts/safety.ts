@@ -13,7 +13,7 @@
  *
  * Nothing here imports vega at run time: the chart element loads it lazily and passes in
  * what is needed, so the first paint does not wait for it. The page's embedding options
- * stay in src/app/values/chart-safety.ts.
+ * stay in src/views/values/chart-safety.ts.
  */
 import type { Loader } from 'vega';
 

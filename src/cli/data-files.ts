@@ -6,7 +6,7 @@
 import type { Document } from '../doc/document.ts';
 import { CSV_LIMIT_BYTES, besideDocument, readBytes } from './files.ts';
 import { dataFileNames } from '../seal/fingerprint.ts';
-import { isSafeFileName } from '../../cells/table/model.ts';
+import { isSafeFileName } from '../doc/document.ts';
 
 /** Every data file the document names, by name, as bytes. */
 export function readDataFiles(documentPath: string, doc: Document): Map<string, Uint8Array> {

@@ -4,7 +4,7 @@
  * an error (all cells are still printed), 2 when the file cannot be read as a document.
  */
 import { basename } from 'node:path';
-import { documentTitle, headerFields, parseMarker, type Document } from '../doc/document.ts';
+import { documentTitle, headerFields, isSafeFileName, type Document } from '../doc/document.ts';
 import { DocumentError, readDocument } from '../doc/format.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
@@ -12,8 +12,9 @@ import { toJson } from '../lang/json.ts';
 import { typeOf } from '../lang/values.ts';
 import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, besideDocument, readText } from './files.ts';
 import { sheetCommand } from './sheet.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
+import type { CellKinds } from '../graph/kinds.ts';
 import { valueText, visible } from './text.ts';
-import { isSafeFileName } from '../../cells/table/model.ts';
 import { reportCommand } from './report.ts';
 import { sealCommand } from './seal.ts';
 import { verifyCommand } from './verify.ts';
@@ -57,31 +58,32 @@ function readFile<T>(read: () => T): T {
 }
 
 /** Loads a document and the CSV files its tables name. */
-export function loadDocument(path: string): { doc: Document; engine: Engine; warnings: string[] } {
+export function loadDocument(path: string, kinds: CellKinds = CELL_KINDS): { doc: Document; engine: Engine; warnings: string[] } {
   const text = readFile(() => readText(path, 'the file', DOCUMENT_LIMIT_BYTES));
   let doc: Document;
   const warnings: string[] = [];
   try {
-    const r = readDocument(text);
+    const r = readDocument(text, { kinds });
     doc = r.document;
     for (const w of r.warnings) warnings.push(`line ${w.line}: ${w.message}`);
   } catch (err) {
     if (err instanceof DocumentError) throw new CliFailure(`${path}: ${err.message}`);
     throw err;
   }
-  const engine = new Engine({ registry: BUILTINS });
+  const engine = new Engine({ registry: BUILTINS, kinds });
   for (const cell of doc.cells) {
-    const m = parseMarker(cell.marker);
-    if (m.kind !== 'table' || m.file === null) continue;
-    if (!isSafeFileName(m.file)) continue; // the table cell itself reports this
-    const file = m.file;
-    try {
-      engine.setFile(file, readText(besideDocument(path, file), 'the CSV file', CSV_LIMIT_BYTES));
-    } catch (err) {
-      if (err instanceof FileProblem) {
-        throw new CliFailure(`${path}: table ${m.name ?? ''} names ${file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
+    for (const file of kinds.filesRead(cell)) {
+      // a name that leaves the document's folder is never opened: the cell itself reports it
+      if (!isSafeFileName(file)) continue;
+      try {
+        engine.setFile(file, readText(besideDocument(path, file), 'the CSV file', CSV_LIMIT_BYTES));
+      } catch (err) {
+        if (err instanceof FileProblem) {
+          const heading = kinds.of(cell)!.printing.heading(kinds.nameOf(cell));
+          throw new CliFailure(`${path}: ${heading} names ${file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
+        }
+        throw err;
       }
-      throw err;
     }
   }
   engine.update(doc);
@@ -111,7 +113,7 @@ function position(body: string, offset: number, markerLine: number): string {
   return `line ${line}, column ${col}`;
 }
 
-function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], output: Output): void {
+function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], kinds: CellKinds, output: Output): void {
   // every line a document can put on a terminal goes through `visible`
   const o: Output = { out: (s) => output.out(visible(s)), err: (s) => output.err(visible(s)) };
   o.out(`${documentTitle(doc)}  (${basename(path)})`);
@@ -121,9 +123,13 @@ function humanReport(path: string, doc: Document, states: CellState[], warnings:
   o.out('');
   const lines = markerLines(doc);
   const where = (i: number, e: { from: number; to: number }): string =>
-    e.from === 0 && e.to === 0 && doc.cells[i]!.marker.startsWith('table') ? `line ${lines[i]}` : position(doc.cells[i]!.body, e.from, lines[i]!);
+    e.from === 0 && e.to === 0 && kinds.of(doc.cells[i]!)?.printing.faultsOnMarker === true
+      ? `line ${lines[i]}`
+      : position(doc.cells[i]!.body, e.from, lines[i]!);
   states.forEach((s, i) => {
-    const label = s.kind === 'table' ? `table ${s.name ?? ''}` : s.name !== null ? `${s.kind} ${s.name}` : s.kind;
+    const cell = doc.cells[i]!;
+    const kind = kinds.of(cell);
+    const label = kind !== undefined ? kind.printing.heading(kind.nameOf(cell) ?? s.name) : s.kind;
     const v = s.value;
     const e = s.error;
     if (s.status === 'inert') {
@@ -180,7 +186,7 @@ function guarded(o: Output, command: () => number | Promise<number>): number | P
 }
 
 /** Runs the command line with arguments; returns the exit status (a promise for `report`). */
-export function main(argv: readonly string[], o: Output): number | Promise<number> {
+export function main(argv: readonly string[], o: Output, kinds: CellKinds = CELL_KINDS): number | Promise<number> {
   if (argv[0] === 'seal') return guarded(o, () => sealCommand(argv.slice(1), o, USAGE));
   if (argv[0] === 'verify') return guarded(o, () => verifyCommand(argv.slice(1), o, USAGE));
   if (argv[0] === 'report') return guarded(o, () => reportCommand(argv.slice(1), o, USAGE));
@@ -206,10 +212,10 @@ export function main(argv: readonly string[], o: Output): number | Promise<numbe
     return 2;
   }
   try {
-    const { doc, engine, warnings } = loadDocument(file);
+    const { doc, engine, warnings } = loadDocument(file, kinds);
     const states = engine.states();
     if (json) o.out(jsonReport(states));
-    else humanReport(file, doc, states, warnings, o);
+    else humanReport(file, doc, states, warnings, kinds, o);
     if (json) for (const w of warnings) o.err(`furrow: warning, ${w}`);
     return states.some((s) => s.status === 'error' || s.status === 'upstream') ? 1 : 0;
   } catch (err) {

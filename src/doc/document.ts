@@ -30,41 +30,38 @@ export interface Document {
   readonly cells: readonly Cell[];
 }
 
-/** The kinds of cell the engine evaluates. Other kinds are kept and written back untouched. */
-export const KNOWN_KINDS = ['note', 'table', 'formula', 'sealed'] as const;
-
 /** What the marker line of a cell says. */
 export interface Marker {
   /** The first word: "note", "table", "formula", or an unknown kind. */
   readonly kind: string;
-  /** For tables: the name. */
+  /** The name, for kinds that name their cell on the marker line (tables). */
   readonly name: string | null;
-  /** For tables read from a CSV file beside the document: the file name. */
+  /** The file beside the document that the cell reads, for kinds that name one. */
   readonly file: string | null;
   /** Words the kind does not use. */
   readonly extra: readonly string[];
 }
 
-/** Reads a marker line's words. */
-export function parseMarker(marker: string): Marker {
-  const words = marker.split(/[ \t]+/).filter((w) => w.length > 0);
-  const kind = words[0] ?? '';
-  if (kind === 'table') {
-    const name = words[1] ?? null;
-    if (words[2] === 'from') {
-      // the file name is the rest of the line, so a name with spaces still works
-      const rest = marker.replace(/^\s*table\s+\S+\s+from\s+/, '');
-      return { kind, name, file: rest.trim() === '' ? null : rest.trim(), extra: [] };
-    }
-    return { kind, name, file: null, extra: words.slice(2) };
-  }
-  return { kind, name: null, file: null, extra: words.slice(1) };
+/** The first word of a marker line: the cell's kind. */
+export function markerKind(marker: string): string {
+  return /^[ \t]*(\S*)/.exec(marker)![1]!;
 }
 
-/** Writes a marker line's words. */
-export function formatMarker(kind: string, name: string | null = null, file: string | null = null): string {
-  if (kind === 'table') return file ? `table ${name ?? ''} from ${file}` : `table ${name ?? ''}`;
-  return kind;
+/**
+ * How marker lines read, for the kinds a reader knows. The cell kinds supply it
+ * (src/graph/kinds.ts); this folder knows no kind by name.
+ */
+export interface MarkerGrammar {
+  /** The marker's parts, or null for a kind not known. */
+  readMarker(marker: string): Marker | null;
+}
+
+/**
+ * True when a file name a document gives stays in the document's own folder: no path, no
+ * drive, no hidden or parent entry (a document from someone else reads nothing else).
+ */
+export function isSafeFileName(file: string): boolean {
+  return !/[\\/:\0]/.test(file) && file !== '.' && file !== '..' && !file.startsWith('.') && file.length <= 255;
 }
 
 /** The header's `key: value` pairs, first occurrence of each key. */

@@ -3,7 +3,7 @@
  * undoes it, so undo and redo need nothing else, and the same edits travel to the worker
  * that evaluates and to the autosave store.
  */
-import { parseMarker, type Cell, type Document } from './document.ts';
+import type { Cell, Document } from './document.ts';
 
 export type Edit =
   | { readonly type: 'body'; readonly id: string; readonly body: string }
@@ -100,7 +100,27 @@ export function withTitle(header: string, title: string): string {
   return `title: ${clean}\n${header}`;
 }
 
-/** The names that table cells of a document define (for renaming checks). */
-export function tableNames(doc: Document): string[] {
-  return doc.cells.map((c) => parseMarker(c.marker)).filter((m) => m.kind === 'table' && m.name).map((m) => m.name!);
+/**
+ * The cells an edit touches: those whose marker or body it sets, those it adds, removes or
+ * moves. A header edit touches none. The evaluation worker tells the engine these, so that
+ * nobody compares whole documents to learn what changed.
+ */
+export function cellsTouched(edit: Edit, into: Set<string> = new Set()): Set<string> {
+  switch (edit.type) {
+    case 'body':
+    case 'marker':
+    case 'delete':
+    case 'move':
+      into.add(edit.id);
+      break;
+    case 'insert':
+      into.add(edit.cell.id);
+      break;
+    case 'header':
+      break;
+    case 'batch':
+      for (const e of edit.edits) cellsTouched(e, into);
+      break;
+  }
+  return into;
 }

@@ -13,7 +13,7 @@
  *   body line "\--- x"   is written "\\--- x"   (one more backslash, whatever the count)
  */
 import { msg } from '../lang/messages.ts';
-import { KNOWN_KINDS, parseMarker, type Cell, type Document } from './document.ts';
+import { markerKind, type Cell, type Document, type MarkerGrammar } from './document.ts';
 
 /** A file that cannot be read as a document at all. */
 export class DocumentError extends Error {
@@ -97,11 +97,23 @@ export interface ReadResult {
   readonly warnings: readonly ReadWarning[];
 }
 
+/** How to read a document. */
+export interface ReadOptions {
+  /** Cell ids are this prefix and the cell's position: "c1", "c2", ... */
+  readonly idPrefix?: string;
+  /**
+   * The kinds of cell the reader knows. With them, a cell of another kind, or a marker with
+   * words its kind does not use, is warned about; without them, markers are not checked.
+   */
+  readonly kinds?: MarkerGrammar;
+}
+
 /**
  * Reads a document. Throws DocumentError when the text is not a Furrow document (its first
  * line is not "furrow 1"); anything else is kept, with warnings for what is unknown.
  */
-export function readDocument(text: string, idPrefix = 'c'): ReadResult {
+export function readDocument(text: string, options: ReadOptions = {}): ReadResult {
+  const idPrefix = options.idPrefix ?? 'c';
   const bom = text.charCodeAt(0) === 0xfeff;
   const body = bom ? text.slice(1) : text;
   const lines = splitLines(body);
@@ -134,10 +146,10 @@ export function readDocument(text: string, idPrefix = 'c'): ReadResult {
     i++;
     let cellBody = '';
     for (; i < lines.length && !isMarkerLine(lines[i]!); i++) cellBody += unescapeLine(lines[i]!);
-    const m = parseMarker(marker);
-    if (!(KNOWN_KINDS as readonly string[]).includes(m.kind)) {
-      warnings.push({ line: markerLineNo, message: msg.unknownCellKind(m.kind) });
-    } else if (m.extra.length > 0) {
+    const m = options.kinds?.readMarker(marker);
+    if (m === null) {
+      warnings.push({ line: markerLineNo, message: msg.unknownCellKind(markerKind(marker)) });
+    } else if (m !== undefined && m.extra.length > 0) {
       warnings.push({ line: markerLineNo, message: msg.badMarker(marker) });
     }
     cells.push({ id: `${idPrefix}${cells.length + 1}`, marker, eol: terminator(markerLine), body: cellBody });

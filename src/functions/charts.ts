@@ -23,7 +23,7 @@ import {
 } from '../charts/index.ts';
 import { completeRows, factorOf } from './columns.ts';
 import { fitInternal, type FitInternal } from './designs.ts';
-import type { Builtin, CallContext } from './registry.ts';
+import type { Builtin, CallContext } from '../lang/builtins.ts';
 
 const FIT = { name: 'fit', type: 'fit' as const, doc: 'The fit to draw.' };
 

@@ -6,7 +6,7 @@ import { UsageError } from '../lang/errors.ts';
 import { formatP } from '../lang/format.ts';
 import { mapNumbers } from '../lang/elementwise.ts';
 import { isColumn, isMissing, textColumn, type Claim, type Value } from '../lang/values.ts';
-import type { Builtin } from './registry.ts';
+import type { Builtin } from '../lang/builtins.ts';
 
 function holds(v: Value): boolean {
   if (typeof v === 'boolean') return v;

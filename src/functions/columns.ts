@@ -7,7 +7,7 @@ import { UsageError } from '../lang/errors.ts';
 import { msg, plural } from '../lang/messages.ts';
 import type { Column, NumberColumn, Value } from '../lang/values.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
-import type { CallContext } from './registry.ts';
+import type { CallContext } from '../lang/builtins.ts';
 
 /** A factor as the statistics see it. */
 export interface Factor {

@@ -17,7 +17,7 @@ import { isExactFit } from './exact.ts';
 import { LEVEL, columnsTable, finish, fitInternal, prepare, spread, type FitInternal, type Prepared } from './fits.ts';
 import { factorOf, numberLevel, resolveLevel, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
-import type { Builtin } from './registry.ts';
+import type { Builtin } from '../lang/builtins.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
 
 export { fitInternal, type FitInternal } from './fits.ts';

@@ -4,7 +4,7 @@
 import { UsageError } from '../lang/errors.ts';
 import { mapNumbers } from '../lang/elementwise.ts';
 import * as dist from '../stats/dist/index.ts';
-import type { Builtin } from './registry.ts';
+import type { Builtin } from '../lang/builtins.ts';
 
 function positive(fn: string, name: string, v: number): number {
   if (!(v > 0)) throw new UsageError(`${name} must be more than 0, but it is ${v}.`);

@@ -19,7 +19,7 @@ import {
 } from '../lang/values.ts';
 import type { DesignFit } from '../stats/designs/index.ts';
 import { completeRows, factorOf, presentRows, responseOf, type Factor } from './columns.ts';
-import type { CallContext } from './registry.ts';
+import type { CallContext } from '../lang/builtins.ts';
 
 /** What a fit record keeps for later functions. */
 export interface FitInternal {

@@ -12,7 +12,7 @@
  */
 import { isCompleteBlocking, planningMessages as m, type Codes } from '../stats/planning/index.ts';
 import { isMissingAt, sameValue, type Column, type Table } from '../lang/values.ts';
-import type { CallContext, SourceTable } from './registry.ts';
+import type { CallContext, SourceTable } from '../lang/builtins.ts';
 
 /**
  * The sentence each fit that ignores blocks adds to its doc: the rule, stated for users.

@@ -7,7 +7,7 @@ import { DESIGNS } from './designs.ts';
 import { DISTRIBUTIONS } from './distributions.ts';
 import { MATHS } from './maths.ts';
 import { PLANNING } from './planning.ts';
-import { Registry } from './registry.ts';
+import { Registry } from '../lang/builtins.ts';
 import { STRATA } from './strata.ts';
 import { SUMMARIES } from './summaries.ts';
 import { TWO_GROUPS } from './two_groups.ts';

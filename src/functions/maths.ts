@@ -3,7 +3,7 @@
  * leaving missing elements missing.
  */
 import { mapNumbers } from '../lang/elementwise.ts';
-import type { Builtin } from './registry.ts';
+import type { Builtin } from '../lang/builtins.ts';
 import * as pm from '../stats/math/portable.ts';
 
 function unary(name: string, f: (x: number) => number, doc: string, example: string): Builtin {

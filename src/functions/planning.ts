@@ -44,7 +44,7 @@ import {
   type TwoGroupPower,
 } from '../stats/planning/index.ts';
 import { guarded } from './records.ts';
-import type { Builtin, CallContext, Param } from './registry.ts';
+import type { Builtin, CallContext, Param } from '../lang/builtins.ts';
 
 // ---- layouts ---------------------------------------------------------------------------
 

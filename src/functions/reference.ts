@@ -3,7 +3,7 @@
  * the language cannot drift apart (a test compares the README with this text).
  */
 import { BUILTINS } from './index.ts';
-import { CATEGORIES, describeParam, signature } from './registry.ts';
+import { CATEGORIES, describeParam, signature } from '../lang/builtins.ts';
 
 /** The Markdown of the function reference. */
 export function referenceMarkdown(): string {

@@ -6,7 +6,7 @@ import type { Column, NumberColumn } from '../lang/values.ts';
 import { acrossSites, splitPlot } from '../stats/designs/index.ts';
 import { finish, prepare } from './fits.ts';
 import { guarded } from './records.ts';
-import type { Builtin } from './registry.ts';
+import type { Builtin } from '../lang/builtins.ts';
 
 const Y = { name: 'y', type: 'numbers' as const, doc: 'The measurements (the response).' };
 

@@ -7,7 +7,7 @@ import { msg } from '../lang/messages.ts';
 import { numberColumn, table, textColumn, type Column, type NumberColumn } from '../lang/values.ts';
 import * as S from '../stats/summary/index.ts';
 import { LEVEL_ORDER_RULE, completeRows, completeValues, factorOf, levelName, plainValues, presentRows, responseOf } from './columns.ts';
-import type { Builtin, CallContext } from './registry.ts';
+import type { Builtin, CallContext } from '../lang/builtins.ts';
 
 const X = { name: 'x', type: 'numbers' as const, doc: 'A column of numbers; missing values are left out.' };
 

@@ -10,7 +10,7 @@ import { shiftDecimals } from '../stats/decimal/index.ts';
 import { completeRows, factorOf, responseOf } from './columns.ts';
 import { EXACT_FIT_RELATIVE } from './exact.ts';
 import { guarded, toRecord } from './records.ts';
-import type { Builtin, CallContext } from './registry.ts';
+import type { Builtin, CallContext } from '../lang/builtins.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
 
 const LEVEL = { name: 'level', type: 'level' as const, default: 0.95, doc: 'Confidence level of the interval.' };

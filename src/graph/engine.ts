@@ -15,16 +15,16 @@
  *
  * The engine touches no DOM; it runs in Node, in the page and in a Web Worker.
  */
-import { CELL_KINDS } from '../../cells/kinds.ts';
 import type { Cell, Document } from '../doc/document.ts';
-import { parseMarker } from '../doc/document.ts';
-import type { Registry } from '../functions/registry.ts';
+import { markerKind } from '../doc/document.ts';
+import type { Registry } from '../lang/builtins.ts';
 import type { NameUse } from '../lang/ast.ts';
 import { LangError } from '../lang/errors.ts';
 import type { EvalEnv, Lookup, Scope } from '../lang/evaluate.ts';
 import { msg } from '../lang/messages.ts';
 import { MISSING, errorValue, isError, sameValue, type ErrorValue, type Value } from '../lang/values.ts';
-import type { CellAnalysis, CellKind, FileSource } from './cell-kind.ts';
+import type { AnalyseEnv, CellAnalysis, CellKind, FileSource } from './cell-kind.ts';
+import type { CellKinds } from './kinds.ts';
 
 /** How a cell stands, at a glance. */
 export type CellStatus = 'ok' | 'error' | 'upstream' | 'inert';
@@ -48,10 +48,18 @@ export interface CellState {
   readonly evaluations: number;
 }
 
+/** Options of one update. */
+export interface UpdateOptions {
+  /** The cells whose text changed since the last update (all others are taken as they were). */
+  readonly touched?: ReadonlySet<string>;
+  /** Hears, before evaluation starts, the cells that may get a new value, in evaluation order. */
+  readonly onPlanned?: (ids: readonly string[]) => void;
+}
+
 /** Options of an engine. */
 export interface EngineOptions {
   readonly registry: Registry;
-  readonly kinds?: ReadonlyMap<string, CellKind>;
+  readonly kinds: CellKinds;
   /** Reports progress of a long evaluation: the cell and a fraction from 0 to 1. */
   readonly onProgress?: (cellId: string, fraction: number) => void;
   /**
@@ -64,7 +72,8 @@ export interface EngineOptions {
 
 interface Slot {
   cell: Cell;
-  key: string;
+  /** The versions of the files the cell reads, when it was last analysed. */
+  fileKey: string;
   analysis: CellAnalysis;
   analysisVersion: number;
   value: Value;
@@ -91,7 +100,7 @@ const CYCLE_NAMES_SHOWN = 6;
 /** The evaluation engine for one document. */
 export class Engine {
   private readonly registry: Registry;
-  private readonly kinds: ReadonlyMap<string, CellKind>;
+  private readonly kinds: CellKinds;
   private readonly onProgress: ((cellId: string, fraction: number) => void) | undefined;
   private readonly onStep: ((cellId: string, done: number, total: number) => void) | undefined;
   private readonly stepAfterMs: number;
@@ -108,7 +117,7 @@ export class Engine {
 
   constructor(options: EngineOptions) {
     this.registry = options.registry;
-    this.kinds = options.kinds ?? CELL_KINDS;
+    this.kinds = options.kinds;
     this.onProgress = options.onProgress;
     this.onStep = options.onStep;
     this.stepAfterMs = options.stepAfterMs ?? 150;
@@ -128,28 +137,40 @@ export class Engine {
   /**
    * Brings the engine to a new version of the document and evaluates what the change
    * touches. Returns the ids of the cells that were evaluated, in the order they ran.
+   *
+   * `touched` names the cells whose text the change set (src/doc/edits.ts `cellsTouched`):
+   * only those are read again; without it, every cell's text is compared with the last.
+   * `onPlanned` hears, before evaluation starts, which cells may get a new value.
    */
-  update(doc: Document): string[] {
+  update(doc: Document, options: UpdateOptions = {}): string[] {
     this.doc = doc;
     const fileSource: FileSource = { read: (name) => this.files.get(name)?.text };
+    const touched = options.touched;
     // 1. analyse changed cells
     const present = new Set<string>();
+    const changedNames = new Set<string>();
+    const reanalysed: string[] = [];
     for (const cell of doc.cells) {
       present.add(cell.id);
-      const m = parseMarker(cell.marker);
-      const fileKey = m.file !== null ? `#${this.files.get(m.file)?.version ?? 'none'}` : '';
-      const key = `${cell.marker}\u0000${fileKey}\u0000${cell.body}`;
       const slot = this.slots.get(cell.id);
-      if (slot !== undefined && slot.key === key) {
-        slot.cell = cell;
-        continue;
+      const kind = this.kinds.of(cell);
+      const fileKey = (kind?.filesRead(cell) ?? []).map((f) => `#${this.files.get(f)?.version ?? 'none'}`).join('');
+      if (slot !== undefined && slot.fileKey === fileKey) {
+        const same = touched !== undefined ? !touched.has(cell.id) : slot.cell.marker === cell.marker && slot.cell.body === cell.body;
+        if (same) {
+          slot.cell = cell;
+          continue;
+        }
       }
-      const kind = this.kinds.get(m.kind);
-      const analysis = kind === undefined ? INERT : safeAnalyse(kind, cell, { files: fileSource });
+      const analysis = kind === undefined ? INERT : safeAnalyse(kind, cell, { files: fileSource, previous: slot?.analysis ?? null });
+      reanalysed.push(cell.id);
+      if (analysis.defines !== null) changedNames.add(analysis.defines.name);
+      const before = slot?.analysis.defines;
+      if (before != null) changedNames.add(before.name);
       if (slot === undefined) {
         this.slots.set(cell.id, {
           cell,
-          key,
+          fileKey,
           analysis,
           analysisVersion: 1,
           value: MISSING,
@@ -162,15 +183,21 @@ export class Engine {
         });
       } else {
         slot.cell = cell;
-        slot.key = key;
+        slot.fileKey = fileKey;
         slot.analysis = analysis;
         slot.analysisVersion++;
       }
     }
-    for (const id of [...this.slots.keys()]) if (!present.has(id)) this.slots.delete(id);
+    for (const [id, slot] of [...this.slots]) {
+      if (present.has(id)) continue;
+      const d = slot.analysis.defines;
+      if (d !== null) changedNames.add(d.name);
+      this.slots.delete(id);
+    }
 
     // 2. resolve names, 3. order
     this.resolve(doc);
+    options.onPlanned?.(this.downstream(reanalysed, changedNames));
 
     // 4. evaluate what changed
     const ran: string[] = [];
@@ -188,6 +215,37 @@ export class Engine {
       ran.push(id);
     }
     return ran;
+  }
+
+  /**
+   * The cells that may get a new value: the cells read again, and every cell that defines
+   * or reads, directly or not, a name one of them defined before or defines now.
+   */
+  private downstream(start: readonly string[], names: ReadonlySet<string>): string[] {
+    const out = new Set(start);
+    const queue = [...names];
+    const readersOf = new Map<string, string[]>();
+    for (const id of this.order) {
+      for (const u of this.slots.get(id)!.analysis.reads) {
+        const list = readersOf.get(u.name);
+        if (list === undefined) readersOf.set(u.name, [id]);
+        else if (list[list.length - 1] !== id) list.push(id);
+      }
+    }
+    const seenNames = new Set<string>();
+    while (queue.length > 0) {
+      const name = queue.pop()!;
+      if (seenNames.has(name)) continue;
+      seenNames.add(name);
+      // the definers of a name a change gave or took may gain or lose a duplicate
+      for (const id of [...(this.definers.get(name) ?? []), ...(readersOf.get(name) ?? [])]) {
+        if (out.has(id)) continue;
+        out.add(id);
+        const d = this.slots.get(id)!.analysis.defines;
+        if (d !== null) queue.push(d.name);
+      }
+    }
+    return this.order.filter((id) => out.has(id));
   }
 
   private resolve(doc: Document): void {
@@ -360,7 +418,6 @@ export class Engine {
   state(id: string): CellState | undefined {
     const slot = this.slots.get(id);
     if (slot === undefined) return undefined;
-    const m = parseMarker(slot.cell.marker);
     const v = slot.value;
     const failure = isError(v) ? v : (slot.parts?.find(isError) as ErrorValue | undefined);
     const status: CellStatus = !slot.analysis.evaluates
@@ -372,7 +429,7 @@ export class Engine {
           : 'error';
     return {
       id,
-      kind: m.kind,
+      kind: markerKind(slot.cell.marker),
       name: slot.analysis.defines?.name ?? null,
       value: v,
       parts: slot.parts,
@@ -405,32 +462,9 @@ export class Engine {
     if (defs === undefined || defs.length !== 1) return undefined;
     return this.slots.get(defs[0]!)!.value;
   }
-
-  /** The cells that read a cell, directly or not (what an edit of it would re-evaluate). */
-  dependents(id: string): string[] {
-    const out: string[] = [];
-    const name = this.slots.get(id)?.analysis.defines?.name;
-    if (name === undefined) return out;
-    const seen = new Set<string>([id]);
-    const queue = [name];
-    while (queue.length > 0) {
-      const n = queue.shift()!;
-      for (const other of this.order) {
-        if (seen.has(other)) continue;
-        const s = this.slots.get(other)!;
-        if (s.analysis.reads.some((u) => u.name === n)) {
-          seen.add(other);
-          out.push(other);
-          const d = s.analysis.defines?.name;
-          if (d !== undefined) queue.push(d);
-        }
-      }
-    }
-    return out;
-  }
 }
 
-function safeAnalyse(kind: CellKind, cell: Cell, env: { files: FileSource }): CellAnalysis {
+function safeAnalyse(kind: CellKind, cell: Cell, env: AnalyseEnv): CellAnalysis {
   try {
     return kind.analyse(cell, env);
   } catch (err) {

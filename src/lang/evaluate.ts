@@ -6,8 +6,8 @@
  * Errors are thrown as LangError with the range of the exact characters at fault; the graph
  * catches them at the cell boundary and turns them into error values.
  */
-import { signature, type Registry, type SourceTable } from '../functions/registry.ts';
-import { TYPES } from '../functions/types.ts';
+import { signature, type Registry, type SourceTable } from './builtins.ts';
+import { TYPES } from './types.ts';
 import type { Argument, CallNode, Expr, IndexNode, MemberNode } from './ast.ts';
 import { filterColumn, binary, negate, not, pickColumn } from './elementwise.ts';
 import { LangError, UsageError } from './errors.ts';

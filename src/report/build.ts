@@ -11,7 +11,8 @@
  * from the document is escaped, or, for a note's Markdown, passed through an allow-list.
  */
 import { sha256 } from '@noble/hashes/sha2.js';
-import { visibleBody, documentTitle, headerFields, parseMarker, type Document } from '../doc/document.ts';
+import { visibleBody, documentTitle, headerFields, type Document } from '../doc/document.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
 import type { CellState } from '../graph/engine.ts';
 import type { NameUse } from '../lang/ast.ts';
 import { formatInline } from '../lang/format.ts';
@@ -135,7 +136,7 @@ function claimsHtml(states: readonly CellState[]): string {
 
 function cellHtml(doc: Document, i: number, s: CellState, charts: ChartSvgs, doubts: ReadonlyMap<string, NoteDoubt>): string {
   const cell = doc.cells[i]!;
-  const m = parseMarker(cell.marker);
+  const m = CELL_KINDS.readMarker(cell.marker) ?? { kind: cell.marker.trim().split(/[ \t]+/)[0] ?? '', name: null, file: null, extra: [] };
   const id = `cell-${i + 1}`;
   if (m.kind === 'note') return `<section class="cell note-cell" id="${id}">${noteHtml(cell.body, s.parts, doubts.get(cell.id))}</section>`;
   if (m.kind === 'table') {

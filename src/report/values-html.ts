@@ -7,8 +7,8 @@
  */
 import { formatInline } from '../lang/format.ts';
 import { columnLength, isColumn, isRecord, isTable, missingCount, type Column, type RecordValue, type Table, type Value } from '../lang/values.ts';
-import { cellText, planColumn } from '../app/values/grid-model.ts';
-import { fitLayout, pairsLayout, recordLines, type ScalarLine } from '../app/values/record-layout.ts';
+import { cellText, planColumn } from '../views/values/grid-model.ts';
+import { fitLayout, pairsLayout, recordLines, type ScalarLine } from '../views/values/record-layout.ts';
 import { escapeHtml } from './sanitize.ts';
 
 /** A table longer than this is shown by its first REPORT_HEAD_ROWS rows and its count. */

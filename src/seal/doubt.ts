@@ -7,7 +7,7 @@ import type { Cell } from '../doc/document.ts';
 import type { CellState } from '../graph/engine.ts';
 import { namesRead, type NameUse } from '../lang/ast.ts';
 import { splitNote } from '../../cells/note/model.ts';
-import { parseMarker } from '../doc/document.ts';
+import { markerKind } from '../doc/document.ts';
 
 /** The placeholders in doubt in one note, and the claims that cast it. */
 export interface NoteDoubt {
@@ -29,7 +29,7 @@ export function notesInDoubt(cells: readonly Cell[], states: readonly CellState[
   const out = new Map<string, NoteDoubt>();
   if (failing.length === 0) return out;
   for (const cell of cells) {
-    if (parseMarker(cell.marker).kind !== 'note') continue;
+    if (markerKind(cell.marker) !== 'note') continue;
     const slots = new Set<number>();
     const claims = new Set<string>();
     let k = 0;

@@ -9,7 +9,8 @@
  *
  * The parts' own digests are sealed too, so that a verification can say which part changed.
  */
-import { parseMarker, type Document } from '../doc/document.ts';
+import { markerKind, type Document } from '../doc/document.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
 import { writeDocument } from '../doc/format.ts';
 import { jsonText } from '../lang/json.ts';
 import { hex, sha256Bytes, utf8 } from './digest.ts';
@@ -20,7 +21,7 @@ export const SEALED_KIND = 'sealed';
 
 /** True for a sealed section. */
 export function isSealedCell(marker: string): boolean {
-  return parseMarker(marker).kind === SEALED_KIND;
+  return markerKind(marker) === SEALED_KIND;
 }
 
 /** The document without its sealed sections. */
@@ -32,8 +33,7 @@ export function withoutSeal(doc: Document): Document {
 export function dataFileNames(doc: Document): string[] {
   const names = new Set<string>();
   for (const c of doc.cells) {
-    const m = parseMarker(c.marker);
-    if (m.kind === 'table' && m.file !== null) names.add(m.file);
+    for (const f of CELL_KINDS.filesRead(c)) names.add(f);
   }
   return [...names].sort();
 }

@@ -8,6 +8,7 @@ import { afterAll, bench, describe } from 'vitest';
 import { applyEdit } from '../../src/doc/edits.ts';
 import { readDocument } from '../../src/doc/format.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
 import { Engine } from '../../src/graph/engine.ts';
 
 const N = 2000;
@@ -21,11 +22,11 @@ const notes: string[] = [];
 
 describe(`chain of ${N} formula cells (${cpus()[0]?.model ?? 'unknown CPU'})`, () => {
   bench('read and evaluate the whole document', () => {
-    const engine = new Engine({ registry: BUILTINS });
+    const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
     engine.update(readDocument(text).document);
   });
 
-  const engine = new Engine({ registry: BUILTINS });
+  const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
   let doc = readDocument(text).document;
   engine.update(doc);
   const last = doc.cells[N - 1]!.id;

@@ -2,7 +2,8 @@ import fc from 'fast-check';
 import { msg } from '../../src/lang/messages.ts';
 import { describe, expect, it } from 'vitest';
 import { applyEdit, freshCellId } from '../../src/doc/edits.ts';
-import { documentTitle, headerFields, parseMarker, type Document } from '../../src/doc/document.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
+import { documentTitle, headerFields, type Document } from '../../src/doc/document.ts';
 import { DocumentError, readDocument, writeDocument } from '../../src/doc/format.ts';
 
 const SAMPLE = `furrow 1
@@ -24,13 +25,16 @@ const roundTrip = (text: string): string => writeDocument(readDocument(text).doc
 
 describe('reading documents', () => {
   it('reads the header, the three cell kinds and their bodies', () => {
-    const { document: d, warnings } = readDocument(SAMPLE);
+    const { document: d, warnings } = readDocument(SAMPLE, { kinds: CELL_KINDS });
     expect(warnings).toEqual([]);
     expect(documentTitle(d)).toBe('Pruning methods in a pear orchard');
     expect(headerFields(d).get('author')).toBe('Orchard trials group');
     expect(d.cells.map((c) => c.marker)).toEqual(['note', 'table trees', 'formula']);
     expect(d.cells[1]!.body).toBe('row,method,yield_kg\n1,open,41.2\n\n');
-    expect(parseMarker('table plots from plots.csv')).toEqual({ kind: 'table', name: 'plots', file: 'plots.csv', extra: [] });
+    expect(CELL_KINDS.readMarker('table plots from plots.csv')).toEqual({ kind: 'table', name: 'plots', file: 'plots.csv', extra: [] });
+    expect(CELL_KINDS.readMarker('table plots from my plots.csv')).toEqual({ kind: 'table', name: 'plots', file: 'my plots.csv', extra: [] });
+    expect(CELL_KINDS.readMarker('note aside')).toEqual({ kind: 'note', name: null, file: null, extra: ['aside'] });
+    expect(CELL_KINDS.readMarker('sketch 3d')).toBeNull();
   });
   it('refuses a file that is not a document, and a later version, in plain words', () => {
     expect(() => readDocument('hello\n')).toThrow(DocumentError);
@@ -44,8 +48,8 @@ describe('reading documents', () => {
     expect(() => readDocument('furrow 1 \n')).not.toThrow(/version 1/);
   });
   it('keeps unknown header keys and cell kinds, with a warning', () => {
-    const text = 'furrow 1\ntitle: x\nsponsor: nobody\n\n--- sketch 3d\nwhatever\n--- formula\nx = 1\n';
-    const { document: d, warnings } = readDocument(text);
+    const text = 'furrow 1\ntitle: x\nsponsor: nobody\n\n--- sketch 3d\nwhatever\n--- formula\nx = 1\n--- sealed\n';
+    const { document: d, warnings } = readDocument(text, { kinds: CELL_KINDS });
     expect(warnings.map((w) => w.line)).toEqual([3, 5]);
     expect(warnings[0]!.message).toMatch(/Unknown header key "sponsor"/);
     expect(warnings[1]!.message).toMatch(/Unknown cell kind "sketch"/);

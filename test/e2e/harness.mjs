@@ -59,7 +59,9 @@ export async function runTests(tests, { build = true, json = null } = {}) {
   try {
     await waitForPort(PORT, 30_000);
     browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium', args: CHROMIUM_ARGS });
-    for (const t of tests) {
+    // E2E_ONLY=words runs only the tests whose names hold those words (while working on them)
+    const only = process.env.E2E_ONLY;
+    for (const t of tests.filter((x) => !only || x.name.includes(only))) {
       const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
       const problems = [];
       context.on('page', (page) => {

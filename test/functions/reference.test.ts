@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { BUILTINS } from '../../src/functions/index.ts';
 import { referenceMarkdown } from '../../src/functions/reference.ts';
-import { signature } from '../../src/functions/registry.ts';
+import { signature } from '../../src/lang/builtins.ts';
 
 describe('the built-ins registry', () => {
   it('is what the README documents (run `npm run reference` after changing a built-in)', () => {

@@ -13,6 +13,7 @@ import { DocumentError, readDocument, writeDocument } from '../../src/doc/format
 import type { Document } from '../../src/doc/document.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
 import { Engine } from '../../src/graph/engine.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
 import { isError } from '../../src/lang/values.ts';
 import { splitNote } from '../../cells/note/model.ts';
 import { noteMarkdownHtml } from '../../cells/note/markdown.ts';
@@ -62,7 +63,7 @@ FORMULA
 `;
 
 const base = readDocument(CONTEXT.replace('FORMULA', 'x = 1')).document;
-const engine = new Engine({ registry: BUILTINS });
+const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
 engine.update(base);
 const formulaId = base.cells[base.cells.length - 1]!.id;
 

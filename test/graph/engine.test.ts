@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { applyEdit, type Edit } from '../../src/doc/edits.ts';
+import { applyEdit, cellsTouched, type Edit } from '../../src/doc/edits.ts';
 import type { Document } from '../../src/doc/document.ts';
 import { readDocument, writeDocument } from '../../src/doc/format.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
+import { CELL_KINDS } from '../../cells/kinds.ts';
 import { Engine } from '../../src/graph/engine.ts';
 import { isError, type ErrorValue } from '../../src/lang/values.ts';
 import { doc } from '../helpers.ts';
@@ -11,7 +12,7 @@ import { doc } from '../helpers.ts';
 function setup(...formulas: string[]): { engine: Engine; d: Document; ids: Map<string, string> } {
   const text = doc(...formulas.flatMap((f) => ['--- formula', f]));
   const d = readDocument(text).document;
-  const engine = new Engine({ registry: BUILTINS });
+  const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
   engine.update(d);
   const ids = new Map<string, string>();
   for (const c of d.cells) {
@@ -153,7 +154,7 @@ describe('notes', () => {
   it('read names in placeholders and follow their values', () => {
     const text = doc('--- formula', 'x = 2', '--- note', 'x is {x}, twice is {x * 2}, a brace: \\{ok}.', '');
     let d = readDocument(text).document;
-    const engine = new Engine({ registry: BUILTINS });
+    const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
     engine.update(d);
     const note = d.cells[1]!.id;
     expect(engine.state(note)!.value).toBe('x is 2, twice is 4, a brace: \\{ok}.');
@@ -178,7 +179,7 @@ describe('notes', () => {
 });
 
 function runText(text: string) {
-  const engine = new Engine({ registry: BUILTINS });
+  const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
   engine.update(readDocument(text).document);
   return { engine, states: engine.states() };
 }
@@ -197,14 +198,14 @@ describe('progress of a long update', () => {
     const text = doc(...Array.from({ length: 30 }, (_, i) => ['--- formula', i === 0 ? 'v0 = 1' : `v${i} = v${i - 1} + 1`]).flat());
     const steps: [string, number, number][] = [];
     // a negative delay: every cell counts as late, so every one is reported
-    const engine = new Engine({ registry: BUILTINS, onStep: (id, done, total) => steps.push([id, done, total]), stepAfterMs: -1 });
+    const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS, onStep: (id, done, total) => steps.push([id, done, total]), stepAfterMs: -1 });
     const d = readDocument(text).document;
     engine.update(d);
     expect(steps).toHaveLength(30);
     expect(steps[0]).toEqual([d.cells[0]!.id, 0, 30]);
     expect(steps[29]).toEqual([d.cells[29]!.id, 29, 30]);
     const quiet: unknown[] = [];
-    const e2 = new Engine({ registry: BUILTINS, onStep: (...a) => quiet.push(a), stepAfterMs: 60_000 });
+    const e2 = new Engine({ registry: BUILTINS, kinds: CELL_KINDS, onStep: (...a) => quiet.push(a), stepAfterMs: 60_000 });
     e2.update(d);
     expect(quiet).toHaveLength(0);
   });
@@ -225,5 +226,70 @@ describe('a long cycle', () => {
     expect(states[0]!.error!.message).toMatch(/cycle \(v0 → v1 → v2 → v3 → v4 → v5 → … 10000 cells in all\)/);
     expect(states[9_999]!.error!.message).toMatch(/cycle \(v9999 → v0 → v1 /);
     expect(ms).toBeLessThan(10_000);
+  });
+});
+
+describe('told which cells an edit touched', () => {
+  /** Applies an edit and tells the engine what it touched, as the worker does. */
+  function told(engine: Engine, d: Document, e: Edit): { d: Document; ran: string[]; planned: readonly string[] } {
+    const next = applyEdit(d, e).document;
+    let planned: readonly string[] = [];
+    const ran = engine.update(next, { touched: cellsTouched(e), onPlanned: (ids) => (planned = ids) });
+    return { d: next, ran, planned };
+  }
+
+  //   a -> b -> c      z alone      edit b: plan b, c; run b, c
+  it('plans and runs the touched cell and what reads it, nothing else', () => {
+    const { engine, d, ids } = setup('a = 1', 'b = a + 1', 'c = b + 1', 'z = 100');
+    const r = told(engine, d, { type: 'body', id: ids.get('b')!, body: 'b = a + 5\n' });
+    expect(r.planned).toEqual([ids.get('b'), ids.get('c')]);
+    expect(r.ran).toEqual([ids.get('b'), ids.get('c')]);
+    expect(engine.valueOf('c')).toBe(7);
+  });
+  it('reads again only the touched cells, even when another text changed unseen', () => {
+    const { engine, d, ids } = setup('a = 1', 'b = a + 1');
+    // a change the engine is not told about is not looked at: the worker always tells
+    const sneaky = { ...d, cells: d.cells.map((c) => (c.id === ids.get('a') ? { ...c, body: 'a = 50\n' } : c)) };
+    engine.update(sneaky, { touched: new Set() });
+    expect(engine.valueOf('a')).toBe(1);
+    engine.update(sneaky, { touched: new Set([ids.get('a')!]) });
+    expect(engine.valueOf('b')).toBe(51);
+    // without `touched`, texts are compared and a change is found
+    const again = { ...sneaky, cells: sneaky.cells.map((c) => (c.id === ids.get('a') ? { ...c, body: 'a = 7\n' } : c)) };
+    engine.update(again);
+    expect(engine.valueOf('b')).toBe(8);
+  });
+  it('a deleted definer plans its readers, which then say the name is gone', () => {
+    const { engine, d, ids } = setup('a = 1', 'b = a + 1', 'c = b * 2');
+    const r = told(engine, d, { type: 'delete', id: ids.get('a')! });
+    expect(r.planned).toEqual([ids.get('b'), ids.get('c')]);
+    expect(engine.state(ids.get('b')!)!.status).toBe('error');
+    expect(engine.state(ids.get('c')!)!.status).toBe('upstream');
+  });
+  it('a renamed definer plans the readers of the old name and of the new', () => {
+    const { engine, d, ids } = setup('a = 1', 'b = a + 1', 'x = 3', 'y = x + 1');
+    const r = told(engine, d, { type: 'body', id: ids.get('a')!, body: 'x = 1\n' });
+    expect(new Set(r.planned)).toEqual(new Set([ids.get('a'), ids.get('b'), ids.get('x'), ids.get('y')]));
+  });
+  it('a header edit touches no cell and runs nothing', () => {
+    const { engine, d } = setup('a = 1', 'b = a + 1');
+    const r = told(engine, d, { type: 'header', header: 'title: other\n\n' });
+    expect(r.planned).toEqual([]);
+    expect(r.ran).toEqual([]);
+  });
+  it('cellsTouched lists the cells of every kind of edit', () => {
+    const cell = { id: 'n9', marker: 'note', eol: '\n', body: 'x\n' };
+    const e: Edit = {
+      type: 'batch',
+      edits: [
+        { type: 'body', id: 'c1', body: '' },
+        { type: 'marker', id: 'c2', marker: 'note' },
+        { type: 'insert', index: 0, cell },
+        { type: 'move', id: 'c3', index: 0 },
+        { type: 'delete', id: 'c4' },
+        { type: 'header', header: '' },
+      ],
+    };
+    expect([...cellsTouched(e)].sort()).toEqual(['c1', 'c2', 'c3', 'c4', 'n9']);
   });
 });

@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseExpression } from '../../src/lang/parser.ts';
 import { evaluate, type Scope } from '../../src/lang/evaluate.ts';
-import { Registry, type SourceTable } from '../../src/functions/registry.ts';
+import { Registry, type SourceTable } from '../../src/lang/builtins.ts';
 import { numberColumn, table, textColumn, type Value } from '../../src/lang/values.ts';
 
 const data = table(['y', 'g'], [numberColumn(Float64Array.from([1, 2]), null, 'y'), textColumn(['a', 'b'], null, 'g')]);

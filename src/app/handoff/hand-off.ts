@@ -20,7 +20,7 @@ import { isSealedCell } from '../../seal/fingerprint.ts';
 import { claimsOf, type SealedClaim } from '../../seal/section.ts';
 import { verificationText } from '../../seal/verify-text.ts';
 import { verifyDocument, type Verification } from '../../seal/verify.ts';
-import { shared } from '../theme.ts';
+import { shared } from '../../views/theme.ts';
 import { formatInline, formatNumber } from '../../lang/format.ts';
 import type { Value } from '../../lang/values.ts';
 import { applyMarks, type CellMark } from './marks.ts';

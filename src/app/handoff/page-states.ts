@@ -5,17 +5,15 @@
  */
 import type { CellViewState } from '../../../cells/view-api.ts';
 import { parseFormula } from '../../../cells/formula/model.ts';
-import { parseMarker, type Cell, type Document } from '../../doc/document.ts';
+import { markerKind, type Cell, type Document } from '../../doc/document.ts';
+import { CELL_KINDS } from '../../../cells/kinds.ts';
 import type { CellState } from '../../graph/engine.ts';
 import { namesRead, type NameUse } from '../../lang/ast.ts';
 import { MISSING } from '../../lang/values.ts';
 
 /** The name a cell defines, read from its text. */
 export function definedName(cell: Cell): string | null {
-  const m = parseMarker(cell.marker);
-  if (m.kind === 'table') return m.name;
-  if (m.kind === 'formula') return /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/.exec(cell.body)?.[1] ?? null;
-  return null;
+  return CELL_KINDS.nameOf(cell);
 }
 
 /**
@@ -25,7 +23,7 @@ export function definedName(cell: Cell): string | null {
 export function settledStates(doc: Document, stateOf: (cell: Cell) => CellViewState | null): CellState[] | null {
   const out: CellState[] = [];
   for (const cell of doc.cells) {
-    const kind = parseMarker(cell.marker).kind;
+    const kind = markerKind(cell.marker);
     const s = stateOf(cell);
     const inert = kind === 'sealed' || !['note', 'table', 'formula'].includes(kind);
     if (!inert && (s === null || s.status === 'pending' || s.value === null)) return null;
@@ -47,7 +45,7 @@ export function settledStates(doc: Document, stateOf: (cell: Cell) => CellViewSt
 
 /** The names a formula cell reads, from its text (for the claims that cast doubt on notes). */
 export function namesReadBy(cell: Cell | undefined): readonly NameUse[] {
-  if (cell === undefined || parseMarker(cell.marker).kind !== 'formula') return [];
+  if (cell === undefined || markerKind(cell.marker) !== 'formula') return [];
   const { statement } = parseFormula(cell.body);
   return statement === null ? [] : namesRead(statement.expr);
 }

@@ -7,7 +7,7 @@ import type { Cell } from '../../doc/document.ts';
 import type { NameUse } from '../../lang/ast.ts';
 import { splitNote } from '../../../cells/note/model.ts';
 import { namesRead } from '../../lang/ast.ts';
-import { parseMarker } from '../../doc/document.ts';
+import { markerKind } from '../../doc/document.ts';
 import { definedName, namesReadBy } from './page-states.ts';
 
 /** One step of a chain: a cell and how far it is from the cell asked about. */
@@ -24,7 +24,7 @@ export interface ChainStep {
 
 /** The names a cell reads, from its text (formulas and notes; tables read none). */
 export function cellReads(cell: Cell): readonly NameUse[] {
-  const kind = parseMarker(cell.marker).kind;
+  const kind = markerKind(cell.marker);
   if (kind === 'formula') return namesReadBy(cell);
   if (kind === 'note') return splitNote(cell.body).flatMap((p) => (p.type === 'placeholder' && p.expr !== null ? namesRead(p.expr) : []));
   return [];

@@ -203,7 +203,7 @@ describe('<furrow-table-cell>', () => {
     expect((m.edits[1]!.edit as { body: string }).body).toBe('a,column_2,b\n,,\n1,,2\n\n');
   });
 
-  it('takes a new body from outside (undo) without sending anything, keeping its own echoes', async () => {
+  it('takes a new body from outside (undo) without sending anything', async () => {
     const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
     const m = await mount(cell);
     m.el.cell = { ...cell, body: 'row,method,yield_kg\n9,vase,30\n\n' };
@@ -213,7 +213,7 @@ describe('<furrow-table-cell>', () => {
     expect(m.edits).toHaveLength(0);
   });
 
-  it('an older edit of its own coming back late does not undo a newer one on screen', async () => {
+  it('keeps its grid when the shell hands back the body it sent, and reads an undone body afresh', async () => {
     const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
     const m = await mount(cell);
     const grid = m.root.querySelector<HTMLElement>('.scroller')!;
@@ -229,13 +229,14 @@ describe('<furrow-table-cell>', () => {
       await m.el.updateComplete;
     }
     expect(m.edits).toHaveLength(2);
-    // the shell hands back the first body only now
-    m.el.cell = { ...cell, body: (m.edits[0]!.edit as { body: string }).body };
-    await m.el.updateComplete;
-    expect(fieldText(m.root, 0, 2)).toBe('51');
+    // the store applied both at once: the shell hands back the latest body
     m.el.cell = { ...cell, body: (m.edits[1]!.edit as { body: string }).body };
     await m.el.updateComplete;
     expect(fieldText(m.root, 0, 2)).toBe('51');
+    // undo of the second edit hands back the first body: the view shows it
+    m.el.cell = { ...cell, body: (m.edits[0]!.edit as { body: string }).body };
+    await m.el.updateComplete;
+    expect(fieldText(m.root, 0, 2)).toBe('50');
     expect(m.edits).toHaveLength(2);
   });
 

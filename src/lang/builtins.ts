@@ -4,7 +4,7 @@
  * the README's function reference is generated from it (scripts/reference.ts), so the three
  * cannot drift apart.
  */
-import type { Table, Value } from '../lang/values.ts';
+import type { Table, Value } from './values.ts';
 import { TYPES, type TypeKey } from './types.ts';
 
 /** Groups of built-ins, in the order the reference lists them. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cellText, MAX_SCROLL_HEIGHT, planColumn, rowWindow } from '../../../src/app/values/grid-model.ts';
+import { cellText, MAX_SCROLL_HEIGHT, planColumn, rowWindow } from '../../../src/views/values/grid-model.ts';
 import { booleanColumn, numberColumn, textColumn } from '../../../src/lang/values.ts';
 
 describe('cell texts', () => {

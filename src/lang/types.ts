@@ -3,7 +3,7 @@
  * completion and error messages) and checks a value, converting where the language allows
  * (a single number where numbers are expected stays a number; a list literal is a column).
  */
-import { msg } from '../lang/messages.ts';
+import { msg } from './messages.ts';
 import {
   describeType,
   isColumn,
@@ -16,7 +16,7 @@ import {
   type Table,
   type TextColumn,
   type Value,
-} from '../lang/values.ts';
+} from './values.ts';
 
 /** A check either accepts the value (possibly converted) or says what it is instead. */
 export type Checked = { readonly ok: true; readonly value: Value } | { readonly ok: false; readonly got: string };

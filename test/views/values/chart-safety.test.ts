@@ -3,7 +3,7 @@ import * as vega from 'vega';
 import { expressionInterpreter } from 'vega-interpreter';
 import { compile } from 'vega-lite';
 import { describe, expect, it } from 'vitest';
-import { cleanSpec, collectingLogger, LoadRefused, lockedLoader, MAX_MESSAGES, safeEmbedOptions } from '../../../src/app/values/chart-safety.ts';
+import { cleanSpec, collectingLogger, LoadRefused, lockedLoader, MAX_MESSAGES, safeEmbedOptions } from '../../../src/views/values/chart-safety.ts';
 
 const points = { values: [{ x: 1, y: 2 }, { x: 2, y: 3 }] };
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fixedText, levelText, pText, sharedDecimals } from '../../../src/app/values/digits.ts';
+import { fixedText, levelText, pText, sharedDecimals } from '../../../src/views/values/digits.ts';
 
 // The digit rules are the project's own layout choices: common practice, no source.
 describe('sharedDecimals', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { anovaRows, fieldLabel, fitLayout, meansRows, nonadditivityText, pairRows, pairsLayout, recordLines, scalarText } from '../../../src/app/values/record-layout.ts';
+import { anovaRows, fieldLabel, fitLayout, meansRows, nonadditivityText, pairRows, pairsLayout, recordLines, scalarText } from '../../../src/views/values/record-layout.ts';
 import { BUILTINS } from '../../../src/functions/index.ts';
-import type { CallContext } from '../../../src/functions/registry.ts';
+import type { CallContext } from '../../../src/lang/builtins.ts';
 import { booleanColumn, isRecord, numberColumn, record, table, textColumn, type Value } from '../../../src/lang/values.ts';
 
 // Layout rules (blank cells, digits, p written as the trade writes it): common practice, no source.

@@ -1,7 +1,7 @@
 // @vitest-environment happy-dom
 import { afterEach, describe, expect, it } from 'vitest';
-import '../../../src/app/values/chart.ts';
-import type { FurrowChart } from '../../../src/app/values/chart.ts';
+import '../../../src/views/values/chart.ts';
+import type { FurrowChart } from '../../../src/views/values/chart.ts';
 import type { Chart } from '../../../src/lang/values.ts';
 
 let mounted: HTMLElement[] = [];

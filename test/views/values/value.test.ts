@@ -1,8 +1,8 @@
 // @vitest-environment happy-dom
 import { afterEach, describe, expect, it } from 'vitest';
-import '../../../src/app/values/value.ts';
-import type { FurrowGrid } from '../../../src/app/values/grid.ts';
-import { columnSummary } from '../../../src/app/values/value.ts';
+import '../../../src/views/values/value.ts';
+import type { FurrowGrid } from '../../../src/views/values/grid.ts';
+import { columnSummary } from '../../../src/views/values/value.ts';
 import { MISSING, numberColumn, record, table, textColumn, type Value } from '../../../src/lang/values.ts';
 
 let mounted: HTMLElement[] = [];

@@ -1,0 +1,67 @@
+/**
+ * The words of the page's shell: the toolbar's status line, the banner, the margin of each
+ * cell, opening, saving and keeping documents. Views and tests build them here, so wording
+ * changes in one place.
+ */
+import { plural } from './words.ts';
+
+/** How a cell stands, as its margin says it (empty: nothing to say). */
+export const STATUS_WORDS: ReadonlyMap<string, string> = new Map([
+  ['ok', ''],
+  ['pending', 're-evaluating'],
+  ['error', 'error'],
+  ['upstream', 'depends on an error'],
+  ['inert', 'kept, not evaluated'],
+]);
+
+export const pageMsg = {
+  // ---- status line --------------------------------------------------------------------
+  evaluatingStep: (name: string | null, done: number, total: number) => `evaluating ${name ?? 'a cell'}: ${done} of ${total} cells checked…`,
+  reEvaluating: (n: number) => `re-evaluating ${plural(n, 'cell')}…`,
+  cellsWithErrors: (errors: number, upstream: number) =>
+    `${errors} ${errors === 1 ? 'cell has' : 'cells have'} an error${upstream > 0 ? `, ${upstream} ${upstream === 1 ? 'depends' : 'depend'} on ${errors === 1 ? 'it' : 'them'}` : ''}`,
+  allUpToDate: () => 'every cell up to date',
+  kept: () => 'kept in this browser',
+  notKept: (why: string) => `not kept in this browser (${why})`,
+
+  // ---- editing ------------------------------------------------------------------------
+  editRefused: (why: string) => `That change could not be made: ${why}`,
+  nothingToUndo: () => 'Nothing to undo.',
+  nothingToRedo: () => 'Nothing to redo.',
+  cellDeleted: () => 'Cell deleted. Undo (Ctrl+Z) brings it back.',
+  notAName: (name: string) => `"${name}" cannot be a name: it starts with a letter or _, then letters, digits or _.`,
+  renameInCell: () => 'Rename it in the cell itself',
+  rename: () => 'Rename',
+  unnamed: () => '(unnamed)',
+  addBelow: (label: string) => `Add a ${label} below`,
+
+  // ---- files --------------------------------------------------------------------------
+  opened: (name: string | null) => `Opened ${name ?? 'the document'}.`,
+  openedMissingFiles: (name: string | null, missing: readonly string[]) =>
+    `Opened ${name ?? 'the document'}. Its tables read ${missing.join(', ')}: attach ${missing.length === 1 ? 'that file' : 'those files'} with "Attach CSV".`,
+  notOpened: (name: string | null, why: string) => `${name ?? 'That file'} was not opened: ${why} Nothing on the page was changed.`,
+  notUtf8: (name: string) => `${name} was not opened: it is not UTF-8 text, so it is not a Furrow document. Nothing on the page was changed.`,
+  unreadable: (notText: boolean, detail: string) =>
+    `The file could not be read${notText ? ': it is not UTF-8 text, so it is not a Furrow document' : `: ${detail}`}. Nothing on the page was changed.`,
+  attached: (name: string) => `Attached ${name}.`,
+  csvUnreadable: (detail: string) => `The CSV file could not be read: ${detail}.`,
+  savedAs: (name: string) => `Saved as ${name}.`,
+  saveFailed: (detail: string) => `Saving failed: ${detail}. The document is still kept in this browser.`,
+  workerStopped: (detail: string) => `The evaluation worker stopped: ${detail || 'unknown error'}. Reload the page; your document is saved.`,
+  evaluationFailed: (detail: string) => `Evaluation failed: ${detail}`,
+
+  // ---- keeping documents --------------------------------------------------------------
+  keptUnreadable: () => 'The document kept in this browser could not be read; a sample is open instead.',
+  editedSampleOpen: (name: string) => `You edited the sample ${name} before: your edited copy is open.`,
+  openOriginal: () => 'Open the original',
+  originalOpen: (name: string, title: string) =>
+    `The original ${name} is open. Your edited copy is kept as "${title}" under "Kept in this browser".`,
+  keptList: () => 'Kept in this browser…',
+  keptEntry: (title: string, where: string) => `${title} (${where})`,
+  keptWhere: (key: string) =>
+    key.startsWith('file:') ? key.slice(5) : key.startsWith('sample:') ? `sample ${key.slice(7).replace(/\.furrow$/, '')}` : 'new document',
+  sharedWithTab: () => 'This document is open in another tab too. Edits in either tab are kept, and the last one saved wins: close one of the tabs to be safe.',
+  savedInOtherTab: () => 'Another tab saved this document. Reload to see its version, or keep editing here and your version is saved over it.',
+  reload: () => 'Reload',
+  newDocumentText: () => 'furrow 1\ntitle: Untitled trial\n\n--- note\nWhat is compared, on what, and why.\n\n',
+};
