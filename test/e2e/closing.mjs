@@ -1,0 +1,82 @@
+// Browser tests of data safety: the browser closed in the middle of an edit, then opened
+// again on the same profile, still has the edit. Each test launches its own Chromium with a
+// profile folder of its own (the harness's contexts start empty every time).
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { chromium } from 'playwright-core';
+import { check } from './harness.mjs';
+import { field, settled } from './page.mjs';
+
+const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--disable-quic', '--no-first-run'];
+
+function launch(profile) {
+  return chromium.launchPersistentContext(profile, { executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium', args: ARGS });
+}
+
+/** The formula editor of a cell, made if it is not yet (editors appear as cells scroll into view). */
+async function formulaEditor(page, name) {
+  const editor = page.locator(`section[data-name="${name}"] furrow-formula-cell`);
+  await page.locator(`section[data-name="${name}"]`).scrollIntoViewIfNeeded();
+  try {
+    await editor.locator('.cm-content').waitFor({ timeout: 5000 });
+  } catch {
+    await editor.locator('.static').first().click();
+    await editor.locator('.cm-content').waitFor();
+  }
+  return editor.locator('.cm-content');
+}
+
+export const closingTests = [
+  {
+    name: 'the browser closed in the middle of typing a field, then opened again, keeps the edit',
+    async run({ base }) {
+      const profile = mkdtempSync(join(tmpdir(), 'furrow-profile-'));
+      let browser = await launch(profile);
+      let page = await browser.newPage();
+      await page.goto(`${base}/`);
+      await settled(page);
+      await field(page, 'coupons', 3, 3).click();
+      await page.keyboard.type('28.4');
+      await page.keyboard.press('Enter');
+      // the window is closed at once, before autosave's pause has passed
+      await browser.close();
+      browser = await launch(profile);
+      try {
+        page = await browser.newPage();
+        await page.goto(`${base}/`);
+        await settled(page);
+        const v = (await field(page, 'coupons', 3, 3).innerText()).trim();
+        check(v === '28.4', `the field after the browser was closed and opened again: ${v}`);
+      } finally {
+        await browser.close();
+      }
+    },
+  },
+  {
+    name: 'the browser closed while a formula is being typed, then opened again, keeps what was typed',
+    async run({ base }) {
+      const profile = mkdtempSync(join(tmpdir(), 'furrow-profile-'));
+      let browser = await launch(profile);
+      let page = await browser.newPage();
+      await page.goto(`${base}/`);
+      await settled(page);
+      const content = await formulaEditor(page, 'gain');
+      await content.click();
+      await page.keyboard.press('End');
+      await page.keyboard.type(' * 2');
+      // no pause: the editor has not yet handed its text over when the window goes
+      await browser.close();
+      browser = await launch(profile);
+      try {
+        page = await browser.newPage();
+        await page.goto(`${base}/`);
+        await settled(page);
+        const text = await page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="gain"] furrow-formula-cell').cell.body);
+        check(/\* 2\s*$/.test(text), `the formula after the browser was closed and opened again: ${JSON.stringify(text)}`);
+      } finally {
+        await browser.close();
+      }
+    },
+  },
+];
