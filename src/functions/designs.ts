@@ -125,7 +125,9 @@ function fitRecord(fit: DesignFit, internal: FitInternal): RecordValue {
   }
   fields.push(['treatment', fit.treatment], ['n', fit.n], ['level', fit.level], ['ss_method', fit.ss_method]);
   fields.push(['notes', textColumn(fit.notes.slice(), null, 'notes')]);
-  return record(fields, 'fit', internal);
+  // the names its charts print are part of what the fit is
+  const identity = JSON.stringify([internal.response, internal.factors.map((f) => [f.name, f.levels])]);
+  return record(fields, 'fit', internal, identity);
 }
 
 /** The rows of a column that are not missing, or null when none is missing. */
