@@ -24,7 +24,7 @@ import {
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
 import { blocked, factorial, latinSquare, oneWay, type DesignFit } from '../stats/designs/index.ts';
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
-import { MAX_GROUPS } from '../stats/dist/index.ts';
+import { MAX_GROUPS } from '../stats/distributions/index.ts';
 import { completeRows, factorOf, responseOf, type Factor } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin, CallContext } from '../lang/builtins.ts';

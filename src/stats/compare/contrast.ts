@@ -1,7 +1,7 @@
 /**
  * A linear contrast of one factor's means: sum of w_i mean_i with weights adding to zero.
  */
-import { tCritical, tTwoSided } from '../dist/index.ts';
+import { tCritical, tTwoSided } from '../distributions/index.ts';
 import { DesignError } from '../designs/errors.ts';
 import { messages } from '../designs/messages.ts';
 import type { DesignFit } from '../designs/types.ts';

@@ -1,7 +1,7 @@
 /**
  * The difference between two levels' means after a fit, with its t interval.
  */
-import { tCritical, tTwoSided } from '../dist/index.ts';
+import { tCritical, tTwoSided } from '../distributions/index.ts';
 import { DesignError } from '../designs/errors.ts';
 import { messages } from '../designs/messages.ts';
 import type { DesignFit } from '../designs/types.ts';

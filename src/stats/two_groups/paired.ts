@@ -3,7 +3,7 @@
  * unit (each unit is its own block).
  * source: Student (1908), "The probable error of a mean", Biometrika 6, 1-25.
  */
-import { tCritical, tTwoSided } from '../dist/index.ts';
+import { tCritical, tTwoSided } from '../distributions/index.ts';
 import { StatsInputError, checkSameLength } from '../summary/groups.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
 import { checkLevel } from './two_sample.ts';

@@ -6,7 +6,7 @@
  * different population variances are involved", Biometrika 34, 28-35;
  * F. E. Satterthwaite (1946), Biometrics Bulletin 2, 110-114.
  */
-import { tCritical, tTwoSided } from '../dist/index.ts';
+import { tCritical, tTwoSided } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError } from '../summary/groups.ts';
 import { splitByLevel } from '../summary/group_stats.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';

@@ -1,5 +1,5 @@
 /**
- * The studentized range distribution (src/stats/dist/range.ts).
+ * The studentized range distribution (src/stats/distributions/range.ts).
  */
 import { describe, expect, it } from 'vitest';
 import {
@@ -10,8 +10,8 @@ import {
   rangeUpper,
   rangeUpperQuantile,
   tTwoSided,
-} from '../../../src/stats/dist/index.ts';
-import { MAX_GROUPS, normalRange, normalRangeDirect, rangeTable } from '../../../src/stats/dist/range.ts';
+} from '../../../src/stats/distributions/index.ts';
+import { MAX_GROUPS, normalRange, normalRangeDirect, rangeTable } from '../../../src/stats/distributions/range.ts';
 import { expectPrinted, expectRel, jStat, relErr, Worst } from './helpers.ts';
 
 describe('handbook values', () => {
