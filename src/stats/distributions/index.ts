@@ -65,6 +65,7 @@ export {
   chi2Upper,
   chi2Quantile,
 } from './central.ts';
+export { tInterval, type TInterval } from './t-interval.ts';
 export { rangeCdf, rangeUpper, rangeQuantile, rangeCritical, rangeUpperQuantile, MAX_GROUPS } from './range.ts';
 export { noncentralTCdf, noncentralTUpper } from './noncentral-t.ts';
 export { noncentralFCdf, noncentralFUpper } from './noncentral-f.ts';
