@@ -92,8 +92,12 @@ export async function loadSaved(key: string): Promise<SavedState | null> {
   return rescue !== null && (stored === null || rescue.savedAt > stored.savedAt) ? rescue : stored;
 }
 
-/** Every saved document, newest first, without their texts' bodies read by anyone but the caller. */
+/**
+ * Every saved document, newest first: the slots in IndexedDB, and any rescue copy left by a
+ * page that went away before its write finished (the newer of the two for a slot).
+ */
 export async function listSaved(): Promise<SavedState[]> {
+  const byKey = new Map<string, SavedState>();
   try {
     const db = await open();
     const all = await new Promise<SavedState[]>((resolve, reject) => {
@@ -101,10 +105,30 @@ export async function listSaved(): Promise<SavedState[]> {
       req.onsuccess = () => resolve(req.result as SavedState[]);
       req.onerror = () => reject(req.error);
     });
-    return all.sort((a, b) => b.savedAt - a.savedAt);
+    for (const s of all) byKey.set(s.key, s);
   } catch {
-    return [];
+    // storage unavailable: only rescue copies, if any
   }
+  for (const key of rescueKeys()) {
+    const r = rescued(key);
+    const s = byKey.get(key);
+    if (r !== null && (s === undefined || r.savedAt > s.savedAt)) byKey.set(key, r);
+  }
+  return [...byKey.values()].sort((a, b) => b.savedAt - a.savedAt);
+}
+
+/** The slots that have a rescue copy in localStorage. */
+function rescueKeys(): string[] {
+  const out: string[] = [];
+  try {
+    for (let i = 0; i < localStorage.length; i++) {
+      const k = localStorage.key(i);
+      if (k !== null && k.startsWith(RESCUE_PREFIX)) out.push(k.slice(RESCUE_PREFIX.length));
+    }
+  } catch {
+    // storage unavailable
+  }
+  return out;
 }
 
 /** Writes a state now. */

@@ -61,7 +61,7 @@ export function portable(v: Value): Value {
   if (v.kind === 'record') {
     const fields = new Map<string, Value>();
     for (const [k, x] of v.fields) fields.set(k, portable(x));
-    return { kind: 'record', fields, tag: v.tag };
+    return v.identity === undefined ? { kind: 'record', fields, tag: v.tag } : { kind: 'record', fields, tag: v.tag, identity: v.identity };
   }
   return v;
 }

@@ -7,7 +7,7 @@
  * Past {@link MAX_POINTS} residuals it draws an even sample of the ranks, every rank in
  * the two tails and every marked residual, and says so.
  */
-import { normalQuantile } from '../stats/dist/index.ts';
+import { normalQuantile } from '../stats/distributions/index.ts';
 import { SHAPIRO_WILK_MAX_N, SHAPIRO_WILK_MIN_N, shapiroWilk } from '../stats/diagnostics/index.ts';
 import { quantileSorted } from '../stats/summary/index.ts';
 import { MAX_LABELS, MAX_POINTS, evenSample } from './large.ts';

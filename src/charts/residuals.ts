@@ -6,7 +6,7 @@
  * Past {@link MAX_POINTS} residuals the chart draws counts in bins (a two-dimensional grid,
  * or bins within each level) and draws the marked residuals one by one over them.
  */
-import { normalUpper } from '../stats/dist/index.ts';
+import { normalUpper } from '../stats/distributions/index.ts';
 import { MANY_LEVELS, MAX_LABELS, MAX_MARKED, MAX_POINTS, bin2d, binByLevel, jitter } from './large.ts';
 import { BEYOND, CUT, WITHIN, assemble, flagEncoding, labelLayer, markedPointMark, measuredTip, num, tip, zeroRule, type Json } from './layers.ts';
 import { COUNT_RANGE } from './look.ts';

@@ -12,7 +12,7 @@ import { MISSING, isColumn, numberColumn, record, textColumn, type Column, type 
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
 import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovariate, type Covariate, type DesignFit } from '../stats/designs/index.ts';
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
-import { MAX_GROUPS } from '../stats/dist/index.ts';
+import { MAX_GROUPS } from '../stats/distributions/index.ts';
 import { isExactFit } from './exact.ts';
 import { LEVEL, columnsTable, finish, fitInternal, prepare, spread, type FitInternal, type Prepared } from './fits.ts';
 import { factorOf, numberLevel, resolveLevel, responseOf } from './columns.ts';

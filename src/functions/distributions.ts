@@ -3,7 +3,7 @@
  */
 import { UsageError } from '../lang/errors.ts';
 import { mapNumbers } from '../lang/elementwise.ts';
-import * as dist from '../stats/dist/index.ts';
+import * as dist from '../stats/distributions/index.ts';
 import type { Builtin } from '../lang/builtins.ts';
 
 function positive(fn: string, name: string, v: number): number {

@@ -118,7 +118,9 @@ export function fitRecord(fit: DesignFit, internal: FitInternal): RecordValue {
   fields.push(...stratumFields(fit));
   fields.push(['treatment', fit.treatment], ['n', fit.n], ['level', fit.level], ['ss_method', fit.ss_method]);
   fields.push(['notes', textColumn(fit.notes.slice(), null, 'notes')]);
-  return record(fields, 'fit', internal);
+  // the names its charts print are part of what the fit is
+  const identity = JSON.stringify([internal.response, internal.factors.map((f) => [f.name, f.levels])]);
+  return record(fields, 'fit', internal, identity);
 }
 
 const MEANS_COLUMNS = ['level', 'n', 'mean', 'se', 'low', 'high'] as const;

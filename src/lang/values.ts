@@ -91,6 +91,12 @@ export interface RecordValue {
   readonly tag: string | null;
   /** Data that functions need later (for example a fit's design) but that is not shown. */
   readonly internal?: unknown;
+  /**
+   * What values made from the record read that its fields do not show (a fit's response
+   * and factor names, which its charts print): two records differing only here are not
+   * the same value, so renaming a response column re-titles the charts of its fit.
+   */
+  readonly identity?: string;
 }
 
 /** A chart: a vega-lite specification with its data inlined. */
@@ -261,10 +267,11 @@ export function renameColumn<C extends Column>(c: C, name: string | null): C {
 }
 
 /** Builds a record from [name, value] pairs, in order. */
-export function record(fields: Iterable<readonly [string, Value]>, tag: string | null = null, internal?: unknown): RecordValue {
+export function record(fields: Iterable<readonly [string, Value]>, tag: string | null = null, internal?: unknown, identity?: string): RecordValue {
   const m = new Map<string, Value>();
   for (const [k, v] of fields) m.set(k, v);
-  return internal === undefined ? { kind: 'record', fields: m, tag } : { kind: 'record', fields: m, tag, internal };
+  const base: RecordValue = internal === undefined ? { kind: 'record', fields: m, tag } : { kind: 'record', fields: m, tag, internal };
+  return identity === undefined ? base : { ...base, identity };
 }
 
 /** Builds a table; every column must have the same length (checked). */
@@ -326,7 +333,7 @@ export function sameValue(a: Value, b: Value): boolean {
     }
     case 'record': {
       const r = b as RecordValue;
-      if (a.tag !== r.tag || a.fields.size !== r.fields.size) return false;
+      if (a.tag !== r.tag || a.fields.size !== r.fields.size || a.identity !== r.identity) return false;
       // Records with internal data (fits) are compared by their visible fields plus the
       // identity of the internal data: two fits of the same numbers share nothing, so
       // compare visible fields and accept equal ones only when internals are both absent

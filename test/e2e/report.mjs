@@ -188,10 +188,13 @@ async function savedText(page) {
   return page.evaluate(
     () =>
       new Promise((resolve, reject) => {
-        const req = indexedDB.open('furrow', 1);
+        // one slot per document; the page notes which slot it wrote last
+        const req = indexedDB.open('furrow');
         req.onerror = () => reject(req.error);
         req.onsuccess = () => {
-          const get = req.result.transaction('saved', 'readonly').objectStore('saved').get('current');
+          const key = localStorage.getItem('furrow-last');
+          if (key === null || !req.result.objectStoreNames.contains('documents')) return resolve(null);
+          const get = req.result.transaction('documents', 'readonly').objectStore('documents').get(key);
           get.onsuccess = () => resolve(get.result?.text ?? null);
           get.onerror = () => reject(get.error);
         };

@@ -293,3 +293,43 @@ describe('told which cells an edit touched', () => {
     expect([...cellsTouched(e)].sort()).toEqual(['c1', 'c2', 'c3', 'c4', 'n9']);
   });
 });
+
+describe("a record's identity", () => {
+  // table -> fit -> chart: renaming the response column changes no number of the fit, yet
+  // the chart prints the response's name, so the chart must be drawn again
+  it('includes what its charts read: renaming the response column re-titles the chart', () => {
+    const text = doc(
+      '--- table plots',
+      'block,treatment,strength',
+      '1,a,10.1', '1,b,11.9', '2,a,10.4', '2,b,12.3', '3,a,9.8', '3,b,11.6',
+      '',
+      '--- formula',
+      'fit = blocked(plots.strength, plots.treatment, plots.block)',
+      '--- formula',
+      'c = means_chart(fit)',
+    );
+    let d = readDocument(text).document;
+    const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
+    engine.update(d);
+    const spec = (name: string): string => {
+      const v = engine.valueOf(name);
+      if (v === undefined || typeof v !== 'object' || v.kind !== 'chart') throw new Error(`${name} is not a chart: ${JSON.stringify(v)}`);
+      return JSON.stringify(v.spec);
+    };
+    expect(spec('c')).toContain('strength');
+    const [table, fit] = [d.cells[0]!, d.cells[1]!];
+    // the column renamed, and the fit's formula with it: one step, as a user makes it
+    const e: Edit = {
+      type: 'batch',
+      edits: [
+        { type: 'body', id: table.id, body: table.body.replace('strength', 'shear_mpa') },
+        { type: 'body', id: fit.id, body: fit.body.replace('strength', 'shear_mpa') },
+      ],
+    };
+    d = applyEdit(d, e).document;
+    const ran = engine.update(d, { touched: cellsTouched(e) });
+    expect(ran).toContain(d.cells[2]!.id);
+    expect(spec('c')).toContain('Mean shear');
+    expect(spec('c')).not.toContain('strength');
+  });
+});

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import betaincinv from '@stdlib/math-base-special-betaincinv';
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
-import { fCritical, tCritical } from '../../src/stats/dist/index.ts';
+import { fCritical, tCritical } from '../../src/stats/distributions/index.ts';
 import { blockedPower, blocksForPower, replicatesForPower, twoGroupPower } from '../../src/stats/planning/index.ts';
 
 // source: scipy 1.10.1 (stats.nct, stats.ncf), figures made by fixtures/planning_power.py

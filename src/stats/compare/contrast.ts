@@ -1,7 +1,7 @@
 /**
  * A linear contrast of one factor's means: sum of w_i mean_i with weights adding to zero.
  */
-import { tCritical, tTwoSided } from '../dist/index.ts';
+import { tInterval } from '../distributions/index.ts';
 import { DesignError } from '../designs/errors.ts';
 import { messages } from '../designs/messages.ts';
 import type { DesignFit } from '../designs/types.ts';
@@ -61,17 +61,8 @@ export function contrast(fit: DesignFit, weights: readonly number[], level = 0.9
     else for (let j = 0; j < k; j++) variance += wi * weights[j]! * meansCovariance(means, i, j);
   }
   const se = Math.sqrt(mse * variance);
-  const t = estimate / se;
-  const half = tCritical(level, df) * se;
   return {
-    estimate,
-    se,
-    df,
-    t,
-    p: tTwoSided(t, df),
-    low: estimate - half,
-    high: estimate + half,
-    level,
+    ...tInterval(estimate, se, df, level),
     weights: [...weights],
     levels: [...means.levels],
     notes: note === null ? [] : [note],

@@ -1,7 +1,7 @@
 /**
  * The difference between two levels' means after a fit, with its t interval.
  */
-import { tCritical, tTwoSided } from '../dist/index.ts';
+import { tInterval } from '../distributions/index.ts';
 import { DesignError } from '../designs/errors.ts';
 import { messages } from '../designs/messages.ts';
 import type { DesignFit } from '../designs/types.ts';
@@ -40,7 +40,5 @@ export function difference(fit: DesignFit, a: string, b: string, level = 0.95, f
   const j = levelIndex(means, b);
   const estimate = means.shifted_mean[i]! - means.shifted_mean[j]!;
   const se = Math.sqrt(mse * differenceVariance(means, i, j));
-  const t = estimate / se;
-  const half = tCritical(level, df) * se;
-  return { a, b, estimate, se, df, t, p: tTwoSided(t, df), low: estimate - half, high: estimate + half, level, notes: note === null ? [] : [note] };
+  return { a, b, ...tInterval(estimate, se, df, level), notes: note === null ? [] : [note] };
 }

@@ -2,7 +2,7 @@
  * All pairwise differences of one factor's means, with simultaneous (Tukey, Bonferroni) or
  * unadjusted (least significant difference) intervals and p-values.
  */
-import { rangeCritical, rangeUpper, tCritical, tTwoSided } from '../dist/index.ts';
+import { rangeCritical, rangeUpper, tCritical, tTwoSided } from '../distributions/index.ts';
 import { DesignError } from '../designs/errors.ts';
 import { messages } from '../designs/messages.ts';
 import type { DesignFit } from '../designs/types.ts';

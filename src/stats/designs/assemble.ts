@@ -2,7 +2,7 @@
  * Turning sums of squares, means and residuals into the parts of a fit record: the
  * analysis-of-variance table, the means tables, studentized residuals.
  */
-import { fUpper, tCritical } from '../dist/index.ts';
+import { fUpper, tCritical } from '../distributions/index.ts';
 import type { AnovaTable, FactorMeans, MeansTable } from './types.ts';
 
 /** One model term's line before F and p are known. */

@@ -7,7 +7,7 @@
  * (src/stats/linear), the treatment sum of squares adjusted for blocks and the block sum of
  * squares adjusted for treatments, error degrees of freedom reduced by the missing plots.
  */
-import { fUpper } from '../dist/index.ts';
+import { fUpper } from '../distributions/index.ts';
 import { leastSquaresMeans } from '../linear/fit.ts';
 import { centredSumOfSquares, groupMeans } from '../linear/sums.ts';
 import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance, missingCellNotes, errorFields } from './assemble.ts';

@@ -15,7 +15,7 @@
  * over blocks. Their covariance in units of sigma^2 is V + d d' / sum(e_x^2), where V is that
  * of the factor model's means and d the covariate's distance from its mean.
  */
-import { fUpper } from '../dist/index.ts';
+import { fUpper } from '../distributions/index.ts';
 import { choleskyFactor, choleskySolve } from '../linear/cholesky.ts';
 import { leastSquaresMeans } from '../linear/fit.ts';
 import { centredSumOfSquares, groupMeans, mean } from '../linear/sums.ts';

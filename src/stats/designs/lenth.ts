@@ -8,7 +8,7 @@
  * with d = m / 3 degrees of freedom for m effects. At another level the same construction
  * is used with 0.95 replaced by the level.
  */
-import { tCritical } from '../dist/index.ts';
+import { tCritical } from '../distributions/index.ts';
 import type { LenthMargins } from './types.ts';
 import * as pm from '../math/portable.ts';
 

@@ -13,7 +13,7 @@
  * every site (then every sum of squares is orthogonal and comes in closed form from means);
  * anything else is a plain error that says what differs. One site is the blocked analysis.
  */
-import { fUpper } from '../dist/index.ts';
+import { fUpper } from '../distributions/index.ts';
 import { centredSumOfSquares, groupMeans, mean } from '../linear/sums.ts';
 import { addOffset, diagonalCovariance, errorFields, factorMeans } from './assemble.ts';
 import { blocked } from './blocked.ts';

@@ -13,7 +13,7 @@
  * below stop being exact; a missing subplot is a plain error that names it. Closed form from
  * cell means, O(n) time.
  */
-import { fUpper, tCritical } from '../dist/index.ts';
+import { fUpper, tCritical } from '../distributions/index.ts';
 import { centredSumOfSquares, groupMeans, mean } from '../linear/sums.ts';
 import { addOffset, diagonalCovariance, errorFields, factorMeans } from './assemble.ts';
 import { checkFactor, checkResponse, resolveOptions } from './check.ts';

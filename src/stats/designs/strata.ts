@@ -3,7 +3,7 @@
  * freedom for a sum of mean squares, and Bartlett's test that several error variances are
  * equal before they are pooled.
  */
-import { chi2Upper } from '../dist/index.ts';
+import { chi2Upper } from '../distributions/index.ts';
 import * as pm from '../math/portable.ts';
 
 /**

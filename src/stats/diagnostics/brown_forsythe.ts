@@ -6,7 +6,7 @@
  * Journal of the American Statistical Association 69, 364-367; H. Levene (1960), in
  * Contributions to Probability and Statistics, Stanford University Press, 278-292.
  */
-import { fUpper } from '../dist/index.ts';
+import { fUpper } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError } from '../summary/groups.ts';
 import { splitByLevel } from '../summary/group_stats.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';

@@ -7,7 +7,7 @@
  * normality", Applied Statistics 44, 547-551; P. Royston (1992), "Approximating the
  * Shapiro-Wilk W-test for non-normality", Statistics and Computing 2, 117-119.
  */
-import { normalQuantile, normalUpper } from '../dist/index.ts';
+import { normalQuantile, normalUpper } from '../distributions/index.ts';
 import { StatsInputError } from '../summary/groups.ts';
 import * as pm from '../math/portable.ts';
 

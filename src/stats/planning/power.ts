@@ -14,7 +14,7 @@
  * Distributions: src/stats/dist (our noncentral t and F, checked there against a seeded
  * Monte Carlo and the central functions).
  */
-import { fCritical, noncentralFUpper, noncentralTCdf, noncentralTUpper, tCritical } from '../dist/index.ts';
+import { fCritical, noncentralFUpper, noncentralTCdf, noncentralTUpper, tCritical } from '../distributions/index.ts';
 import { PlanningError } from './errors.ts';
 import { MAX_PLOTS, checkCount } from './layouts.ts';
 import { planningMessages as m } from './messages.ts';

@@ -6,7 +6,7 @@
  * 32, 675-701; the tie correction as given in W. J. Conover (1999), Practical Nonparametric
  * Statistics, 3rd ed.
  */
-import { chi2Upper } from '../dist/index.ts';
+import { chi2Upper } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
 import { sq } from '../math/portable.ts';

@@ -3,7 +3,7 @@
  * source: W. H. Kruskal, W. A. Wallis (1952), "Use of ranks in one-criterion variance
  * analysis", Journal of the American Statistical Association 47, 583-621.
  */
-import { chi2Upper } from '../dist/index.ts';
+import { chi2Upper } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
 import { sq } from '../math/portable.ts';

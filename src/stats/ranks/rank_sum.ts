@@ -3,7 +3,7 @@
  * source: F. Wilcoxon (1945), Biometrics Bulletin 1, 80-83; H. B. Mann, D. R. Whitney (1947),
  * Annals of Mathematical Statistics 18, 50-60.
  */
-import { normalUpper } from '../dist/index.ts';
+import { normalUpper } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
 import { rankSumExactP } from './exact.ts';

@@ -3,7 +3,7 @@
  * source: F. Wilcoxon (1945), "Individual comparisons by ranking methods", Biometrics
  * Bulletin 1, 80-83.
  */
-import { normalUpper } from '../dist/index.ts';
+import { normalUpper } from '../distributions/index.ts';
 import { StatsInputError, checkSameLength } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
 import { signedRankExactP } from './exact.ts';

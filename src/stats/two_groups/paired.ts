@@ -3,7 +3,7 @@
  * unit (each unit is its own block).
  * source: Student (1908), "The probable error of a mean", Biometrika 6, 1-25.
  */
-import { tCritical, tTwoSided } from '../dist/index.ts';
+import { tInterval } from '../distributions/index.ts';
 import { StatsInputError, checkSameLength } from '../summary/groups.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
 import { checkLevel } from './two_sample.ts';
@@ -49,17 +49,8 @@ export function paired(a: Float64Array, b: Float64Array, level = 0.95): PairedRe
   const sdd = Math.sqrt(sumSquaredDeviations(d, estimate) / (n - 1));
   const se = sdd / Math.sqrt(n);
   const df = n - 1;
-  const t = estimate / se;
-  const q = tCritical(level, df);
   return {
-    estimate,
-    se,
-    df,
-    t,
-    p: tTwoSided(t, df),
-    low: estimate - q * se,
-    high: estimate + q * se,
-    level,
+    ...tInterval(estimate, se, df, level),
     n,
     sd: sdd,
   };

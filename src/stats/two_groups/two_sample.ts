@@ -6,7 +6,7 @@
  * different population variances are involved", Biometrika 34, 28-35;
  * F. E. Satterthwaite (1946), Biometrics Bulletin 2, 110-114.
  */
-import { tCritical, tTwoSided } from '../dist/index.ts';
+import { tInterval } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError } from '../summary/groups.ts';
 import { splitByLevel } from '../summary/group_stats.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
@@ -120,17 +120,8 @@ export function twoSample(
     se = Math.sqrt(w1 + w2);
     df = ((w1 + w2) * (w1 + w2)) / ((w1 * w1) / (n1 - 1) + (w2 * w2) / (n2 - 1));
   }
-  const t = estimate / se;
-  const q = tCritical(level, df);
   return {
-    estimate,
-    se,
-    df,
-    t,
-    p: tTwoSided(t, df),
-    low: estimate - q * se,
-    high: estimate + q * se,
-    level,
+    ...tInterval(estimate, se, df, level),
     n: n1 + n2,
     pooled_variance: pooled,
     equal_variance: equalVariance,

@@ -3,7 +3,7 @@
  * Latin square Latin, no position bias across seeds, unbiased draws, and bad input refused.
  */
 import { describe, expect, it } from 'vitest';
-import { chi2Quantile, chi2Upper } from '../../../src/stats/dist/index.ts';
+import { chi2Quantile, chi2Upper } from '../../../src/stats/distributions/index.ts';
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
 import { Draws, SplitMix64, drawBlocks, drawCompletelyRandom, drawLatin, permutation } from '../../../src/stats/planning/index.ts';
 

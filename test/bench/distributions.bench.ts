@@ -15,8 +15,8 @@ import {
   rangeCritical,
   rangeUpper,
   tCritical,
-} from '../../src/stats/dist/index.ts';
-import { rangeTable } from '../../src/stats/dist/range.ts';
+} from '../../src/stats/distributions/index.ts';
+import { rangeTable } from '../../src/stats/distributions/range.ts';
 
 describe('studentized range', () => {
   bench('rangeCdf, 3 groups, 12 df', () => {

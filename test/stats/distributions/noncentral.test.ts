@@ -1,5 +1,5 @@
 /**
- * Noncentral t and noncentral F (src/stats/dist/noncentral-t.ts, noncentral-f.ts).
+ * Noncentral t and noncentral F (src/stats/distributions/noncentral-t.ts, noncentral-f.ts).
  */
 import { describe, expect, it } from 'vitest';
 import betainc from '@stdlib/math-base-special-betainc';
@@ -18,7 +18,7 @@ import {
   normalUpper,
   tCdf,
   tUpper,
-} from '../../../src/stats/dist/index.ts';
+} from '../../../src/stats/distributions/index.ts';
 import { expectRel, jStat, relErr, Worst } from './helpers.ts';
 
 describe('reduction to the central distributions, to 1e-12', () => {

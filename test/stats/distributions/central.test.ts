@@ -2,7 +2,7 @@
  * The central distributions (normal, t, F, chi-square).
  *
  * 1. jstat against our functions (which are @stdlib 0.2/0.3 with three corrections, see
- *    src/stats/dist/central.ts) on a grid of arguments whose tail probabilities run from 0.5
+ *    src/stats/distributions/central.ts) on a grid of arguments whose tail probabilities run from 0.5
  *    down to 1e-12. The worst relative errors of jstat are printed, split into the body
  *    (tail probability >= 1e-3) and the far tail (1e-12 <= tail < 1e-3); they document why
  *    jstat is not used (the rule: 1e-10 in the body, 1e-6 in the far tail).
@@ -27,7 +27,7 @@ import {
   tQuantile,
   tTwoSided,
   tUpper,
-} from '../../../src/stats/dist/index.ts';
+} from '../../../src/stats/distributions/index.ts';
 import { expectPrinted, expectRel, jStat, relErr, Worst } from './helpers.ts';
 
 const TAILS = [0.5, 0.3, 0.1, 0.05, 0.01, 1e-3, 1e-4, 1e-6, 1e-8, 1e-10, 1e-12];
@@ -35,7 +35,7 @@ const zone = (tail: number): string => (tail >= 1e-3 ? 'body' : 'far tail');
 
 describe('jstat 1.9.6 against the reference implementations', () => {
   // source: jstat 1.9.6 compared with @stdlib (stats-base-dists-* 0.2.3 / 0.3.1, with the
-  // corrections of src/stats/dist/central.ts)
+  // corrections of src/stats/distributions/central.ts)
   it('t distribution', () => {
     const w = new Worst();
     for (const df of [1, 2, 3, 5, 10, 30, 100, 1000]) {

@@ -1,5 +1,5 @@
 /**
- * The studentized range distribution (src/stats/dist/range.ts).
+ * The studentized range distribution (src/stats/distributions/range.ts).
  */
 import betainc from '@stdlib/math-base-special-betainc';
 import { describe, expect, it } from 'vitest';
@@ -11,8 +11,8 @@ import {
   rangeUpper,
   rangeUpperQuantile,
   tTwoSided,
-} from '../../../src/stats/dist/index.ts';
-import { MAX_GROUPS, normalRange, normalRangeDirect, rangeTable } from '../../../src/stats/dist/range.ts';
+} from '../../../src/stats/distributions/index.ts';
+import { MAX_GROUPS, normalRange, normalRangeDirect, rangeTable } from '../../../src/stats/distributions/range.ts';
 import { expectPrinted, expectRel, jStat, relErr, Worst } from './helpers.ts';
 
 describe('handbook values', () => {

@@ -4,7 +4,7 @@
  * directly, never as 1 - cdf, which collapses to 0 below about 1e-16.
  *
  * Which implementation each function uses, and why (figures measured by the tests in
- * test/stats/dist and the benchmarks in test/bench/dist.bench.ts, Node 20):
+ * test/stats/distributions and the benchmarks in test/bench/distributions.bench.ts, Node 20):
  *
  * - normal, t, F, chi-square (central.ts): @stdlib, wrapped. jstat 1.9.6 misses the rule
  *   (1e-10 relative in the body, 1e-6 in the far tail, tail probabilities down to 1e-12):
@@ -65,6 +65,7 @@ export {
   chi2Upper,
   chi2Quantile,
 } from './central.ts';
+export { tInterval, type TInterval } from './t-interval.ts';
 export { rangeCdf, rangeUpper, rangeQuantile, rangeCritical, rangeUpperQuantile, MAX_GROUPS } from './range.ts';
 export { noncentralTCdf, noncentralTUpper } from './noncentral-t.ts';
 export { noncentralFCdf, noncentralFUpper } from './noncentral-f.ts';

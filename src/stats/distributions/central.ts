@@ -4,8 +4,8 @@
  * 1e-16), quantiles and critical values.
  *
  * Most functions are thin wrappers over @stdlib, which measures at 1e-12 or better (see the
- * comparison tests in test/stats/dist). Three @stdlib functions measured short, and are
- * replaced here (figures from test/stats/dist/central.test.ts):
+ * comparison tests in test/stats/distributions). Three @stdlib functions measured short, and are
+ * replaced here (figures from test/stats/distributions/central.test.ts):
  * - F cdf: @stdlib's takes the lower tail as the complement of an upper incomplete beta
  *   function, and returns 0 for lower tails below about 1e-16 (F = 1.58e-20 on 1 and 100 df,
  *   true value 1e-10). Here the incomplete beta function is evaluated on whichever side is
