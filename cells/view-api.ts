@@ -41,6 +41,13 @@ export interface NameCatalogue {
 /** The event a view dispatches to change the document. */
 export const EDIT_EVENT = 'furrow-edit';
 
+/**
+ * Sent on `window` by the shell when the page goes away (closed, reloaded, hidden): a view
+ * that holds typed text not yet sent as an edit (a formula within its typing pause, a table
+ * field being typed) sends it at once, before the shell keeps the document.
+ */
+export const FLUSH_EVENT = 'furrow-flush';
+
 /** Detail of an edit event. */
 export interface EditEventDetail {
   readonly edit: Edit;

@@ -15,7 +15,7 @@ import { css, html, LitElement, nothing, unsafeCSS, type PropertyValues } from '
 import { shared } from '../../src/views/theme.ts';
 import '../../src/views/values/value.ts';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
-import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
+import { FLUSH_EVENT, emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { builtinNames, staticTokenCss } from './editor-language.ts';
 import { editorHost, formulaExtensions, fromDocument, type FormulaEditorHost } from './editor-setup.ts';
 import { formulaProblems, parseVisible, type FormulaProblem } from './view-problems.ts';
@@ -246,10 +246,14 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
     // text typed just before the cell was moved (disconnected, then connected again)
     if (this.pending !== null) this.flush();
     this.watchVisibility();
+    window.addEventListener(FLUSH_EVENT, this.onFlush);
   }
+
+  private readonly onFlush = (): void => this.flush();
 
   override disconnectedCallback(): void {
     super.disconnectedCallback();
+    window.removeEventListener(FLUSH_EVENT, this.onFlush);
     // An event from a detached element reaches no one: keep what was typed for a
     // reconnection (a move); a cell that is gone for good takes it along.
     if (this.timer !== null) clearTimeout(this.timer);

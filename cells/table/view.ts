@@ -21,7 +21,7 @@ import { tableMarker, writeTableMarker } from './model.ts';
 import type { Edit } from '../../src/doc/edits.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
 import { isTable, type Table } from '../../src/lang/values.ts';
-import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
+import { FLUSH_EVENT, emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { columnReading, fieldProblem, holdsNumbers, markedCount, tableNameProblem } from './grid-checks.ts';
 import {
   HEADER_ROW,
@@ -150,13 +150,20 @@ export class TableCellView extends LitElement {
     window.addEventListener('beforeprint', this.onBeforePrint);
     window.addEventListener('afterprint', this.onAfterPrint);
     window.addEventListener('pointerup', this.onPointerUp);
+    window.addEventListener(FLUSH_EVENT, this.onFlush);
   }
+
+  /** The page goes away: a field being typed is committed, as leaving it would. */
+  private readonly onFlush = (): void => {
+    if (this.editor !== null) this.finishEdit(this.renderRoot.querySelector<HTMLTextAreaElement>('textarea.editor')?.value ?? '', true);
+  };
 
   override disconnectedCallback(): void {
     super.disconnectedCallback();
     window.removeEventListener('beforeprint', this.onBeforePrint);
     window.removeEventListener('afterprint', this.onAfterPrint);
     window.removeEventListener('pointerup', this.onPointerUp);
+    window.removeEventListener(FLUSH_EVENT, this.onFlush);
     this.resizeObserver?.disconnect();
     this.resizeObserver = null;
   }

@@ -14,7 +14,7 @@
 import { LitElement, html, nothing } from 'lit';
 import { repeat } from 'lit/directives/repeat.js';
 import { CELL_KINDS } from '../../cells/kinds.ts';
-import { EDIT_EVENT, type EditEventDetail } from '../../cells/view-api.ts';
+import { EDIT_EVENT, FLUSH_EVENT, type EditEventDetail } from '../../cells/view-api.ts';
 import { CELL_VIEWS } from '../../cells/views.ts';
 import { documentTitle, headerFields, markerKind, type Cell, type Document } from '../doc/document.ts';
 import { freshCellId, withTitle, type Edit } from '../doc/edits.ts';
@@ -182,11 +182,13 @@ export class FurrowApp extends LitElement {
   }
 
   private readonly onLeave = (): void => {
+    // views hand over what is typed but not yet sent, then the document is kept
+    window.dispatchEvent(new Event(FLUSH_EVENT));
     this.keeper.leave();
   };
 
   private readonly onVisibility = (): void => {
-    if (document.visibilityState === 'hidden') this.keeper.leave();
+    if (document.visibilityState === 'hidden') this.onLeave();
   };
 
   private readonly onEdit = (e: CustomEvent<EditEventDetail>): void => {

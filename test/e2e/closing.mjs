@@ -1,6 +1,7 @@
 // Browser tests of data safety: the browser closed in the middle of an edit, then opened
 // again on the same profile, still has the edit. Each test launches its own Chromium with a
-// profile folder of its own (the harness's contexts start empty every time).
+// profile folder of its own (the harness's contexts start empty every time). The window is
+// closed as a person closes it (the page is told it goes away), then the browser quits.
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -27,6 +28,17 @@ async function formulaEditor(page, name) {
   return editor.locator('.cm-content');
 }
 
+/**
+ * Closes the window as a person does (the page hears that it goes away), then quits. The
+ * pause stands for the browser's own way out, which writes its storage to disk; the test
+ * driver's quit does not wait for that, as a crash would not.
+ */
+async function closeWindow(page, browser) {
+  await page.close({ runBeforeUnload: true });
+  await new Promise((resolve) => setTimeout(resolve, 500));
+  await browser.close();
+}
+
 export const closingTests = [
   {
     name: 'the browser closed in the middle of typing a field, then opened again, keeps the edit',
@@ -40,7 +52,7 @@ export const closingTests = [
       await page.keyboard.type('28.4');
       await page.keyboard.press('Enter');
       // the window is closed at once, before autosave's pause has passed
-      await browser.close();
+      await closeWindow(page, browser);
       browser = await launch(profile);
       try {
         page = await browser.newPage();
@@ -66,7 +78,7 @@ export const closingTests = [
       await page.keyboard.press('End');
       await page.keyboard.type(' * 2');
       // no pause: the editor has not yet handed its text over when the window goes
-      await browser.close();
+      await closeWindow(page, browser);
       browser = await launch(profile);
       try {
         page = await browser.newPage();
@@ -74,6 +86,30 @@ export const closingTests = [
         await settled(page);
         const text = await page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="gain"] furrow-formula-cell').cell.body);
         check(/\* 2\s*$/.test(text), `the formula after the browser was closed and opened again: ${JSON.stringify(text)}`);
+      } finally {
+        await browser.close();
+      }
+    },
+  },
+  {
+    name: 'the browser closed while a table field is being typed (not yet entered) keeps what was typed',
+    async run({ base }) {
+      const profile = mkdtempSync(join(tmpdir(), 'furrow-profile-'));
+      let browser = await launch(profile);
+      let page = await browser.newPage();
+      await page.goto(`${base}/`);
+      await settled(page);
+      await field(page, 'coupons', 4, 3).click();
+      await page.keyboard.type('29.7');
+      // no Enter: the field's editor still holds the text when the window goes
+      await closeWindow(page, browser);
+      browser = await launch(profile);
+      try {
+        page = await browser.newPage();
+        await page.goto(`${base}/`);
+        await settled(page);
+        const v = (await field(page, 'coupons', 4, 3).innerText()).trim();
+        check(v === '29.7', `the field after the browser was closed and opened again: ${v}`);
       } finally {
         await browser.close();
       }
