@@ -64,6 +64,8 @@ import {
 } from './grid-model.ts';
 import { blockToTsv, readBlock } from './grid-paste.ts';
 import { tableCellStyles } from './view-styles.ts';
+import { tableCsv } from '../../src/doc/table-csv.ts';
+import { downloadCsv, fileNameFor } from '../../src/views/download.ts';
 
 /** Rows laid out in full when the page is printed. */
 const PRINT_LIMIT = 2000;
@@ -151,6 +153,17 @@ export class TableCellView extends LitElement {
     window.addEventListener('afterprint', this.onAfterPrint);
     window.addEventListener('pointerup', this.onPointerUp);
     window.addEventListener(FLUSH_EVENT, this.onFlush);
+  }
+
+  /** The table as it reads now, if it reads as one. */
+  private savable(): Table | null {
+    const v = this.state?.value;
+    return v !== null && v !== undefined && typeof v === 'object' && v.kind === 'table' ? v : null;
+  }
+
+  private saveCsv(): void {
+    const t = this.savable();
+    if (t !== null) downloadCsv(fileNameFor(tableMarker(this.cell).name, 'csv'), tableCsv(t));
   }
 
   /** The page goes away: a field being typed is committed, as leaving it would. */
@@ -323,6 +336,9 @@ export class TableCellView extends LitElement {
         @blur=${this.onNameBlur}
       />
       ${src !== null && !showText ? html`<span class="counts num">${gridMsg.counts(src.rowCount, src.header.length)}</span>` : nothing}
+      ${this.savable() === null
+        ? nothing
+        : html`<button class="save-csv" title="Save the table as it reads now as a CSV file" @click=${() => this.saveCsv()}>Save CSV</button>`}
       ${ro ? nothing : html`<span class="tools" role="toolbar" aria-label="Table tools">
         <button ?disabled=${noGrid} title="Add a row below the selection (${SHAPE_KEYS.rowBelow}; ${SHAPE_KEYS.rowAbove} adds one above)" @click=${() => this.run({ kind: 'insert-row', below: true })}>Add row</button>
         <button ?disabled=${noGrid} title="Add a column right of the selection (${SHAPE_KEYS.columnRight}; ${SHAPE_KEYS.columnLeft} adds one left)" @click=${() => this.run({ kind: 'insert-column', right: true })}>Add column</button>

@@ -3,13 +3,12 @@
  * plot, treatment), then empty columns for the measurements, one row per plot in field order.
  * The technician fills it in; the filled sheet reads back as a table (`--- table NAME from
  * sheet.csv`) that layout_check compares with the layout.
- *
- * Spreadsheet programs run a field that starts with `=`, `+`, `-` or `@` as a formula, so a
- * text field that starts so (a hostile or unlucky treatment name) is written with a leading
- * apostrophe, the usual guard; numbers are written as they are.
+ * Fields are written as src/doc/table-csv.ts writes them (a text that a spreadsheet would
+ * run as a formula gets a leading apostrophe).
  */
-import { isMissingAt, type Table } from '../lang/values.ts';
+import type { Table } from '../lang/values.ts';
 import { writeCsv } from './csv.ts';
+import { csvRows } from './table-csv.ts';
 
 /** The measurement columns a run sheet has when none are named. */
 export const DEFAULT_MEASUREMENTS: readonly string[] = ['measurement', 'notes'];
@@ -22,8 +21,6 @@ export class RunSheetError extends Error {
   }
 }
 
-const FORMULA_START = /^[=+\-@\t\r]/;
-
 /** The CSV text of a run sheet for `layout` with empty `measurements` columns. */
 export function runSheet(layout: Table, measurements: readonly string[] = DEFAULT_MEASUREMENTS): string {
   const seen = new Set(layout.names);
@@ -32,19 +29,6 @@ export function runSheet(layout: Table, measurements: readonly string[] = DEFAUL
     if (seen.has(m)) throw new RunSheetError(`the layout already has a column "${m}"; name the measurement column differently.`);
     seen.add(m);
   }
-  const rows: string[][] = [];
-  for (let i = 0; i < layout.rows; i++) {
-    const row = layout.columns.map((c) => {
-      if (isMissingAt(c, i)) return '';
-      if (c.type === 'text') {
-        const s = c.values[i]!;
-        return FORMULA_START.test(s) ? `'${s}` : s;
-      }
-      if (c.type === 'boolean') return c.values[i] === 1 ? 'true' : 'false';
-      return String(c.values[i]);
-    });
-    for (let j = 0; j < measurements.length; j++) row.push('');
-    rows.push(row);
-  }
+  const rows = csvRows(layout, measurements.length);
   return writeCsv([...layout.names, ...measurements], rows);
 }

@@ -7,18 +7,24 @@ import { css, html, LitElement, nothing, type PropertyValues } from 'lit';
 import type { Chart } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
 import { cleanSpec, collectingLogger, lockedLoader, safeEmbedOptions, type SpecObject } from './chart-safety.ts';
+import { downloadBlob, downloadUrl, fileNameFor } from '../download.ts';
 
 type Phase = 'idle' | 'loading' | 'drawn' | 'failed';
 
-/** What embedding returns that the element keeps: a way to let the view go. */
+/** What embedding returns that the element keeps: the view (to save it) and a way to let it go. */
 interface Embedded {
   finalize(): void;
+  readonly view: {
+    toSVG(scale?: number): Promise<string>;
+    toImageURL(type: string, scale?: number): Promise<string>;
+  };
 }
 
 /** A vega-lite chart with its caption and any warnings vega gave. */
 export class FurrowChart extends LitElement {
   static override properties = {
     value: { attribute: false },
+    name: { type: String },
     phase: { state: true },
     messages: { state: true },
     failure: { state: true },
@@ -26,6 +32,8 @@ export class FurrowChart extends LitElement {
 
   /** The chart to draw. */
   declare value: Chart | null;
+  /** The name of the cell the chart is the value of (for the file names it saves under). */
+  declare name: string | null;
   declare private phase: Phase;
   declare private messages: readonly string[];
   declare private failure: string | null;
@@ -39,6 +47,7 @@ export class FurrowChart extends LitElement {
   constructor() {
     super();
     this.value = null;
+    this.name = null;
     this.phase = 'idle';
     this.messages = [];
     this.failure = null;
@@ -165,6 +174,15 @@ export class FurrowChart extends LitElement {
     }
   }
 
+  /** Saves the drawn chart as SVG or PNG; made by the view itself, nothing is fetched. */
+  private async save(kind: 'svg' | 'png'): Promise<void> {
+    const view = this.embedded?.view;
+    if (view === undefined) return;
+    const file = fileNameFor(this.name, kind, 'chart');
+    if (kind === 'svg') downloadBlob(file, new Blob([await view.toSVG()], { type: 'image/svg+xml' }));
+    else downloadUrl(file, await view.toImageURL('png', 2));
+  }
+
   protected override render() {
     const value = this.value;
     return html`
@@ -174,6 +192,12 @@ export class FurrowChart extends LitElement {
         </div>
         ${this.failure === null ? nothing : html`<p class="failed">${this.failure}</p>`}
         ${value === null || value.caption === '' ? nothing : html`<figcaption class="caption">${value.caption}</figcaption>`}
+        ${this.phase !== 'drawn'
+          ? nothing
+          : html`<p class="saves">
+              <button type="button" title="Save the chart as an SVG file (drawn as vectors: sharp at any size)" @click=${() => void this.save('svg')}>Save SVG</button>
+              <button type="button" title="Save the chart as a PNG picture (twice the screen's resolution)" @click=${() => void this.save('png')}>Save PNG</button>
+            </p>`}
         ${this.messages.length === 0 ? nothing : html`<ul class="warnings">${this.messages.map((m) => html`<li>${m}</li>`)}</ul>`}
       </figure>
     `;

@@ -8,6 +8,7 @@ import { css, html, LitElement, nothing } from 'lit';
 import { runSheet } from '../../doc/run-sheet.ts';
 import type { Table } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
+import { downloadCsv } from '../download.ts';
 
 /** The file name of a run sheet for a layout named `name`. */
 export function runSheetFileName(name: string | null): string {
@@ -59,15 +60,7 @@ export class FurrowRunSheet extends LitElement {
 
   private save(): void {
     if (this.layout === null) return;
-    const text = runSheet(this.layout);
-    const url = URL.createObjectURL(new Blob([text], { type: 'text/csv;charset=utf-8' }));
-    const a = document.createElement('a');
-    a.href = url;
-    a.download = runSheetFileName(this.name);
-    document.body.append(a);
-    a.click();
-    a.remove();
-    setTimeout(() => URL.revokeObjectURL(url), 10_000);
+    downloadCsv(runSheetFileName(this.name), runSheet(this.layout));
   }
 
   override render() {

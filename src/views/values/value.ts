@@ -14,6 +14,8 @@ import './grid.ts';
 import './run-sheet.ts';
 import { fitLayout, pairsLayout, recordLines, type ScalarLine, type ValueLine } from './record-layout.ts';
 import { tableStyles } from './styles.ts';
+import { tableCsv } from '../../doc/table-csv.ts';
+import { downloadCsv, fileNameFor } from '../download.ts';
 
 /** A one-line description of a column's size ("24 numbers, 2 missing"). */
 export function columnSummary(c: Column): string {
@@ -232,7 +234,7 @@ export class FurrowValue extends LitElement {
         if (v.tag === 'pairs') return this.renderPairs(v);
         return this.renderRecord(v);
       case 'chart':
-        return html`<furrow-chart .value=${v}></furrow-chart>`;
+        return html`<furrow-chart .value=${v} name=${this.name ?? 'chart'}></furrow-chart>`;
       case 'claim':
         return this.renderClaim(v);
       case 'error':
@@ -247,8 +249,15 @@ export class FurrowValue extends LitElement {
       <furrow-grid .columns=${[c]} .names=${[header]} label=${header}></furrow-grid>`;
   }
 
+  /** A button that saves a table of this value as CSV (`part`: which table of a record). */
+  private saveCsv(t: Value | undefined, part: string | null, label: string): TemplateResult | typeof nothing {
+    if (t === undefined || typeof t !== 'object' || t.kind !== 'table') return nothing;
+    const name = part === null ? this.name : `${this.name ?? 'value'}-${part}`;
+    return html`<button type="button" class="save-csv" title="Save this table as a CSV file" @click=${() => downloadCsv(fileNameFor(name, 'csv'), tableCsv(t))}>${label}</button>`;
+  }
+
   private renderTable(t: Table): TemplateResult {
-    return html`<p class="summary">${tableSummary(t)}</p>
+    return html`<p class="summary">${tableSummary(t)} ${this.saveCsv(t, null, 'Save CSV')}</p>
       <furrow-grid .columns=${t.columns} .names=${t.names} label=${this.name ?? 'table'}></furrow-grid>
       ${t.drawn === undefined ? nothing : html`<furrow-run-sheet .layout=${t} name=${this.name ?? 'layout'}></furrow-run-sheet>`}`;
   }
@@ -359,6 +368,7 @@ export class FurrowValue extends LitElement {
               </tbody>
             </table>
           </div>`}
+      <p class="exports">${this.saveCsv(r.fields.get('table'), 'analysis', 'Save the analysis table (CSV)')} ${this.saveCsv(r.fields.get('means'), 'means', 'Save the means (CSV)')}</p>
       ${this.renderScalars(f.scalars)}
       ${f.notes.length === 0 ? nothing : html`<ul class="notes">${f.notes.map((n) => html`<li>${n}</li>`)}</ul>`}
       ${f.others.map((o) => this.renderPart(o))} ${f.folded.map((o) => this.renderFolded(o))}
@@ -402,6 +412,7 @@ export class FurrowValue extends LitElement {
               </tbody>
             </table>
           </div>`}
+      <p class="exports">${this.saveCsv(r.fields.get('table'), 'pairs', 'Save the pairs (CSV)')}</p>
       ${this.renderScalars(p.scalars)} ${p.others.map((o) => this.renderPart(o))}
     </section>`;
   }
