@@ -64,7 +64,7 @@ export const messages = {
     `${siteName} ${q(a)} has ${ka} blocks and ${siteName} ${q(b)} has ${kb}; this version of the combined analysis needs the same number of blocks at every site (analyse the sites one by one with blocked, or leave blocks out to match)`,
   // notes
   splitStrata: (block: string, whole: string) =>
-    `two error strata: ${block} and ${whole} vary only between whole plots and are tested against whole_error (blocks by whole plots); the subplot factor, the interaction and whole_error against error`,
+    `two error strata: ${whole} varies only between whole plots and is tested against whole_error (blocks by whole plots); ${block}, the subplot factor, the interaction and whole_error against error`,
   splitOneWholeLevel: (whole: string) =>
     `${q(whole)} has one level, so each block is one whole plot and the analysis is the blocked analysis of the subplot factor`,
   splitWholeNote: () => 'whole-plot means are compared against whole_error (blocks by whole plots), on its degrees of freedom',

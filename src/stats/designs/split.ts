@@ -41,7 +41,7 @@ interface StratumRow {
  * @param sub - the subplot factor, randomized within each whole plot.
  * @param block - the blocks (replicates); a whole plot is a block and a whole-plot level.
  * @returns a fit record. Table rows: block, whole, whole_error, sub, whole:sub, error, total.
- *   Blocks and the whole-plot factor are tested against whole_error, the rest against error.
+ *   The whole-plot factor is tested against whole_error, the rest (blocks included) against error.
  *   `factor_means` holds the whole-plot means (judged against whole_error), the subplot means,
  *   and `split` the cell means and both error terms for the comparisons.
  * @throws DesignError when a whole plot lacks a subplot level or holds one twice, a factor has
@@ -138,7 +138,9 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   const interaction = `${whole.name}:${sub.name}`;
 
   const rows: StratumRow[] = [
-    { source: block.name, df: dfR, ss: ssR, against: 'whole' },
+    // as the issue that asked for this analysis fixes it: the whole-plot factor against
+    // whole_error, every other row (blocks included) against the subplot error
+    { source: block.name, df: dfR, ss: ssR, against: 'sub' },
     { source: whole.name, df: dfA, ss: ssA, against: 'whole' },
     { source: 'whole_error', df: dfWhole, ss: ssWholeError, against: 'sub' },
     { source: sub.name, df: dfB, ss: ssB, against: 'sub' },
