@@ -1,6 +1,8 @@
 // Builds the command line into plain JavaScript once (npm install runs it as `prepare`), so
-// that `furrow` starts without compiling TypeScript. One bundle of our own code; the
-// libraries stay in node_modules and load as they are needed. A stamp beside the bundle
+// that `furrow` starts without compiling TypeScript. One bundle of our own code and the small
+// libraries it needs at start (reading hundreds of little CommonJS files cost a third of the
+// start-up); the drawing libraries, which only `furrow report` loads, stay in node_modules
+// and load when a report is made. A stamp beside the bundle
 // records the newest source it was built from, so bin/furrow.js can tell a stale build in a
 // development checkout.
 import { build } from 'esbuild';
@@ -20,7 +22,9 @@ await build({
   platform: 'node',
   format: 'esm',
   target: 'node20',
-  packages: 'external',
+  external: ['vega', 'vega-lite', 'vega-interpreter', 'vega-embed', 'lit', 'dompurify'],
+  // bundled CommonJS libraries call require() for Node's own modules
+  banner: { js: "import { createRequire as furrowRequire } from 'node:module'; const require = furrowRequire(import.meta.url);" },
   sourcemap: true,
   legalComments: 'none',
   logLevel: 'warning',
