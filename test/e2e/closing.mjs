@@ -39,80 +39,79 @@ async function closeWindow(page, browser) {
   await browser.close();
 }
 
+/**
+ * Opens the sample on a profile of its own, does `act` (which ends mid-edit), closes the
+ * window at once, opens the browser again on the same profile and runs `verify` on the page.
+ */
+async function acrossClosing(base, act, verify) {
+  const profile = mkdtempSync(join(tmpdir(), 'furrow-profile-'));
+  let browser = await launch(profile);
+  const page = await browser.newPage();
+  await page.goto(`${base}/`);
+  await settled(page);
+  await act(page);
+  // the window is closed at once, before autosave's pause has passed
+  await closeWindow(page, browser);
+  browser = await launch(profile);
+  try {
+    const again = await browser.newPage();
+    await again.goto(`${base}/`);
+    await settled(again);
+    await verify(again);
+  } finally {
+    await browser.close();
+  }
+}
+
 export const closingTests = [
   {
     name: 'the browser closed in the middle of typing a field, then opened again, keeps the edit',
-    async run({ base }) {
-      const profile = mkdtempSync(join(tmpdir(), 'furrow-profile-'));
-      let browser = await launch(profile);
-      let page = await browser.newPage();
-      await page.goto(`${base}/`);
-      await settled(page);
-      await field(page, 'coupons', 3, 3).click();
-      await page.keyboard.type('28.4');
-      await page.keyboard.press('Enter');
-      // the window is closed at once, before autosave's pause has passed
-      await closeWindow(page, browser);
-      browser = await launch(profile);
-      try {
-        page = await browser.newPage();
-        await page.goto(`${base}/`);
-        await settled(page);
-        const v = (await field(page, 'coupons', 3, 3).innerText()).trim();
-        check(v === '28.4', `the field after the browser was closed and opened again: ${v}`);
-      } finally {
-        await browser.close();
-      }
-    },
+    run: ({ base }) =>
+      acrossClosing(
+        base,
+        async (page) => {
+          await field(page, 'coupons', 3, 3).click();
+          await page.keyboard.type('28.4');
+          await page.keyboard.press('Enter');
+        },
+        async (page) => {
+          const v = (await field(page, 'coupons', 3, 3).innerText()).trim();
+          check(v === '28.4', `the field after the browser was closed and opened again: ${v}`);
+        },
+      ),
   },
   {
     name: 'the browser closed while a formula is being typed, then opened again, keeps what was typed',
-    async run({ base }) {
-      const profile = mkdtempSync(join(tmpdir(), 'furrow-profile-'));
-      let browser = await launch(profile);
-      let page = await browser.newPage();
-      await page.goto(`${base}/`);
-      await settled(page);
-      const content = await formulaEditor(page, 'gain');
-      await content.click();
-      await page.keyboard.press('End');
-      await page.keyboard.type(' * 2');
-      // no pause: the editor has not yet handed its text over when the window goes
-      await closeWindow(page, browser);
-      browser = await launch(profile);
-      try {
-        page = await browser.newPage();
-        await page.goto(`${base}/`);
-        await settled(page);
-        const text = await page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="gain"] furrow-formula-cell').cell.body);
-        check(/\* 2\s*$/.test(text), `the formula after the browser was closed and opened again: ${JSON.stringify(text)}`);
-      } finally {
-        await browser.close();
-      }
-    },
+    run: ({ base }) =>
+      acrossClosing(
+        base,
+        async (page) => {
+          const content = await formulaEditor(page, 'gain');
+          await content.click();
+          await page.keyboard.press('End');
+          // no pause after typing: the editor has not yet handed its text over
+          await page.keyboard.type(' * 2');
+        },
+        async (page) => {
+          const text = await page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="gain"] furrow-formula-cell').cell.body);
+          check(/\* 2\s*$/.test(text), `the formula after the browser was closed and opened again: ${JSON.stringify(text)}`);
+        },
+      ),
   },
   {
     name: 'the browser closed while a table field is being typed (not yet entered) keeps what was typed',
-    async run({ base }) {
-      const profile = mkdtempSync(join(tmpdir(), 'furrow-profile-'));
-      let browser = await launch(profile);
-      let page = await browser.newPage();
-      await page.goto(`${base}/`);
-      await settled(page);
-      await field(page, 'coupons', 4, 3).click();
-      await page.keyboard.type('29.7');
-      // no Enter: the field's editor still holds the text when the window goes
-      await closeWindow(page, browser);
-      browser = await launch(profile);
-      try {
-        page = await browser.newPage();
-        await page.goto(`${base}/`);
-        await settled(page);
-        const v = (await field(page, 'coupons', 4, 3).innerText()).trim();
-        check(v === '29.7', `the field after the browser was closed and opened again: ${v}`);
-      } finally {
-        await browser.close();
-      }
-    },
+    run: ({ base }) =>
+      acrossClosing(
+        base,
+        async (page) => {
+          await field(page, 'coupons', 4, 3).click();
+          // no Enter: the field's editor still holds the text when the window goes
+          await page.keyboard.type('29.7');
+        },
+        async (page) => {
+          const v = (await field(page, 'coupons', 4, 3).innerText()).trim();
+          check(v === '29.7', `the field after the browser was closed and opened again: ${v}`);
+        },
+      ),
   },
 ];

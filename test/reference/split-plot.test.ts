@@ -6,28 +6,10 @@ import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { isRecord, isTable, type RecordValue, type Table, type Value } from '../../src/lang/values.ts';
 import { doc, run } from '../helpers.ts';
 import { expectRelative } from '../stats/designs/support.ts';
+import { num, nums, rec, tab } from './record-helpers.ts';
 
-function rec(v: Value | undefined): RecordValue {
-  if (v === undefined || !isRecord(v)) throw new Error(`expected a record, got ${JSON.stringify(v)}`);
-  return v;
-}
-function tab(v: Value | undefined): Table {
-  if (v === undefined || !isTable(v)) throw new Error('expected a table');
-  return v;
-}
-function nums(t: Table, name: string): number[] {
-  const i = t.names.indexOf(name);
-  if (i < 0) throw new Error(`no column ${name}`);
-  return Array.from(t.columns[i]!.values as Float64Array);
-}
-function num(r: RecordValue, name: string): number {
-  const v = r.fields.get(name);
-  if (typeof v !== 'number') throw new Error(`field ${name} is not a number`);
-  return v;
-}
 
 // source: Montgomery, Design and Analysis of Experiments, paper tensile strength: three pulp
 // preparation methods on whole plots, four temperatures on subplots, three replicates as
