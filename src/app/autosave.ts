@@ -7,7 +7,8 @@
  * text is written when typing pauses, and at once when the page is hidden or goes away.
  * Because IndexedDB may not finish a write started while the page unloads, that last write
  * also leaves a synchronous copy in localStorage, which the next visit takes when it is
- * newer (`rescued`), so the last edit is never lost.
+ * newer (`rescued`), so the last edit is never lost. A write still under way when the page
+ * goes away (started when typing paused) leaves the same copy, for the same reason.
  */
 const DB = 'furrow';
 const STORE = 'documents';
@@ -185,6 +186,8 @@ export class Autosaver {
   private timer: ReturnType<typeof setTimeout> | null = null;
   private dirty = false;
   private writing: Promise<void> = Promise.resolve();
+  /** The state of the last write started and not yet finished, if any. */
+  private inFlight: SavedState | null = null;
   private readonly build: () => SavedState;
   private readonly delayMs: number;
   /** Called after each write with its outcome and the state written. */
@@ -214,13 +217,19 @@ export class Autosaver {
     if (!this.dirty) return this.writing;
     this.dirty = false;
     const s = built ?? this.build();
+    this.inFlight = s;
     this.writing = this.writing.then(() =>
       saveNow(s).then(
-        () => this.onSaved(true, s),
-        (e: unknown) => this.onSaved(false, s, e instanceof Error ? e.message : String(e)),
+        () => this.written(true, s),
+        (e: unknown) => this.written(false, s, e instanceof Error ? e.message : String(e)),
       ),
     );
     return this.writing;
+  }
+
+  private written(ok: boolean, s: SavedState, error?: string): void {
+    if (this.inFlight === s) this.inFlight = null;
+    this.onSaved(ok, s, error);
   }
 
   /**
@@ -228,13 +237,14 @@ export class Autosaver {
    * in case the write does not finish before the page is gone.
    */
   leave(): void {
-    if (!this.dirty) return;
-    const s = this.build();
+    // a write started when typing paused may not finish either: it gets a copy too
+    const s = this.dirty ? this.build() : this.inFlight;
+    if (s === null) return;
     try {
       localStorage.setItem(RESCUE_PREFIX + s.key, JSON.stringify(s));
     } catch {
       // too large for localStorage, or storage refused: the IndexedDB write still runs
     }
-    void this.flush(s);
+    if (this.dirty) void this.flush(s);
   }
 }
