@@ -10,7 +10,7 @@ import { PLANNING } from './planning.ts';
 import { Registry } from '../lang/builtins.ts';
 import { STRATA } from './strata.ts';
 import { SUMMARIES } from './summaries.ts';
-import { TWO_GROUPS } from './two_groups.ts';
+import { TWO_GROUPS } from './two-groups.ts';
 
 /** All built-ins of the language. */
 export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...STRATA, ...CHARTS, ...PLANNING, ...CLAIMS]);

@@ -5,6 +5,6 @@ export {
   type ShapiroWilkResult,
   SHAPIRO_WILK_MIN_N,
   SHAPIRO_WILK_MAX_N,
-} from './shapiro_wilk.ts';
-export { brownForsythe, type BrownForsytheResult } from './brown_forsythe.ts';
+} from './shapiro-wilk.ts';
+export { brownForsythe, type BrownForsytheResult } from './brown-forsythe.ts';
 export { studentizedFlags, type ResidualFlags } from './flags.ts';

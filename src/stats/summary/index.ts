@@ -4,5 +4,5 @@
  */
 export { count, sum, mean, variance, sd, min, max, sumSquaredDeviations } from './moments.ts';
 export { quantile, quantileSorted, median, sortedCopy } from './quantile.ts';
-export { groupStats, splitByLevel, type GroupStats } from './group_stats.ts';
+export { groupStats, splitByLevel, type GroupStats } from './group-stats.ts';
 export { type GroupCodes, StatsInputError, levelCounts, checkSameLength } from './groups.ts';

@@ -8,7 +8,7 @@
  */
 import { fUpper } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError } from '../summary/groups.ts';
-import { splitByLevel } from '../summary/group_stats.ts';
+import { splitByLevel } from '../summary/group-stats.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
 import { quantileSorted } from '../summary/quantile.ts';
 import { sq } from '../math/portable.ts';

@@ -7,7 +7,7 @@ import { normalUpper } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
 import { rankSumExactP } from './exact.ts';
-import type { RankPMethod } from './signed_rank.ts';
+import type { RankPMethod } from './signed-rank.ts';
 
 /** Largest size of either group for which the exact distribution is used. */
 export const RANK_SUM_EXACT_MAX = 50;

@@ -6,7 +6,7 @@
 import { tInterval } from '../distributions/index.ts';
 import { StatsInputError, checkSameLength } from '../summary/groups.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
-import { checkLevel } from './two_sample.ts';
+import { checkLevel } from './two-sample.ts';
 
 /** The result of {@link paired}. */
 export interface PairedResult {

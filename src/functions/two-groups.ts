@@ -5,7 +5,7 @@ import { formatNumber } from '../lang/format.ts';
 import { msg } from '../lang/messages.ts';
 import { MISSING, numberColumn, type Column, type NumberColumn } from '../lang/values.ts';
 import { friedman, kruskalWallis, rankSum, signedRank } from '../stats/ranks/index.ts';
-import { paired, twoSample } from '../stats/two_groups/index.ts';
+import { paired, twoSample } from '../stats/two-groups/index.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import { completeRows, factorOf, responseOf } from './columns.ts';
 import { EXACT_FIT_RELATIVE } from './exact.ts';

@@ -8,7 +8,7 @@
  */
 import { tInterval } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError } from '../summary/groups.ts';
-import { splitByLevel } from '../summary/group_stats.ts';
+import { splitByLevel } from '../summary/group-stats.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
 
 /** The result of {@link twoSample}. The difference is always first level minus second. */

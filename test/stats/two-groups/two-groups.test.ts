@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import ttest from '@stdlib/stats-ttest';
 import ttest2 from '@stdlib/stats-ttest2';
-import { twoSample, paired } from '../../../src/stats/two_groups/index.ts';
+import { twoSample, paired } from '../../../src/stats/two-groups/index.ts';
 import { StatsInputError } from '../../../src/stats/summary/index.ts';
 
 const F = (a: readonly number[]): Float64Array => Float64Array.from(a);
