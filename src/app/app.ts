@@ -19,9 +19,10 @@ import { CELL_VIEWS } from '../../cells/views.ts';
 import { documentTitle, headerFields, markerKind, type Cell, type Document } from '../doc/document.ts';
 import { freshCellId, withTitle, type Edit } from '../doc/edits.ts';
 import { DocumentError, readDocument, writeDocument } from '../doc/format.ts';
-import { NotUtf8Error } from '../doc/utf8.ts';
+import { NotUtf8Error, decodeUtf8 } from '../doc/utf8.ts';
 import type { CellKind } from '../graph/cell-kind.ts';
 import { isPlainName } from '../lang/lexer.ts';
+import { importMsg } from '../messages/import.ts';
 import { pageMsg } from '../messages/page.ts';
 import { shared } from '../views/theme.ts';
 import { appStyles } from './app-styles.ts';
@@ -29,6 +30,9 @@ import { fileKey, forget, listSaved, loadSaved, newKey, sampleKey, type SavedSta
 import { EvaluationBridge } from './bridge.ts';
 import { cellMargin } from './cell-margin.ts';
 import { FileDrop } from './drop.ts';
+import './import-offer.ts';
+import type { ImportChoice } from './import-offer.ts';
+import { importedTableCell, importSource, isImportable, namesTaken, type ImportSource } from './table-import.ts';
 import { fileNameFor, pickFile, saveText } from './files.ts';
 import { DocumentKeeper, type Opening } from './keeper.ts';
 import { DocumentStore } from './store.ts';
@@ -65,6 +69,7 @@ export class FurrowApp extends LitElement {
   static override properties = {
     doc: { state: true },
     banner: { state: true },
+    importing: { state: true },
     renaming: { state: true },
     tick: { state: true },
     kept: { state: true },
@@ -72,6 +77,8 @@ export class FurrowApp extends LitElement {
 
   declare doc: Document;
   declare banner: Banner | null;
+  /** A CSV file or workbook offered as a table, while the user chooses. */
+  declare importing: ImportSource | null;
   declare renaming: string | null;
   /** Bumped when cell states change, so the cells re-render. */
   declare tick: number;
@@ -91,6 +98,7 @@ export class FurrowApp extends LitElement {
   constructor() {
     super();
     this.banner = null;
+    this.importing = null;
     this.renaming = null;
     this.tick = 0;
     this.kept = [];
@@ -108,7 +116,8 @@ export class FurrowApp extends LitElement {
       },
     });
     new FileDrop(this, {
-      csv: (name, text) => this.attach(name, text),
+      csv: (name, bytes) => this.csvArrived(name, bytes),
+      workbook: (name, bytes) => void this.offerImport(name, bytes),
       document: (name, text) => {
         if (this.openText(text, name)) this.fileHandle = null;
       },
@@ -367,6 +376,7 @@ export class FurrowApp extends LitElement {
     try {
       const f = await pickFile();
       if (f === null) return;
+      if (isImportable(f.name)) return void (await this.offerImport(f.name, f.bytes));
       if (this.openText(f.text, f.name)) this.fileHandle = f.handle;
     } catch (err) {
       this.banner = { kind: 'problem', text: pageMsg.unreadable(err instanceof NotUtf8Error, String(err)) };
@@ -379,6 +389,41 @@ export class FurrowApp extends LitElement {
     this.bridge.files([[name, text]]);
     this.keeper.touch();
     this.banner = { kind: 'info', text: pageMsg.attached(name) };
+  }
+
+  /** A CSV file dropped: for the tables that name it if any do, else offered as a new table. */
+  private csvArrived(name: string, bytes: Uint8Array): void {
+    const named = this.doc.cells.some((c) => CELL_KINDS.filesRead(c).includes(name));
+    if (!named) return void this.offerImport(name, bytes);
+    try {
+      this.attach(name, decodeUtf8(bytes));
+    } catch {
+      this.banner = { kind: 'problem', text: pageMsg.notUtf8(name) };
+    }
+  }
+
+  /** Reads a CSV file or a workbook and offers its sheets as a table. */
+  private async offerImport(name: string, bytes: Uint8Array): Promise<void> {
+    try {
+      this.importing = await importSource(name, bytes);
+    } catch (err) {
+      this.importing = null;
+      this.banner = { kind: 'problem', text: err instanceof NotUtf8Error ? pageMsg.notUtf8(name) : pageMsg.csvUnreadable(err instanceof Error ? err.message : String(err)) };
+    }
+  }
+
+  /** The chosen sheet becomes a table cell at the end of the document (one step of undo). */
+  private addImported(choice: ImportChoice): void {
+    const source = this.importing;
+    const sheet = source?.sheets[choice.sheet];
+    if (source === null || sheet === undefined) return;
+    const cell = importedTableCell(this.doc, choice.name, sheet);
+    this.importing = null;
+    this.apply({ type: 'insert', index: this.doc.cells.length, cell });
+    this.banner = { kind: 'info', text: importMsg.added(choice.name, source.fileName) };
+    void this.updateComplete.then(() => {
+      this.renderRoot.querySelector<HTMLElement>(`[data-cell="${cell.id}"]`)?.scrollIntoView({ block: 'nearest' });
+    });
   }
 
   private async attachCsv(): Promise<void> {
@@ -447,7 +492,7 @@ export class FurrowApp extends LitElement {
       <nav class="bar" aria-label="Document">
         <span class="mark">FURROW</span>
         <button @click=${() => this.newDocument()} title="Start an empty document">New</button>
-        <button @click=${() => void this.openFile()} title="Open a .furrow document">Open…</button>
+        <button @click=${() => void this.openFile()} title="Open a .furrow document, or a CSV file or workbook to add as a table">Open…</button>
         <button @click=${() => void this.saveFile()} title="Save as a .furrow file (Ctrl+S)">Save</button>
         <button @click=${() => void this.attachCsv()} title="Attach a CSV file that a table of this document reads">Attach CSV…</button>
         ${this.samples.size > 0
@@ -489,6 +534,14 @@ export class FurrowApp extends LitElement {
             ${(this.banner.actions ?? []).map((a) => html`<button class="action" @click=${a.run}>${a.label}</button>`)}
             <button @click=${() => (this.banner = null)} aria-label="Dismiss">✕</button>
           </div>`
+        : nothing}
+      ${this.importing !== null
+        ? html`<furrow-import-offer
+            .source=${this.importing}
+            .taken=${namesTaken(this.doc)}
+            @furrow-import-add=${(e: CustomEvent<ImportChoice>) => this.addImported(e.detail)}
+            @furrow-import-cancel=${() => (this.importing = null)}
+          ></furrow-import-offer>`
         : nothing}
       <main>
         <header>

@@ -1,5 +1,6 @@
 /**
- * Files dropped on the page: a `.csv` is attached for the tables that name it, anything
+ * Files dropped on the page: a `.csv` goes to the shell (attached for the tables that name
+ * it, else offered as a new table), a workbook (`.xlsx`) is offered as a table, anything
  * else is opened as a document (and refused, changing nothing, when it is not one). A cell
  * view that takes a drop itself prevents the default, and the page leaves it alone.
  */
@@ -8,7 +9,8 @@ import { pageMsg } from '../messages/page.ts';
 import { readFileText } from './files.ts';
 
 export interface DropEvents {
-  csv(name: string, text: string): void;
+  csv(name: string, bytes: Uint8Array): void;
+  workbook(name: string, bytes: Uint8Array): void;
   document(name: string, text: string): void;
   problem(text: string): void;
 }
@@ -39,8 +41,15 @@ export class FileDrop implements ReactiveController {
     const file = e.dataTransfer?.files[0];
     if (file === undefined || e.defaultPrevented) return;
     e.preventDefault();
+    if (/\.(csv|xlsx)$/i.test(file.name)) {
+      void file.arrayBuffer().then(
+        (b) => (/\.csv$/i.test(file.name) ? this.events.csv(file.name, new Uint8Array(b)) : this.events.workbook(file.name, new Uint8Array(b))),
+        (e: unknown) => this.events.problem(String(e)),
+      );
+      return;
+    }
     void readFileText(file).then(
-      (text) => (/\.csv$/i.test(file.name) ? this.events.csv(file.name, text) : this.events.document(file.name, text)),
+      (text) => this.events.document(file.name, text),
       () => this.events.problem(pageMsg.notUtf8(file.name)),
     );
   };

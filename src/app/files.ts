@@ -11,13 +11,32 @@ interface PickerWindow {
 
 const TYPES = [{ description: 'Furrow documents', accept: { 'text/plain': ['.furrow'] } }];
 /** What Open accepts: documents, and reports, which carry their document. */
-const OPEN_TYPES = [{ description: 'Furrow documents and reports', accept: { 'text/plain': ['.furrow'], 'text/html': ['.html'] } }];
+const OPEN_TYPES = [
+  { description: 'Furrow documents and reports', accept: { 'text/plain': ['.furrow'], 'text/html': ['.html'] } },
+  { description: 'Data to add as a table (CSV, workbook)', accept: { 'text/csv': ['.csv'], 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet': ['.xlsx'] } },
+];
 
-/** A file the user picked: its name and text. */
+/** A file the user picked: its name, its bytes, and its text (read as UTF-8 when asked for). */
 export interface PickedFile {
   readonly name: string;
+  readonly bytes: Uint8Array;
+  /** The bytes as UTF-8 text; throws NotUtf8Error when they are not. */
   readonly text: string;
   readonly handle: FileSystemFileHandle | null;
+}
+
+async function picked(file: File, handle: FileSystemFileHandle | null): Promise<PickedFile> {
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  let text: string | null = null;
+  return {
+    name: file.name,
+    bytes,
+    handle,
+    get text(): string {
+      text ??= decodeUtf8(bytes);
+      return text;
+    },
+  };
 }
 
 /** Reads a File as UTF-8, refusing bytes that are not UTF-8 text. */
@@ -26,14 +45,13 @@ export async function readFileText(file: Blob): Promise<string> {
 }
 
 /** Asks for a file to open; null when the user cancels. */
-export async function pickFile(accept = '.furrow,.html,text/plain'): Promise<PickedFile | null> {
+export async function pickFile(accept = '.furrow,.html,.csv,.xlsx,text/plain'): Promise<PickedFile | null> {
   const w = window as unknown as PickerWindow;
   if (w.showOpenFilePicker && accept.includes('.furrow')) {
     try {
       const [handle] = await w.showOpenFilePicker({ types: OPEN_TYPES, multiple: false });
       if (!handle) return null;
-      const file = await handle.getFile();
-      return { name: file.name, text: await readFileText(file), handle };
+      return await picked(await handle.getFile(), handle);
     } catch (e) {
       if (e instanceof DOMException && e.name === 'AbortError') return null;
       throw e;
@@ -46,7 +64,7 @@ export async function pickFile(accept = '.furrow,.html,text/plain'): Promise<Pic
     input.addEventListener('change', () => {
       const file = input.files?.[0];
       if (!file) return resolve(null);
-      readFileText(file).then((text) => resolve({ name: file.name, text, handle: null }), reject);
+      picked(file, null).then(resolve, reject);
     });
     input.addEventListener('cancel', () => resolve(null));
     input.click();

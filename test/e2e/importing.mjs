@@ -1,0 +1,91 @@
+// Browser tests of adding data as a table: a workbook dropped on the page (a sheet chosen),
+// and a CSV file opened with Open…, each offered as a new table cell that evaluates.
+import { readFileSync } from 'node:fs';
+import { check } from './harness.mjs';
+import { cellText, settled, statusOf } from './page.mjs';
+
+const WORKBOOK = readFileSync(new URL('../app/fixtures/strip-trial.xlsx', import.meta.url)).toString('base64');
+
+async function dropBytes(page, name, base64) {
+  await page.evaluate(
+    ({ name, base64 }) => {
+      const bytes = Uint8Array.from(atob(base64), (ch) => ch.charCodeAt(0));
+      const dt = new DataTransfer();
+      dt.items.add(new File([bytes], name));
+      window.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    },
+    { name, base64 },
+  );
+}
+
+async function tableBody(page, name) {
+  return page.evaluate((n) => document.querySelector('furrow-app').shadowRoot.querySelector(`section[data-name="${n}"] furrow-table-cell`)?.cell.body ?? null, name);
+}
+
+export function importingTests() {
+  return [
+    {
+      name: 'a workbook dropped on the page is offered as a table, its sheet chosen, numbers exact',
+      async run({ context, base, out }) {
+        const page = await context.newPage();
+        await page.goto(`${base}/?fresh`);
+        await settled(page);
+        const cellsBefore = await page.locator('furrow-app section.cell').count();
+        await dropBytes(page, 'strip-trial.xlsx', WORKBOOK);
+        const offer = page.locator('furrow-app furrow-import-offer');
+        await offer.locator('form').waitFor({ timeout: 10_000 });
+        check(/strip-trial\.xlsx/.test(await offer.locator('form').innerText()), 'the offer names the file');
+        check((await offer.locator('input.name').inputValue()) === 'plots', 'the first sheet names the table');
+        await page.screenshot({ path: `${out}/import-offer.png` });
+        // the second sheet, then back to the first, and add it
+        await offer.locator('select.sheet').selectOption({ label: 'field notes' });
+        check((await offer.locator('input.name').inputValue()) === 'field_notes', 'the sheet chosen names the table');
+        await offer.locator('select.sheet').selectOption({ label: 'plots' });
+        check(/4 rows × 4 columns/.test(await offer.locator('form').innerText()), `the size is shown: ${await offer.locator('form').innerText()}`);
+        await offer.locator('button.add').click();
+        await settled(page);
+        check((await page.locator('furrow-app furrow-import-offer').count()) === 0, 'the offer is gone');
+        check((await page.locator('furrow-app section.cell').count()) === cellsBefore + 1, 'one cell added');
+        check((await statusOf(page, 'plots')) === 'ok', `the table evaluates: ${await statusOf(page, 'plots')}`);
+        const body = await tableBody(page, 'plots');
+        check(body.startsWith('strip,width (mm),runoff,sown\nA,250,0.30000000000000004,2026-04-03\nB,500,4.2,2026-04-04\n'), `body: ${JSON.stringify(body)}`);
+        // a formula reads it
+        const text = await cellText(page, 'plots');
+        check(/runoff/.test(text), 'the new table shows its columns');
+        // one step of undo takes it away
+        await page.locator('furrow-app button', { hasText: 'Undo' }).click();
+        await settled(page);
+        check((await page.locator('furrow-app section.cell').count()) === cellsBefore, 'undo removes the added table');
+      },
+    },
+    {
+      name: 'a CSV file opened with Open… is offered as a table; a name already used is refused',
+      async run({ context, base }) {
+        const page = await context.newPage();
+        await page.goto(`${base}/?fresh`);
+        await settled(page);
+        // the browser's file picker, answered by the test
+        await page.evaluate(() => {
+          window.showOpenFilePicker = async () => [
+            { kind: 'file', name: 'coupons.csv', getFile: async () => new File(['plot,shear\n1,24.5\n2,25.25\n'], 'coupons.csv') },
+          ];
+        });
+        await page.locator('furrow-app nav button', { hasText: 'Open…' }).click();
+        const offer = page.locator('furrow-app furrow-import-offer');
+        await offer.locator('form').waitFor({ timeout: 10_000 });
+        // the sample already has a table named coupons: the suggested name avoids it
+        const suggested = await offer.locator('input.name').inputValue();
+        check(suggested === 'coupons_2', `suggested name: ${suggested}`);
+        await offer.locator('input.name').fill('coupons');
+        check(/already has a cell named coupons/.test(await offer.locator('form').innerText()), 'a taken name is refused');
+        check(await offer.locator('button.add').isDisabled(), 'and cannot be added');
+        await offer.locator('input.name').fill('coupon_recheck');
+        await offer.locator('button.add').click();
+        await settled(page);
+        check((await statusOf(page, 'coupon_recheck')) === 'ok', 'the CSV table evaluates');
+        check((await tableBody(page, 'coupon_recheck')) === 'plot,shear\n1,24.5\n2,25.25\n\n', `body: ${JSON.stringify(await tableBody(page, 'coupon_recheck'))}`);
+        check(/lap-shear/.test(await page.locator('furrow-app textarea.title').inputValue()), 'the open document stays open');
+      },
+    },
+  ];
+}
