@@ -6,18 +6,23 @@
 // records the newest source it was built from, so bin/furrow.js can tell a stale build in a
 // development checkout.
 import { build } from 'esbuild';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { newestSource } from './sources.mjs';
 
 const OUT = 'build/cli';
 
 const started = Date.now();
+rmSync(OUT, { recursive: true, force: true });
 mkdirSync(OUT, { recursive: true });
 const newest = newestSource('.');
 await build({
   entryPoints: ['src/cli/main.ts'],
-  outfile: join(OUT, 'main.mjs'),
+  outdir: OUT,
+  outExtension: { '.js': '.mjs' },
+  // the report (and the drawing libraries it imports) is a chunk of its own, loaded on demand
+  splitting: true,
+  chunkNames: 'chunks/[name]-[hash]',
   bundle: true,
   platform: 'node',
   format: 'esm',

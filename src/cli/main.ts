@@ -15,7 +15,6 @@ import { sheetCommand } from './sheet.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import type { CellKinds } from '../graph/kinds.ts';
 import { valueText, visible } from './text.ts';
-import { reportCommand } from './report.ts';
 import { sealCommand } from './seal.ts';
 import { verifyCommand } from './verify.ts';
 
@@ -189,7 +188,8 @@ function guarded(o: Output, command: () => number | Promise<number>): number | P
 export function main(argv: readonly string[], o: Output, kinds: CellKinds = CELL_KINDS): number | Promise<number> {
   if (argv[0] === 'seal') return guarded(o, () => sealCommand(argv.slice(1), o, USAGE));
   if (argv[0] === 'verify') return guarded(o, () => verifyCommand(argv.slice(1), o, USAGE));
-  if (argv[0] === 'report') return guarded(o, () => reportCommand(argv.slice(1), o, USAGE));
+  // the report draws charts: its libraries load only when a report is asked for
+  if (argv[0] === 'report') return guarded(o, async () => (await import('./report.ts')).reportCommand(argv.slice(1), o, USAGE));
   if (argv[0] === 'sheet') return sheetCommand(argv.slice(1), o);
   const args = argv.filter((a) => a !== '--json');
   const json = argv.includes('--json');
