@@ -12,6 +12,7 @@ import { CELL_KINDS } from '../../cells/kinds.ts';
 import { parseCsv, writeCsv } from '../doc/csv.ts';
 import { freshBody, type Cell, type Document } from '../doc/document.ts';
 import { freshCellId } from '../doc/edits.ts';
+import { isoDateText, shortestNumberText } from '../doc/field-text.ts';
 import { decodeUtf8 } from '../doc/utf8.ts';
 import { isPlainName } from '../lang/lexer.ts';
 import { importMsg } from '../messages/import.ts';
@@ -39,23 +40,6 @@ export function isImportable(fileName: string): boolean {
 }
 
 export const isWorkbook = (fileName: string): boolean => /\.xlsx$/i.test(fileName);
-
-/** The shortest decimal text that reads back as the double a sheet stored as `text`. */
-export function shortestNumberText(text: string): string {
-  const x = Number(text);
-  return Number.isFinite(x) ? String(x) : text.trim();
-}
-
-const pad = (n: number, width = 2): string => String(n).padStart(width, '0');
-
-/** A date of a sheet as ISO text: the day, and the time of day when it is not midnight. */
-export function isoDateText(d: Date): string {
-  const day = `${pad(d.getUTCFullYear(), 4)}-${pad(d.getUTCMonth() + 1)}-${pad(d.getUTCDate())}`;
-  const h = d.getUTCHours();
-  const m = d.getUTCMinutes();
-  const s = d.getUTCSeconds();
-  return h === 0 && m === 0 && s === 0 ? day : `${day}T${pad(h)}:${pad(m)}:${pad(s)}`;
-}
 
 /** A cell of a sheet as field text. Numbers arrive already as their shortest text. */
 function fieldText(v: unknown): string {

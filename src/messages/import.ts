@@ -1,5 +1,6 @@
 /**
- * The words of adding a CSV file or a workbook's sheet to the document as a table.
+ * The words of adding a CSV file or a workbook's sheet to the document as a table, and of
+ * reading a Parquet file that a table names.
  */
 import { plural } from './words.ts';
 
@@ -19,5 +20,9 @@ export const importMsg = {
   workbookTooLarge: (file: string, limit: number) => `${file} is larger than ${megabytes(limit)}, the most a workbook may be to open here; save the sheet as CSV and name it from a table cell instead.`,
   workbookUnreadable: (file: string, detail: string) => `${file} could not be read as a workbook (.xlsx): ${detail}`,
   workbookEmpty: (file: string) => `${file} has no sheet with any data.`,
+  parquetUnreadable: (detail: string) => `the file could not be read as Parquet: ${detail}`,
+  parquetTooManyRows: (rows: number, limit: number) => `the Parquet file has ${plural(rows, 'row')}; a table holds at most ${limit.toLocaleString('en-US')}`,
+  parquetColumnRefused: (column: string, what: string) => `the Parquet column ${column} holds ${what}, which a table cannot hold`,
+  parquetNoColumns: () => 'the Parquet file has no columns',
   notImportable: (file: string) => `${file} is neither a CSV file nor a workbook (.xlsx).`,
 };

@@ -8,13 +8,12 @@ import { CELL_KINDS } from '../../cells/kinds.ts';
 import {
   csvSource,
   importedTableCell,
-  isoDateText,
   namesTaken,
   sheetOf,
-  shortestNumberText,
   tableNameFor,
   workbookSource,
 } from '../../src/app/table-import.ts';
+import { isoDateText, shortestNumberText } from '../../src/doc/field-text.ts';
 import { Engine } from '../../src/graph/engine.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
 import type { Table } from '../../src/lang/values.ts';
