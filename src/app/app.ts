@@ -19,7 +19,7 @@ import { CELL_VIEWS } from '../../cells/views.ts';
 import { documentTitle, headerFields, markerKind, type Cell, type Document } from '../doc/document.ts';
 import { freshCellId, withTitle, type Edit } from '../doc/edits.ts';
 import { DocumentError, readDocument, writeDocument } from '../doc/format.ts';
-import { NotUtf8Error, decodeUtf8 } from '../doc/utf8.ts';
+import { NotUtf8Error } from '../doc/utf8.ts';
 import type { CellKind } from '../graph/cell-kind.ts';
 import { isPlainName } from '../lang/lexer.ts';
 import { importMsg } from '../messages/import.ts';
@@ -29,6 +29,7 @@ import { appStyles } from './app-styles.ts';
 import { fileKey, forget, listSaved, loadSaved, newKey, sampleKey, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
 import { cellMargin } from './cell-margin.ts';
+import { engineText, storedFile } from './data-files.ts';
 import { FileDrop } from './drop.ts';
 import './import-offer.ts';
 import type { ImportChoice } from './import-offer.ts';
@@ -118,6 +119,7 @@ export class FurrowApp extends LitElement {
     new FileDrop(this, {
       csv: (name, bytes) => this.csvArrived(name, bytes),
       workbook: (name, bytes) => void this.offerImport(name, bytes),
+      data: (name, bytes) => this.attach(name, bytes),
       document: (name, text) => {
         if (this.openText(text, name)) this.fileHandle = null;
       },
@@ -307,7 +309,7 @@ export class FurrowApp extends LitElement {
     void this.keeper.take(o.key).then(() => this.refreshKept());
     this.fileName = o.fileName;
     for (const [name, text] of o.files) this.files.set(name, text);
-    if (o.files.length > 0) this.bridge.files(o.files);
+    this.sendFiles(o.files);
     this.renaming = null;
     this.store.load(doc);
     const missing = [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
@@ -383,10 +385,31 @@ export class FurrowApp extends LitElement {
     }
   }
 
-  /** A CSV file for the tables that name it: the worker re-evaluates the cells that read it. */
-  private attach(name: string, text: string): void {
-    this.files.set(name, text);
-    this.bridge.files([[name, text]]);
+  /** Files kept by the page, sent to the worker as the text its tables read (Parquet decoded). */
+  private sendFiles(files: ReadonlyArray<readonly [string, string]>): void {
+    for (const [name, stored] of files) {
+      engineText(name, stored).then(
+        (text) => {
+          if (this.files.get(name) === stored) this.bridge.files([[name, text]]);
+        },
+        (err: unknown) => {
+          this.banner = { kind: 'problem', text: pageMsg.csvUnreadable(`${name}: ${err instanceof Error ? err.message : String(err)}`) };
+        },
+      );
+    }
+  }
+
+  /** A data file for the tables that name it: the worker re-evaluates the cells that read it. */
+  private attach(name: string, bytes: Uint8Array): void {
+    let stored: string;
+    try {
+      stored = storedFile(name, bytes);
+    } catch {
+      this.banner = { kind: 'problem', text: pageMsg.notUtf8(name) };
+      return;
+    }
+    this.files.set(name, stored);
+    this.sendFiles([[name, stored]]);
     this.keeper.touch();
     this.banner = { kind: 'info', text: pageMsg.attached(name) };
   }
@@ -395,11 +418,7 @@ export class FurrowApp extends LitElement {
   private csvArrived(name: string, bytes: Uint8Array): void {
     const named = this.doc.cells.some((c) => CELL_KINDS.filesRead(c).includes(name));
     if (!named) return void this.offerImport(name, bytes);
-    try {
-      this.attach(name, decodeUtf8(bytes));
-    } catch {
-      this.banner = { kind: 'problem', text: pageMsg.notUtf8(name) };
-    }
+    this.attach(name, bytes);
   }
 
   /** Reads a CSV file or a workbook and offers its sheets as a table. */
@@ -428,9 +447,9 @@ export class FurrowApp extends LitElement {
 
   private async attachCsv(): Promise<void> {
     try {
-      const f = await pickFile('.csv,text/csv,text/plain');
+      const f = await pickFile('.csv,.parquet,text/csv,text/plain');
       if (f === null) return;
-      this.attach(f.name, f.text);
+      this.attach(f.name, f.bytes);
     } catch (err) {
       this.banner = { kind: 'problem', text: pageMsg.csvUnreadable(String(err)) };
     }
@@ -494,7 +513,7 @@ export class FurrowApp extends LitElement {
         <button @click=${() => this.newDocument()} title="Start an empty document">New</button>
         <button @click=${() => void this.openFile()} title="Open a .furrow document, or a CSV file or workbook to add as a table">Open…</button>
         <button @click=${() => void this.saveFile()} title="Save as a .furrow file (Ctrl+S)">Save</button>
-        <button @click=${() => void this.attachCsv()} title="Attach a CSV file that a table of this document reads">Attach CSV…</button>
+        <button @click=${() => void this.attachCsv()} title="Attach a CSV or Parquet file that a table of this document reads">Attach data…</button>
         ${this.samples.size > 0
           ? html`<select
               aria-label="Open a sample"

@@ -1,6 +1,7 @@
 /**
  * Files dropped on the page: a `.csv` goes to the shell (attached for the tables that name
- * it, else offered as a new table), a workbook (`.xlsx`) is offered as a table, anything
+ * it, else offered as a new table), a workbook (`.xlsx`) is offered as a table, a Parquet
+ * file is attached for the tables that name it, anything
  * else is opened as a document (and refused, changing nothing, when it is not one). A cell
  * view that takes a drop itself prevents the default, and the page leaves it alone.
  */
@@ -11,6 +12,8 @@ import { readFileText } from './files.ts';
 export interface DropEvents {
   csv(name: string, bytes: Uint8Array): void;
   workbook(name: string, bytes: Uint8Array): void;
+  /** A Parquet file: attached for the tables that name it. */
+  data(name: string, bytes: Uint8Array): void;
   document(name: string, text: string): void;
   problem(text: string): void;
 }
@@ -41,9 +44,10 @@ export class FileDrop implements ReactiveController {
     const file = e.dataTransfer?.files[0];
     if (file === undefined || e.defaultPrevented) return;
     e.preventDefault();
-    if (/\.(csv|xlsx)$/i.test(file.name)) {
+    if (/\.(csv|xlsx|parquet)$/i.test(file.name)) {
+      const to = /\.csv$/i.test(file.name) ? this.events.csv : /\.xlsx$/i.test(file.name) ? this.events.workbook : this.events.data;
       void file.arrayBuffer().then(
-        (b) => (/\.csv$/i.test(file.name) ? this.events.csv(file.name, new Uint8Array(b)) : this.events.workbook(file.name, new Uint8Array(b))),
+        (b) => to.call(this.events, file.name, new Uint8Array(b)),
         (e: unknown) => this.events.problem(String(e)),
       );
       return;

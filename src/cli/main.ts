@@ -10,7 +10,8 @@ import { BUILTINS } from '../functions/index.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
 import { toJson } from '../lang/json.ts';
 import { typeOf } from '../lang/values.ts';
-import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, besideDocument, readText } from './files.ts';
+import { dataFileText, needsPreload, preloadParquet } from './data-text.ts';
+import { DOCUMENT_LIMIT_BYTES, FileProblem, readText } from './files.ts';
 import { sheetCommand } from './sheet.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import type { CellKinds } from '../graph/kinds.ts';
@@ -75,7 +76,7 @@ export function loadDocument(path: string, kinds: CellKinds = CELL_KINDS): { doc
       // a name that leaves the document's folder is never opened: the cell itself reports it
       if (!isSafeFileName(file)) continue;
       try {
-        engine.setFile(file, readText(besideDocument(path, file), 'the CSV file', CSV_LIMIT_BYTES));
+        engine.setFile(file, dataFileText(path, file));
       } catch (err) {
         if (err instanceof FileProblem) {
           const heading = kinds.of(cell)!.printing.heading(kinds.nameOf(cell));
@@ -184,8 +185,27 @@ function guarded(o: Output, command: () => number | Promise<number>): number | P
   }
 }
 
-/** Runs the command line with arguments; returns the exit status (a promise for `report`). */
+/** The document a command works on: its first argument that is not an option or an option's value. */
+function documentArgument(argv: readonly string[]): string | undefined {
+  for (let i = 1; i < argv.length; i++) {
+    const a = argv[i]!;
+    if (a === '-o') i++;
+    else if (!a.startsWith('-')) return a;
+  }
+  return undefined;
+}
+
+/**
+ * Runs the command line with arguments; returns the exit status (a promise for `report`,
+ * and for a document that names Parquet files, which are decoded before it is loaded).
+ */
 export function main(argv: readonly string[], o: Output, kinds: CellKinds = CELL_KINDS): number | Promise<number> {
+  const path = documentArgument(argv);
+  if (path !== undefined && needsPreload(path, kinds)) return preloadParquet(path, kinds).then(() => mainNow(argv, o, kinds));
+  return mainNow(argv, o, kinds);
+}
+
+function mainNow(argv: readonly string[], o: Output, kinds: CellKinds): number | Promise<number> {
   if (argv[0] === 'seal') return guarded(o, () => sealCommand(argv.slice(1), o, USAGE));
   if (argv[0] === 'verify') return guarded(o, () => verifyCommand(argv.slice(1), o, USAGE));
   // the report draws charts: its libraries load only when a report is asked for

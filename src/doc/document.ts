@@ -56,6 +56,9 @@ export interface MarkerGrammar {
   readMarker(marker: string): Marker | null;
 }
 
+/** True for a data file that a table reads as Parquet (decoded into table text first). */
+export const isParquetName = (name: string): boolean => /\.parquet$/i.test(name);
+
 /**
  * True when a file name a document gives stays in the document's own folder: no path, no
  * drive, no hidden or parent entry (a document from someone else reads nothing else).

@@ -17,9 +17,6 @@ import { importMsg } from '../messages/import.ts';
 import { writeCsv } from './csv.ts';
 import { isoDateText, shortestDoubleText, shortestFloat32Text } from './field-text.ts';
 
-/** True for a file name a table reads as Parquet. */
-export const isParquetName = (name: string): boolean => /\.parquet$/i.test(name);
-
 /** A Parquet file that cannot become a table, with what is wrong. */
 export class ParquetError extends Error {
   constructor(message: string) {

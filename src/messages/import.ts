@@ -24,5 +24,6 @@ export const importMsg = {
   parquetTooManyRows: (rows: number, limit: number) => `the Parquet file has ${plural(rows, 'row')}; a table holds at most ${limit.toLocaleString('en-US')}`,
   parquetColumnRefused: (column: string, what: string) => `the Parquet column ${column} holds ${what}, which a table cannot hold`,
   parquetNoColumns: () => 'the Parquet file has no columns',
+  parquetNotDecoded: (file: string) => `the Parquet file ${file} was not decoded before the document was loaded`,
   notImportable: (file: string) => `${file} is neither a CSV file nor a workbook (.xlsx).`,
 };

@@ -38,7 +38,7 @@ export const pageMsg = {
   // ---- files --------------------------------------------------------------------------
   opened: (name: string | null) => `Opened ${name ?? 'the document'}.`,
   openedMissingFiles: (name: string | null, missing: readonly string[]) =>
-    `Opened ${name ?? 'the document'}. Its tables read ${missing.join(', ')}: attach ${missing.length === 1 ? 'that file' : 'those files'} with "Attach CSV".`,
+    `Opened ${name ?? 'the document'}. Its tables read ${missing.join(', ')}: attach ${missing.length === 1 ? 'that file' : 'those files'} with "Attach data".`,
   notOpened: (name: string | null, why: string) => `${name ?? 'That file'} was not opened: ${why} Nothing on the page was changed.`,
   notUtf8: (name: string) => `${name} was not opened: it is not UTF-8 text, so it is not a Furrow document. Nothing on the page was changed.`,
   unreadable: (notText: boolean, detail: string) =>

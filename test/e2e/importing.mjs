@@ -1,8 +1,10 @@
 // Browser tests of adding data as a table: a workbook dropped on the page (a sheet chosen),
 // and a CSV file opened with Open…, each offered as a new table cell that evaluates.
-import { readFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { check } from './harness.mjs';
-import { cellText, settled, statusOf } from './page.mjs';
+import { cellText, openDocument, settled, statusOf } from './page.mjs';
 
 const WORKBOOK = readFileSync(new URL('../app/fixtures/strip-trial.xlsx', import.meta.url)).toString('base64');
 
@@ -22,8 +24,36 @@ async function tableBody(page, name) {
   return page.evaluate((n) => document.querySelector('furrow-app').shadowRoot.querySelector(`section[data-name="${n}"] furrow-table-cell`)?.cell.body ?? null, name);
 }
 
+const PARQUET = 'test/doc/fixtures/parquet/alltypes_plain.parquet';
+const PARQUET_DOC = 'furrow 1\ntitle: Parquet beside the document\n\n--- table types from alltypes.parquet\n\n--- formula\ntotal = sum(types.double_col)\n';
+
 export function importingTests() {
   return [
+    {
+      name: 'a Parquet file dropped for the table that names it evaluates, and a seal made on the command line verifies in the page',
+      async run({ context, base }) {
+        const dir = 'test-output/e2e/parquet';
+        mkdirSync(dir, { recursive: true });
+        writeFileSync(join(dir, 'types.furrow'), PARQUET_DOC);
+        copyFileSync(PARQUET, join(dir, 'alltypes.parquet'));
+        const sealed = spawnSync(process.execPath, ['bin/furrow.js', 'seal', join(dir, 'types.furrow')], { encoding: 'utf8' });
+        check(sealed.status === 0, `sealed on the command line: ${sealed.stderr}`);
+        const page = await context.newPage();
+        await page.goto(`${base}/?fresh`);
+        await settled(page);
+        await openDocument(page, readFileSync(join(dir, 'types.furrow'), 'utf8'), 'types.furrow');
+        await page.waitForFunction(() => /Parquet beside/.test(document.querySelector('furrow-app').shadowRoot.querySelector('textarea.title')?.value ?? ''));
+        await dropBytes(page, 'alltypes.parquet', readFileSync(PARQUET).toString('base64'));
+        await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="types"]')?.dataset.status === 'ok', null, { timeout: 20_000 });
+        await settled(page);
+        const total = await cellText(page, 'total');
+        check(/40\.4/.test(total), `the total of the Parquet column: ${total}`);
+        const v = page.locator('furrow-hand-off .verdict');
+        await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('furrow-hand-off')?.shadowRoot?.querySelector('.verdict')?.getAttribute('data-verdict') === 'verified', null, { timeout: 20_000 }).catch(() => {});
+        const verdict = await v.getAttribute('data-verdict');
+        check(verdict === 'verified', `verdict in the page: ${verdict}: ${await v.innerText()}`);
+      },
+    },
     {
       name: 'a workbook dropped on the page is offered as a table, its sheet chosen, numbers exact',
       async run({ context, base, out }) {

@@ -25,6 +25,7 @@ import { formatInline, formatNumber } from '../../lang/format.ts';
 import type { Value } from '../../lang/values.ts';
 import { applyMarks, type CellMark } from './marks.ts';
 import { dependencyChain } from './provenance.ts';
+import { storedBytes } from '../data-files.ts';
 import { namesReadBy, settledStates } from './page-states.ts';
 
 const encoder = new TextEncoder();
@@ -242,7 +243,7 @@ export class HandOffPanel extends LitElement {
   }
 
   private fileBytes(): Map<string, Uint8Array> {
-    return new Map([...this.files].map(([n, t]) => [n, encoder.encode(t)] as const));
+    return new Map([...this.files].map(([n, t]) => [n, storedBytes(n, t)] as const));
   }
 
   override updated(changed: PropertyValues): void {

@@ -2,7 +2,9 @@
  * Opening a report back as its document: a report carries the document's bytes and those of
  * its data files (src/report/source.ts); this gives them back as the page's texts.
  */
+import { isParquetName } from '../../doc/document.ts';
 import { carriedDocument } from '../../report/source.ts';
+import { storedFile } from '../data-files.ts';
 
 /** A document taken out of a report. */
 export interface OpenedReport {
@@ -22,7 +24,7 @@ export function documentFromReport(html: string): OpenedReport | null {
   const carried = carriedDocument(html);
   if (carried === null) return null;
   try {
-    return { name: carried.name, text: decode(carried.bytes), files: [...carried.files].map(([n, b]) => [n, decode(b)] as const) };
+    return { name: carried.name, text: decode(carried.bytes), files: [...carried.files].map(([n, b]) => [n, isParquetName(n) ? storedFile(n, b) : decode(b)] as const) };
   } catch {
     return null; // not UTF-8: then it is not a report of ours, and opens as what it is
   }
