@@ -114,6 +114,6 @@ export class GridClipboard {
   renderOffer(): TemplateResult | typeof nothing {
     const o = this.offer;
     if (o === null || this.host.grid?.text !== o.applied) return nothing;
-    return html`<button class="names-as-data" title=${gridMsg.namesRowAsDataTitle()} @click=${this.keepFirstRowAsData}>${gridMsg.namesRowAsData()}</button>`;
+    return html`<p class="line offer"><button class="names-as-data" title=${gridMsg.namesRowAsDataTitle()} @click=${this.keepFirstRowAsData}>${gridMsg.namesRowAsData()}</button></p>`;
   }
 }

@@ -247,7 +247,8 @@ export class TableCellView extends LitElement implements TextHost {
       ${file !== null ? html`<p class="line file">${gridMsg.fileLine(file)}</p>` : nothing}
       ${this.renderStateLine()}
       ${showText ? this.text.render() : shown !== null ? this.renderGrid(shown) : this.renderNoGrid()}
-      <p class="status ${this.status?.kind ?? ''}" role="status" aria-live="polite">${this.status?.text ?? ''}${this.clipboard.renderOffer()}</p>
+      <p class="status ${this.status?.kind ?? ''}" role="status" aria-live="polite">${this.status?.text ?? ''}</p>
+      ${this.clipboard.renderOffer()}
     `;
   }
 

@@ -78,6 +78,11 @@ export class FurrowGrid extends LitElement {
       tbody th {
         height: 1.2rem;
       }
+      /* a little room under the last row: table rows lay out in fractions of a pixel, and
+         scrolled to the end the last row's bottom edge must still be in reach */
+      .end-room {
+        height: 2px;
+      }
       tr.pad td {
         padding: 0;
         border: 0;
@@ -96,7 +101,8 @@ export class FurrowGrid extends LitElement {
           max-height: none !important;
           overflow: visible;
         }
-        tr.pad {
+        tr.pad,
+        .end-room {
           display: none;
         }
         .print-only {
@@ -197,6 +203,7 @@ export class FurrowGrid extends LitElement {
             ${w.padBottom > 0 ? html`<tr class="pad" aria-hidden="true"><td colspan=${span} style="height:${w.padBottom}px"></td></tr>` : nothing}
           </tbody>
         </table>
+        ${long ? html`<div class="end-room" aria-hidden="true"></div>` : nothing}
       </div>
       ${long
         ? html`<p class="count">
