@@ -1,46 +1,12 @@
 /**
- * The grid's geometry as numbers: which rows a scrolled window shows (virtual scrolling
- * with a fixed row height) and how wide each column is. Pure, so it is tested in Node.
+ * The grid's geometry as numbers: the fixed row height and how wide each column is. Which
+ * rows a scrolled window shows is the row-window model's job (src/views/values/row-window.ts,
+ * shared by every grid). Pure, so it is tested in Node.
  */
 import type { FieldSource } from './grid-model.ts';
 
-/** The height of every data row, in CSS pixels. Fixed, so that row i lies at i * ROW_HEIGHT. */
+/** The height of every data row, in CSS pixels. Fixed, so that the row window can place any row. */
 export const ROW_HEIGHT = 26;
-
-/** Rows drawn above and below the window, so that a quick scroll does not show a gap. */
-export const OVERSCAN = 8;
-
-/** Rows drawn when the window's height is unknown (no layout yet). */
-export const ROWS_WITHOUT_LAYOUT = 40;
-
-/** The rows [first, last) to draw for a window scrolled to `scrollTop` over the data rows. */
-export function visibleRows(
-  scrollTop: number,
-  windowHeight: number,
-  rowCount: number,
-  rowHeight = ROW_HEIGHT,
-  overscan = OVERSCAN,
-): { first: number; last: number } {
-  if (rowCount <= 0) return { first: 0, last: 0 };
-  if (!(windowHeight > 0)) return { first: 0, last: Math.min(rowCount, ROWS_WITHOUT_LAYOUT) };
-  const top = Math.max(0, Math.floor(scrollTop / rowHeight));
-  const first = Math.max(0, Math.min(rowCount - 1, top - overscan));
-  const last = Math.min(rowCount, top + Math.ceil(windowHeight / rowHeight) + 1 + overscan);
-  return { first, last };
-}
-
-/**
- * The scroll position that brings a row into a window (unchanged when it is already in
- * view). `headerHeight` is the sticky row of names that covers the top of the window.
- */
-export function scrollToShowRow(row: number, scrollTop: number, windowHeight: number, headerHeight: number, rowHeight = ROW_HEIGHT): number {
-  if (row < 0) return scrollTop;
-  const top = headerHeight + row * rowHeight;
-  const bottom = top + rowHeight;
-  if (top - headerHeight < scrollTop) return top - headerHeight;
-  if (bottom > scrollTop + windowHeight) return Math.max(0, bottom - windowHeight);
-  return scrollTop;
-}
 
 /** Narrowest and widest column, in characters. */
 export const MIN_COLUMN_CH = 8;

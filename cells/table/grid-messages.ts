@@ -51,6 +51,10 @@ export const gridMsg = {
     return `Pasted ${plural(rows, 'row')} × ${plural(cols, 'column')}${grown.length > 0 ? `; the table grew by ${grown.join(' and ')}` : ''}.`;
   },
   pastedAsCsv: () => 'Read as CSV: the text had line breaks and no tabs.',
+  pastedWithNames: (rows: number, cols: number) =>
+    `Pasted ${plural(rows, 'row')} × ${plural(cols, 'column')}: the first row became the column names, since it holds names over numbers.`,
+  namesRowAsData: () => 'Keep that row as data',
+  namesRowAsDataTitle: () => 'Put the first pasted row back as a data row, under the names the table had',
   pasteOverNames: () => 'One value is not pasted over several column names: select one name to rename its column.',
   copied: (rows: number, cols: number) => `Copied ${plural(rows, 'row')} × ${plural(cols, 'column')} as tab-separated text.`,
 

@@ -310,6 +310,18 @@ export const tableCellStyles = css`
   .status.problem {
     color: var(--error);
   }
+  .line.offer {
+    margin-top: 0.15rem;
+  }
+  .line.offer button {
+    font-size: 0.75rem;
+    padding: 0.1rem 0.45rem;
+  }
+  @media print {
+    .line.offer {
+      display: none;
+    }
+  }
   .print-only {
     display: none;
   }

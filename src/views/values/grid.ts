@@ -6,7 +6,8 @@
 import { css, html, LitElement, nothing, type PropertyValues } from 'lit';
 import { columnLength, type Column } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
-import { cellText, planColumn, rowWindow, type RowWindow } from './grid-model.ts';
+import { cellText, planColumn } from './grid-model.ts';
+import { rowWindow, type RowWindow } from './row-window.ts';
 import { tableStyles } from './styles.ts';
 
 /** Grids with at most this many rows are drawn whole (and print whole). */
@@ -24,6 +25,7 @@ export class FurrowGrid extends LitElement {
     label: { type: String },
     scrollPos: { state: true },
     rowHeight: { state: true },
+    viewport: { state: true },
   };
 
   /** The columns, all of one length. */
@@ -34,6 +36,8 @@ export class FurrowGrid extends LitElement {
   declare label: string;
   declare private scrollPos: number;
   declare private rowHeight: number;
+  /** Height of the box below its sticky names, measured after a draw (0: not yet). */
+  declare private viewport: number;
 
   private frame = 0;
   private backToTop = false;
@@ -45,6 +49,7 @@ export class FurrowGrid extends LitElement {
     this.label = '';
     this.scrollPos = 0;
     this.rowHeight = GUESS_ROW_HEIGHT;
+    this.viewport = 0;
   }
 
   static override styles = [
@@ -73,6 +78,11 @@ export class FurrowGrid extends LitElement {
       tbody th {
         height: 1.2rem;
       }
+      /* a little room under the last row: table rows lay out in fractions of a pixel, and
+         scrolled to the end the last row's bottom edge must still be in reach */
+      .end-room {
+        height: 2px;
+      }
       tr.pad td {
         padding: 0;
         border: 0;
@@ -91,7 +101,8 @@ export class FurrowGrid extends LitElement {
           max-height: none !important;
           overflow: visible;
         }
-        tr.pad {
+        tr.pad,
+        .end-room {
           display: none;
         }
         .print-only {
@@ -138,9 +149,14 @@ export class FurrowGrid extends LitElement {
     const row = this.renderRoot.querySelector<HTMLElement>('tbody tr.row');
     const h = row?.getBoundingClientRect().height ?? 0;
     if (h > 0 && Math.abs(h - this.rowHeight) > 0.5) this.rowHeight = h;
+    const box = this.renderRoot.querySelector<HTMLElement>('.box');
+    if (box !== null && this.rows > OPEN_ROWS) {
+      const head = box.querySelector<HTMLElement>('thead');
+      const room = box.clientHeight - (head?.offsetHeight ?? 0);
+      if (room > 0 && Math.abs(room - this.viewport) > 0.5) this.viewport = room;
+    }
     if (this.backToTop) {
       this.backToTop = false;
-      const box = this.renderRoot.querySelector<HTMLElement>('.box');
       if (box !== null) box.scrollTop = 0;
     }
   }
@@ -149,7 +165,8 @@ export class FurrowGrid extends LitElement {
   currentWindow(): RowWindow {
     const rows = this.rows;
     if (rows <= OPEN_ROWS) return { first: 0, last: rows, padTop: 0, padBottom: 0 };
-    return rowWindow(this.scrollPos, VIEW_ROWS * this.rowHeight, this.rowHeight, rows);
+    // one model for every grid: past the browsers' height cap it maps the scroll onto the rows
+    return rowWindow(this.scrollPos, { rows, rowHeight: this.rowHeight, viewport: this.viewport > 0 ? this.viewport : VIEW_ROWS * this.rowHeight });
   }
 
   protected override render() {
@@ -186,6 +203,7 @@ export class FurrowGrid extends LitElement {
             ${w.padBottom > 0 ? html`<tr class="pad" aria-hidden="true"><td colspan=${span} style="height:${w.padBottom}px"></td></tr>` : nothing}
           </tbody>
         </table>
+        ${long ? html`<div class="end-room" aria-hidden="true"></div>` : nothing}
       </div>
       ${long
         ? html`<p class="count">

@@ -140,6 +140,39 @@ describe('<furrow-table-cell>', () => {
     expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.pasted(2, 3, 1, 0));
   });
 
+  it('takes a first pasted row of names over numbers as the names of a new table, with one click to keep it as data', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table table1', eol: '\n', body: 'block,treatment,response\n1,,\n\n' };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    const ev = new Event('paste', { bubbles: true, cancelable: true }) as ClipboardEvent;
+    Object.defineProperty(ev, 'clipboardData', { value: { getData: () => 'variety,block,yield\nA,1,4.2\nB,1,3.9' } });
+    grid.dispatchEvent(ev);
+    await m.el.updateComplete;
+    expect(m.edits).toHaveLength(1);
+    expect((m.edits[0]!.edit as { body: string }).body).toBe('variety,block,yield\nA,1,4.2\nB,1,3.9\n\n');
+    expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.pastedWithNames(3, 3));
+    expect([...m.root.querySelectorAll('.col-reads')].map((e) => e.textContent)).toEqual(['text', 'numbers', 'numbers']);
+    const undo = m.root.querySelector<HTMLButtonElement>('button.names-as-data')!;
+    expect(undo.textContent).toBe(gridMsg.namesRowAsData());
+    undo.click();
+    await m.el.updateComplete;
+    expect(m.edits).toHaveLength(2);
+    expect((m.edits[1]!.edit as { body: string }).body).toBe('block,treatment,response\nvariety,block,yield\nA,1,4.2\nB,1,3.9\n\n');
+    expect(m.root.querySelector('.status')!.textContent).toBe(`${gridMsg.pasted(3, 3, 2, 0)} ${gridMsg.pastedAsCsv()}`);
+    expect(m.root.querySelector('button.names-as-data')).toBeNull();
+  });
+
+  it('pastes a first row of names as data into a table that holds data', async () => {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: TREES });
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    const ev = new Event('paste', { bubbles: true, cancelable: true }) as ClipboardEvent;
+    Object.defineProperty(ev, 'clipboardData', { value: { getData: () => 'plot\tyield\n4\t39.0' } });
+    grid.dispatchEvent(ev);
+    await m.el.updateComplete;
+    expect((m.edits[0]!.edit as { body: string }).body).toBe('row,method,yield_kg\nplot,yield,41.2\n4,39.0,38.9\n2,open,40.1\n\n');
+    expect(m.root.querySelector('button.names-as-data')).toBeNull();
+  });
+
   it('copies the selection as tab-separated text', async () => {
     const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: TREES });
     const grid = m.root.querySelector<HTMLElement>('.scroller')!;
