@@ -113,6 +113,7 @@ post({
     doc: b.doc,
     returns: b.returns,
     category: b.category,
+    example: b.example,
     params: b.params.map((p) => ({ name: p.name, description: describeParam(p), doc: p.doc })),
   })),
 });
