@@ -232,10 +232,17 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
     emitEdit(this, { type: 'body', id: p.id, body }, `body:${p.id}`);
   }
 
-  /** Creates the editor now (if it is not there yet) and puts the cursor in it. */
+  /**
+   * Creates the editor now (if it is not there yet) and puts the cursor in it: at the end of
+   * the text when the editor did not have the focus (a new cell's `value1 = `, a cell reached
+   * by a key), where it was otherwise.
+   */
   async focusEditor(): Promise<void> {
     await this.ensureEditor();
-    this.view?.focus();
+    const view = this.view;
+    if (view === null || view.hasFocus) return;
+    view.dispatch({ selection: { anchor: view.state.doc.length } });
+    view.focus();
   }
 
   /** Creates the editor now, whether or not the cell has scrolled into view. */

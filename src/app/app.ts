@@ -261,8 +261,22 @@ export class FurrowApp extends LitElement {
     if (command === null || this.doc === undefined) return;
     e.preventDefault();
     e.stopPropagation();
-    this.runCellCommand(command, this.cellOf(e));
+    const cell = this.cellOf(e);
+    if (command !== 'help') this.keepTyping();
+    this.runCellCommand(command, cell);
   };
+
+  /**
+   * Hands over what is being typed before a cell command moves, adds or deletes cells: views
+   * send text still in their typing pause, and the focused field or editor is left (a table
+   * field keeps its text when it loses the focus), so the command's edit comes after it.
+   */
+  private keepTyping(): void {
+    window.dispatchEvent(new Event(FLUSH_EVENT));
+    let active: Element | null = document.activeElement;
+    while (active?.shadowRoot?.activeElement) active = active.shadowRoot.activeElement;
+    if (active instanceof HTMLElement) active.blur();
+  }
 
   /** The cell an event came from (the one holding the focus), if any. */
   private cellOf(e: Event): Cell | null {

@@ -26,6 +26,11 @@ export interface HelpInsertDetail {
 /** The event that asks the shell to close the panel. */
 export const HELP_CLOSE_EVENT = 'furrow-help-close';
 
+/** A doc's text with its `backticked` names drawn as code (lit escapes every piece). */
+function withCode(text: string) {
+  return text.split(/`([^`]+)`/).map((piece, i) => (i % 2 === 1 ? html`<code>${piece}</code>` : piece));
+}
+
 export class FurrowHelp extends LitElement {
   static override properties = {
     catalogue: { attribute: false },
@@ -212,6 +217,15 @@ export class FurrowHelp extends LitElement {
       .returns {
         color: var(--ink-soft);
       }
+      .entry p code,
+      dd code,
+      .gist code {
+        font-family: var(--font-code);
+        font-size: 0.9em;
+        background: var(--paper);
+        padding: 0 0.15em;
+        border-radius: 2px;
+      }
       .example {
         margin-top: 0.5rem;
         padding: 0.4rem 0.5rem;
@@ -340,7 +354,7 @@ export class FurrowHelp extends LitElement {
     const open = openAlone || this.opened.has(b.name);
     const gist = b.doc.replace(/\s+/g, ' ').split(/(?<=[.!?])\s/)[0] ?? '';
     return html`<details data-builtin=${b.name} ?open=${open} @toggle=${(e: Event) => this.toggle(b.name, (e.target as HTMLDetailsElement).open)}>
-      <summary><code>${b.name}</code><span class="gist">${gist}</span></summary>
+      <summary><code>${b.name}</code><span class="gist">${withCode(gist)}</span></summary>
       ${open ? this.renderBody(b) : nothing}
     </details>`;
   }
@@ -348,10 +362,10 @@ export class FurrowHelp extends LitElement {
   private renderBody(b: BuiltinInfo) {
     return html`<div class="entry">
       <code class="signature">${b.signature}</code>
-      <p>${b.doc}</p>
+      <p>${withCode(b.doc)}</p>
       ${b.params.length > 0
         ? html`<dl>
-            ${b.params.map((p) => html`<dt>${p.name}</dt><dd>${p.description}${p.doc !== '' ? html`: ${p.doc}` : nothing}</dd>`)}
+            ${b.params.map((p) => html`<dt>${p.name}</dt><dd>${p.description}${p.doc !== '' ? html`: ${withCode(p.doc)}` : nothing}</dd>`)}
           </dl>`
         : nothing}
       ${b.returns !== '' ? html`<p class="returns">${startMsg.helpReturns(b.returns)}</p>` : nothing}
