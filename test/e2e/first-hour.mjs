@@ -212,6 +212,12 @@ export const firstHourTests = [
       if (!(await pairedEntry.evaluate((d) => d.open))) await pairedEntry.locator('summary').click();
       const fit = (await pairedEntry.locator('.example .fit').innerText()).replace(/\s+/g, ' ');
       check(/has no sleep \(drug_1, drug_2\)/.test(fit), `the panel names the table the example expects: ${fit}`);
+      // at 800 px the panel lies over the sheet and fits the window
+      await page.setViewportSize({ width: 800, height: 900 });
+      await page.waitForTimeout(200);
+      const box = await page.locator('furrow-app aside.help').boundingBox();
+      check(box !== null && box.x >= 0 && box.x + box.width <= 800, `the panel fits at 800 px: ${JSON.stringify(box)}`);
+      await page.screenshot({ path: `${out}/help-panel-800.png` });
     },
   },
   {
@@ -317,7 +323,8 @@ export const firstHourTests = [
       const colourOf = (cell) =>
         page.evaluate((n) => {
           const el = document.querySelector('furrow-app').shadowRoot.querySelector(`section[data-name="${n}"] furrow-formula-cell`);
-          const span = [...el.shadowRoot.querySelectorAll('.cm-content span')].find((s) => s.textContent === 'blocked');
+          // the innermost span: an underline may wrap the coloured one
+          const span = [...el.shadowRoot.querySelectorAll('.cm-content span')].find((s) => s.textContent === 'blocked' && s.children.length === 0);
           return span ? getComputedStyle(span).color : null;
         }, cell);
       // the fit cell is on screen at load: its editor was made then
@@ -327,6 +334,7 @@ export const firstHourTests = [
       await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.activeElement?.closest('section')?.dataset.name === 'value1');
       await page.keyboard.type('blocked');
       await page.keyboard.press('Escape');
+      await page.waitForTimeout(300);
       const later = await colourOf('value1');
       check(later !== null && later === atLoad, `the same colour at load and later: ${atLoad} and ${later}`);
       const accent = await page.evaluate(() => getComputedStyle(document.documentElement).getPropertyValue('--accent').trim());
