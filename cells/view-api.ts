@@ -28,6 +28,8 @@ export interface BuiltinInfo {
   readonly doc: string;
   readonly returns: string;
   readonly category: string;
+  /** A short call as a user would write it (the registry's example; absent in hand-made catalogues). */
+  readonly example?: string;
   readonly params: readonly { readonly name: string; readonly description: string; readonly doc: string }[];
 }
 

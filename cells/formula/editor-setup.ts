@@ -8,11 +8,12 @@ import { autocompletion, closeBrackets, closeBracketsKeymap, completionKeymap, t
 import { defaultKeymap } from '@codemirror/commands';
 import { bracketMatching } from '@codemirror/language';
 import { linter } from '@codemirror/lint';
-import { Annotation, Facet, Prec, type Extension } from '@codemirror/state';
+import { Annotation, Compartment, Facet, Prec, type EditorState, type Extension } from '@codemirror/state';
 import { EditorView, keymap, placeholder } from '@codemirror/view';
 import type { BuiltinInfo, NameCatalogue } from '../view-api.ts';
 import { completionSpot, firstSentence, offersAt, type Offer } from './editor-complete.ts';
 import { builtinNames, formulaHighlighting } from './editor-language.ts';
+import { hoverDocs, signatureHints } from './editor-tooltips.ts';
 
 /** What an editor asks of the element that holds it. */
 export interface FormulaEditorHost {
@@ -155,6 +156,10 @@ const look = EditorView.theme({
   '.cm-tooltip-autocomplete li[aria-selected] .cm-completionDetail': { color: 'var(--sheet)' },
   '.cm-completionInfo': { maxWidth: '26rem', padding: '0.4rem 0.6rem' },
   '.furrow-info p': { margin: '0.3rem 0 0' },
+  '.furrow-hover, .furrow-signature': { padding: '0.35rem 0.6rem', maxWidth: '30rem' },
+  '.furrow-current-param': { color: 'var(--ink)', textDecoration: 'underline', textUnderlineOffset: '2px' },
+  '.furrow-info-example code': { fontFamily: 'var(--font-code)' },
+  '.furrow-info-label, .furrow-param-doc': { color: 'var(--ink-soft)' },
   '.furrow-info-signature': { fontFamily: 'var(--font-code)', color: 'var(--accent)' },
   '.furrow-info-returns': { color: 'var(--ink-soft)' },
   '.cm-diagnostic': { fontFamily: 'var(--font-ui)' },
@@ -163,6 +168,16 @@ const look = EditorView.theme({
 });
 
 const shared = new WeakMap<readonly BuiltinInfo[], Extension>();
+
+const catalogueOf = (state: EditorState): NameCatalogue | null => state.facet(editorHost)?.catalogue ?? null;
+
+/**
+ * The slot that holds an editor's shared extensions. Editors made before the worker has
+ * sent the built-ins (those on screen at load) start with an empty list; when the list
+ * arrives the element swaps the extensions in this slot, so they highlight built-in names
+ * exactly as editors made later do.
+ */
+export const formulaSetup = new Compartment();
 
 /**
  * The extensions every formula editor of a page shares, made once per list of built-ins
@@ -179,6 +194,8 @@ export function formulaExtensions(builtins: readonly BuiltinInfo[]): Extension {
     closeBrackets(),
     bracketMatching(),
     autocompletion({ override: [formulaCompletions], icons: false, activateOnTyping: true }),
+    hoverDocs(catalogueOf),
+    signatureHints(catalogueOf),
     // diagnostics are set by the element (setDiagnostics); no lint source runs on its own
     linter(null),
     EditorView.lineWrapping,

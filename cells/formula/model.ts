@@ -9,6 +9,7 @@ import { LangError } from '../../src/lang/errors.ts';
 import { evaluate } from '../../src/lang/evaluate.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
 import { parseStatement } from '../../src/lang/parser.ts';
+import { scanToken } from '../../src/lang/lexer.ts';
 import { MISSING, errorValue } from '../../src/lang/values.ts';
 
 /** Parses a formula cell's text, keeping the error when it does not parse. */
@@ -21,8 +22,52 @@ export function parseFormula(text: string): { statement: Statement | null; error
   }
 }
 
+/** An empty formula: nothing but blanks and comments, perhaps after `NAME =`. */
+export interface EmptyFormula {
+  /** The name before `=`, with its offsets, or null for a cell with no text at all. */
+  readonly name: { readonly text: string; readonly from: number; readonly to: number } | null;
+}
+
+/**
+ * Whether a formula is still empty: a new cell (`value1 = `) or one whose expression was
+ * deleted. Such a cell is not a mistake yet, so it is shown as empty, not as an error, and
+ * the cells that read its name see a missing value.
+ */
+export function emptyFormula(text: string): EmptyFormula | null {
+  const words: { text: string; from: number; to: number }[] = [];
+  let pos = 0;
+  while (pos < text.length) {
+    const s = scanToken(text, pos);
+    if (s.kind === 'error') return null;
+    if (s.kind !== 'token') {
+      pos = s.to;
+      continue;
+    }
+    const t = s.token;
+    if (t.type === 'end') break;
+    words.push({ text: t.text, from: t.from, to: t.to });
+    if (words.length > 2) return null;
+    pos = t.to;
+  }
+  if (words.length === 0) return { name: null };
+  const [first, second] = words;
+  if (words.length === 2 && second!.text === '=' && isPlainName(first!.text)) return { name: first! };
+  return null;
+}
+
 /** What a formula defines and reads, and how it evaluates. */
 export function analyseFormula(cell: Cell): CellAnalysis {
+  const empty = emptyFormula(cell.body);
+  if (empty !== null) {
+    const n = empty.name;
+    return {
+      defines: n === null ? null : { name: n.text, from: n.from, to: n.to },
+      reads: [],
+      problem: null,
+      evaluates: true,
+      evaluate: () => ({ value: MISSING }),
+    };
+  }
   const { statement, error } = parseFormula(cell.body);
   if (statement === null) {
     const e = error!;

@@ -6,7 +6,7 @@
  */
 import type { ErrorValue } from '../../src/lang/values.ts';
 import type { CellViewState } from '../view-api.ts';
-import { parseFormula } from './model.ts';
+import { emptyFormula, parseFormula } from './model.ts';
 
 /** One problem with a formula. */
 export interface FormulaProblem {
@@ -41,7 +41,7 @@ export function parseVisible(text: string): ParsedFormula {
   if (lastParsed !== null && lastParsed.text === text) return lastParsed;
   const { statement, error } = parseFormula(text);
   const problem = error === null ? null : { ...clampRange(error.from, error.to, text.length), message: error.message, source: 'parse' as const };
-  lastParsed = { text, name: statement?.name ?? null, problem };
+  lastParsed = { text, name: statement?.name ?? emptyFormula(text)?.name?.text ?? null, problem };
   return lastParsed;
 }
 
@@ -53,8 +53,8 @@ export function parseVisible(text: string): ParsedFormula {
  *   was about this very text, since its offsets mean nothing in another.
  */
 export function formulaProblems(text: string, state: CellViewState | null, evaluated: string | null): FormulaProblem[] {
-  // a cell still being written is not an error yet
-  if (text.trim() === '') return [];
+  // a cell still being written (nothing yet, or `name =` and nothing after) is not an error yet
+  if (emptyFormula(text) !== null) return [];
   const parsed = parseVisible(text);
   if (parsed.problem !== null) return [parsed.problem];
   if (state === null || evaluated !== text) return [];

@@ -17,7 +17,10 @@ import '../../src/views/values/value.ts';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
 import { FLUSH_EVENT, emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { builtinNames, staticTokenCss } from './editor-language.ts';
-import { editorHost, formulaExtensions, fromDocument, type FormulaEditorHost } from './editor-setup.ts';
+import { editorHost, formulaExtensions, formulaSetup, fromDocument, type FormulaEditorHost } from './editor-setup.ts';
+import type { BuiltinInfo } from '../view-api.ts';
+import { emptyFormula } from './model.ts';
+import { startMsg } from '../../src/messages/page.ts';
 import { formulaProblems, parseVisible, type FormulaProblem } from './view-problems.ts';
 import { staticPieces } from './view-static.ts';
 import { textChange } from './view-sync.ts';
@@ -65,6 +68,8 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
   /** The visible text the current `state` describes (its offsets index this text). */
   private stateText: string | null = null;
   private shownDiagnostics = '';
+  /** The list of built-ins the editor's extensions were made for. */
+  private editorBuiltins: readonly BuiltinInfo[] | null = null;
 
   constructor() {
     super();
@@ -120,6 +125,12 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
         font-style: italic;
       }
       ${unsafeCSS(staticTokenCss().replace(/\.tok-/g, 'pre.static .tok-'))}
+      p.empty {
+        margin: 0.35rem 0 0;
+        font-size: 0.8rem;
+        color: var(--muted);
+        font-style: italic;
+      }
       .problem {
         margin: 0.35rem 0 0;
         font-size: 0.88rem;
@@ -221,10 +232,17 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
     emitEdit(this, { type: 'body', id: p.id, body }, `body:${p.id}`);
   }
 
-  /** Creates the editor now (if it is not there yet) and puts the cursor in it. */
+  /**
+   * Creates the editor now (if it is not there yet) and puts the cursor in it: at the end of
+   * the text when the editor did not have the focus (a new cell's `value1 = `, a cell reached
+   * by a key), where it was otherwise.
+   */
   async focusEditor(): Promise<void> {
     await this.ensureEditor();
-    this.view?.focus();
+    const view = this.view;
+    if (view === null || view.hasFocus) return;
+    view.dispatch({ selection: { anchor: view.state.doc.length } });
+    view.focus();
   }
 
   /** Creates the editor now, whether or not the cell has scrolled into view. */
@@ -297,9 +315,10 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
       root: this.renderRoot as ShadowRoot,
       state: EditorState.create({
         doc: this.text,
-        extensions: [formulaExtensions(this.catalogue.builtins), editorHost.of(this)],
+        extensions: [formulaSetup.of(formulaExtensions(this.catalogue.builtins)), editorHost.of(this)],
       }),
     });
+    this.editorBuiltins = this.catalogue.builtins;
     this.shownDiagnostics = '';
     this.hasEditor = true;
   }
@@ -340,6 +359,11 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
   protected override updated(): void {
     const view = this.view;
     if (view === null) return;
+    // the built-ins arrived (or changed) after the editor was made: same look as a new editor
+    if (this.catalogue.builtins !== this.editorBuiltins) {
+      this.editorBuiltins = this.catalogue.builtins;
+      view.dispatch({ effects: formulaSetup.reconfigure(formulaExtensions(this.catalogue.builtins)) });
+    }
     const text = view.state.doc.toString();
     const problems = formulaProblems(text, this.state, this.stateText);
     const key = JSON.stringify(problems);
@@ -377,6 +401,8 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
     // an error value is said in words above (with its range underlined); not drawn twice
     const showValue = value !== null && !(typeof value === 'object' && value.kind === 'error');
     const failedUpstream = state !== null && state.status === 'upstream';
+    // a new cell, or one whose expression was deleted: nothing to show yet, and no error
+    const empty = emptyFormula(this.text) !== null;
     return html`
       <div class="editor" ?hidden=${!this.hasEditor}></div>
       ${this.hasEditor ? nothing : this.renderStatic(first)}
@@ -394,7 +420,9 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
           </div>`
         : nothing}
       ${state === null || state.warnings.length === 0 ? nothing : html`<ul class="warnings">${state.warnings.map((w) => html`<li>${w}</li>`)}</ul>`}
-      ${showValue && !failedUpstream
+      ${empty
+        ? html`<p class="empty">${startMsg.formulaEmpty()}</p>`
+        : showValue && !failedUpstream
         ? html`<div class="result ${pending ? 'stale' : ''}">
             <furrow-value .value=${value} name=${parseVisible(this.text).name ?? nothing}></furrow-value>
           </div>`

@@ -15,6 +15,7 @@ import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/views/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
+import { startMsg } from '../../src/messages/page.ts';
 import { splitNote } from './model.ts';
 import { ATTRIBUTE_SLOT, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';
 
@@ -265,6 +266,7 @@ export class NoteCellView extends LitElement {
     if (this.editing) {
       return html`<textarea
           aria-label="Note text (Markdown; {expression} shows a live value)"
+          placeholder=${startMsg.notePrompt()}
           @input=${this.onInput}
           @keydown=${this.onKeydown}
           @blur=${() => this.finishEditing()}
@@ -293,7 +295,7 @@ export class NoteCellView extends LitElement {
           }
         }}
       >
-        ${text.trim() === '' ? html`<span class="empty">Empty note: double-click to write.</span>` : this.rendered.node}
+        ${text.trim() === '' ? html`<span class="empty">${startMsg.notePrompt()} <span class="hint">${startMsg.emptyNote()}</span></span>` : this.rendered.node}
       </div>
       ${problems.length > 0
         ? html`<ul class="problems">
@@ -346,6 +348,12 @@ export class NoteCellView extends LitElement {
 
   private placeholderSource(i: number): string {
     return this.rendered?.placeholders[i]?.source ?? '';
+  }
+
+  /** Opens the note for writing and puts the caret in it (a new note, a key from the shell). */
+  async focusEditor(): Promise<void> {
+    this.startEditing();
+    await this.updateComplete;
   }
 
   private startEditing(): void {

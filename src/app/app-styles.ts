@@ -280,4 +280,25 @@ export const appStyles = css`
       break-inside: avoid;
     }
   }
+  /* the help panel: a drawer on the right; on a wide screen the sheet moves aside for it */
+  aside.help {
+    position: fixed;
+    top: 0;
+    right: 0;
+    bottom: 0;
+    width: min(26rem, 100vw);
+    z-index: 10;
+    box-shadow: -6px 0 18px rgb(0 0 0 / 0.08);
+  }
+  @media (min-width: 1100px) {
+    main.with-help {
+      margin-right: 26rem;
+      margin-left: max(0px, calc((100vw - 26rem - 58rem) / 2));
+    }
+  }
+  @media print {
+    aside.help {
+      display: none;
+    }
+  }
 `;

@@ -23,13 +23,16 @@ import { NotUtf8Error } from '../doc/utf8.ts';
 import type { CellKind } from '../graph/cell-kind.ts';
 import { isPlainName } from '../lang/lexer.ts';
 import { importMsg } from '../messages/import.ts';
-import { pageMsg } from '../messages/page.ts';
+import { pageMsg, startMsg } from '../messages/page.ts';
 import { shared } from '../views/theme.ts';
 import { appStyles } from './app-styles.ts';
 import { fileKey, forget, listSaved, loadSaved, newKey, sampleKey, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
 import { cellMargin } from './cell-margin.ts';
 import { engineText, storedFile } from './data-files.ts';
+import { cellCommandFor, type CellCommand } from './cell-keys.ts';
+import { HELP_CLOSE_EVENT, HELP_INSERT_EVENT, type FurrowHelp, type HelpInsertDetail } from './help/help-panel.ts';
+import './help/help-panel.ts';
 import { FileDrop } from './drop.ts';
 import './import-offer.ts';
 import type { ImportChoice } from './import-offer.ts';
@@ -48,22 +51,31 @@ interface Banner {
   readonly actions?: readonly { readonly label: string; readonly run: () => void }[];
 }
 
-/** A new cell of a kind, named with the first name of its pattern not yet taken. */
-function newCell(doc: Document, kind: CellKind): Cell | null {
-  if (kind.template === undefined) return null;
+/** Names a pattern's first name not yet taken in a document: `value1`, `value2`, … */
+function freshNames(doc: Document): (base: string) => string {
   const names = new Set(doc.cells.map((c) => CELL_KINDS.nameOf(c)).filter((n): n is string => n !== null));
-  const fresh = (base: string): string => {
+  return (base: string): string => {
     for (let k = 1; ; k++) {
       const n = `${base}${k}`;
       if (!names.has(n)) return n;
     }
   };
-  const { marker, body } = kind.template(fresh);
+}
+
+/** A new cell of a kind, named with the first name of its pattern not yet taken. */
+function newCell(doc: Document, kind: CellKind): Cell | null {
+  if (kind.template === undefined) return null;
+  const { marker, body } = kind.template(freshNames(doc));
   return { id: freshCellId(doc), marker, eol: '\n', body };
 }
 
 /** The kinds the page offers to add, in their listed order. */
 const ADDABLE = CELL_KINDS.all().filter((k) => k.template !== undefined);
+
+/** A cell view that can take the caret itself (the formula's editor, a note's text). */
+interface FocusableView extends HTMLElement {
+  focusEditor?: () => Promise<void>;
+}
 
 /** The page. */
 export class FurrowApp extends LitElement {
@@ -74,6 +86,7 @@ export class FurrowApp extends LitElement {
     renaming: { state: true },
     tick: { state: true },
     kept: { state: true },
+    helpOpen: { state: true },
   };
 
   declare doc: Document;
@@ -85,6 +98,8 @@ export class FurrowApp extends LitElement {
   declare tick: number;
   /** Other documents kept in this browser, newest first. */
   declare kept: readonly SavedState[];
+  /** Whether the help panel is open. */
+  declare helpOpen: boolean;
 
   private store!: DocumentStore;
   private bridge!: EvaluationBridge;
@@ -103,6 +118,7 @@ export class FurrowApp extends LitElement {
     this.renaming = null;
     this.tick = 0;
     this.kept = [];
+    this.helpOpen = false;
     this.keeper = new DocumentKeeper({
       state: () => ({ text: writeDocument(this.store.document), title: documentTitle(this.store.document), fileName: this.fileName, files: [...this.files] }),
       saved: (ok, error) => {
@@ -177,6 +193,10 @@ export class FurrowApp extends LitElement {
     this.addEventListener(EDIT_EVENT, this.onEdit as EventListener);
     this.addEventListener('furrow-undo', this.onUndo);
     this.addEventListener('furrow-redo', this.onRedo);
+    this.addEventListener(HELP_INSERT_EVENT, this.onHelpInsert as EventListener);
+    this.addEventListener(HELP_CLOSE_EVENT, this.onHelpClose);
+    // before any editor sees the key: the cell keys are chosen to mean nothing to them
+    window.addEventListener('keydown', this.onCellKey, true);
     window.addEventListener('keydown', this.onKeydown);
     window.addEventListener('pagehide', this.onLeave);
     document.addEventListener('visibilitychange', this.onVisibility);
@@ -187,6 +207,9 @@ export class FurrowApp extends LitElement {
     this.removeEventListener(EDIT_EVENT, this.onEdit as EventListener);
     this.removeEventListener('furrow-undo', this.onUndo);
     this.removeEventListener('furrow-redo', this.onRedo);
+    this.removeEventListener(HELP_INSERT_EVENT, this.onHelpInsert as EventListener);
+    this.removeEventListener(HELP_CLOSE_EVENT, this.onHelpClose);
+    window.removeEventListener('keydown', this.onCellKey, true);
     window.removeEventListener('keydown', this.onKeydown);
     window.removeEventListener('pagehide', this.onLeave);
     document.removeEventListener('visibilitychange', this.onVisibility);
@@ -242,28 +265,139 @@ export class FurrowApp extends LitElement {
     }
   };
 
+  // ---- keys for cells (src/app/cell-keys.ts) ------------------------------------------
+
+  private readonly onCellKey = (e: KeyboardEvent): void => {
+    const command = cellCommandFor(e);
+    if (command === null || this.doc === undefined) return;
+    e.preventDefault();
+    e.stopPropagation();
+    const cell = this.cellOf(e);
+    if (command !== 'help') this.keepTyping();
+    this.runCellCommand(command, cell);
+  };
+
+  /**
+   * Hands over what is being typed before a cell command moves, adds or deletes cells: views
+   * send text still in their typing pause, and the focused field or editor is left (a table
+   * field keeps its text when it loses the focus), so the command's edit comes after it.
+   */
+  private keepTyping(): void {
+    window.dispatchEvent(new Event(FLUSH_EVENT));
+    let active: Element | null = document.activeElement;
+    while (active?.shadowRoot?.activeElement) active = active.shadowRoot.activeElement;
+    if (active instanceof HTMLElement) active.blur();
+  }
+
+  /** The cell an event came from (the one holding the focus), if any. */
+  private cellOf(e: Event): Cell | null {
+    for (const t of e.composedPath()) {
+      if (t instanceof HTMLElement && t.tagName === 'SECTION' && t.dataset.cell !== undefined) {
+        return this.doc.cells.find((c) => c.id === t.dataset.cell) ?? null;
+      }
+    }
+    return null;
+  }
+
+  private runCellCommand(command: CellCommand, cell: Cell | null): void {
+    const cells = this.doc.cells;
+    const i = cell === null ? -1 : cells.findIndex((c) => c.id === cell.id);
+    switch (command) {
+      case 'help':
+        this.toggleHelp();
+        return;
+      case 'add-below': {
+        const formula = ADDABLE.find((k) => k.kind === 'formula') ?? ADDABLE[0];
+        if (formula !== undefined) this.addCell(formula, i < 0 ? cells.length : i + 1);
+        return;
+      }
+      case 'previous':
+      case 'next': {
+        const to = i < 0 ? (command === 'next' ? 0 : cells.length - 1) : i + (command === 'next' ? 1 : -1);
+        const target = cells[to];
+        if (target !== undefined) void this.focusCell(target.id, false);
+        return;
+      }
+      case 'move-up':
+      case 'move-down':
+        if (cell !== null) this.moveCell(cell, command === 'move-up' ? -1 : 1, true);
+        return;
+      case 'delete': {
+        if (cell === null) return;
+        const next = cells[i + 1] ?? cells[i - 1];
+        this.deleteCell(cell);
+        if (next !== undefined) void this.focusCell(next.id, false);
+        return;
+      }
+    }
+  }
+
+  /**
+   * Puts the caret in a cell: a formula's editor, a new note's text, a table's grid. `write`
+   * opens a note for writing (a new note); going to a note only focuses it (Enter edits).
+   */
+  private async focusCell(id: string, write: boolean): Promise<void> {
+    await this.updateComplete;
+    const section = this.renderRoot.querySelector<HTMLElement>(`section[data-cell="${id}"]`);
+    if (section === null) return;
+    section.scrollIntoView({ block: 'nearest' });
+    const view = section.querySelector<FocusableView>('.body > *');
+    if (view === null) return;
+    if (view.focusEditor !== undefined && (write || view.tagName !== 'FURROW-NOTE-CELL')) {
+      await view.focusEditor();
+      return;
+    }
+    if ('updateComplete' in view) await (view as unknown as LitElement).updateComplete;
+    const root = view.shadowRoot ?? view;
+    const target = root.querySelector<HTMLElement>('[role="grid"], [tabindex="0"]');
+    target?.focus();
+  }
+
+  // ---- the help panel -----------------------------------------------------------------
+
+  private toggleHelp(): void {
+    this.helpOpen = !this.helpOpen;
+    if (this.helpOpen) {
+      void this.updateComplete.then(() => this.renderRoot.querySelector<FurrowHelp>('furrow-help')?.focusSearch());
+    }
+  }
+
+  private readonly onHelpClose = (): void => {
+    this.helpOpen = false;
+  };
+
+  /** An example from the help panel becomes a named formula cell at the end of the document. */
+  private readonly onHelpInsert = (e: CustomEvent<HelpInsertDetail>): void => {
+    e.stopPropagation();
+    const name = freshNames(this.doc)(e.detail.fn.replace(/_+$/, ''));
+    const cell: Cell = { id: freshCellId(this.doc), marker: 'formula', eol: '\n', body: `${name} = ${e.detail.text}\n\n` };
+    this.apply({ type: 'insert', index: this.doc.cells.length, cell });
+    this.banner = { kind: 'info', text: startMsg.helpInserted(name) };
+    void this.updateComplete.then(() => this.renderRoot.querySelector<HTMLElement>(`section[data-cell="${cell.id}"]`)?.scrollIntoView({ block: 'nearest' }));
+  };
+
   // ---- document operations ------------------------------------------------------------
 
+  /** Adds a cell of a kind at a place, and puts the caret in it. */
   private addCell(kind: CellKind, index: number): void {
     const cell = newCell(this.doc, kind);
     if (cell === null) return;
     this.apply({ type: 'insert', index, cell });
-    void this.updateComplete.then(() => {
-      const el = this.renderRoot.querySelector<HTMLElement>(`[data-cell="${cell.id}"]`);
-      el?.scrollIntoView({ block: 'nearest' });
-    });
+    void this.focusCell(cell.id, true);
   }
 
   private deleteCell(cell: Cell): void {
     this.apply({ type: 'delete', id: cell.id });
-    this.banner = { kind: 'info', text: pageMsg.cellDeleted() };
+    this.banner = { kind: 'info', text: pageMsg.cellDeleted(), actions: [{ label: startMsg.undo(), run: () => this.onUndo() }] };
   }
 
-  private moveCell(cell: Cell, by: number): void {
+  private moveCell(cell: Cell, by: number, keepFocus = false): void {
     const i = this.doc.cells.findIndex((c) => c.id === cell.id);
     const to = i + by;
     if (to < 0 || to >= this.doc.cells.length) return;
     this.apply({ type: 'move', id: cell.id, index: to });
+    // a moved cell's editor is made anew: the caret follows it
+    if (keepFocus) void this.focusCell(cell.id, false);
   }
 
   private rename(cell: Cell, name: string): void {
@@ -284,7 +418,7 @@ export class FurrowApp extends LitElement {
   }
 
   private setTitle(title: string): void {
-    if (title.trim() === documentTitle(this.doc)) return;
+    if (title.trim() === (headerFields(this.doc).get('title')?.trim() ?? '')) return;
     this.apply({ type: 'header', header: withTitle(this.doc.header, title) });
   }
 
@@ -545,6 +679,7 @@ export class FurrowApp extends LitElement {
         <span class="sep"></span>
         <button @click=${this.onUndo} ?disabled=${!this.store.canUndo} title="Undo (Ctrl+Z)">Undo</button>
         <button @click=${this.onRedo} ?disabled=${!this.store.canRedo} title="Redo (Ctrl+Shift+Z)">Redo</button>
+        <button class="help-toggle" aria-pressed=${this.helpOpen ? 'true' : 'false'} @click=${() => this.toggleHelp()} title=${startMsg.helpButtonTitle()}>${startMsg.helpButton()}</button>
         <span class="status" role="status" aria-live="polite">${this.summary()}</span>
       </nav>
       ${this.banner
@@ -562,13 +697,14 @@ export class FurrowApp extends LitElement {
             @furrow-import-cancel=${() => (this.importing = null)}
           ></furrow-import-offer>`
         : nothing}
-      <main>
+      <main class=${this.helpOpen ? 'with-help' : ''}>
         <header>
           <textarea
             class="title"
             rows="1"
             aria-label="Title"
-            .value=${documentTitle(this.doc)}
+            placeholder=${startMsg.titlePlaceholder()}
+            .value=${fields.get('title')?.trim() ?? ''}
             @change=${(e: Event) => this.setTitle((e.target as HTMLTextAreaElement).value)}
             @keydown=${(e: KeyboardEvent) => {
               if (e.key === 'Enter') {
@@ -591,6 +727,7 @@ export class FurrowApp extends LitElement {
           ${ADDABLE.map((k) => html`<button @click=${() => this.addCell(k, this.doc.cells.length)}>+ ${k.label}</button>`)}
         </div>
       </main>
+      ${this.helpOpen ? html`<aside class="help" aria-label=${startMsg.helpHeading()}><furrow-help .catalogue=${catalogue}></furrow-help></aside>` : nothing}
     `;
   }
 

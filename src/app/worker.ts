@@ -9,9 +9,9 @@ import type { Document } from '../doc/document.ts';
 import { applyEdit, cellsTouched } from '../doc/edits.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
-import { describeParam, signature } from '../lang/builtins.ts';
 import { Engine } from '../graph/engine.ts';
 import { isRecord, isTable, type Value } from '../lang/values.ts';
+import { builtinInfos } from './builtin-info.ts';
 import { portable, type CellResult, type FromWorker, type ToWorker } from './protocol.ts';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -105,14 +105,4 @@ scope.onmessage = (e: MessageEvent<ToWorker>) => {
   }
 };
 
-post({
-  type: 'ready',
-  builtins: BUILTINS.all().map((b) => ({
-    name: b.name,
-    signature: signature(b),
-    doc: b.doc,
-    returns: b.returns,
-    category: b.category,
-    params: b.params.map((p) => ({ name: p.name, description: describeParam(p), doc: p.doc })),
-  })),
-});
+post({ type: 'ready', builtins: builtinInfos(BUILTINS) });

@@ -63,5 +63,37 @@ export const pageMsg = {
   sharedWithTab: () => 'This document is open in another tab too. Edits in either tab are kept, and the last one saved wins: close one of the tabs to be safe.',
   savedInOtherTab: () => 'Another tab saved this document. Reload to see its version, or keep editing here and your version is saved over it.',
   reload: () => 'Reload',
-  newDocumentText: () => 'furrow 1\ntitle: Untitled trial\n\n--- note\nWhat is compared, on what, and why.\n\n',
+  // a new document starts with no title and one empty note: what shows there is a placeholder
+  newDocumentText: () => 'furrow 1\n\n--- note\n\n',
+};
+
+/** Words of the first hour: placeholders, empty cells, the help panel, the cell keys. */
+export const startMsg = {
+  titlePlaceholder: () => 'Untitled trial',
+  notePrompt: () => 'What is compared, on what, and why.',
+  emptyNote: () => 'Empty note: double-click or press Enter to write.',
+  undo: () => 'Undo',
+  formulaEmpty: () => 'empty: write an expression after "=" (cells that read this name see a missing value)',
+
+  // ---- the help panel -----------------------------------------------------------------
+  helpButton: () => 'Help',
+  helpButtonTitle: () => 'Built-in functions and keys (F1)',
+  helpHeading: () => 'Built-in functions',
+  helpClose: () => 'Close help',
+  helpSearch: () => 'Find a function',
+  helpSearchPlaceholder: () => 'name or word, e.g. blocked, interval',
+  helpAll: () => 'all',
+  helpNothingFound: (q: string) => `No built-in matches "${q}".`,
+  helpCount: (shown: number, total: number) => (shown === total ? `${total} functions` : `${shown} of ${total} functions`),
+  helpReturns: (what: string) => `Returns ${what}.`,
+  helpExample: () => 'Example',
+  helpInsert: () => 'Add as a cell',
+  helpInsertTitle: () => 'Add this example as a new formula cell at the end of the document',
+  helpInsertAdapted: (from: string, to: string) => `Add as a cell (reading ${to} for ${from})`,
+  helpNeeds: (what: string) => `Reads ${what}.`,
+  helpMissing: (what: string) => `This document has no ${what}: the cell will say so until you add it or change the names.`,
+  helpReady: () => 'This document has what it reads.',
+  helpInserted: (name: string | null) => `Added the example as a new cell${name === null ? '' : ` (${name})`} at the end of the document.`,
+  helpKeysHeading: () => 'Keys for cells',
+  helpKeysNote: () => 'Work anywhere on the page, in editors too.',
 };

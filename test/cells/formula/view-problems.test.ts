@@ -18,6 +18,13 @@ describe('formulaProblems', () => {
     expect(p!.message).toMatch(/\*/);
   });
 
+  it('shows no problem for a formula still empty, with or without its name', () => {
+    expect(formulaProblems('', null, null)).toEqual([]);
+    expect(formulaProblems('value1 = ', null, null)).toEqual([]);
+    expect(parseVisible('value1 = ').name).toBe('value1');
+    expect(formulaProblems('value1 = 1 +', null, null)).toHaveLength(1);
+  });
+
   it('prefers the parse error over an older evaluation error', () => {
     const text = 'x = (1 + ';
     const problems = formulaProblems(text, failed('There is no name "y".', 4, 5), text);

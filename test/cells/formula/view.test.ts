@@ -3,7 +3,7 @@ import { CompletionContext } from '@codemirror/autocomplete';
 import { forEachDiagnostic } from '@codemirror/lint';
 import { runScopeHandlers } from '@codemirror/view';
 import { afterEach, describe, expect, it } from 'vitest';
-import { formulaCompletions } from '../../../cells/formula/editor-setup.ts';
+import { formulaCompletions, formulaExtensions, formulaSetup } from '../../../cells/formula/editor-setup.ts';
 import { EDIT_DELAY_MS, FurrowFormulaCell } from '../../../cells/formula/view.ts';
 import { EDIT_EVENT, type CellViewState, type EditEventDetail, type NameCatalogue } from '../../../cells/view-api.ts';
 import type { Cell } from '../../../src/doc/document.ts';
@@ -226,5 +226,34 @@ describe('reuse for another cell', () => {
     await el.updateComplete;
     expect(edits.map((e) => e.edit)).toEqual([{ type: 'body', id: 'c7', body: 'x = 15\n\n' }]);
     expect(el.editorView!.state.doc.toString()).toBe('y = 2');
+  });
+
+  it('gives an editor made before the built-ins arrived the same extensions as one made after', async () => {
+    const el = document.createElement('furrow-formula-cell');
+    el.cell = { id: 'c9', marker: 'formula', eol: '\n', body: 'm = mean(plots.yield)\n\n' };
+    const none: NameCatalogue['builtins'] = [];
+    el.catalogue = { builtins: none, cells: [] };
+    document.body.append(el);
+    mounted.push(el);
+    await el.ensureEditor();
+    const view = el.editorView!;
+    expect(formulaSetup.get(view.state)).toBe(formulaExtensions(none));
+    el.catalogue = catalogue;
+    await el.updateComplete;
+    expect(el.editorView).toBe(view);
+    expect(formulaSetup.get(view.state)).toBe(formulaExtensions(catalogue.builtins));
+    expect(view.state.doc.toString()).toBe('m = mean(plots.yield)');
+  });
+
+  it('shows a new formula as empty, with no problem, and a value only once one is typed', async () => {
+    const { el } = await mount('value1 = \n\n', ok({ kind: 'missing' }));
+    expect(shadow(el).querySelector('p.empty')?.textContent).toMatch(/^empty/);
+    expect(shadow(el).querySelector('.problem')).toBeNull();
+    expect(shadow(el).querySelector('furrow-value')).toBeNull();
+    el.cell = { id: 'c7', marker: 'formula', eol: '\n', body: 'value1 = 2\n\n' };
+    el.state = ok(2);
+    await el.updateComplete;
+    expect(shadow(el).querySelector('p.empty')).toBeNull();
+    expect(shadow(el).querySelector('furrow-value')).not.toBeNull();
   });
 });
