@@ -45,7 +45,10 @@ describe('splitNote', () => {
         const pieces = splitNote(text);
         const ms = performance.now() - t0;
         expect(pieces.length).toBeGreaterThan(0);
-        expect(ms).toBeLessThan(2000);
+        // linear reads 1 MB in tens of milliseconds; a rescan per brace would take minutes.
+        // The bound is the scanner tests' own (test/attacks/scanners.test.ts), wide enough
+        // for a machine busy with other work
+        expect(ms).toBeLessThan(5000);
       });
     }
   });
