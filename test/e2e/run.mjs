@@ -10,6 +10,7 @@ import { check, runTests } from './harness.mjs';
 import { keepingTests } from './keeping.mjs';
 import { closingTests } from './closing.mjs';
 import { exportTests } from './exports.mjs';
+import { convertingTests } from './converting.mjs';
 import { cellText, noteText, statusOf, settled, shownF, field, openDocument } from './page.mjs';
 
 const args = process.argv.slice(2);
@@ -514,6 +515,7 @@ tests.push({
 tests.push(...keepingTests(measured));
 tests.push(...closingTests);
 tests.push(...exportTests);
+tests.push(...convertingTests);
 
 const { failed } = await runTests(tests, { build, json });
 writeFileSync(`test-output/e2e/measured.json`, `${JSON.stringify({ machine: cpus()[0]?.model ?? 'unknown', ...measured }, null, 2)}\n`);
