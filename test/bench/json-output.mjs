@@ -75,7 +75,9 @@ try {
     const timeText = r.stderr;
     const field = (name) => timeText.split('\n').find((l) => l.trim().startsWith(name))?.split(': ').pop()?.trim() ?? '?';
     const problems = timeText.split('\n').filter((l) => l.startsWith('furrow')).join('\n');
-    console.log(`${label}: exit status ${r.status}, wall time ${field('Elapsed (wall clock) time')} (m:ss), max resident ${(Number(field('Maximum resident set size')) / 1024).toFixed(0)} MB`);
+    const cpu = Number(field('User time (seconds)')) + Number(field('System time (seconds)'));
+    // on a shared machine the wall time swings with the load; the processor time less so
+    console.log(`${label}: exit status ${r.status}, wall time ${field('Elapsed (wall clock) time')} (m:ss), processor time ${cpu.toFixed(2)} s (user + system), max resident ${(Number(field('Maximum resident set size')) / 1024).toFixed(0)} MB`);
     console.log(`  output ${(statSync(out).size / 1e6).toFixed(1)} MB, sha256 ${await digest(out)}${problems ? `\n  ${problems}` : ''}`);
   }
 } finally {
