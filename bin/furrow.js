@@ -45,5 +45,7 @@ if (why === null) {
 const code = await main(process.argv.slice(2), {
   out: (s) => process.stdout.write(`${s}\n`),
   err: (s) => process.stderr.write(`${s}\n`),
+  // `run --json` writes to the stream as it goes, waiting when the pipe is full
+  stream: process.stdout,
 });
 process.exitCode = code;

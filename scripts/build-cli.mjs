@@ -34,5 +34,18 @@ await build({
   legalComments: 'none',
   logLevel: 'warning',
 });
+// convert's unit tables (the unit part of mathjs), beside the bundle and loaded only at a
+// document's first conversion (src/functions/units.ts): most runs convert nothing
+await build({
+  entryPoints: ['src/functions/unit-library.ts'],
+  outfile: join(OUT, 'unit-library.cjs'),
+  bundle: true,
+  platform: 'node',
+  format: 'cjs',
+  target: 'node20',
+  minify: true,
+  legalComments: 'none',
+  logLevel: 'warning',
+});
 writeFileSync(join(OUT, 'stamp.json'), `${JSON.stringify({ newestSource: newest, builtAt: Date.now() })}\n`);
 console.log(`built the command line into ${OUT}/main.mjs in ${Date.now() - started} ms`);

@@ -10,9 +10,14 @@ import { applyEdit, cellsTouched } from '../doc/edits.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import { Engine } from '../graph/engine.ts';
+import * as unitLibrary from '../functions/unit-library.ts';
+import { provideUnitLibrary } from '../functions/units.ts';
 import { isRecord, isTable, type Value } from '../lang/values.ts';
 import { builtinInfos } from './builtin-info.ts';
 import { portable, type CellResult, type FromWorker, type ToWorker } from './protocol.ts';
+
+// convert's unit tables: bundled into this worker (the unit part of mathjs only), not the page
+provideUnitLibrary(unitLibrary);
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 const post = (m: FromWorker): void => scope.postMessage(m);

@@ -8,9 +8,8 @@ import { documentTitle, headerFields, isSafeFileName, type Document } from '../d
 import { DocumentError, readDocument } from '../doc/format.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
-import { toJson } from '../lang/json.ts';
-import { typeOf } from '../lang/values.ts';
 import { dataFileText, needsPreload, preloadParquet } from './data-text.ts';
+import { reportPieces, writePieces, type PieceSink } from './json-stream.ts';
 import { DOCUMENT_LIMIT_BYTES, FileProblem, readText } from './files.ts';
 import { sheetCommand } from './sheet.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
@@ -45,6 +44,12 @@ export class CliFailure extends Error {}
 export interface Output {
   out: (s: string) => void;
   err: (s: string) => void;
+  /**
+   * Standard output as a stream (bin/furrow.js passes process.stdout): `run --json` then
+   * writes as it goes, with backpressure, and `main` returns a promise. Without it the JSON
+   * is handed to `out` in one piece.
+   */
+  stream?: PieceSink;
 }
 
 /** Runs a read, turning a file problem into the command's failure. */
@@ -151,25 +156,6 @@ function humanReport(path: string, doc: Document, states: CellState[], warnings:
   o.out(bad === 0 ? `${states.length} cells, all evaluated.` : `${states.length} cells, ${bad} with an error.`);
 }
 
-function jsonReport(states: CellState[]): string {
-  const cells = states.map((s, i) => {
-    const v = s.value;
-    const isErr = typeof v === 'object' && v.kind === 'error';
-    const err = s.error;
-    const fields = [
-      `"index":${i}`,
-      `"kind":${JSON.stringify(s.kind)}`,
-      `"name":${s.name === null ? 'null' : JSON.stringify(s.name)}`,
-      `"type":${JSON.stringify(isErr ? 'error' : typeOf(v))}`,
-      `"value":${isErr ? 'null' : toJson(v)}`,
-      `"error":${err ? toJson(err) : 'null'}`,
-    ];
-    if (s.warnings.length > 0) fields.push(`"warnings":${JSON.stringify(s.warnings)}`);
-    return `{${fields.join(',')}}`;
-  });
-  return `{"furrow":1,"cells":[${cells.join(',\n')}]}`;
-}
-
 /** Runs a command, turning a CliFailure into one line on standard error and status 2. */
 function guarded(o: Output, command: () => number | Promise<number>): number | Promise<number> {
   const fail = (err: unknown): number => {
@@ -234,10 +220,21 @@ function mainNow(argv: readonly string[], o: Output, kinds: CellKinds): number |
   try {
     const { doc, engine, warnings } = loadDocument(file, kinds);
     const states = engine.states();
-    if (json) o.out(jsonReport(states));
-    else humanReport(file, doc, states, warnings, kinds, o);
-    if (json) for (const w of warnings) o.err(`furrow: warning, ${w}`);
-    return states.some((s) => s.status === 'error' || s.status === 'upstream') ? 1 : 0;
+    const status = states.some((s) => s.status === 'error' || s.status === 'upstream') ? 1 : 0;
+    if (!json) {
+      humanReport(file, doc, states, warnings, kinds, o);
+      return status;
+    }
+    const warn = (): number => {
+      for (const w of warnings) o.err(`furrow: warning, ${w}`);
+      return status;
+    };
+    if (o.stream === undefined) {
+      o.out([...reportPieces(states)].join(''));
+      return warn();
+    }
+    // the same text and ending newline as `out` would print, written as it is made
+    return writePieces(reportPieces(states), o.stream, '\n').then(warn);
   } catch (err) {
     if (err instanceof CliFailure) {
       o.err(visible(`furrow: ${err.message}`));

@@ -11,6 +11,7 @@ import { Registry } from '../lang/builtins.ts';
 import { STRATA } from './strata.ts';
 import { SUMMARIES } from './summaries.ts';
 import { TWO_GROUPS } from './two-groups.ts';
+import { UNITS } from './units.ts';
 
 /** All built-ins of the language. */
-export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...STRATA, ...CHARTS, ...PLANNING, ...CLAIMS]);
+export const BUILTINS = new Registry([...SUMMARIES, ...MATHS, ...UNITS, ...DISTRIBUTIONS, ...TWO_GROUPS, ...DESIGNS, ...STRATA, ...CHARTS, ...PLANNING, ...CLAIMS]);

@@ -165,4 +165,19 @@ export const msg = {
   unknownHeaderKey: (key: string) => `Unknown header key ${quote(key)}: kept as it is.`,
   headerLine: (line: number) => `Line ${line} of the header is not of the form key: value; it is kept as it is.`,
   badMarker: (marker: string) => `The cell line ${quote(`--- ${marker}`)} has extra words; they are kept but ignored.`,
+  // ---- units (convert) ---------------------------------------------------------------------
+  unknownUnit: (unit: string) =>
+    `${quote(unit)} is not a unit Furrow knows. Write units as in the SI, joined by / * and ^ (for example "t/ha", "kg/m^2", "MPa", "degC"); a header's unit goes in parentheses at its end, such as "yield (t/ha)".`,
+  unitWithNumber: (unit: string) =>
+    `${quote(unit)} holds a number; give only the unit (for example "kg/ha"), and the values as the first argument.`,
+  incompatibleUnits: (from: string, to: string) =>
+    `${quote(from)} cannot be converted to ${quote(to)}: they measure different quantities. Check both units (for example a mass per area, "t/ha", converts to "kg/ha" or "g/m^2", not to "kg").`,
+  noTargetUnit: () =>
+    'Say which unit to convert to: convert(x, "t/ha", "kg/ha"), or convert(x, to: "kg/ha") when x is a column whose header ends with its unit in parentheses.',
+  noSourceUnit: (column: string | null) =>
+    `${column === null ? 'These values carry' : `The column ${quote(column)} carries`} no unit: give the unit they are in, as in convert(x, "t/ha", "kg/ha") (a header can also carry it, as "yield (t/ha)").`,
+  headerUnitDiffers: (column: string, header: string, given: string) =>
+    `The header of ${quote(column)} says its unit is ${quote(header)}, but convert was told ${quote(given)}. Leave the unit out to use the header's, or correct the one that is wrong.`,
+  unitsUnavailable: () =>
+    'The unit tables are not loaded in this place, so convert cannot run here. Run the document with the furrow command line or in the page.',
 } as const;

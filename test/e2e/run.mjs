@@ -13,6 +13,7 @@ import { exportTests } from './exports.mjs';
 import { importingTests } from './importing.mjs';
 import { largeTableTests } from './large-table.mjs';
 import { firstHourTests } from './first-hour.mjs';
+import { convertingTests } from './converting.mjs';
 import { cellText, noteText, statusOf, settled, shownF, field, openDocument } from './page.mjs';
 
 const args = process.argv.slice(2);
@@ -520,6 +521,7 @@ tests.push(...exportTests);
 tests.push(...importingTests());
 tests.push(...largeTableTests(measured));
 tests.push(...firstHourTests);
+tests.push(...convertingTests);
 
 const { failed } = await runTests(tests, { build, json });
 writeFileSync(`test-output/e2e/measured.json`, `${JSON.stringify({ machine: cpus()[0]?.model ?? 'unknown', ...measured }, null, 2)}\n`);

@@ -1,0 +1,242 @@
+/**
+ * `convert`: conversion factors against the definitions of the SI brochure and NIST SP 811,
+ * exact decimal conversion where the factor is a short decimal, header units, and the
+ * errors a user sees.
+ */
+import { existsSync, readFileSync, readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { msg } from '../../src/lang/messages.ts';
+import { headerUnit, unitConversion } from '../../src/functions/units.ts';
+import type { NumberColumn, Value } from '../../src/lang/values.ts';
+import { doc, evalFormula, run, valueOf } from '../helpers.ts';
+
+/** convert(x, from, to) evaluated as a formula, as a number. */
+function num(x: string, from: string, to: string): number {
+  const v = evalFormula(`convert(${x}, "${from}", "${to}")`);
+  if (typeof v !== 'number') throw new Error(`convert gave ${JSON.stringify(v)}`);
+  return v;
+}
+
+/** The message of a formula's error. */
+function errorOf(expr: string, ...before: string[]): string {
+  const v = evalFormula(expr, ...before);
+  if (typeof v !== 'object' || v.kind !== 'error') throw new Error(`no error: ${JSON.stringify(v)}`);
+  // the evaluator names the function before a built-in's own message
+  expect(v.message.startsWith('convert: ')).toBe(true);
+  return v.message.slice('convert: '.length);
+}
+
+/** Throws unless |got - want| <= tol * |want| (a relative check that fails when the numbers differ). */
+function relClose(got: number, want: number, tol: number): void {
+  expect(Math.abs(got - want), `${got} against ${want}`).toBeLessThanOrEqual(tol * Math.abs(want));
+}
+
+describe('convert: factors of the SI', () => {
+  it('prefixes, the tonne, the hectare, the litre and the pascal', () => {
+    // source: BIPM, The International System of Units (SI), 9th edition 2019, Table 7 (prefixes: kilo 10^3, mega 10^6, milli 10^-3) (from memory)
+    expect(num('1', 'kg', 'g')).toBe(1000);
+    expect(num('1', 'MPa', 'Pa')).toBe(1e6);
+    expect(num('1', 'mm', 'm')).toBe(0.001);
+    // source: BIPM, The International System of Units (SI), 9th edition 2019, Table 8: 1 t = 10^3 kg (from memory)
+    expect(num('1', 't', 'kg')).toBe(1000);
+    // source: BIPM, The International System of Units (SI), 9th edition 2019, Table 8: 1 ha = 1 hm^2 = 10^4 m^2 (from memory)
+    expect(num('1', 'ha', 'm^2')).toBe(1e4);
+    expect(num('1', 'hectare', 'm^2')).toBe(1e4);
+    // source: BIPM, The International System of Units (SI), 9th edition 2019, Table 8: 1 L = 1 dm^3 = 10^-3 m^3 (from memory)
+    expect(num('1', 'L', 'm^3')).toBe(0.001);
+    // source: BIPM, The International System of Units (SI), 9th edition 2019, Table 4: Pa = N/m^2, so 1 N/mm^2 = 10^6 Pa = 1 MPa (from memory)
+    expect(num('1', 'N/mm^2', 'MPa')).toBe(1);
+    expect(num('1', 'N/mm^2', 'Pa')).toBe(1e6);
+  });
+
+  it('yields per area: t/ha, kg/ha and g/m^2', () => {
+    // source: BIPM, The International System of Units (SI), 9th edition 2019, Table 8 (t = 10^3 kg, ha = 10^4 m^2) (from memory)
+    expect(num('1', 't/ha', 'kg/ha')).toBe(1000);
+    expect(num('1', 't/ha', 'g/m^2')).toBe(100);
+    expect(num('1', 'g/m^2', 'kg/ha')).toBe(10);
+    expect(num('1', 'kg/ha', 't/ha')).toBe(0.001);
+  });
+
+  it('degree Celsius to kelvin and back', () => {
+    // source: BIPM, The International System of Units (SI), 9th edition 2019, section 2.3.1: t/degC = T/K - 273.15 (from memory)
+    expect(num('0', 'degC', 'K')).toBe(273.15);
+    expect(num('25', 'degC', 'K')).toBe(298.15);
+    expect(num('20.1', 'degC', 'K')).toBe(293.25);
+    expect(num('-273.15', 'degC', 'K')).toBe(0);
+    expect(num('300', 'K', 'degC')).toBe(26.85);
+    // a temperature difference of 1 K is one of 1 degC: only the zero moves
+    const c = unitConversion('degC', 'K');
+    expect([c.scale, c.offset]).toEqual([1, 273.15]);
+  });
+});
+
+describe('convert: units outside the SI', () => {
+  it('the pound, the inch, the foot and the acre', () => {
+    // source: NIST Special Publication 811 (2008), Appendix B.8: pound (avoirdupois) = 0.453 592 37 kg exactly (from memory)
+    expect(num('1', 'lb', 'kg')).toBe(0.45359237);
+    expect(num('12.5', 'lb', 'kg')).toBe(5.669904625);
+    // source: NIST Special Publication 811 (2008), Appendix B.8: inch = 2.54 cm, foot = 0.3048 m exactly (from memory)
+    expect(num('1', 'in', 'cm')).toBe(2.54);
+    expect(num('1', 'ft', 'm')).toBe(0.3048);
+    // acre = 43,560 square feet (source: NIST Special Publication 811 (2008), Appendix B.8, from memory), on the
+    // international foot: 43560 * 0.3048^2 = 4046.8564224 m^2 exactly (SP 811 of 2008 lists the acre on the
+    // U.S. survey foot, 4046.873 m^2; that foot was retired for new work at the end of 2022)
+    expect(num('1', 'acre', 'm^2')).toBe(4046.8564224);
+  });
+
+  it('pressure in psi, force in kip', () => {
+    // source: NIST Special Publication 811 (2008), Appendix B.8: pound-force per square inch = 6.894 757 E+03 Pa (from memory)
+    const psi = num('1', 'psi', 'Pa');
+    expect(Math.abs(psi - 6894.757)).toBeLessThan(0.0005);
+    // and to the last digit: lbf = 0.45359237 kg x 9.80665 m/s^2 exactly, over (0.0254 m)^2, computed in 40-digit
+    // decimal: 6894.757293168361336722673445... (source: Python 3 decimal module, the definitions above)
+    relClose(psi, 6894.757293168361, 2.3e-16);
+    // source: NIST Special Publication 811 (2008), Appendix B.8: kip (1000 lbf) = 4.448 222 E+03 N (from memory)
+    expect(Math.abs(num('1', 'kip', 'N') - 4448.222)).toBeLessThan(0.0005);
+    expect(num('1', 'kip', 'N')).toBe(4448.2216152605);
+    expect(num('1', 'MPa', 'psi')).toBe(1e6 / 6894.757293168361);
+  });
+
+  it('lb/acre to kg/ha', () => {
+    // 0.45359237 / 4046.8564224 x 10^4 = 1.120851156194456047722... (source: Python 3 decimal module, from the
+    // definitions of the pound and the acre above)
+    relClose(num('1', 'lb/acre', 'kg/ha'), 1.120851156194456, 2.3e-16);
+  });
+
+  it('degrees Fahrenheit', () => {
+    // source: NIST Special Publication 811 (2008), section 4.2.1.1 and Appendix B.9: t/degF = 1.8 t/degC + 32 (from memory)
+    expect(num('100', 'degC', 'degF')).toBe(212);
+    expect(num('-40', 'degC', 'degF')).toBe(-40);
+    expect(num('37', 'degC', 'degF')).toBe(98.6);
+    // the other way the factor is 5/9, which no decimal holds: mathjs converts it in binary
+    relClose(num('212', 'degF', 'degC'), 100, 1e-15);
+    relClose(num('32', 'degF', 'K'), 273.15, 1e-15);
+  });
+});
+
+describe('convert: exact on the decimal digits where the factor is a short decimal', () => {
+  it('1.005 t is 1005 kg, not the binary product', () => {
+    // common practice, no source: the binary products below miss the decimal by a unit in the last place
+    expect(1.005 * 1000).toBe(1004.9999999999999);
+    expect(num('1.005', 't', 'kg')).toBe(1005);
+    expect(4.35 * 100).toBe(434.99999999999994);
+    expect(num('4.35', 't/ha', 'g/m^2')).toBe(435);
+    expect(0.57 * 1e4).toBe(5699.999999999999);
+    expect(num('0.57', 'ha', 'm^2')).toBe(5700);
+    expect(num('0.29', 'MPa', 'bar')).toBe(2.9);
+  });
+
+  it('a table column keeps its typed texts, converted, so the exact decimal shift still applies', () => {
+    const v = evalFormula('convert(plots["yield (t/ha)"], to: "kg/ha")', '--- table plots', 'block,yield (t/ha)', '1,4.35', '2,', '3,0.070', '4,-1.10') as NumberColumn;
+    expect(v.kind).toBe('column');
+    expect([...v.values].map((x, i) => (v.missing?.[i] === 1 ? null : x))).toEqual([4350, null, 70, -1100]);
+    expect(v.decimals).toEqual(['4350', '', '70', '-1100']);
+    expect(v.name).toBe('yield (kg/ha)');
+    // to a smaller unit's fraction, the texts carry the places that the shift needs
+    const w = evalFormula('convert(plots.y, "kg/ha", "t/ha")', '--- table plots', 'y', '4350.5', '12') as NumberColumn;
+    expect(w.decimals).toEqual(['4.3505', '0.012']);
+    expect([...w.values]).toEqual([4.3505, 0.012]);
+  });
+
+  it('a computed column carries no texts, and a binary factor drops them', () => {
+    const v = evalFormula('convert(plots.y * 2, "t", "kg")', '--- table plots', 'y', '1.1') as NumberColumn;
+    expect([...v.values]).toEqual([2200]);
+    expect(v.decimals).toBeNull();
+    const w = evalFormula('convert(plots.y, "psi", "kPa")', '--- table plots', 'y', '100') as NumberColumn;
+    expect(w.decimals).toBeNull();
+    relClose(w.values[0]!, 689.4757293168361, 2.3e-16);
+  });
+
+  it('zeros keep their sign, and infinities and NaN pass through', () => {
+    expect(Object.is(num('-0', 't', 'kg'), -0)).toBe(true);
+    expect(evalFormula('convert(1 / 0, "t", "kg")')).toBe(Infinity);
+    expect(Number.isNaN(evalFormula('convert(0 / 0, "t", "kg")') as number)).toBe(true);
+  });
+
+  it('a blocked fit on a converted column is the fit on the typed column, scaled', () => {
+    // invented numbers: six plots of two rations in three pens
+    const table = ['--- table pens', 'pen,ration,gain (kg)', '1,a,12.41', '1,b,13.02', '2,a,11.87', '2,b,12.55', '3,a,12.93', '3,b,13.60'];
+    const { engine } = run(
+      doc(...table, '--- formula', 'kg = blocked(pens["gain (kg)"], pens.ration, pens.pen)', '--- formula', 'g = blocked(convert(pens["gain (kg)"], to: "g"), pens.ration, pens.pen)'),
+    );
+    const ss = (name: string, row: number): number => {
+      const fit = valueOf(engine, name);
+      if (typeof fit !== 'object' || fit.kind !== 'record') throw new Error(`${name} is not a fit`);
+      const t = fit.fields.get('table') as Value;
+      if (typeof t !== 'object' || t.kind !== 'table') throw new Error('no table');
+      return (t.columns[t.names.indexOf('ss')] as NumberColumn).values[row]!;
+    };
+    for (const row of [0, 1, 2]) relClose(ss('g', row), ss('kg', row) * 1e6, 1e-14);
+  });
+});
+
+describe('convert: header units', () => {
+  it('reads a unit in parentheses at the end of a header', () => {
+    expect(headerUnit('yield (t/ha)')).toEqual({ base: 'yield', unit: 't/ha' });
+    expect(headerUnit('shear (MPa)')).toEqual({ base: 'shear', unit: 'MPa' });
+    expect(headerUnit('plot (north)')).toBeNull();
+    expect(headerUnit('yield')).toBeNull();
+    expect(headerUnit(null)).toBeNull();
+  });
+
+  it('names the result with the new unit, or adds it to a header without one', () => {
+    const v = evalFormula('convert(p.shear, "MPa", "kPa")', '--- table p', 'shear', '1.5') as NumberColumn;
+    expect(v.name).toBe('shear (kPa)');
+    expect([...v.values]).toEqual([1500]);
+  });
+
+  it('agrees with a unit given that means the same, and refuses one that does not', () => {
+    const t = ['--- table p', 'yield (t/ha)', '2.5'];
+    expect((evalFormula('convert(p["yield (t/ha)"], "Mg/ha", "kg/ha")', ...t) as NumberColumn).values[0]).toBe(2500);
+    expect(errorOf('convert(p["yield (t/ha)"], "kg/ha", "g/m^2")', ...t)).toBe(msg.headerUnitDiffers('yield (t/ha)', 't/ha', 'kg/ha'));
+    expect(errorOf('convert(p["yield (t/ha)"], "MPa", "Pa")', ...t)).toBe(msg.headerUnitDiffers('yield (t/ha)', 't/ha', 'MPa'));
+  });
+});
+
+describe('convert: errors in plain words', () => {
+  it('units of different quantities', () => {
+    expect(errorOf('convert(2.5, "t/ha", "kg")')).toBe(msg.incompatibleUnits('t/ha', 'kg'));
+    expect(errorOf('convert(2.5, "MPa", "N")')).toBe(msg.incompatibleUnits('MPa', 'N'));
+  });
+
+  it('unknown units, names of object members among them, and a unit with a number', () => {
+    for (const bad of ['furlong per fortnight', '', '__proto__', 'constructor', 'toString', 'hasOwnProperty', '%']) {
+      expect(errorOf(`convert(1, "${bad}", "kg")`), bad).toBe(msg.unknownUnit(bad));
+      expect(errorOf(`convert(1, "kg", "${bad}")`), bad).toBe(msg.unknownUnit(bad));
+    }
+    expect(errorOf('convert(1, "5 kg", "g")')).toBe(msg.unitWithNumber('5 kg'));
+  });
+
+  it('no unit to convert to, no unit to convert from', () => {
+    expect(errorOf('convert(1, "kg")')).toBe(msg.noTargetUnit());
+    expect(errorOf('convert(p.y, to: "kg")', '--- table p', 'y', '1')).toBe(msg.noSourceUnit('y'));
+    expect(errorOf('convert(p["plot (north)"], to: "kg")', '--- table p', 'plot (north)', '1')).toBe(msg.noSourceUnit('plot (north)'));
+    expect(errorOf('convert(2, to: "kg")')).toBe(msg.noSourceUnit(null));
+  });
+});
+
+describe('convert: mathjs stays out of the start', () => {
+  it('no module of the engine imports mathjs but the unit library', () => {
+    const found: string[] = [];
+    const walk = (dir: string): void => {
+      for (const e of readdirSync(dir, { withFileTypes: true })) {
+        const p = join(dir, e.name);
+        if (e.isDirectory()) walk(p);
+        else if (p.endsWith('.ts') && /^\s*(import|export)\s+(?!type\b)[^;]*from\s+'mathjs'/m.test(readFileSync(p, 'utf8'))) found.push(p);
+      }
+    };
+    for (const dir of ['src', 'cells']) walk(dir);
+    expect(found.sort()).toEqual(['src/functions/unit-library.ts']);
+  });
+
+  it('the command line bundle leaves the unit tables to a file of their own', () => {
+    // the tests' global setup builds the command line (test/setup/build-cli.ts)
+    expect(existsSync('build/cli/unit-library.cjs')).toBe(true);
+    const bundle = readFileSync('build/cli/main.mjs', 'utf8');
+    // a word of mathjs's unit table and a function name of its unit class
+    expect(bundle.includes('hectare')).toBe(false);
+    expect(bundle.includes('createUnitClass')).toBe(false);
+    expect(readFileSync('build/cli/unit-library.cjs', 'utf8').includes('hectare')).toBe(true);
+  });
+});
