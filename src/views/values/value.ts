@@ -6,7 +6,7 @@
  * out in record-layout.ts and grid-model.ts; this file only draws it.
  */
 import { css, html, LitElement, nothing, type TemplateResult } from 'lit';
-import { formatNumber } from '../../lang/format.ts';
+import { countText, numberText } from '../../format/digits.ts';
 import { columnLength, missingCount, type Claim, type Column, type ErrorValue, type RecordValue, type Table, type Value } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
 import './chart.ts';
@@ -22,13 +22,13 @@ export function columnSummary(c: Column): string {
   const n = columnLength(c);
   const noun = c.type === 'number' ? (n === 1 ? 'number' : 'numbers') : c.type === 'text' ? (n === 1 ? 'text' : 'texts') : n === 1 ? 'boolean' : 'booleans';
   const m = missingCount(c);
-  return `${n.toLocaleString('en')} ${noun}${m > 0 ? `, ${m.toLocaleString('en')} missing` : ''}`;
+  return `${countText(n)} ${noun}${m > 0 ? `, ${countText(m)} missing` : ''}`;
 }
 
 /** A one-line description of a table's size ("24 rows, 3 columns"). */
 export function tableSummary(t: Table): string {
   const cols = t.columns.length;
-  return `${t.rows.toLocaleString('en')} ${t.rows === 1 ? 'row' : 'rows'}, ${cols} ${cols === 1 ? 'column' : 'columns'}`;
+  return `${countText(t.rows)} ${t.rows === 1 ? 'row' : 'rows'}, ${cols} ${cols === 1 ? 'column' : 'columns'}`;
 }
 
 /** In a record, columns longer than this are folded behind a disclosure. */
@@ -216,7 +216,7 @@ export class FurrowValue extends LitElement {
     if (v === null || v === undefined) return nothing;
     switch (typeof v) {
       case 'number':
-        return html`<span class="scalar num" title=${String(v)}>${formatNumber(v)}</span>`;
+        return html`<span class="scalar num" title=${String(v)}>${numberText(v, 'plain')}</span>`;
       case 'string':
         return v === '' ? html`<span class="quiet">empty text</span>` : html`<span class="text">${v}</span>`;
       case 'boolean':
