@@ -10,16 +10,18 @@
  *   (0.050, 0.66); one that would round to 1.0 as "> 0.99".
  * - estimates (means, differences, standard errors, interval ends, standard deviations, slopes)
  *   and sums of squares and mean squares: four significant digits.
- * - test statistics (F, t, z, W, chi-square) and power: three significant digits.
+ * - test statistics (F, t, z, W, chi-square) and power: three significant digits; a whole
+ *   statistic (a rank sum, U) prints whole.
  * - degrees of freedom: whole numbers as they are; fractional ones (Welch) to three digits.
  * - counts: whole numbers with commas between thousands (12,400).
  * - confidence levels: as percentages (95%).
  * - plain numbers (a formula's own result, whose meaning the policy cannot know): six
  *   significant digits.
  * For all but p: digits left of the decimal point are never rounded away (1234.56 at four
- * digits is 1235, and 123456.7 is 123457, so sums of squares still add up); trailing zeros
- * after the point are dropped; whole numbers print whole; magnitudes below 0.0001 or from
- * 10^15 up print in exponent form. NaN prints "NaN" and the infinities "∞" and "-∞".
+ * digits is 1235, and 123456.7 is 123457, so sums of squares still add up); magnitudes
+ * below 0.0001 or from 10^15 up print in exponent form. A result keeps its trailing zeros,
+ * since they are significant digits (38.50, 2.000); a plain number drops them and prints
+ * whole when it is whole (0.6, 12). NaN prints "NaN" and the infinities "∞" and "-∞".
  *
  * This folder imports nothing of the project, so every floor of the stairs may use it.
  */
@@ -63,7 +65,7 @@ export function quantityOf(name: string | null | undefined): Quantity {
 const NAMED: ReadonlyMap<string, Quantity> = new Map<string, Quantity>([
   ...(['p', 'adjusted_p'] as const).map((k) => [k, 'p'] as [string, Quantity]),
   ...(['ss', 'ms', 'mse', 'pooled_variance', 'variance'] as const).map((k) => [k, 'squares'] as [string, Quantity]),
-  ...(['f', 't', 'z', 'w', 'u', 'statistic', 'chi_square', 'f_against_error'] as const).map((k) => [k, 'statistic'] as [string, Quantity]),
+  ...(['f', 't', 'z', 'w', 'u', 'statistic', 'chi_square', 'f_against_error', 'rank_sum'] as const).map((k) => [k, 'statistic'] as [string, Quantity]),
   ...(['power', 'chosen_power', 'target'] as const).map((k) => [k, 'power'] as [string, Quantity]),
   ...(['df', 'df1', 'df2'] as const).map((k) => [k, 'df'] as [string, Quantity]),
   ...(['n', 'n1', 'n2', 'level_n', 'zeros', 'tie_groups', 'rows', 'blocks', 'treatments', 'observations', 'row'] as const).map((k) => [k, 'count'] as [string, Quantity]),
@@ -84,7 +86,6 @@ const NAMED: ReadonlyMap<string, Quantity> = new Map<string, Quantity>([
     'relative_efficiency_uncorrected',
     'r2',
     'mean_rank',
-    'rank_sum',
     'fitted',
     'residuals',
     'residual',
@@ -101,7 +102,9 @@ export function numberText(x: number, quantity: Quantity = 'plain'): string {
   if (quantity === 'p') return pValueText(x);
   if (quantity === 'level') return x > 0 && x < 1 ? percentText(x) : significantText(x, 6);
   if (quantity === 'count') return Number.isInteger(x) && Math.abs(x) < 1e15 ? countText(x) : significantText(x, 6);
-  return significantText(x, SIGNIFICANT.get(quantity) ?? 6);
+  // a whole statistic (a rank sum, U, the signed-rank statistic) is a count of ranks: whole
+  if (quantity === 'plain' || quantity === 'df' || (quantity === 'statistic' && Number.isInteger(x))) return significantText(x, SIGNIFICANT.get(quantity) ?? 6);
+  return significantText(x, SIGNIFICANT.get(quantity) ?? 6, true);
 }
 
 /**
@@ -137,21 +140,23 @@ export function percentText(fraction: number): string {
 
 /**
  * A number to `sig` significant digits, with the rules of the module comment: whole digits
- * kept, trailing zeros after the point dropped, exponent form only for tiny or huge numbers.
+ * kept, exponent form only for tiny or huge numbers; trailing zeros kept when `keepZeros`
+ * (a result), else dropped, and a whole number printed whole.
  */
-export function significantText(x: number, sig: number): string {
+export function significantText(x: number, sig: number, keepZeros = false): string {
   if (Number.isNaN(x)) return 'NaN';
   if (x === Infinity) return '∞';
   if (x === -Infinity) return '-∞';
   const a = Math.abs(x);
-  if (Number.isInteger(x) && a < 1e15) return String(x === 0 ? 0 : x);
+  const trim = keepZeros ? (t: string) => t : trimZeros;
+  if (!keepZeros && Number.isInteger(x) && a < 1e15) return String(x === 0 ? 0 : x);
   if (a !== 0 && (a < 1e-4 || a >= 1e15)) {
     const [m, e] = x.toExponential(sig - 1).split('e');
-    return `${trimZeros(m!)}e${e}`;
+    return `${trim(m!)}e${e}`;
   }
   // more whole digits than significant ones: round to a whole number, never into the digits
   if (a >= 10 ** sig) return unsignedZero(x.toFixed(0));
-  return unsignedZero(trimZeros(x.toPrecision(sig)));
+  return unsignedZero(trim(x.toPrecision(sig)));
 }
 
 /**
@@ -199,7 +204,8 @@ export function decimalDigits(x: number): { negative: boolean; digits: string; p
 export function chartFormat(quantity: Exclude<Quantity, 'p'>): string {
   if (quantity === 'count') return ',d';
   if (quantity === 'level') return '.6~%';
-  return `.${SIGNIFICANT.get(quantity) ?? 6}~r`;
+  const sig = SIGNIFICANT.get(quantity) ?? 6;
+  return quantity === 'plain' || quantity === 'df' ? `.${sig}~r` : `.${sig}r`;
 }
 
 /**
