@@ -199,7 +199,8 @@ export function decimalDigits(x: number): { negative: boolean; digits: string; p
 /**
  * A d3-format string for a chart's tooltip that writes a quantity as numberText does for
  * numbers from 0.0001 up to 10^sig (beyond that, d3 rounds whole digits that numberText
- * keeps). p-values are not given one: a chart shows them as texts made by pValueText.
+ * keeps, and a whole statistic such as 2 reads 2.00). p-values are not given one: a chart
+ * shows them as texts made by pValueText.
  */
 export function chartFormat(quantity: Exclude<Quantity, 'p'>): string {
   if (quantity === 'count') return ',d';
