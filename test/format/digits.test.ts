@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { format as d3format } from 'd3-format';
+import { formatLocale } from 'vega';
 import { describe, expect, it } from 'vitest';
 import { chartFormat, countText, decimalsText, numberText, percentText, pPhrase, pValueText, quantityOf } from '../../src/format/digits.ts';
 import { sourceFiles } from '../architecture/stairs.ts';
@@ -79,7 +79,10 @@ describe('the digits policy', () => {
   });
 
   it('gives charts d3 formats that write as numberText does in the range charts show', () => {
-    // source: d3-format (the version vega bundles), format() with the strings chartFormat gives
+    // source: vega 6.4.0, formatLocale().format (the number formats a chart's tooltip uses)
+    // (vega's typings say formatLocale returns nothing; called with no locale it returns the default formatters)
+    const locale = (formatLocale as unknown as () => { format: (spec: string) => (x: number) => string })();
+    const d3format = (spec: string): ((x: number) => string) => locale.format(spec);
     const cases: [number, 'estimate' | 'statistic' | 'power' | 'plain'][] = [];
     for (const x of [0.0001234, 0.012345, 0.5, 1.23456, 38.5, 123.456, 987.654, 2]) for (const q of ['estimate', 'statistic', 'power', 'plain'] as const) cases.push([x, q]);
     // the one known difference, stated in chartFormat: a whole statistic reads 2 in text, 2.00 in a tooltip
