@@ -10,6 +10,7 @@ import type { CellAnalysis } from '../../src/graph/cell-kind.ts';
 import { namesRead, type Expr, type NameUse } from '../../src/lang/ast.ts';
 import { LangError } from '../../src/lang/errors.ts';
 import { evaluate } from '../../src/lang/evaluate.ts';
+import { quantityOf, type Quantity } from '../../src/format/digits.ts';
 import { formatInline } from '../../src/lang/format.ts';
 import { parseExpression } from '../../src/lang/parser.ts';
 import { errorValue, isError, type ErrorValue, type Value } from '../../src/lang/values.ts';
@@ -156,9 +157,67 @@ export function analyseNote(cell: Cell): CellAnalysis {
         }
         parts.push(v);
         // a failed placeholder stays as written; its error is in `parts`
-        out += isError(v) ? p.raw : formatInline(v);
+        out += isError(v) ? p.raw : formatInline(v, placeholderQuantity(p.expr));
       }
       return { value: out.replace(/(\r?\n)+$/, ''), parts };
     },
   };
+}
+
+/**
+ * The quantity a placeholder shows, for its digits: the field it reads last (`{fit.mse}` a
+ * mean square, `{fit.table.p[1]}` a p-value, `{gain["low"]}` an estimate); anything else (a
+ * name on its own, a call, arithmetic) is a plain number.
+ */
+export function placeholderQuantity(expr: Expr | null): Quantity {
+  let e = expr;
+  while (e !== null) {
+    if (e.type === 'member') return quantityOf(e.name);
+    if (e.type !== 'index') return 'plain';
+    if (e.index.type === 'text') return quantityOf(e.index.value);
+    e = e.object;
+  }
+  return 'plain';
+}
+
+/** The text a placeholder shows for its value (the page, the report and the command line alike). */
+export function placeholderText(source: string, v: Value): string {
+  let expr: Expr | null = null;
+  try {
+    expr = parseExpression(source);
+  } catch (err) {
+    if (!(err instanceof LangError)) throw err;
+  }
+  return formatInline(v, placeholderQuantity(expr));
+}
+
+/** One distinct error of a note, with the placeholders it affects, in the order they appear. */
+export interface NoteProblem {
+  readonly message: string;
+  /** True when the error comes from a cell the note reads (the note itself is not at fault). */
+  readonly upstream: boolean;
+  /** The sources of the placeholders it affects, braces excluded, each once. */
+  readonly placeholders: readonly string[];
+}
+
+/**
+ * A note's errors grouped: one entry per distinct message, listing the placeholders it
+ * affects, so a failing cell read by five placeholders gives one line and not five
+ * near-identical ones. `sources[i]` is the source of placeholder i (as `parts[i]` is its value).
+ */
+export function groupNoteProblems(parts: readonly Value[], sources: readonly string[]): NoteProblem[] {
+  const groups = new Map<string, { message: string; upstream: boolean; placeholders: string[] }>();
+  parts.forEach((v, i) => {
+    if (!isError(v)) return;
+    const upstream = v.upstream !== null;
+    const key = `${upstream ? 'u' : 'o'}:${v.message}`;
+    let g = groups.get(key);
+    if (g === undefined) {
+      g = { message: v.message, upstream, placeholders: [] };
+      groups.set(key, g);
+    }
+    const source = sources[i] ?? '…';
+    if (!g.placeholders.includes(source)) g.placeholders.push(source);
+  });
+  return [...groups.values()];
 }

@@ -11,12 +11,11 @@
 import DOMPurify from 'dompurify';
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
-import { formatInline } from '../../src/lang/format.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/views/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { startMsg } from '../../src/messages/page.ts';
-import { splitNote } from './model.ts';
+import { groupNoteProblems, placeholderText, splitNote } from './model.ts';
 import { ATTRIBUTE_SLOT, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';
 
 /** Attributes a note may not carry: the page's own marks (a fake live value) and addresses that load things. */
@@ -281,7 +280,10 @@ export class NoteCellView extends LitElement {
       node.append(r.fragment);
       this.rendered = { body: this.cell.body, node, placeholders: r.placeholders };
     }
-    const problems = (this.state?.parts ?? []).filter(isError);
+    const problems = groupNoteProblems(
+      this.state?.parts ?? [],
+      this.rendered.placeholders.map((p) => p.source),
+    );
     return html`<div
         class="prose"
         tabindex="0"
@@ -299,24 +301,14 @@ export class NoteCellView extends LitElement {
       </div>
       ${problems.length > 0
         ? html`<ul class="problems">
-            ${problems.map((p) => html`<li class=${p.upstream ? 'upstream' : ''}>{${this.sourceAt(p.from)}}: ${p.message}</li>`)}
+            ${problems.map(
+              (p) =>
+                html`<li class=${p.upstream ? 'upstream' : ''}>
+                  ${p.placeholders.map((s, k) => html`${k === 0 ? '' : ', '}<code>{${s}}</code>`)}: ${p.message}
+                </li>`,
+            )}
           </ul>`
         : nothing}`;
-  }
-
-  /** The source of the placeholder at an offset of the text (binary search: they are in order). */
-  private sourceAt(offset: number): string {
-    const list = this.rendered?.placeholders ?? [];
-    let lo = 0;
-    let hi = list.length - 1;
-    while (lo <= hi) {
-      const mid = (lo + hi) >> 1;
-      const p = list[mid]!;
-      if (offset < p.from) hi = mid - 1;
-      else if (offset > p.to) lo = mid + 1;
-      else return p.source;
-    }
-    return '…';
   }
 
   override updated(changed: PropertyValues): void {
@@ -339,7 +331,7 @@ export class NoteCellView extends LitElement {
         el.classList.add('failed');
         el.classList.toggle('upstream', v.upstream !== null);
       } else {
-        el.textContent = formatInline(v);
+        el.textContent = placeholderText(this.placeholderSource(i), v);
         el.removeAttribute('title');
         el.classList.remove('failed', 'upstream');
       }

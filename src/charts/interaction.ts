@@ -114,7 +114,7 @@ export function profileChart(input: ProfileInput): ChartResult {
   const linesLabel = readName(lines.name).label;
   const response = readName(input.response).label;
   const title = oneEach ? `${capital(response)} of each ${linesLabel} across the ${acrossLabel} levels` : `Mean ${response} of each ${linesLabel} across the ${acrossLabel} levels`;
-  const testWords = input.test === null ? null : `${input.test.label}: F = ${fig(input.test.f, 3)} on ${fmtDf(input.test.df1)} and ${fmtDf(input.test.df2)} df, ${pText(input.test.p)}`;
+  const testWords = input.test === null ? null : `${input.test.label}: F = ${fig(input.test.f, 'statistic')} on ${fmtDf(input.test.df1)} and ${fmtDf(input.test.df2)} df, ${pText(input.test.p)}`;
   const parts = [`${counted(kl, linesLabel + ' level')} across ${counted(ka, acrossLabel + ' level')}`];
   if (oneEach) parts.push('one observation per cell');
   else if (Number.isFinite(minN)) parts.push(minN === maxN ? `${count(minN)} observations per cell` : `${count(minN)} to ${count(maxN)} observations per cell`);
@@ -131,5 +131,5 @@ export function profileChart(input: ProfileInput): ChartResult {
 }
 
 function fmtDf(df: number): string {
-  return Number.isInteger(df) ? count(df) : fig(df);
+  return Number.isInteger(df) ? count(df) : fig(df, 'df');
 }

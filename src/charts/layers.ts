@@ -8,7 +8,8 @@
  * into nested data, and it never becomes a key of the spec. Column names appear only as
  * titles.
  */
-import { CONFIG, HEIGHT, MARKED, MARKED_SHAPE, POINT, POINT_SHAPE, TIP_FORMAT, TIP_FORMAT_MEASURED, WIDTH } from './look.ts';
+import { chartFormat, MEASURED_CHART_FORMAT, quantityOf } from '../format/digits.ts';
+import { CONFIG, HEIGHT, MARKED, MARKED_SHAPE, POINT, POINT_SHAPE, WIDTH } from './look.ts';
 import type { ChartSpec } from './types.ts';
 
 /** A JSON object of a spec under construction (checked against vega-lite's schema in the tests). */
@@ -66,14 +67,19 @@ export function labelLayer(values: readonly Json[], encoding: Json): Json {
   };
 }
 
-/** One tooltip entry: a number (formatted) or a text. */
+/**
+ * One tooltip entry: a number, written by the digits policy for the quantity its field name
+ * says (an estimate when the name says nothing), or a text. p-values go in as texts.
+ */
 export function tip(field: string, title: string, numeric = true): Json {
-  return numeric ? { field, type: 'quantitative', title, format: TIP_FORMAT } : { field, type: 'nominal', title };
+  if (!numeric) return { field, type: 'nominal', title };
+  const q = quantityOf(field);
+  return { field, type: 'quantitative', title, format: chartFormat(q === 'plain' || q === 'p' ? 'estimate' : q) };
 }
 
-/** A tooltip entry for a measured value (more digits: see {@link TIP_FORMAT_MEASURED}). */
+/** A tooltip entry for a measured value, as many digits as data carry (see {@link MEASURED_CHART_FORMAT}). */
 export function measuredTip(field: string, title: string): Json {
-  return { field, type: 'quantitative', title, format: TIP_FORMAT_MEASURED };
+  return { field, type: 'quantitative', title, format: MEASURED_CHART_FORMAT };
 }
 
 /** A number for a datum: NaN and infinities become null (JSON has no NaN). */

@@ -52,13 +52,6 @@ export const HEIGHT = 280;
 /** Height given to each row of a chart with one row per level or pair. */
 export const ROW_STEP = 22;
 
-/** How derived numbers show in tooltips (d3-format): six significant digits, trailing zeros dropped. */
-export const TIP_FORMAT = '.6~g';
-/**
- * How measured values show in tooltips: twelve significant digits, so that data with many
- * constant leading digits (1000000000000.4) still read as typed.
- */
-export const TIP_FORMAT_MEASURED = '.12~g';
 
 /** The vega-lite config every chart carries. */
 export const CONFIG: Config = {

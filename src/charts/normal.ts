@@ -59,7 +59,7 @@ function shapiroWords(r: Float64Array): string {
   }
   try {
     const sw = shapiroWilk(r);
-    return `Shapiro-Wilk W = ${sw.w.toFixed(3)}, ${pText(sw.p)}`;
+    return `Shapiro-Wilk W = ${fig(sw.w, 'statistic')}, ${pText(sw.p)}`;
   } catch (err) {
     return `Shapiro-Wilk test not made: ${err instanceof Error ? err.message : String(err)}`;
   }

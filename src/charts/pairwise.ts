@@ -3,6 +3,7 @@
  * per pair in the order of the pairs table, and a line at zero. An interval that excludes
  * zero is drawn in another colour and shape; the legend says which is which.
  */
+import { pValueText } from '../format/digits.ts';
 import { assemble, num, tip, zeroRule, type Json } from './layers.ts';
 import { MARKED, MARKED_SHAPE, POINT, POINT_SHAPE, ROW_STEP, WIDTH } from './look.ts';
 import { axisTitle, readName } from './titles.ts';
@@ -68,6 +69,7 @@ export function pairwiseChart(p: PairsInput): ChartResult {
       low: num(low),
       high: num(high),
       p: num(p.p[i]!),
+      p_text: Number.isNaN(p.p[i]!) ? '' : pValueText(p.p[i]!),
       side: excludes ? EXCLUDES : INCLUDES,
     });
   }
@@ -80,7 +82,7 @@ export function pairwiseChart(p: PairsInput): ChartResult {
   const scale = (range: readonly string[]) => ({ domain: [INCLUDES, EXCLUDES], range });
   const color = { field: 'side', type: 'nominal', scale: scale([POINT, MARKED]), legend: { title: null } };
   const shape = { field: 'side', type: 'nominal', scale: scale([POINT_SHAPE, MARKED_SHAPE]), legend: { title: null } };
-  const tooltip = [tip('a', 'first', false), tip('b', 'second', false), tip('estimate', 'difference'), tip('se', 'standard error'), tip('low', 'low'), tip('high', 'high'), tip('p', p.method === 'lsd' ? 'p' : 'adjusted p')];
+  const tooltip = [tip('a', 'first', false), tip('b', 'second', false), tip('estimate', 'difference'), tip('se', 'standard error'), tip('low', 'low'), tip('high', 'high'), tip('p_text', p.method === 'lsd' ? 'p' : 'adjusted p', false)];
   const layers: Json[] = [
     zeroRule('x', xTitle),
     {

@@ -2,6 +2,7 @@
  * Power against the size of a trial (plots per group, or blocks), with the chosen plan
  * marked and, when one was asked for, the target power drawn as a rule.
  */
+import { chartFormat } from '../format/digits.ts';
 import { assemble, tip, type Json } from './layers.ts';
 import { MARKED, MARKED_SHAPE, POINT } from './look.ts';
 import type { ChartResult } from './types.ts';
@@ -25,7 +26,7 @@ export interface PowerCurveInput {
 /** The power chart; see the module note. */
 export function powerCurve(c: PowerCurveInput): ChartResult {
   const values: Json[] = c.sizes.map((s, i) => ({ size: s, power: c.power[i]! }));
-  const x = { field: 'size', type: 'quantitative', title: c.sizeName, scale: { zero: false }, axis: { tickMinStep: 1, format: 'd' } };
+  const x = { field: 'size', type: 'quantitative', title: c.sizeName, scale: { zero: false }, axis: { tickMinStep: 1, format: chartFormat('count') } };
   const y = { field: 'power', type: 'quantitative', title: 'power', scale: { domain: [0, 1] } };
   const layers: Json[] = [
     {
@@ -41,19 +42,19 @@ export function powerCurve(c: PowerCurveInput): ChartResult {
     });
   }
   layers.push({
-    data: { values: [{ size: c.chosen, power: c.chosenPower, label: `${c.chosen} ${c.sizeName}: power ${fig(c.chosenPower, 3)}` }] },
+    data: { values: [{ size: c.chosen, power: c.chosenPower, label: `${c.chosen} ${c.sizeName}: power ${fig(c.chosenPower, 'power')}` }] },
     mark: { type: 'point', filled: true, color: MARKED, shape: MARKED_SHAPE, size: 110, opacity: 1 },
     encoding: { x, y, tooltip: [tip('size', c.sizeName), tip('power', 'power')] },
   });
   layers.push({
-    data: { values: [{ size: c.chosen, power: c.chosenPower, label: `${c.chosen} ${c.sizeName}: power ${fig(c.chosenPower, 3)}` }] },
+    data: { values: [{ size: c.chosen, power: c.chosenPower, label: `${c.chosen} ${c.sizeName}: power ${fig(c.chosenPower, 'power')}` }] },
     mark: { type: 'text', align: 'left', dx: 8, dy: 12 },
     encoding: { x, y, text: { field: 'label', type: 'nominal' } },
   });
   const target = c.target === null ? '' : `; the dashed line is the power asked for (${percent(c.target)})`;
   return {
     spec: assemble(`Power against ${c.sizeName}`, c.assumes, { data: { values }, layer: layers }),
-    caption: `Power from ${c.sizes[0]} to ${c.sizes[c.sizes.length - 1]} ${c.sizeName}; the plan marked has ${c.chosen} ${c.sizeName} and power ${fig(c.chosenPower, 4)}${target}.`,
+    caption: `Power from ${c.sizes[0]} to ${c.sizes[c.sizes.length - 1]} ${c.sizeName}; the plan marked has ${c.chosen} ${c.sizeName} and power ${fig(c.chosenPower, 'power')}${target}.`,
     warnings: [],
   };
 }

@@ -2,17 +2,16 @@
  * The words and figures of chart titles and captions, in one place so that every chart
  * says things the same way.
  */
-import { formatNumber } from '../lang/format.ts';
+import { countText, numberText, percentText, pPhrase, type Quantity } from '../format/digits.ts';
 
-/** A figure for a caption: four significant digits. */
-export function fig(x: number, digits = 4): string {
-  return formatNumber(x, digits);
+/** A figure for a caption, by the one digits policy for its quantity (an estimate unless said). */
+export function fig(x: number, quantity: Quantity = 'estimate'): string {
+  return numberText(x, quantity);
 }
 
 /** A count with thousands separated by commas (readable in a caption): 100,000. */
 export function count(n: number): string {
-  // by hand rather than toLocaleString: the same text in every runtime and locale
-  return String(Math.round(n)).replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+  return countText(n);
 }
 
 /** `1 residual`, `23 residuals`. */
@@ -20,11 +19,9 @@ export function counted(n: number, one: string, many = `${one}s`): string {
   return `${count(n)} ${n === 1 ? one : many}`;
 }
 
-/** A p-value for a caption: two significant digits, and `p < 0.0001` below that. */
+/** A p-value for a caption, by the digits policy: `p = 0.66`, `p < 0.001`. */
 export function pText(p: number): string {
-  if (Number.isNaN(p)) return 'p not available';
-  if (p < 0.0001) return 'p < 0.0001';
-  return `p = ${formatNumber(p, 2)}`;
+  return pPhrase(p);
 }
 
 /** A list of row numbers, the first few shown: `rows 3, 17 and 40`, `rows 3, 17, 40 and 12 more`. */
@@ -47,7 +44,7 @@ export function flaggedWords(rows: readonly number[], cut: number): string {
 
 /** A level as it reads in a title: the confidence level as a percentage. */
 export function percent(level: number): string {
-  return `${formatNumber(level * 100, 4)}%`;
+  return percentText(level);
 }
 
 /** `1st`, `2nd`, `3rd`, `20th`, `21st`. */

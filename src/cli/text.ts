@@ -1,9 +1,9 @@
 /**
- * Human-readable text of values for the command line: numbers with sensible precision,
+ * Human-readable text of values for the command line: numbers by the one digits policy,
  * tables as aligned columns, analysis-of-variance tables in the trade's layout, records
  * as labelled fields.
  */
-import { formatNumber, formatP } from '../lang/format.ts';
+import { numberText, quantityOf } from '../format/digits.ts';
 import { elementAt, isColumn, isRecord, isTable, type Table, type Value } from '../lang/values.ts';
 
 const MAX_ROWS = 30;
@@ -24,9 +24,9 @@ export function visible(text: string): string {
   });
 }
 
-/** A scalar as text. */
+/** A scalar as text; a number by the digits policy for the quantity its column or field name says. */
 function scalar(v: Value, column = ''): string {
-  if (typeof v === 'number') return column === 'p' ? formatP(v) : formatNumber(v);
+  if (typeof v === 'number') return numberText(v, quantityOf(column));
   if (typeof v === 'string') return visible(v);
   if (typeof v === 'boolean') return v ? 'true' : 'false';
   if (typeof v === 'object' && v.kind === 'missing') return '·';
@@ -39,7 +39,7 @@ export function tableText(t: Table, indent = ''): string[] {
   const cells: string[][] = t.names.map((name, j) => {
     const col = t.columns[j]!;
     const out = [visible(name)];
-    // typed numbers print as typed (21.0 stays 21.0); computed ones with sensible precision
+    // typed numbers print as typed (21.0 stays 21.0); computed ones by the digits policy
     const typed = col.type === 'number' ? col.decimals : null;
     for (let i = 0; i < shown; i++) out.push(typed?.[i] || scalar(elementAt(col, i), name));
     return out;
@@ -60,12 +60,12 @@ export function tableText(t: Table, indent = ''): string[] {
 }
 
 /** A value as lines of text. */
-export function valueText(v: Value, indent = ''): string[] {
+export function valueText(v: Value, indent = '', field = ''): string[] {
   if (isTable(v)) return tableText(v, indent);
   if (isColumn(v)) {
     const n = v.values.length;
     const shown: string[] = [];
-    for (let i = 0; i < Math.min(n, 20); i++) shown.push(scalar(elementAt(v, i)));
+    for (let i = 0; i < Math.min(n, 20); i++) shown.push(scalar(elementAt(v, i), field));
     return [`${indent}[${shown.join(', ')}${n > 20 ? `, … ${n} in all` : ''}]`];
   }
   if (isRecord(v)) {
@@ -75,9 +75,9 @@ export function valueText(v: Value, indent = ''): string[] {
         lines.push(`${indent}${k}:`);
         lines.push(...valueText(x, `${indent}  `));
       } else if (isColumn(x)) {
-        lines.push(`${indent}${k}: ${valueText(x)[0]}`);
+        lines.push(`${indent}${k}: ${valueText(x, '', k)[0]}`);
       } else {
-        lines.push(`${indent}${k}: ${k === 'p' && typeof x === 'number' ? formatP(x) : inline(x)}`);
+        lines.push(`${indent}${k}: ${inline(x, k)}`);
       }
     }
     return lines;
@@ -87,7 +87,7 @@ export function valueText(v: Value, indent = ''): string[] {
     .map((l) => indent + l);
 }
 
-function inline(v: Value): string {
+function inline(v: Value, field = ''): string {
   if (typeof v === 'object') {
     switch (v.kind) {
       case 'chart':
@@ -97,8 +97,8 @@ function inline(v: Value): string {
       case 'error':
         return `error: ${v.message}`;
       default:
-        return scalar(v);
+        return scalar(v, field);
     }
   }
-  return scalar(v);
+  return scalar(v, field);
 }

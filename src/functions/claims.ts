@@ -3,7 +3,7 @@
  * conclusion written beside the numbers cannot silently stop being true.
  */
 import { UsageError } from '../lang/errors.ts';
-import { formatP } from '../lang/format.ts';
+import { pPhrase } from '../format/digits.ts';
 import { mapNumbers } from '../lang/elementwise.ts';
 import { isColumn, isMissing, textColumn, type Claim, type Value } from '../lang/values.ts';
 import type { Builtin } from '../lang/builtins.ts';
@@ -37,14 +37,11 @@ export const CLAIMS: readonly Builtin[] = [
     category: 'claims',
     params: [{ name: 'p', type: 'numeric', doc: 'A p-value, or a column of them.' }],
     returns: 'a text, or a column of texts',
-    doc: 'A p-value written as the trade writes it, for notes: "p = 0.0019" with four decimals, or "p < 0.0001" for smaller values.',
+    doc: 'A p-value as a phrase for notes, by the digits rule of p-values: "p = 0.019" with two significant digits, "p < 0.001" for smaller values, "p > 0.99" for those that would round to 1.',
     example: 'p_text(fit.table.p[1])',
     run: (a) => {
       const v = a.get('p')!;
-      const text = (x: number): string => {
-        const f = formatP(x);
-        return /^[<>]/.test(f) ? `p ${f}` : `p = ${f}`;
-      };
+      const text = (x: number): string => pPhrase(x);
       if (typeof v === 'number') return text(v);
       const col = mapNumbers(v, (x) => x);
       if (!isColumn(col) || col.type !== 'number') return text(NaN);

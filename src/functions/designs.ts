@@ -6,6 +6,7 @@
  * numeric fit and the data it came from, for the comparisons, the checks and the charts.
  */
 import { UsageError } from '../lang/errors.ts';
+import { pPhrase } from '../format/digits.ts';
 import { formatNumber } from '../lang/format.ts';
 import { msg } from '../lang/messages.ts';
 import { MISSING, isColumn, numberColumn, record, textColumn, type Column, type NumberColumn, type RecordValue, type Table, type Value } from '../lang/values.ts';
@@ -287,7 +288,7 @@ export const DESIGNS: readonly Builtin[] = [
         const ps = fit.covariate.parallel;
         fields.push(['parallel_slopes', record([['ss', ps.ss], ['f', ps.f], ['df1', ps.df1], ['df2', ps.df2], ['p', ps.p]], 'test')]);
         if (ps.p < 0.05) {
-          notes.push(`The slope on ${fit.covariate.name} differs between treatments (test of parallel slopes, p = ${formatNumber(ps.p, 3)}): adjusted means then depend on the covariate value chosen, so compare the treatments at several values of ${fit.covariate.name} rather than at its mean alone.`);
+          notes.push(`The slope on ${fit.covariate.name} differs between treatments (test of parallel slopes, ${pPhrase(ps.p)}): adjusted means then depend on the covariate value chosen, so compare the treatments at several values of ${fit.covariate.name} rather than at its mean alone.`);
         }
       }
       if (fit.split !== undefined) {

@@ -1,45 +1,32 @@
 /**
  * Plain-text display of values: the numbers a note's placeholder shows, the command line's
- * human output. Views in the page format for themselves but use formatNumber for the digits,
- * so a number reads the same everywhere.
+ * human output. Every number goes through the one digits policy (src/format/digits.ts), by
+ * the quantity it is, so a number reads the same everywhere.
  */
+import { numberText, pValueText, type Quantity } from '../format/digits.ts';
 import { elementAt, isColumn, type Value } from './values.ts';
 
 /**
- * A number for reading: up to `digits` significant digits, trailing zeros dropped,
- * exponent form only for very large or very small magnitudes. Integers print whole.
+ * A number whose meaning is not known (a formula's own result): six significant digits,
+ * by the one digits policy (src/format/digits.ts).
  */
-export function formatNumber(x: number, digits = 6): string {
-  if (Number.isNaN(x)) return 'NaN';
-  if (x === Infinity) return '∞';
-  if (x === -Infinity) return '-∞';
-  if (Number.isInteger(x) && Math.abs(x) < 1e15) return String(x);
-  const a = Math.abs(x);
-  if (a !== 0 && (a < 1e-4 || a >= 1e15)) {
-    const [m, e] = x.toExponential(digits - 1).split('e');
-    return `${trimZeros(m!)}e${e}`;
-  }
-  return trimZeros(x.toPrecision(digits));
+export function formatNumber(x: number): string {
+  return numberText(x, 'plain');
 }
 
-function trimZeros(s: string): string {
-  if (!s.includes('.') || s.includes('e')) return s;
-  return s.replace(/\.?0+$/, '');
-}
-
-/** A p-value as the trade writes it: 0.0019, or < 0.0001. */
+/** A p-value by the one digits policy: "< 0.001", or two significant digits. */
 export function formatP(p: number): string {
-  if (Number.isNaN(p)) return 'NaN';
-  if (p < 0.0001) return '< 0.0001';
-  if (p >= 0.9999) return '> 0.9999';
-  return p.toFixed(4);
+  return pValueText(p);
 }
 
-/** One value as a short inline text (for a note's placeholder). */
-export function formatInline(v: Value): string {
+/**
+ * One value as a short inline text (for a note's placeholder). `quantity`, when known (a
+ * placeholder that reads a field of a result, `{fit.mse}`), sets the digits of its numbers.
+ */
+export function formatInline(v: Value, quantity: Quantity = 'plain'): string {
   switch (typeof v) {
     case 'number':
-      return formatNumber(v);
+      return numberText(v, quantity);
     case 'string':
       return v;
     case 'boolean':
@@ -51,7 +38,7 @@ export function formatInline(v: Value): string {
     case 'column': {
       const n = v.values.length;
       const shown: string[] = [];
-      for (let i = 0; i < Math.min(n, 6); i++) shown.push(formatInline(elementAt(v, i)));
+      for (let i = 0; i < Math.min(n, 6); i++) shown.push(formatInline(elementAt(v, i), quantity));
       return `[${shown.join(', ')}${n > 6 ? `, … (${n} in all)` : ''}]`;
     }
     case 'table':

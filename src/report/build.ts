@@ -15,11 +15,11 @@ import { visibleBody, documentTitle, headerFields, type Document } from '../doc/
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import type { CellState } from '../graph/engine.ts';
 import type { NameUse } from '../lang/ast.ts';
-import { formatInline } from '../lang/format.ts';
 import { collectCharts } from './walk.ts';
 import { isError, type Value } from '../lang/values.ts';
 import { renderSvg } from '../charts/render.ts';
 import { ATTRIBUTE_SLOT, SLOT, noteMarkdownHtml, placeholderSources } from '../../cells/note/markdown.ts';
+import { placeholderText } from '../../cells/note/model.ts';
 import { notesInDoubt, type NoteDoubt } from '../seal/doubt.ts';
 import { fingerprint, isSealedCell } from '../seal/fingerprint.ts';
 import { verificationText } from '../seal/verify-text.ts';
@@ -83,7 +83,7 @@ export function noteHtml(body: string, parts: readonly Value[] | null, doubt: No
     if (v === undefined) return `<span class="live failed">${e(sources[i] ?? '')}</span>`;
     if (isError(v)) return `<span class="live failed" title="${e(v.message)}">${e(sources[i] ?? '')}</span>`;
     const inDoubt = doubt?.slots.has(i) === true;
-    return `<span class="live${inDoubt ? ' doubt' : ''}"${inDoubt ? ' title="A claim that reads this number does not hold."' : ''}>${e(formatInline(v))}</span>`;
+    return `<span class="live${inDoubt ? ' doubt' : ''}"${inDoubt ? ' title="A claim that reads this number does not hold."' : ''}>${e(placeholderText(sources[i] ?? '', v))}</span>`;
   });
   const warning =
     doubt === undefined ? '' : `<p class="doubt-note">Marked numbers are read by a claim that does not hold: ${doubt.claims.map((c) => `“${e(c)}”`).join('; ')}.</p>`;

@@ -5,6 +5,7 @@
  * document is escaped. The layouts are the page's own (record-layout.ts, grid-model.ts), so
  * a number reads the same in the report as on the page.
  */
+import { countText } from '../format/digits.ts';
 import { formatInline } from '../lang/format.ts';
 import { columnLength, isColumn, isRecord, isTable, missingCount, type Column, type RecordValue, type Table, type Value } from '../lang/values.ts';
 import { cellText, planColumn } from '../views/values/grid-model.ts';
@@ -24,7 +25,7 @@ export type ChartSvgs = ReadonlyMap<unknown, { svg: string } | { failure: string
 const e = escapeHtml;
 
 function count(n: number, one: string, many: string): string {
-  return `${n.toLocaleString('en')} ${n === 1 ? one : many}`;
+  return `${countText(n)} ${n === 1 ? one : many}`;
 }
 
 /** A table as HTML, cut to its first rows when long. */

@@ -33,6 +33,8 @@ describe('reading imports', () => {
 describe('each rule can fail', () => {
   const wrong: [string, string][] = [
     ['src/stats/linear/fit.ts', 'src/lang/values.ts'],
+    ['src/format/digits.ts', 'src/lang/values.ts'],
+    ['src/format/digits.ts', 'node:fs'],
     ['src/lang/evaluate.ts', 'src/functions/index.ts'],
     ['src/graph/engine.ts', 'cells/kinds.ts'],
     ['src/doc/format.ts', 'cells/table/model.ts'],
@@ -54,6 +56,8 @@ describe('each rule can fail', () => {
   it('allowed arrows pass', () => {
     const right: [string, string][] = [
       ['src/functions/designs.ts', 'src/stats/designs/index.ts'],
+      ['src/stats/designs/messages.ts', 'src/format/digits.ts'],
+      ['src/charts/words.ts', 'src/format/digits.ts'],
       ['src/graph/engine.ts', 'src/lang/values.ts'],
       ['cells/table/view.ts', 'src/views/theme.ts'],
       ['cells/table/view.ts', 'lit'],

@@ -49,9 +49,14 @@ const ABOVE_LANG = under('src/functions', 'src/graph', 'src/doc', 'src/charts', 
 
 export const STAIR_RULES: readonly StairRule[] = [
   {
-    says: 'numeric code (src/stats) imports nothing above it',
+    says: 'the digits policy (src/format) imports nothing of the project: every floor uses it',
+    covers: under('src/format'),
+    forbids: (t) => t.startsWith('src/') || t.startsWith('cells/') ? !under('src/format')(t) : !t.startsWith('.'),
+  },
+  {
+    says: 'numeric code (src/stats) imports nothing above it (only the digits policy, for the words of its notes)',
     covers: under('src/stats'),
-    forbids: (t) => t.startsWith('src/') || t.startsWith('cells/') ? !under('src/stats')(t) : false,
+    forbids: (t) => t.startsWith('src/') || t.startsWith('cells/') ? !under('src/stats', 'src/format')(t) : false,
   },
   {
     says: 'the language (src/lang) imports nothing above it',

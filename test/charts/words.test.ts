@@ -9,7 +9,7 @@ describe('caption words', () => {
     expect([1, 2, 3, 4, 11, 12, 13, 21, 22, 23, 101, 111].map(ordinal)).toEqual(['1st', '2nd', '3rd', '4th', '11th', '12th', '13th', '21st', '22nd', '23rd', '101st', '111th']);
     expect(pText(0.6612)).toBe('p = 0.66');
     expect(pText(0.012)).toBe('p = 0.012');
-    expect(pText(0.00002)).toBe('p < 0.0001');
+    expect(pText(0.00002)).toBe('p < 0.001');
   });
   it('lists rows, the first five by number', () => {
     expect(rowList([17])).toBe('row 17');

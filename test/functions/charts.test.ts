@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { BEYOND } from '../../src/charts/layers.ts';
 import type { Chart, Value } from '../../src/lang/values.ts';
 import { expectSelfContained, expectValidSpec, GRAFT, layerOf, PLANTS, valuesOf, obj, type Obj } from '../charts/fixtures.ts';
-import { formatNumber } from '../../src/lang/format.ts';
+import { numberText } from '../../src/format/digits.ts';
 import { doc, run } from '../helpers.ts';
 
 function chart(v: Value | undefined): Chart {
@@ -182,7 +182,7 @@ describe('a factorial fit', () => {
     expect(i).toBeGreaterThan(0);
     const f = (table.columns[table.names.indexOf('f')]!.values as Float64Array)[i]!;
     expect(obj(c.spec).title).toMatchObject({ text: 'Mean yield of each half across the pressure levels' });
-    expect((obj(c.spec).title as Obj).subtitle).toMatch(new RegExp(`^pressure:half interaction: F = ${formatNumber(f, 3).replace('.', '\\.')} on 3 and 16 df, p = `));
+    expect((obj(c.spec).title as Obj).subtitle).toMatch(new RegExp(`^pressure:half interaction: F = ${numberText(f, 'statistic').replace('.', '\\.')} on 3 and 16 df, p = `));
     expect(c.caption).toContain('3 observations per cell');
     expectValidSpec(c.spec);
     expectValidSpec(chart(engine.valueOf('res')).spec);

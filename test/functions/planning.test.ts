@@ -340,12 +340,12 @@ describe('the charts', () => {
     expect(v.caption).toBe('Power from 2 to 34 plots per group; the plan marked has 17 plots per group and power 0.807; the dashed line is the power asked for (80%).');
     // source: scipy 1.10.1 (stats.nct, as in fixtures/planning_power.py): n = 30, delta = sd = 1 gives 0.9677083
     const p = evalFormula('power_chart(power_two_sample(1, 1, 30))') as Chart;
-    expect(p.caption).toBe('Power from 2 to 60 plots per group; the plan marked has 30 plots per group and power 0.9677.');
+    expect(p.caption).toBe('Power from 2 to 60 plots per group; the plan marked has 30 plots per group and power 0.968.');
   });
 
   it('power_chart marks the plan and the power asked for', async () => {
     const v = evalFormula('power_chart(blocks_for_power(1, 1, 4))') as Chart;
-    expect(v.caption).toBe('Power from 2 to 48 blocks; the plan marked has 24 blocks and power 0.8168; the dashed line is the power asked for (80%).');
+    expect(v.caption).toBe('Power from 2 to 48 blocks; the plan marked has 24 blocks and power 0.817; the dashed line is the power asked for (80%).');
     const r = await renderSvg(v.spec);
     expect(r.warnings).toEqual([]);
   });

@@ -3,6 +3,7 @@
  * wording is kept consistent and the tests can check against these builders.
  */
 
+import { numberText, pPhrase } from '../../format/digits.ts';
 const q = (s: string): string => `"${s}"`;
 
 /** Plain-words messages (errors and notes). */
@@ -80,8 +81,8 @@ export const messages = {
     `adjusted for the covariate ${q(name)}: each sum of squares in the table is adjusted for the other terms, and the means are adjusted to the covariate's overall mean`,
   sitesNote: (treatment: string, site: string) =>
     `sites are taken as a sample of the places the result should hold for: ${q(treatment)} is tested against the ${treatment}:${site} mean square; its F against the pooled error is in f_against_error`,
-  sitesBartlett: (stat: string, df: number, p: string) =>
-    `Bartlett's test of equal error variances across sites before pooling: chi-square ${stat} on ${df} df, p = ${p}`,
+  sitesBartlett: (stat: number, df: number, p: number) =>
+    `Bartlett's test of equal error variances across sites before pooling: chi-square ${numberText(stat, 'statistic')} on ${df} df, ${pPhrase(p)}`,
   sitesBartlettWarn: () =>
     'the error variances differ between sites (Bartlett p < 0.05): the pooled error and the F tests against it are doubtful; look at the per-site analyses',
   sitesMeansNote: (treatment: string, site: string) =>

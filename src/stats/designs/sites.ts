@@ -187,7 +187,7 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   const notes: string[] = [];
   if (opts.dropped > 0) notes.push(messages.dropped(opts.dropped));
   notes.push(messages.sitesNote(treatment.name, site.name));
-  notes.push(messages.sitesBartlett(bt.statistic.toPrecision(4), bt.df, bt.p.toPrecision(3)));
+  notes.push(messages.sitesBartlett(bt.statistic, bt.df, bt.p));
   if (bt.p < BARTLETT_WARN) notes.push(messages.sitesBartlettWarn());
   notes.push(messages.sitesMeansNote(treatment.name, site.name));
 

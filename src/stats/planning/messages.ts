@@ -3,6 +3,7 @@
  * words a power record uses to say what it assumed, the design warning on a fit).
  */
 
+import { countText, numberText } from '../../format/digits.ts';
 const q = (s: string): string => `"${s}"`;
 
 /** Plain-words messages of planning. */
@@ -14,13 +15,13 @@ export const planningMessages = {
     `the seed must be a whole number from 0 to 4294967295 (got ${seed}); write the seed down in the document so the layout can be drawn again`,
   countNotWhole: (what: string, v: number, least: number) => `${what} must be a whole number of at least ${least} (got ${v})`,
   tooManyPlots: (plots: number) =>
-    `this plan would need ${plots > 1e15 ? 'more than 10^15' : String(Math.round(plots)).replace(/\B(?=(\d{3})+(?!\d))/g, ',')} plots, more than the limit of 1,000,000`,
+    `this plan would need ${plots > 1e15 ? 'more than 10^15' : countText(plots)} plots, more than the limit of 1,000,000`,
   sdNotPositive: (sd: number) => `the standard deviation must be greater than zero (got ${sd})`,
   deltaZero: () => `the difference to detect (delta) must not be zero: there is no plan that detects a difference of zero`,
   deltaNotFinite: (d: number) => `the difference to detect (delta) must be a finite number (got ${d})`,
   outsideUnit: (what: string, v: number) => `${what} must lie strictly between 0 and 1 (got ${v})`,
   powerBelowLevel: (power: number, level: number) =>
-    `a power of ${power} is no more than the false-alarm rate ${+(1 - level).toPrecision(6)} of a test at level ${level}: any plan has at least that power; ask for more`,
+    `a power of ${power} is no more than the false-alarm rate ${numberText(1 - level, 'plain')} of a test at level ${level}: any plan has at least that power; ask for more`,
   /** What a two-group power assumes, in words. */
   assumesTwoGroups: (level: number) =>
     `two independent groups of equal size, normal errors with a common standard deviation, and a two-sided t test at level ${level} (pooled variance, 2n - 2 df); power from the noncentral t distribution`,

@@ -1,10 +1,12 @@
 /**
- * How many digits a number gets on the page. A column of numbers reads best when its
- * decimal points line up, so a column gets one count of decimals chosen from its largest and
- * smallest magnitudes; a number on its own uses formatNumber, so it reads the same as in a
- * note or on the command line.
+ * Digits on the page, on top of the one digits policy (src/format/digits.ts). Result
+ * numbers (a field or column whose name says what it is: p, ss, mean, ...) are written by
+ * that policy, one number at a time, so they read the same here as in a note, a chart, the
+ * report and on the command line. A column of plain numbers (a formula's own column, whose
+ * meaning the policy cannot know) reads best with its decimal points lined up, so it gets one
+ * count of decimals chosen from its largest and smallest magnitudes.
  */
-import { formatNumber, formatP } from '../../lang/format.ts';
+import { decimalsText, numberText, percentText, pValueText } from '../../format/digits.ts';
 
 /** What {@link sharedDecimals} aims for. */
 export interface DecimalsGoal {
@@ -60,18 +62,16 @@ export function sharedDecimals(values: ArrayLike<number>, goal: DecimalsGoal = D
  * infinities read as formatNumber writes them; -0 prints as 0.
  */
 export function fixedText(x: number, decimals: number | null): string {
-  if (!Number.isFinite(x) || decimals === null) return formatNumber(x);
-  const s = x.toFixed(decimals);
-  // toFixed(-0.0001, 2) gives "-0.00": a sign on a zero says something the number does not
-  return /^-0(\.0*)?$/.test(s) ? s.slice(1) : s;
+  if (!Number.isFinite(x) || decimals === null) return numberText(x, 'plain');
+  return decimalsText(x, decimals);
 }
 
 /** A p-value for a table: blank where there is none, else as the trade writes it. */
 export function pText(p: number): string {
-  return Number.isNaN(p) ? '' : formatP(p);
+  return Number.isNaN(p) ? '' : pValueText(p);
 }
 
 /** A confidence level as a percentage: 0.95 gives "95%". */
 export function levelText(level: number): string {
-  return `${formatNumber(level * 100, 6)}%`;
+  return percentText(level);
 }

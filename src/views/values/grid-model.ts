@@ -4,7 +4,8 @@
  * rows are drawn is the row-window model's job: row-window.ts).
  */
 import { isMissingAt, type Column } from '../../lang/values.ts';
-import { fixedText, pText, sharedDecimals } from './digits.ts';
+import { numberText, quantityOf, type Quantity } from '../../format/digits.ts';
+import { fixedText, sharedDecimals } from './digits.ts';
 
 /** How one column is written, decided once per column. */
 export interface ColumnPlan {
@@ -14,8 +15,12 @@ export interface ColumnPlan {
   readonly decimals: number | null;
   /** The column keeps the decimal text that was typed: show that, not a reformatted double. */
   readonly typed: boolean;
-  /** A column of p-values, written as the trade writes them. */
-  readonly asP: boolean;
+  /**
+   * A computed column whose name says what it holds (p, se, mean, f, ...): each number is
+   * written by the digits policy for that quantity, as it reads everywhere else. Null for a
+   * column of plain numbers, which line up on shared decimals instead.
+   */
+  readonly quantity: Quantity | null;
 }
 
 const plans = new WeakMap<Column, ColumnPlan>();
@@ -28,13 +33,14 @@ export function planColumn(c: Column): ColumnPlan {
   const known = plans.get(c);
   if (known !== undefined) return known;
   let plan: ColumnPlan;
-  if (c.type !== 'number') plan = { align: 'text', decimals: null, typed: false, asP: false };
-  else if (c.decimals !== null) plan = { align: 'num', decimals: null, typed: true, asP: false };
-  else if (c.name === 'p') plan = { align: 'num', decimals: null, typed: false, asP: true };
+  const quantity = quantityOf(c.name);
+  if (c.type !== 'number') plan = { align: 'text', decimals: null, typed: false, quantity: null };
+  else if (c.decimals !== null) plan = { align: 'num', decimals: null, typed: true, quantity: null };
+  else if (quantity !== 'plain') plan = { align: 'num', decimals: null, typed: false, quantity };
   else {
     const missing = c.missing;
     const decimals = sharedDecimals(c.values, undefined, missing === null ? undefined : (i) => missing[i] === 1);
-    plan = { align: 'num', decimals, typed: false, asP: false };
+    plan = { align: 'num', decimals, typed: false, quantity: null };
   }
   plans.set(c, plan);
   return plan;
@@ -62,7 +68,7 @@ export function cellText(c: Column, i: number, plan: ColumnPlan = planColumn(c))
         const typed = c.decimals?.[i];
         if (typed !== undefined && typed !== '') return { text: typed, missing: false };
       }
-      if (plan.asP) return { text: pText(x) || 'NaN', missing: false };
+      if (plan.quantity !== null) return { text: numberText(x, plan.quantity), missing: false };
       return { text: fixedText(x, plan.decimals), missing: false };
     }
   }

@@ -4,7 +4,7 @@
  * which are folded away. The elements only draw what these functions return, so the layout
  * is tested in Node.
  */
-import { formatNumber } from '../../lang/format.ts';
+import { numberText, pPhrase, quantityOf, type Quantity } from '../../format/digits.ts';
 import {
   isColumn,
   isMissingAt,
@@ -16,7 +16,7 @@ import {
   type Table,
   type Value,
 } from '../../lang/values.ts';
-import { fixedText, levelText, pText, sharedDecimals } from './digits.ts';
+import { levelText, pText } from './digits.ts';
 
 /** Which part of the analysis a row of the table is. */
 export type AnovaRole = 'term' | 'error' | 'total';
@@ -126,11 +126,9 @@ export function fieldLabel(field: string): string {
   return LABELS.get(field) ?? field.replace(/_/g, ' ');
 }
 
-/** A number, written for a field of its name: p-values as the trade writes them, levels as percentages. */
+/** A number, written by the digits policy for the quantity its field name says it is. */
 export function scalarNumberText(field: string, x: number): string {
-  if (field === 'p' || field.endsWith('_p')) return pText(x) || 'NaN';
-  if (field === 'level' && x > 0 && x < 1) return levelText(x);
-  return formatNumber(x);
+  return numberText(x, quantityOf(field));
 }
 
 /** A scalar value as the text of a labelled line, or null when the value is not a scalar. */
@@ -156,15 +154,10 @@ function numberAt(c: Column | undefined, i: number): number {
 function textAt(c: Column | undefined, i: number): string {
   if (c === undefined || isMissingAt(c, i)) return '';
   if (c.type === 'text') return c.values[i] ?? '';
-  if (c.type === 'number') return c.decimals?.[i] || formatNumber(c.values[i] ?? NaN);
+  if (c.type === 'number') return c.decimals?.[i] || numberText(c.values[i] ?? NaN, 'plain');
   return c.values[i] === 1 ? 'true' : 'false';
 }
 
-function numbersOf(c: Column | undefined, rows: number, keep: (i: number) => boolean): number[] {
-  const out: number[] = [];
-  for (let i = 0; i < rows; i++) if (keep(i)) out.push(numberAt(c, i));
-  return out;
-}
 
 function roleOf(source: string): AnovaRole {
   if (source === 'error') return 'error';
@@ -172,14 +165,15 @@ function roleOf(source: string): AnovaRole {
   return 'term';
 }
 
-function blankIfNaN(x: number, write: (x: number) => string): string {
-  return Number.isNaN(x) ? '' : write(x);
+/** A result number by the digits policy; blank where there is none (NaN or missing). */
+function cell(x: number, q: Quantity): string {
+  return Number.isNaN(x) ? '' : numberText(x, q);
 }
 
 /**
  * The rows of an analysis-of-variance table (columns `source df ss ms f p`), or null when
- * the table lacks one of them. Sums of squares and mean squares share one count of decimals
- * (they are in the same units); F has its own. MS is blank on the total row, F and p on the
+ * the table lacks one of them. Every number is written by the digits policy for its
+ * quantity, as it is everywhere else. MS is blank on the total row, F and p on the
  * error and total rows, and any cell whose number does not exist (NaN or missing) is blank.
  */
 export function anovaRows(t: Table): AnovaRowText[] | null {
@@ -194,23 +188,16 @@ export function anovaRows(t: Table): AnovaRowText[] | null {
   const rows = t.rows;
   const roles: AnovaRole[] = [];
   for (let i = 0; i < rows; i++) roles.push(roleOf(textAt(source, i)));
-  const squares = [...numbersOf(ss, rows, () => true), ...numbersOf(ms, rows, (i) => roles[i] !== 'total')];
-  const squaresDecimals = sharedDecimals(squares, { sig: 6, minSig: 3, maxDecimals: 8 });
-  const fDecimals = sharedDecimals(
-    numbersOf(f, rows, (i) => roles[i] === 'term'),
-    { sig: 4, minSig: 3, maxDecimals: 6 },
-  );
-  const dfDecimals = sharedDecimals(numbersOf(df, rows, () => true), { sig: 4, minSig: 3, maxDecimals: 4 });
   const out: AnovaRowText[] = [];
   for (let i = 0; i < rows; i++) {
     const role = roles[i]!;
     out.push({
       role,
       source: textAt(source, i),
-      df: blankIfNaN(numberAt(df, i), (x) => fixedText(x, dfDecimals)),
-      ss: blankIfNaN(numberAt(ss, i), (x) => fixedText(x, squaresDecimals)),
-      ms: role === 'total' ? '' : blankIfNaN(numberAt(ms, i), (x) => fixedText(x, squaresDecimals)),
-      f: role === 'term' ? blankIfNaN(numberAt(f, i), (x) => fixedText(x, fDecimals)) : '',
+      df: cell(numberAt(df, i), 'df'),
+      ss: cell(numberAt(ss, i), 'squares'),
+      ms: role === 'total' ? '' : cell(numberAt(ms, i), 'squares'),
+      f: role === 'term' ? cell(numberAt(f, i), 'statistic') : '',
       p: role === 'term' ? pText(numberAt(p, i)) : '',
     });
   }
@@ -219,7 +206,7 @@ export function anovaRows(t: Table): AnovaRowText[] | null {
 
 /**
  * The rows of a means table (columns `level n mean se low high`), or null when one is
- * missing. Means and interval ends share decimals (same units); standard errors have their own.
+ * missing. Numbers by the digits policy (estimates).
  */
 export function meansRows(t: Table): MeansRowText[] | null {
   const level = tableColumn(t, 'level');
@@ -231,18 +218,15 @@ export function meansRows(t: Table): MeansRowText[] | null {
   if (level === undefined || n === undefined || mean === undefined || se === undefined || low === undefined || high === undefined) return null;
   if (mean.type !== 'number' || se.type !== 'number' || low.type !== 'number' || high.type !== 'number') return null;
   const rows = t.rows;
-  const all = () => true;
-  const valueDecimals = sharedDecimals([...numbersOf(mean, rows, all), ...numbersOf(low, rows, all), ...numbersOf(high, rows, all)]);
-  const seDecimals = sharedDecimals(numbersOf(se, rows, all), { sig: 4, minSig: 3, maxDecimals: 8 });
   const out: MeansRowText[] = [];
   for (let i = 0; i < rows; i++) {
     out.push({
       level: textAt(level, i),
       n: textAt(n, i),
-      mean: blankIfNaN(numberAt(mean, i), (x) => fixedText(x, valueDecimals)),
-      se: blankIfNaN(numberAt(se, i), (x) => fixedText(x, seDecimals)),
-      low: blankIfNaN(numberAt(low, i), (x) => fixedText(x, valueDecimals)),
-      high: blankIfNaN(numberAt(high, i), (x) => fixedText(x, valueDecimals)),
+      mean: cell(numberAt(mean, i), 'estimate'),
+      se: cell(numberAt(se, i), 'estimate'),
+      low: cell(numberAt(low, i), 'estimate'),
+      high: cell(numberAt(high, i), 'estimate'),
     });
   }
   return out;
@@ -272,8 +256,8 @@ export function nonadditivityText(v: Value): string | null {
   const df1 = v.fields.get('df1');
   const df2 = v.fields.get('df2');
   if (typeof ss !== 'number' || typeof f !== 'number' || typeof p !== 'number') return null;
-  const dfs = typeof df1 === 'number' && typeof df2 === 'number' ? `(${formatNumber(df1)}, ${formatNumber(df2)})` : '';
-  return `SS ${formatNumber(ss)}, F${dfs} ${formatNumber(f, 4)}, p ${pText(p) || 'NaN'}`;
+  const dfs = typeof df1 === 'number' && typeof df2 === 'number' ? `(${numberText(df1, 'df')}, ${numberText(df2, 'df')})` : '';
+  return `SS ${numberText(ss, 'squares')}, F${dfs} ${numberText(f, 'statistic')}, ${pPhrase(p)}`;
 }
 
 /** A phrase as a sentence: capital first letter, full stop at the end. */
@@ -395,9 +379,6 @@ export function pairRows(t: Table): PairRowText[] | null {
   const significant = tableColumn(t, 'significant');
   if (a === undefined || b === undefined || estimate === undefined || se === undefined || low === undefined || high === undefined || p === undefined) return null;
   const rows = t.rows;
-  const all = () => true;
-  const valueDecimals = sharedDecimals([...numbersOf(estimate, rows, all), ...numbersOf(low, rows, all), ...numbersOf(high, rows, all)]);
-  const seDecimals = sharedDecimals(numbersOf(se, rows, all), { sig: 4, minSig: 3, maxDecimals: 8 });
   const out: PairRowText[] = [];
   for (let i = 0; i < rows; i++) {
     let excludesZero = '';
@@ -406,10 +387,10 @@ export function pairRows(t: Table): PairRowText[] | null {
     }
     out.push({
       pair: `${textAt(a, i)} − ${textAt(b, i)}`,
-      estimate: blankIfNaN(numberAt(estimate, i), (x) => fixedText(x, valueDecimals)),
-      se: blankIfNaN(numberAt(se, i), (x) => fixedText(x, seDecimals)),
-      low: blankIfNaN(numberAt(low, i), (x) => fixedText(x, valueDecimals)),
-      high: blankIfNaN(numberAt(high, i), (x) => fixedText(x, valueDecimals)),
+      estimate: cell(numberAt(estimate, i), 'estimate'),
+      se: cell(numberAt(se, i), 'estimate'),
+      low: cell(numberAt(low, i), 'estimate'),
+      high: cell(numberAt(high, i), 'estimate'),
       p: pText(numberAt(p, i)),
       excludesZero,
     });

@@ -6,13 +6,14 @@
  * out in record-layout.ts and grid-model.ts; this file only draws it.
  */
 import { css, html, LitElement, nothing, type TemplateResult } from 'lit';
-import { formatNumber } from '../../lang/format.ts';
+import { countText, numberText } from '../../format/digits.ts';
 import { columnLength, missingCount, type Claim, type Column, type ErrorValue, type RecordValue, type Table, type Value } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
 import './chart.ts';
 import './grid.ts';
 import './run-sheet.ts';
 import { fitLayout, pairsLayout, recordLines, type ScalarLine, type ValueLine } from './record-layout.ts';
+import { recordSummary, type RecordSummary } from './record-summary.ts';
 import { tableStyles } from './styles.ts';
 import { tableCsv } from '../../doc/table-csv.ts';
 import { downloadCsv, fileNameFor } from '../download.ts';
@@ -22,13 +23,13 @@ export function columnSummary(c: Column): string {
   const n = columnLength(c);
   const noun = c.type === 'number' ? (n === 1 ? 'number' : 'numbers') : c.type === 'text' ? (n === 1 ? 'text' : 'texts') : n === 1 ? 'boolean' : 'booleans';
   const m = missingCount(c);
-  return `${n.toLocaleString('en')} ${noun}${m > 0 ? `, ${m.toLocaleString('en')} missing` : ''}`;
+  return `${countText(n)} ${noun}${m > 0 ? `, ${countText(m)} missing` : ''}`;
 }
 
 /** A one-line description of a table's size ("24 rows, 3 columns"). */
 export function tableSummary(t: Table): string {
   const cols = t.columns.length;
-  return `${t.rows.toLocaleString('en')} ${t.rows === 1 ? 'row' : 'rows'}, ${cols} ${cols === 1 ? 'column' : 'columns'}`;
+  return `${countText(t.rows)} ${t.rows === 1 ? 'row' : 'rows'}, ${cols} ${cols === 1 ? 'column' : 'columns'}`;
 }
 
 /** In a record, columns longer than this are folded behind a disclosure. */
@@ -65,7 +66,59 @@ export class FurrowValue extends LitElement {
       }
       .text {
         white-space: pre-wrap;
+        overflow-wrap: anywhere;
         font-family: var(--font-text);
+      }
+      .result {
+        display: grid;
+        gap: 0.3rem;
+        justify-items: start;
+        border-left: 3px solid var(--rule-strong);
+        padding-left: 0.7rem;
+        max-width: 100%;
+      }
+      .result .headline {
+        margin: 0;
+        font-family: var(--font-text);
+        font-size: 1.05rem;
+        font-variant-numeric: tabular-nums lining-nums;
+        overflow-wrap: anywhere;
+      }
+      .result .detail {
+        margin: 0;
+        font-size: 0.85rem;
+        color: var(--ink-soft);
+        overflow-wrap: anywhere;
+      }
+      table.checks {
+        max-width: 100%;
+      }
+      table.checks th,
+      table.checks td {
+        white-space: normal;
+      }
+      table.checks td.numbers {
+        color: var(--ink-soft);
+        font-variant-numeric: tabular-nums;
+      }
+      table.checks .mark {
+        display: inline-block;
+        width: 1.1em;
+        text-align: center;
+        font-weight: 700;
+      }
+      table.checks tr.flag .verdict {
+        color: var(--error);
+        font-weight: 600;
+      }
+      table.checks tr.clear .verdict {
+        color: var(--accent);
+      }
+      table.checks tr.none .verdict {
+        color: var(--muted);
+      }
+      details.raw {
+        max-width: 100%;
       }
       .quiet,
       .missing {
@@ -146,7 +199,8 @@ export class FurrowValue extends LitElement {
       }
       dl.fields {
         display: grid;
-        grid-template-columns: max-content max-content;
+        grid-template-columns: minmax(0, max-content) minmax(0, 1fr);
+        max-width: 100%;
         column-gap: 1rem;
         row-gap: 0.15rem;
         margin: 0;
@@ -162,6 +216,7 @@ export class FurrowValue extends LitElement {
       }
       dl.fields dd {
         margin: 0;
+        overflow-wrap: anywhere;
       }
       .part {
         display: grid;
@@ -216,7 +271,7 @@ export class FurrowValue extends LitElement {
     if (v === null || v === undefined) return nothing;
     switch (typeof v) {
       case 'number':
-        return html`<span class="scalar num" title=${String(v)}>${formatNumber(v)}</span>`;
+        return html`<span class="scalar num" title=${String(v)}>${numberText(v, 'plain')}</span>`;
       case 'string':
         return v === '' ? html`<span class="quiet">empty text</span>` : html`<span class="text">${v}</span>`;
       case 'boolean':
@@ -232,7 +287,7 @@ export class FurrowValue extends LitElement {
       case 'record':
         if (v.tag === 'fit') return this.renderFit(v);
         if (v.tag === 'pairs') return this.renderPairs(v);
-        return this.renderRecord(v);
+        return this.renderResult(v);
       case 'chart':
         return html`<furrow-chart .value=${v} name=${this.name ?? 'chart'}></furrow-chart>`;
       case 'claim':
@@ -415,6 +470,35 @@ export class FurrowValue extends LitElement {
       <p class="exports">${this.saveCsv(r.fields.get('table'), 'pairs', 'Save the pairs (CSV)')}</p>
       ${this.renderScalars(p.scalars)} ${p.others.map((o) => this.renderPart(o))}
     </section>`;
+  }
+
+  /** A result record read in words, its fields one click away; any other record field by field. */
+  private renderResult(r: RecordValue): TemplateResult {
+    const s = recordSummary(r);
+    if (s === null) return this.renderRecord(r);
+    return html`<section class="result" aria-label=${s.kind}>
+      <p class="headline">${s.headline}</p>
+      ${s.details.map((d) => html`<p class="detail">${d}</p>`)} ${s.checks.length === 0 ? nothing : this.renderChecks(s)}
+      ${s.notes.length === 0 ? nothing : html`<ul class="notes">${s.notes.map((n) => html`<li>${n}</li>`)}</ul>`}
+      <details class="raw">
+        <summary>Every field${this.name ? html` of <code>${this.name}</code>` : nothing}</summary>
+        ${this.renderRecord(r)}
+      </details>
+    </section>`;
+  }
+
+  private renderChecks(s: RecordSummary): TemplateResult {
+    return html`<table class="checks">
+      <tbody>
+        ${s.checks.map(
+          (c) => html`<tr class=${c.verdict}>
+            <th scope="row">${c.check}</th>
+            <td class="verdict"><span class="mark" aria-hidden="true">${c.verdict === 'flag' ? '!' : c.verdict === 'clear' ? '✓' : '–'}</span> ${c.words}</td>
+            <td class="numbers">${c.numbers}</td>
+          </tr>`,
+        )}
+      </tbody>
+    </table>`;
   }
 
   private renderRecord(r: RecordValue): TemplateResult {

@@ -59,7 +59,7 @@ describe('fixedText', () => {
 describe('pText and levelText', () => {
   it('writes p as the trade does, blank where there is none', () => {
     expect(pText(0.0019)).toBe('0.0019');
-    expect(pText(0.00001)).toBe('< 0.0001');
+    expect(pText(0.00001)).toBe('< 0.001');
     expect(pText(NaN)).toBe('');
   });
 

@@ -24,7 +24,15 @@ describe('cell texts', () => {
   it('writes p-value columns as the trade does', () => {
     const c = numberColumn(new Float64Array([0.0019, 0.00001]), null, 'p');
     expect(cellText(c, 0).text).toBe('0.0019');
-    expect(cellText(c, 1).text).toBe('< 0.0001');
+    expect(cellText(c, 1).text).toBe('< 0.001');
+  });
+
+  it('writes a computed column named for a result by the digits policy of that quantity', () => {
+    // the same text a record field of that name gets (common practice, no source)
+    const se = numberColumn(new Float64Array([0.61742, 1.5]), null, 'se');
+    expect([0, 1].map((i) => cellText(se, i).text)).toEqual(['0.6174', '1.500']);
+    const f = numberColumn(new Float64Array([13.8525]), null, 'f');
+    expect(cellText(f, 0).text).toBe('13.9');
   });
 
   it('writes texts and booleans plainly, left aligned', () => {

@@ -29,17 +29,17 @@ describe('anovaRows', () => {
     expect(rows.map((r) => r.role)).toEqual(['term', 'term', 'error', 'total']);
     expect(rows.map((r) => r.source)).toEqual(['method', 'row', 'error', 'total']);
     expect(rows.map((r) => r.df)).toEqual(['2', '7', '14', '23']);
-    // SS and MS share decimals: largest 157.3 wants 3, smallest 3.05 wants 2
-    expect(rows.map((r) => r.ss)).toEqual(['84.500', '30.100', '42.700', '157.300']);
-    expect(rows.map((r) => r.ms)).toEqual(['42.250', '4.300', '3.050', '']);
-    // F has four significant digits on its largest: 13.85 and 1.41
-    expect(rows.map((r) => r.f)).toEqual(['13.85', '1.41', '', '']);
-    expect(rows.map((r) => r.p)).toEqual(['0.0005', '0.2751', '', '']);
+    // the digits policy: SS and MS to four significant digits (whole digits kept), F to
+    // three, p to two or "< 0.001" (common practice, no source)
+    expect(rows.map((r) => r.ss)).toEqual(['84.50', '30.10', '42.70', '157.3']);
+    expect(rows.map((r) => r.ms)).toEqual(['42.25', '4.300', '3.050', '']);
+    expect(rows.map((r) => r.f)).toEqual(['13.9', '1.41', '', '']);
+    expect(rows.map((r) => r.p)).toEqual(['< 0.001', '0.28', '', '']);
   });
 
-  it('writes a very small p as < 0.0001 and leaves the error and total p blank even if given', () => {
+  it('writes a very small p as < 0.001 and leaves the error and total p blank even if given', () => {
     const rows = anovaRows(anovaTable([0.0000001, 0.0019, 0.5, 0.5]))!;
-    expect(rows.map((r) => r.p)).toEqual(['< 0.0001', '0.0019', '', '']);
+    expect(rows.map((r) => r.p)).toEqual(['< 0.001', '0.0019', '', '']);
   });
 
   it('leaves missing numbers blank', () => {
@@ -55,7 +55,7 @@ describe('anovaRows', () => {
       ],
     );
     const rows = anovaRows(t)!;
-    expect(rows[0]).toMatchObject({ ms: '2', f: '', p: '' });
+    expect(rows[0]).toMatchObject({ ms: '2.000', f: '', p: '' });
     expect(rows[1]).toMatchObject({ df: '0', ms: '' });
   });
 
@@ -65,14 +65,14 @@ describe('anovaRows', () => {
 });
 
 describe('meansRows', () => {
-  it('writes means and interval ends with shared decimals', () => {
+  it('writes means, standard errors and interval ends to four significant digits', () => {
     const t = table(
       ['level', 'n', 'mean', 'se', 'low', 'high'],
       [textColumn(['open', 'spindle']), nums([8, 8]), nums([41.25, 38.5]), nums([0.6174, 0.6174]), nums([39.926, 37.176]), nums([42.574, 39.824])],
     );
     const rows = meansRows(t)!;
-    expect(rows[0]).toEqual({ level: 'open', n: '8', mean: '41.2500', se: '0.6174', low: '39.9260', high: '42.5740' });
-    expect(rows[1]!.mean).toBe('38.5000');
+    expect(rows[0]).toEqual({ level: 'open', n: '8', mean: '41.25', se: '0.6174', low: '39.93', high: '42.57' });
+    expect(rows[1]!.mean).toBe('38.50');
   });
 });
 
@@ -112,7 +112,7 @@ describe('fitLayout', () => {
     expect(l.means).toHaveLength(3);
     expect(l.intervalHeader).toBe('95% interval');
     expect(l.scalars.map((s) => s.field)).toEqual(['mse', 'df_error', 'sd', 'grand_mean', 'r2', 'level']);
-    expect(l.scalars.find((s) => s.field === 'sd')!.text).toBe('1.74642');
+    expect(l.scalars.find((s) => s.field === 'sd')!.text).toBe('1.746');
     expect(l.scalars.find((s) => s.field === 'level')!.text).toBe('95%');
     expect(l.scalars[0]!.label).toBe('error mean square');
     expect(l.folded.map((f) => f.field)).toEqual(['fitted', 'residuals']);
@@ -138,8 +138,8 @@ describe('fitLayout', () => {
         ['nonadditivity', record([['ss', 0.512], ['f', 0.1601], ['p', 0.69571]])],
       ]),
     );
-    expect(l.scalars.find((s) => s.field === 'relative_efficiency')!.text).toBe('1.4213');
-    expect(l.scalars.find((s) => s.field === 'nonadditivity')!.text).toBe('SS 0.512, F 0.1601, p 0.6957');
+    expect(l.scalars.find((s) => s.field === 'relative_efficiency')!.text).toBe('1.421');
+    expect(l.scalars.find((s) => s.field === 'nonadditivity')!.text).toBe('SS 0.5120, F 0.160, p = 0.70');
   });
 
   it('keeps fields it does not know, shown under their own names', () => {
@@ -175,8 +175,8 @@ describe('pairs', () => {
 
   it('writes each pair as first minus second with its interval and p', () => {
     const rows = pairRows(pairsTable)!;
-    // estimate and interval share decimals: six significant digits on the largest (3.85000)
-    expect(rows[0]).toEqual({ pair: 'a − b', estimate: '-2.00000', se: '0.7071', low: '-3.85000', high: '-0.15000', p: '0.0321', excludesZero: 'yes' });
+    // estimates to four significant digits, p to two (the digits policy)
+    expect(rows[0]).toEqual({ pair: 'a − b', estimate: '-2.000', se: '0.7071', low: '-3.850', high: '-0.1500', p: '0.032', excludesZero: 'yes' });
     expect(rows[1]!.excludesZero).toBe('no');
   });
 
@@ -193,20 +193,21 @@ describe('scalars and other records', () => {
   it('labels fields in words and writes p as the trade does', () => {
     expect(fieldLabel('df_error')).toBe('error degrees of freedom');
     expect(fieldLabel('some_field')).toBe('some field');
-    expect(scalarText('p', 0.00001)).toBe('< 0.0001');
-    expect(scalarText('estimate', 2.123456789)).toBe('2.12346');
+    expect(scalarText('p', 0.00001)).toBe('< 0.001');
+    expect(scalarText('estimate', 2.123456789)).toBe('2.123');
+    expect(scalarText('some_field', 2.123456789)).toBe('2.12346');
     expect(scalarText('balanced', true)).toBe('yes');
     expect(scalarText('t', numberColumn(new Float64Array([1])))).toBeNull();
   });
 
   it('lists the fields of any record in order', () => {
     const lines = recordLines(record([['estimate', 1.5], ['p', 0.04], ['rows', nums([1, 2])]]));
-    expect(lines.map((l) => [l.field, l.text])).toEqual([['estimate', '1.5'], ['p', '0.0400'], ['rows', null]]);
+    expect(lines.map((l) => [l.field, l.text])).toEqual([['estimate', '1.500'], ['p', '0.040'], ['rows', null]]);
   });
 
   it('reads a nonadditivity record, and nothing else, as one line', () => {
-    expect(nonadditivityText(record([['ss', 1], ['f', 2], ['p', 0.2]]))).toBe('SS 1, F 2, p 0.2000');
-    expect(nonadditivityText(record([['ss', 1], ['f', 2], ['p', 0.2], ['df1', 1], ['df2', 5]]))).toBe('SS 1, F(1, 5) 2, p 0.2000');
+    expect(nonadditivityText(record([['ss', 1], ['f', 2], ['p', 0.2]]))).toBe('SS 1.000, F 2.00, p = 0.20');
+    expect(nonadditivityText(record([['ss', 1], ['f', 2], ['p', 0.2], ['df1', 1], ['df2', 5]]))).toBe('SS 1.000, F(1, 5) 2.00, p = 0.20');
     expect(nonadditivityText(3)).toBeNull();
   });
 });
@@ -230,7 +231,8 @@ describe('the layout of records the engine makes', () => {
     expect(rows.map((r) => r.df)).toEqual(['2', '3', '6', '11']);
     for (const r of rows.slice(0, 2)) {
       expect(r.f).not.toBe('');
-      expect(r.p).toMatch(/^(\d\.\d{4}|< 0\.0001|> 0\.9999)$/);
+      // two significant digits, or the words for the ends (the digits policy)
+      expect(r.p).toMatch(/^(0\.0*[1-9]\d|< 0\.001|> 0\.99)$/);
     }
     expect(rows[2]).toMatchObject({ f: '', p: '' });
     expect(rows[3]).toMatchObject({ ms: '', f: '', p: '' });

@@ -68,10 +68,10 @@ describe('<furrow-value>', () => {
     const rows = [...root.querySelectorAll('table.anova tbody tr')];
     expect(cells(root.querySelector('table.anova thead tr')!)).toEqual(['Source', 'df', 'SS', 'MS', 'F', 'p']);
     expect(rows.map(cells)).toEqual([
-      // SS and MS share three decimals: six digits on the largest, 127.200
-      ['method', '2', '84.500', '42.250', '20.78', '< 0.0001'],
-      ['error', '21', '42.700', '2.033', '', ''],
-      ['total', '23', '127.200', '', '', ''],
+      // the digits policy: SS and MS to four significant digits, F to three, p "< 0.001"
+      ['method', '2', '84.50', '42.25', '20.8', '< 0.001'],
+      ['error', '21', '42.70', '2.033', '', ''],
+      ['total', '23', '127.2', '', '', ''],
     ]);
     expect(root.querySelectorAll('table.means tbody tr')).toHaveLength(3);
     expect(root.textContent).toContain('error mean square');
@@ -112,7 +112,30 @@ describe('<furrow-value>', () => {
     const dts = [...root.querySelectorAll('dl.fields dt')].map((d) => d.textContent!.trim());
     const dds = [...root.querySelectorAll('dl.fields dd')].map((d) => d.textContent!.trim());
     expect(dts).toEqual(['estimate', 'p', 'level']);
-    expect(dds).toEqual(['2.3', '0.0321', '95%']);
+    expect(dds).toEqual(['2.300', '0.032', '95%']);
+  });
+
+  it('reads a comparison as one line, its fields one click away', async () => {
+    const r = record(
+      [
+        ['a', '80C'],
+        ['b', '60C'],
+        ['estimate', 2.0375],
+        ['se', 0.5],
+        ['df', 11],
+        ['t', 4.075],
+        ['p', 0.0018],
+        ['low', 0.93],
+        ['high', 3.145],
+        ['level', 0.95],
+      ],
+      'comparison',
+    );
+    const root = await show(r, 'gain');
+    expect(root.querySelector('.result .headline')!.textContent!.trim()).toBe('80C − 60C: 2.038 (95% interval 0.9300 to 3.145), p = 0.0018');
+    const raw = root.querySelector('details.raw') as HTMLDetailsElement;
+    expect(raw.open).toBe(false);
+    expect([...raw.querySelectorAll('dl.fields dt')].map((d) => d.textContent!.trim())).toEqual(['a', 'b', 'estimate', 'se', 'df', 't', 'p', 'low', 'high', 'level']);
   });
 
   it('says what a column holds', () => {
