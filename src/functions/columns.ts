@@ -5,7 +5,7 @@
  */
 import { UsageError } from '../lang/errors.ts';
 import { msg, plural } from '../lang/messages.ts';
-import type { Column, NumberColumn, Value } from '../lang/values.ts';
+import { pickDecimals, type Column, type NumberColumn, type Value } from '../lang/values.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import type { CallContext } from '../lang/builtins.ts';
 
@@ -118,10 +118,8 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
 export function responseOf(c: NumberColumn, rows: Int32Array | null): Response {
   const n = rows === null ? c.values.length : rows.length;
   if (c.decimals !== null) {
-    const texts: string[] = new Array<string>(n);
-    for (let k = 0; k < n; k++) texts[k] = c.decimals[rows === null ? k : rows[k]!]!;
     try {
-      const s = shiftDecimals(texts);
+      const s = shiftDecimals(rows === null ? c.decimals : pickDecimals(c.decimals, rows));
       return { y: s.shifted, offset: s.offset };
     } catch {
       // fall through to the binary values (a text that is not plain decimal)

@@ -3,7 +3,7 @@
  * rows are on screen. A column may hold a million elements, so the text of a cell is made
  * only when its row is drawn, and the rows drawn are a window around the scroll position.
  */
-import { isMissingAt, type Column } from '../../lang/values.ts';
+import { decimalAt, isMissingAt, type Column } from '../../lang/values.ts';
 import { fixedText, pText, sharedDecimals } from './digits.ts';
 
 /** How one column is written, decided once per column. */
@@ -59,7 +59,7 @@ export function cellText(c: Column, i: number, plan: ColumnPlan = planColumn(c))
     case 'number': {
       const x = c.values[i]!;
       if (plan.typed) {
-        const typed = c.decimals?.[i];
+        const typed = c.decimals === null ? undefined : decimalAt(c.decimals, i);
         if (typed !== undefined && typed !== '') return { text: typed, missing: false };
       }
       if (plan.asP) return { text: pText(x) || 'NaN', missing: false };

@@ -7,6 +7,7 @@
 import { formatNumber } from '../../lang/format.ts';
 import {
   isColumn,
+  decimalAt,
   isMissingAt,
   isRecord,
   isTable,
@@ -156,7 +157,7 @@ function numberAt(c: Column | undefined, i: number): number {
 function textAt(c: Column | undefined, i: number): string {
   if (c === undefined || isMissingAt(c, i)) return '';
   if (c.type === 'text') return c.values[i] ?? '';
-  if (c.type === 'number') return c.decimals?.[i] || formatNumber(c.values[i] ?? NaN);
+  if (c.type === 'number') return (c.decimals === null ? '' : decimalAt(c.decimals, i)) || formatNumber(c.values[i] ?? NaN);
   return c.values[i] === 1 ? 'true' : 'false';
 }
 
