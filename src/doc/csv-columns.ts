@@ -92,12 +92,31 @@ function isWord(source: string, a: number, b: number, word: string): boolean {
   return true;
 }
 
+/** True when the first non-blank field of column j is neither a number nor a boolean. */
+function firstFieldIsText(g: FieldGrid, j: number): boolean {
+  const src = g.source;
+  const width = g.header.length;
+  const scan = newDecimalScan();
+  for (let r = 0; r < g.rows; r++) {
+    const k = r * width + j;
+    let a = g.from[k]!;
+    let b = g.to[k]!;
+    while (a < b && isTrimmed(src.charCodeAt(a))) a++;
+    while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
+    if (a === b) continue;
+    if (g.escaped !== null && g.escaped[k] === 1) return true;
+    return !scanDecimalIn(src, a, b, scan) && !isWord(src, a, b, 'true') && !isWord(src, a, b, 'false');
+  }
+  return false;
+}
+
 /** Builds column j of a field grid. */
 export function columnOfGrid(g: FieldGrid, j: number, name: string): Column {
   const src = g.source;
   const width = g.header.length;
   const n = g.rows;
   const escaped = g.escaped;
+  if (firstFieldIsText(g, j)) return textColumnOfGrid(g, j, name);
   // trimmed ranges of the fields (an escaped field holds a quote, so it is text)
   const from = new Int32Array(n);
   const to = new Int32Array(n);

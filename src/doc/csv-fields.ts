@@ -361,37 +361,40 @@ function readPlain(text: string, start: number, nl: '\n' | '\r\n' | '\r'): Field
   let rowFp = 0; // where the current row's fields start
   let rowStart = start;
   let fieldStart = start;
-  const grow = (): void => {
-    capacity *= 2;
-    const f = new Int32Array(capacity);
-    f.set(from);
-    from = f;
-    const t = new Int32Array(capacity);
-    t.set(to);
-    to = t;
-  };
-  /** Ends the row whose last field ends at `fieldEnd`, the row's break ending at `end`. */
-  const endRow = (end: number): void => {
+  // one pass; i === len stands for the end of the text, which ends the last row
+  for (let i = start; i <= len; i++) {
+    const c = i < len ? text.charCodeAt(i) : -1;
+    const isBreak = c === nl0 && (!two || (i + 1 < len && text.charCodeAt(i + 1) === LF));
+    if (c !== COMMA && !isBreak && c !== -1) continue;
+    if (fp === capacity) {
+      capacity *= 2;
+      const f = new Int32Array(capacity);
+      f.set(from);
+      from = f;
+      const t = new Int32Array(capacity);
+      t.set(to);
+      to = t;
+    }
+    from[fp] = fieldStart;
+    to[fp++] = i;
+    if (c === COMMA) {
+      fieldStart = i + 1;
+      continue;
+    }
+    // the end of a row: its break (if any) ends at `end`
+    if (two && isBreak) i++;
+    const end = c === -1 ? len : i + 1;
+    fieldStart = end;
     const count = fp - rowFp;
     const rFrom = rowStart;
     rowStart = end;
     if (count === 1 && from[rowFp] === to[rowFp]) {
       fp = rowFp; // an empty line separates; it is not a row
-      return;
+      continue;
     }
     let rTo = end;
     while (rTo > rFrom && (text.charCodeAt(rTo - 1) === LF || text.charCodeAt(rTo - 1) === CR)) rTo--;
-    if (header === null) {
-      const names: string[] = [];
-      for (let k = rowFp; k < fp; k++) names.push(text.slice(from[k]!, to[k]!).trim());
-      header = names;
-      headerRange = [rFrom, rTo];
-      width = count;
-      fp = rowFp;
-    } else if (count !== width || ragged !== null) {
-      ragged ??= new CsvError(msg.raggedRow(rowsRead, count, width), rFrom, rTo);
-      fp = rowFp;
-    } else {
+    if (count === width && ragged === null) {
       if (2 * rowCount + 2 > ranges.length) {
         const r = new Int32Array(ranges.length * 2);
         r.set(ranges);
@@ -400,30 +403,20 @@ function readPlain(text: string, start: number, nl: '\n' | '\r\n' | '\r'): Field
       ranges[2 * rowCount] = rFrom;
       ranges[2 * rowCount + 1] = rTo;
       rowCount++;
+    } else if (header === null) {
+      const names: string[] = [];
+      for (let k = rowFp; k < fp; k++) names.push(text.slice(from[k]!, to[k]!).trim());
+      header = names;
+      headerRange = [rFrom, rTo];
+      width = count;
+      fp = rowFp;
+    } else {
+      ragged ??= new CsvError(msg.raggedRow(rowsRead, count, width), rFrom, rTo);
+      fp = rowFp;
     }
     rowFp = fp;
     rowsRead++;
-  };
-  for (let i = start; i < len; i++) {
-    const c = text.charCodeAt(i);
-    if (c === COMMA) {
-      if (fp === capacity) grow();
-      from[fp] = fieldStart;
-      to[fp++] = i;
-      fieldStart = i + 1;
-    } else if (c === nl0 && (!two || (i + 1 < len && text.charCodeAt(i + 1) === LF))) {
-      if (fp === capacity) grow();
-      from[fp] = fieldStart;
-      to[fp++] = i;
-      if (two) i++;
-      fieldStart = i + 1;
-      endRow(i + 1);
-    }
   }
-  if (fp === capacity) grow();
-  from[fp] = fieldStart;
-  to[fp++] = len;
-  endRow(len);
   if (header === null) throw new CsvError(msg.emptyTable(), 0, 0);
   const names: string[] = header;
   checkHeader(names, headerRange);

@@ -81,16 +81,35 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
   const codes = new Int32Array(n);
   const index = new Map<string, number>();
   const levels: string[] = [];
-  for (let k = 0; k < n; k++) {
-    const i = rows === null ? k : rows[k]!;
-    const name = levelName(c, i);
-    let code = index.get(name);
-    if (code === undefined) {
-      code = levels.length;
-      index.set(name, code);
-      levels.push(name);
+  if (c.type === 'number') {
+    // by value, with no string per element: a Map compares numbers as numberLevel names
+    // them (one key per double, -0 with 0, NaN with NaN)
+    const byValue = new Map<number, number>();
+    const values = c.values;
+    for (let k = 0; k < n; k++) {
+      const x = values[rows === null ? k : rows[k]!]!;
+      let code = byValue.get(x);
+      if (code === undefined) {
+        code = levels.length;
+        byValue.set(x, code);
+        const name = numberLevel(x);
+        index.set(name, code);
+        levels.push(name);
+      }
+      codes[k] = code;
     }
-    codes[k] = code;
+  } else {
+    for (let k = 0; k < n; k++) {
+      const i = rows === null ? k : rows[k]!;
+      const name = levelName(c, i);
+      let code = index.get(name);
+      if (code === undefined) {
+        code = levels.length;
+        index.set(name, code);
+        levels.push(name);
+      }
+      codes[k] = code;
+    }
   }
   const name = c.name ?? fallbackName;
   let order: number[] | null = null;

@@ -9,10 +9,10 @@
  *   UDSV_DIR=/path/to/node_modules/udsv npx vitest bench --run test/bench/csv.bench.ts
  */
 import { existsSync } from 'node:fs';
-import { cpus, hostname } from 'node:os';
+import { cpus, hostname, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { bench, describe } from 'vitest';
+import { afterAll, bench, describe } from 'vitest';
 import { parseCsv } from '../../src/doc/csv.ts';
 import { tableOfGrid } from '../../src/doc/csv-columns.ts';
 import { readFieldGrid } from '../../src/doc/csv-fields.ts';
@@ -75,4 +75,8 @@ describe(`read ${N.toLocaleString('en-US')} CSV rows into a table`, () => {
     },
     { iterations: 5, time: 0 },
   );
+});
+
+afterAll(() => {
+  console.log(`load average at the end: ${loadavg().map((x) => x.toFixed(1)).join(', ')} on ${cpus().length} cores`);
 });
