@@ -162,3 +162,32 @@ describe('the columnar CSV reader reads as papaparse does', () => {
     for (const t of texts) compare(t);
   });
 });
+
+describe('the columnar CSV reader is linear', () => {
+  // a generous bound (two shared cores): a reader that went quadratic on any of these takes minutes
+  const MB = 1_000_000;
+  const inputs: [string, string][] = [
+    ['an unclosed quote', `a,b\n"${'x'.repeat(MB)}`],
+    ['doubled quotes', `a\n${'""'.repeat(MB / 2)}`],
+    ['commas', `a\n${','.repeat(MB)}`],
+    ['short rows', `a,b\n${'1\n'.repeat(MB / 2)}`],
+    ['blank lines', `a\n${'\n'.repeat(MB)}`],
+    ['one huge field', `a\n${'9'.repeat(MB)}x`],
+    ['quotes closed and followed by spaces and text', `a\n${'"x"   y'.repeat(MB / 7)}`],
+    ['closing quotes with no comma or break after', `a\n"${'x" '.repeat(MB / 3)}`],
+    ['quoted fields, no line break', `${'"1",'.repeat(MB / 4)}"1"`],
+    ['carriage returns', `a,b\r${'1,2\r\n'.repeat(MB / 5)}`],
+    ['many distinct texts', `a\n${Array.from({ length: MB / 8 }, (_, i) => `t${i}`).join('\n')}`],
+  ];
+  for (const [what, text] of inputs) {
+    it(`1 MB of ${what}`, () => {
+      const t0 = performance.now();
+      try {
+        tableOfGrid(readFieldGrid(text));
+      } catch (err) {
+        if (!(err instanceof CsvError)) throw err;
+      }
+      expect(performance.now() - t0).toBeLessThan(5000);
+    });
+  }
+});
