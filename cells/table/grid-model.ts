@@ -8,7 +8,7 @@
  * the whole table with `csvLine`, which writes exactly what writeCsv writes.
  */
 import { parseCsv } from '../../src/doc/csv.ts';
-import type { Column, Table } from '../../src/lang/values.ts';
+import { decimalAt, type Column, type Table } from '../../src/lang/values.ts';
 import { columnNameProblem, copyCounts, countField, countRows, emptyCounts, freshColumnName, type ColumnCounts } from './grid-checks.ts';
 import { HEADER_ROW, type Rect } from './grid-keys.ts';
 import { gridMsg } from './grid-messages.ts';
@@ -388,7 +388,7 @@ function elementText(col: Column, i: number): string {
   if (col.missing !== null && col.missing[i] === 1) return '';
   switch (col.type) {
     case 'number':
-      return col.decimals?.[i] ?? String(col.values[i]);
+      return (col.decimals === null ? undefined : decimalAt(col.decimals, i)) ?? String(col.values[i]);
     case 'boolean':
       return col.values[i] === 1 ? 'true' : 'false';
     case 'text':

@@ -5,15 +5,16 @@
  * header, a quoted field, or gives a row the wrong number of fields is read in full
  * instead (so its error, if any, is the full reader's).
  */
-import type { CsvGrid } from '../../src/doc/csv.ts';
-import { table, type Column, type Table } from '../../src/lang/values.ts';
+import { columnOfGrid } from '../../src/doc/csv-columns.ts';
+import type { FieldGrid } from '../../src/doc/csv-fields.ts';
+import { table, type Table } from '../../src/lang/values.ts';
 
 /** What a table keeps of its last reading of a body. */
 export class KeptTable {
   readonly body: string;
-  readonly grid: CsvGrid;
+  readonly grid: FieldGrid;
   readonly value: Table;
-  constructor(body: string, grid: CsvGrid, value: Table) {
+  constructor(body: string, grid: FieldGrid, value: Table) {
     this.body = body;
     this.grid = grid;
     this.value = value;
@@ -34,26 +35,29 @@ function sameEnds(a: string, b: string): { head: number; tail: number } {
 }
 
 /** The first row whose range ends at or after `at` (rows are in text order). */
-function firstRowEndingFrom(ranges: CsvGrid['rowRanges'], at: number): number {
+function firstRowEndingFrom(ranges: Int32Array, rows: number, at: number): number {
   let lo = 0;
-  let hi = ranges.length;
+  let hi = rows;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
-    if (ranges[mid]![1] < at) lo = mid + 1;
+    if (ranges[2 * mid + 1]! < at) lo = mid + 1;
     else hi = mid;
   }
   return lo;
 }
 
+/** True when a[af, at) and b[bf, bt) hold the same characters. */
+function sameText(a: string, af: number, at: number, b: string, bf: number, bt: number): boolean {
+  if (at - af !== bt - bf) return false;
+  for (let i = 0; i < at - af; i++) if (a.charCodeAt(af + i) !== b.charCodeAt(bf + i)) return false;
+  return true;
+}
+
 /**
  * The table of `body`, read from what was kept of an earlier body; null when the change
- * must be read in full. `columnFromFields` builds a column as the full reader does.
+ * must be read in full.
  */
-export function rereadTable(
-  kept: KeptTable,
-  body: string,
-  columnFromFields: (name: string, fields: readonly string[]) => Column,
-): { grid: CsvGrid; value: Table } | null {
+export function rereadTable(kept: KeptTable, body: string): { grid: FieldGrid; value: Table } | null {
   const old = kept.body;
   // the full reader guesses the line break from the text; with carriage returns about,
   // splitting at line feeds might not agree with it
@@ -69,46 +73,78 @@ export function rereadTable(
   const oldLines = old.slice(lineStart, oldLineEnd);
   const newLines = body.slice(lineStart, newLineEnd);
   const grid = kept.grid;
-  const headerEnd = grid.rows.length > 0 ? grid.rowRanges[0]![0] : old.length;
-  // the header line, or quotes (which may join lines): read in full
-  if (lineStart < headerEnd || oldLines.includes('"') || newLines.includes('"')) return null;
-  // the rows the old lines held
-  const first = firstRowEndingFrom(grid.rowRanges, lineStart);
-  let last = first;
-  while (last < grid.rows.length && grid.rowRanges[last]![0] <= oldLineEnd) last++;
-  // the new lines, split into fields; wholly empty lines separate, as in the full reader
   const width = grid.header.length;
-  const rows: string[][] = [];
-  const ranges: [number, number][] = [];
+  const headerEnd = grid.rows > 0 ? grid.rowRanges[0]! : old.length;
+  // the header line, quotes (which may join lines), or a byte-order mark: read in full
+  if (lineStart < headerEnd || oldLines.includes('"') || newLines.includes('"') || body.charCodeAt(0) === 0xfeff) return null;
+  // the rows the old lines held
+  const first = firstRowEndingFrom(grid.rowRanges, grid.rows, lineStart);
+  let last = first;
+  while (last < grid.rows && grid.rowRanges[2 * last]! <= oldLineEnd) last++;
+  // the new lines, split into fields; wholly empty lines separate, as in the full reader
+  const fieldFrom: number[] = [];
+  const fieldTo: number[] = [];
+  const ranges: number[] = [];
   let at = lineStart;
   for (const line of newLines.split('\n')) {
     const from = at;
     at += line.length + 1;
     if (line === '') continue;
-    const fields = line.split(',');
-    if (fields.length !== width) return null;
-    rows.push(fields);
-    ranges.push([from, from + line.length]);
+    let f = from;
+    let count = 0;
+    for (;;) {
+      const comma = body.indexOf(',', f);
+      const end = comma < 0 || comma > from + line.length ? from + line.length : comma;
+      fieldFrom.push(f);
+      fieldTo.push(end);
+      count++;
+      if (end === from + line.length) break;
+      f = end + 1;
+    }
+    if (count !== width) return null;
+    ranges.push(from, from + line.length);
   }
-  tableWork.rowsRead += rows.length;
+  const added = ranges.length / 2;
+  tableWork.rowsRead += added;
   const shift = body.length - old.length;
-  const allRows = [...grid.rows.slice(0, first), ...rows, ...grid.rows.slice(last)];
-  const allRanges = [
-    ...grid.rowRanges.slice(0, first),
-    ...ranges,
-    ...grid.rowRanges.slice(last).map(([a, b]) => [a + shift, b + shift] as const),
-  ];
-  const next: CsvGrid = { header: grid.header, rows: allRows, rowRanges: allRanges };
+  const rows = grid.rows - (last - first) + added;
+  const from = new Int32Array(rows * width);
+  const to = new Int32Array(rows * width);
+  const rowRanges = new Int32Array(rows * 2);
+  // rows before the change keep their places; the new ones follow; the rest move by `shift`
+  from.set(grid.from.subarray(0, first * width));
+  to.set(grid.to.subarray(0, first * width));
+  rowRanges.set(grid.rowRanges.subarray(0, first * 2));
+  from.set(fieldFrom, first * width);
+  to.set(fieldTo, first * width);
+  rowRanges.set(ranges, first * 2);
+  const after = (first + added) * width;
+  for (let k = last * width, o = after; k < grid.rows * width; k++, o++) {
+    from[o] = grid.from[k]! + shift;
+    to[o] = grid.to[k]! + shift;
+  }
+  for (let k = last * 2, o = (first + added) * 2; k < grid.rows * 2; k++, o++) rowRanges[o] = grid.rowRanges[k]! + shift;
+  let escaped: Uint8Array | null = null;
+  if (grid.escaped !== null) {
+    escaped = new Uint8Array(rows * width);
+    escaped.set(grid.escaped.subarray(0, first * width));
+    escaped.set(grid.escaped.subarray(last * width), after);
+  }
+  const next: FieldGrid = { source: body, header: grid.header, rows, from, to, escaped, rowRanges };
   // columns: when the row count stays, only columns with a changed field are built again
-  const sameCount = rows.length === last - first;
+  const sameCount = added === last - first;
   const columns = grid.header.map((name, j) => {
     const oldColumn = kept.value.columns[j]!;
-    if (sameCount && rows.every((r, k) => r[j] === grid.rows[first + k]![j])) return oldColumn;
+    if (sameCount) {
+      let same = true;
+      for (let r = first; r < last && same; r++) {
+        const k = r * width + j;
+        same = sameText(old, grid.from[k]!, grid.to[k]!, body, from[k]!, to[k]!);
+      }
+      if (same) return oldColumn;
+    }
     tableWork.columnsBuilt++;
-    return columnFromFields(
-      name,
-      allRows.map((r) => r[j]!),
-    );
+    return columnOfGrid(next, j, name);
   });
   return { grid: next, value: table(grid.header, columns) };
 }

@@ -5,7 +5,9 @@
  * decimal text of each number is kept for exact work (language.md section 5).
  */
 import { isSafeFileName, type Cell, type Marker } from '../../src/doc/document.ts';
-import { CsvError, parseCsv, type CsvGrid } from '../../src/doc/csv.ts';
+import { CsvError, type CsvGrid } from '../../src/doc/csv.ts';
+import { tableOfGrid } from '../../src/doc/csv-columns.ts';
+import { readFieldGrid, type FieldGrid } from '../../src/doc/csv-fields.ts';
 import type { AnalyseEnv, CellAnalysis } from '../../src/graph/cell-kind.ts';
 import { KeptTable, rereadTable, tableWork } from './model-rows.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
@@ -43,7 +45,10 @@ export function columnTypeOf(fields: readonly string[]): 'number' | 'boolean' | 
   return numbers ? 'number' : booleans ? 'boolean' : 'text';
 }
 
-/** Builds one column from its fields. */
+/**
+ * Builds one column from its fields given as strings. Tables read from CSV are built from
+ * field ranges instead (src/doc/csv-columns.ts), by the same rule, with no string per field.
+ */
 export function columnFromFields(name: string, fields: readonly string[]): Column {
   const n = fields.length;
   const missing = new Uint8Array(n);
@@ -81,7 +86,7 @@ export function columnFromFields(name: string, fields: readonly string[]): Colum
   return textColumn(values, missing, name);
 }
 
-/** Builds a table value from a CSV grid. */
+/** Builds a table value from a CSV grid of strings. */
 export function tableFromGrid(grid: CsvGrid): Table {
   const cols: Column[] = grid.header.map((name, j) =>
     columnFromFields(
@@ -96,7 +101,7 @@ export function tableFromGrid(grid: CsvGrid): Table {
 export interface TableRead {
   readonly name: string | null;
   readonly file: string | null;
-  readonly grid: CsvGrid | null;
+  readonly grid: FieldGrid | null;
   readonly value: Table | null;
   readonly error: ErrorValue | null;
 }
@@ -142,20 +147,20 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
   // a body edited since the last reading: read only the lines the edit changed
   const kept = env.previous?.kept;
   if (m.file === null && kept instanceof KeptTable) {
-    const again = rereadTable(kept, text, columnFromFields);
+    const again = rereadTable(kept, text);
     if (again !== null) {
-      if (again.grid.rows.length > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(again.grid.rows.length, MAX_TABLE_ROWS), 0, 0));
+      if (again.grid.rows > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(again.grid.rows, MAX_TABLE_ROWS), 0, 0));
       if (again.grid.header.length > MAX_TABLE_COLUMNS) return fail(errorValue(msg.tooManyColumns(again.grid.header.length, MAX_TABLE_COLUMNS), 0, 0));
       return { name, file: null, grid: again.grid, value: again.value, error: null };
     }
   }
   try {
-    const grid = parseCsv(text);
-    tableWork.rowsRead += grid.rows.length + 1;
+    const grid = readFieldGrid(text);
+    tableWork.rowsRead += grid.rows + 1;
     tableWork.columnsBuilt += grid.header.length;
-    if (grid.rows.length > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(grid.rows.length, MAX_TABLE_ROWS), 0, 0));
+    if (grid.rows > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(grid.rows, MAX_TABLE_ROWS), 0, 0));
     if (grid.header.length > MAX_TABLE_COLUMNS) return fail(errorValue(msg.tooManyColumns(grid.header.length, MAX_TABLE_COLUMNS), 0, 0));
-    return { name, file: m.file, grid, value: tableFromGrid(grid), error: null };
+    return { name, file: m.file, grid, value: tableOfGrid(grid), error: null };
   } catch (err) {
     if (!(err instanceof CsvError)) throw err;
     // ranges point into the body; for a file they would point into another text
@@ -194,14 +199,16 @@ export function lookalikeNames(names: readonly string[]): string[] {
 /** What a table cell defines and how it evaluates. */
 export function analyseTable(cell: Cell, env: AnalyseEnv): CellAnalysis {
   const r = readTable(cell, env);
+  // the evaluation holds the value only: a file's field ranges are not kept past reading
+  const value = r.value;
   return {
     defines: r.name !== null && isPlainName(r.name) ? { name: r.name, from: -1, to: -1 } : null,
     reads: [],
     problem: r.error,
     evaluates: true,
     evaluate: (ev) => {
-      if (r.value !== null) for (const w of lookalikeNames(r.value.names)) ev.warn(w);
-      return { value: r.value! };
+      if (value !== null) for (const w of lookalikeNames(value.names)) ev.warn(w);
+      return { value: value! };
     },
     kept: r.file === null && r.grid !== null && r.value !== null ? new KeptTable(cell.body, r.grid, r.value) : undefined,
   };

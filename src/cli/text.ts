@@ -4,7 +4,7 @@
  * as labelled fields.
  */
 import { numberText, quantityOf } from '../format/digits.ts';
-import { elementAt, isColumn, isRecord, isTable, type Table, type Value } from '../lang/values.ts';
+import { decimalAt, elementAt, isColumn, isRecord, isTable, type Table, type Value } from '../lang/values.ts';
 
 const MAX_ROWS = 30;
 
@@ -41,7 +41,7 @@ export function tableText(t: Table, indent = ''): string[] {
     const out = [visible(name)];
     // typed numbers print as typed (21.0 stays 21.0); computed ones by the digits policy
     const typed = col.type === 'number' ? col.decimals : null;
-    for (let i = 0; i < shown; i++) out.push(typed?.[i] || scalar(elementAt(col, i), name));
+    for (let i = 0; i < shown; i++) out.push((typed === null ? '' : decimalAt(typed, i)) || scalar(elementAt(col, i), name));
     return out;
   });
   const widths = cells.map((c) => Math.max(...c.map((s) => s.length)));

@@ -8,7 +8,7 @@
  * text field that starts so (a hostile or unlucky name) is written with a leading apostrophe,
  * the usual guard (common practice, no source); numbers are written as they are.
  */
-import { isMissingAt, type Column, type Table } from '../lang/values.ts';
+import { decimalAt, isMissingAt, type Column, type Table } from '../lang/values.ts';
 import { writeCsv } from './csv.ts';
 
 const FORMULA_START = /^[=+\-@\t\r]/;
@@ -24,7 +24,7 @@ export function csvField(c: Column, i: number): string {
     case 'boolean':
       return c.values[i] === 1 ? 'true' : 'false';
     case 'number':
-      return c.decimals?.[i] || String(c.values[i]);
+      return (c.decimals === null ? '' : decimalAt(c.decimals, i)) || String(c.values[i]);
   }
 }
 

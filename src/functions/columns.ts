@@ -5,7 +5,7 @@
  */
 import { UsageError } from '../lang/errors.ts';
 import { msg, plural } from '../lang/messages.ts';
-import type { Column, NumberColumn, Value } from '../lang/values.ts';
+import { pickDecimals, type Column, type NumberColumn, type Value } from '../lang/values.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import type { CallContext } from '../lang/builtins.ts';
 
@@ -81,16 +81,35 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
   const codes = new Int32Array(n);
   const index = new Map<string, number>();
   const levels: string[] = [];
-  for (let k = 0; k < n; k++) {
-    const i = rows === null ? k : rows[k]!;
-    const name = levelName(c, i);
-    let code = index.get(name);
-    if (code === undefined) {
-      code = levels.length;
-      index.set(name, code);
-      levels.push(name);
+  if (c.type === 'number') {
+    // by value, with no string per element: a Map compares numbers as numberLevel names
+    // them (one key per double, -0 with 0, NaN with NaN)
+    const byValue = new Map<number, number>();
+    const values = c.values;
+    for (let k = 0; k < n; k++) {
+      const x = values[rows === null ? k : rows[k]!]!;
+      let code = byValue.get(x);
+      if (code === undefined) {
+        code = levels.length;
+        byValue.set(x, code);
+        const name = numberLevel(x);
+        index.set(name, code);
+        levels.push(name);
+      }
+      codes[k] = code;
     }
-    codes[k] = code;
+  } else {
+    for (let k = 0; k < n; k++) {
+      const i = rows === null ? k : rows[k]!;
+      const name = levelName(c, i);
+      let code = index.get(name);
+      if (code === undefined) {
+        code = levels.length;
+        index.set(name, code);
+        levels.push(name);
+      }
+      codes[k] = code;
+    }
   }
   const name = c.name ?? fallbackName;
   let order: number[] | null = null;
@@ -118,10 +137,8 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
 export function responseOf(c: NumberColumn, rows: Int32Array | null): Response {
   const n = rows === null ? c.values.length : rows.length;
   if (c.decimals !== null) {
-    const texts: string[] = new Array<string>(n);
-    for (let k = 0; k < n; k++) texts[k] = c.decimals[rows === null ? k : rows[k]!]!;
     try {
-      const s = shiftDecimals(texts);
+      const s = shiftDecimals(rows === null ? c.decimals : pickDecimals(c.decimals, rows));
       return { y: s.shifted, offset: s.offset };
     } catch {
       // fall through to the binary values (a text that is not plain decimal)

@@ -3,7 +3,7 @@
  */
 import { formatNumber } from '../lang/format.ts';
 import { msg } from '../lang/messages.ts';
-import { MISSING, numberColumn, type Column, type NumberColumn } from '../lang/values.ts';
+import { MISSING, joinDecimals, numberColumn, pickDecimals, type Column, type NumberColumn } from '../lang/values.ts';
 import { friedman, kruskalWallis, rankSum, signedRank } from '../stats/ranks/index.ts';
 import { paired, twoSample } from '../stats/two-groups/index.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
@@ -21,13 +21,13 @@ function pairedValues(a: NumberColumn, b: NumberColumn, ctx: CallContext): { a: 
   const pick = (c: NumberColumn): NumberColumn => {
     if (rows === null) return c;
     const v = Float64Array.from(rows, (i) => c.values[i]!);
-    return numberColumn(v, null, c.name, c.decimals === null ? null : Array.from(rows, (i) => c.decimals![i]!));
+    return numberColumn(v, null, c.name, c.decimals === null ? null : pickDecimals(c.decimals, rows));
   };
   const pa = pick(a);
   const pb = pick(b);
   if (pa.decimals !== null && pb.decimals !== null) {
     try {
-      const s = shiftDecimals([...pa.decimals, ...pb.decimals]);
+      const s = shiftDecimals(joinDecimals(pa.decimals, pb.decimals));
       const n = pa.values.length;
       return { a: s.shifted.subarray(0, n), b: s.shifted.subarray(n) };
     } catch {

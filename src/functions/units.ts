@@ -22,7 +22,7 @@ import type { create, createUnitDependencies, FactoryFunctionMap, Unit, unitDepe
 import { UsageError } from '../lang/errors.ts';
 import { msg } from '../lang/messages.ts';
 import type { Builtin } from '../lang/builtins.ts';
-import { MISSING, isMissing, numberColumn, type NumberColumn, type Value } from '../lang/values.ts';
+import { MISSING, decimalAt, isMissing, numberColumn, type NumberColumn, type Value } from '../lang/values.ts';
 import { readDecimal, roundScaledInteger, type ExactDecimal } from '../stats/decimal/index.ts';
 
 /** What convert needs of mathjs: its factory functions for the unit system. */
@@ -240,7 +240,7 @@ export function convertValues(x: Value, c: UnitConversion): Value {
       out[i] = NaN;
       if (texts !== null) texts[i] = '';
     } else if (texts !== null) {
-      const r = exactlyConverted(col.decimals![i]!, exact!);
+      const r = exactlyConverted(decimalAt(col.decimals!, i)!, exact!);
       out[i] = r.value;
       texts[i] = r.text;
     } else out[i] = convertNumber(col.values[i]!, c);

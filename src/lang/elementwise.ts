@@ -14,6 +14,7 @@ import {
   isColumn,
   isMissing,
   numberColumn,
+  pickDecimals,
   textColumn,
   type BooleanColumn,
   type Column,
@@ -275,7 +276,7 @@ export function pickColumn<C extends Column>(c: C, positions: readonly number[])
       const nc = c as NumberColumn;
       const out = new Float64Array(k);
       for (let j = 0; j < k; j++) out[j] = nc.values[positions[j]!]!;
-      const dec = nc.decimals === null ? null : positions.map((p) => nc.decimals![p]!);
+      const dec = nc.decimals === null ? null : pickDecimals(nc.decimals, positions);
       return numberColumn(out, miss, c.name, dec) as C;
     }
     case 'text': {

@@ -9,6 +9,9 @@
  * Values are immutable once built: the graph compares them to stop a wave of re-evaluation,
  * and the same object may be shared by many cells.
  */
+import type { TextRanges } from '../stats/decimal/scan.ts';
+
+export type { TextRanges };
 
 /** The one missing value. */
 export interface Missing {
@@ -36,6 +39,13 @@ interface ColumnBase {
   readonly order?: readonly string[];
 }
 
+/**
+ * The decimal texts of a number column as typed: strings, or (for a column read from CSV)
+ * ranges of the text it was read from, so that a million numbers need no million strings.
+ * Read them with {@link decimalAt}; a missing element's text is ''.
+ */
+export type DecimalTexts = readonly string[] | TextRanges;
+
 /** A column of numbers. */
 export interface NumberColumn extends ColumnBase {
   readonly type: 'number';
@@ -46,7 +56,7 @@ export interface NumberColumn extends ColumnBase {
    * table (language.md section 5); null for computed columns. Entries of missing elements
    * are empty strings.
    */
-  readonly decimals: readonly string[] | null;
+  readonly decimals: DecimalTexts | null;
 }
 
 /** A column of texts. */
@@ -246,7 +256,7 @@ export function numberColumn(
   values: Float64Array,
   missing: Uint8Array | null = null,
   name: string | null = null,
-  decimals: readonly string[] | null = null,
+  decimals: DecimalTexts | null = null,
 ): NumberColumn {
   return { kind: 'column', type: 'number', values, missing: compactMask(missing), name, decimals };
 }
@@ -293,6 +303,54 @@ export function errorValue(message: string, from: number, to: number, upstream: 
 export function tableColumn(t: Table, name: string): Column | undefined {
   const i = t.names.indexOf(name);
   return i < 0 ? undefined : t.columns[i];
+}
+
+/** True when decimal texts are held as ranges of a source text. */
+export function isTextRanges(d: DecimalTexts): d is TextRanges {
+  return !Array.isArray(d);
+}
+
+/** How many decimal texts there are. */
+export function decimalsLength(d: DecimalTexts): number {
+  return isTextRanges(d) ? d.from.length : d.length;
+}
+
+/** Decimal text i ('' for a missing element, undefined past the end). */
+export function decimalAt(d: DecimalTexts, i: number): string | undefined {
+  if (!isTextRanges(d)) return d[i];
+  if (i < 0 || i >= d.from.length) return undefined;
+  return d.source.slice(d.from[i]!, d.to[i]!);
+}
+
+/** The decimal texts at the given positions, in that order (ranges stay ranges). */
+export function pickDecimals(d: DecimalTexts, positions: ArrayLike<number>): DecimalTexts {
+  const k = positions.length;
+  if (!isTextRanges(d)) return Array.from({ length: k }, (_, j) => d[positions[j]!]!);
+  const from = new Int32Array(k);
+  const to = new Int32Array(k);
+  for (let j = 0; j < k; j++) {
+    const p = positions[j]!;
+    from[j] = d.from[p]!;
+    to[j] = d.to[p]!;
+  }
+  return { source: d.source, from, to };
+}
+
+/** The texts of a followed by those of b (ranges stay ranges when they share a source). */
+export function joinDecimals(a: DecimalTexts, b: DecimalTexts): DecimalTexts {
+  if (isTextRanges(a) && isTextRanges(b) && a.source === b.source) {
+    const n = a.from.length;
+    const from = new Int32Array(n + b.from.length);
+    const to = new Int32Array(n + b.from.length);
+    from.set(a.from);
+    from.set(b.from, n);
+    to.set(a.to);
+    to.set(b.to, n);
+    return { source: a.source, from, to };
+  }
+  const out: string[] = [];
+  for (const d of [a, b]) for (let i = 0; i < decimalsLength(d); i++) out.push(decimalAt(d, i)!);
+  return out;
 }
 
 /**
@@ -364,12 +422,29 @@ function sameMask(a: Uint8Array | null, b: Uint8Array | null): boolean {
 }
 
 function sameTexts(a: readonly string[] | null, b: readonly string[] | null): boolean {
-  return sameDecimals(a, b);
-}
-
-function sameDecimals(a: readonly string[] | null, b: readonly string[] | null): boolean {
   if (a === null || b === null) return a === b;
   if (a.length !== b.length) return false;
   for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}
+
+function sameDecimals(a: DecimalTexts | null, b: DecimalTexts | null): boolean {
+  if (a === null || b === null) return a === b;
+  if (a === b) return true;
+  const n = decimalsLength(a);
+  if (n !== decimalsLength(b)) return false;
+  if (isTextRanges(a) && isTextRanges(b)) {
+    // compare in place, no strings made
+    for (let i = 0; i < n; i++) {
+      const fa = a.from[i]!;
+      const fb = b.from[i]!;
+      const len = a.to[i]! - fa;
+      if (len !== b.to[i]! - fb) return false;
+      if (a.source === b.source && fa === fb) continue;
+      for (let k = 0; k < len; k++) if (a.source.charCodeAt(fa + k) !== b.source.charCodeAt(fb + k)) return false;
+    }
+    return true;
+  }
+  for (let i = 0; i < n; i++) if (decimalAt(a, i) !== decimalAt(b, i)) return false;
   return true;
 }

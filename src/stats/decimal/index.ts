@@ -6,5 +6,5 @@ export { shiftDecimals, DecimalTextError } from './shift.ts';
 export type { DecimalShift } from './shift.ts';
 export { decimalOfDouble, exactDecimalText, roundScaledInteger } from './exact.ts';
 export type { DecimalOfDouble } from './exact.ts';
-export { readDecimal, scanDecimal, newDecimalScan } from './scan.ts';
-export type { DecimalScan, ExactDecimal } from './scan.ts';
+export { readDecimal, scanDecimal, scanDecimalIn, newDecimalScan } from './scan.ts';
+export type { DecimalScan, ExactDecimal, TextRanges } from './scan.ts';

@@ -44,8 +44,23 @@ function isBlank(c: number): boolean {
  * is unspecified). Never allocates.
  */
 export function scanDecimal(text: string, out: DecimalScan): boolean {
-  let i = 0;
-  let end = text.length;
+  return scanDecimalIn(text, 0, text.length, out);
+}
+
+/**
+ * Decimal texts held as ranges of one source text: text i is `source.slice(from[i], to[i])`.
+ * How a column read from CSV keeps its texts without a string per number.
+ */
+export interface TextRanges {
+  readonly source: string;
+  readonly from: Int32Array;
+  readonly to: Int32Array;
+}
+
+/** {@link scanDecimal} on the part [from, to) of `text`, without slicing it. */
+export function scanDecimalIn(text: string, from: number, to: number, out: DecimalScan): boolean {
+  let i = from;
+  let end = to;
   while (i < end && isBlank(text.charCodeAt(i))) i++;
   while (end > i && isBlank(text.charCodeAt(end - 1))) end--;
   if (i >= end) return false;

@@ -19,7 +19,7 @@
  * that (more than about 15 significant digits, extreme exponents, very fine offsets) take an
  * exact BigInt path, text by text.
  */
-import { EXACT_INTEGER_LIMIT, newDecimalScan, readDecimal, scanDecimal } from './scan.ts';
+import { EXACT_INTEGER_LIMIT, newDecimalScan, readDecimal, scanDecimal, scanDecimalIn, type TextRanges } from './scan.ts';
 import { decimalOfDouble, roundScaledInteger } from './exact.ts';
 import * as pm from '../math/portable.ts';
 
@@ -136,31 +136,53 @@ function significantDigits(text: string): number {
   return first < 0 ? 0 : last - first + 1;
 }
 
+/** The texts to shift: strings, or ranges of one source text. */
+export type DecimalTexts = readonly string[] | TextRanges;
+
+function isRanges(texts: DecimalTexts): texts is TextRanges {
+  return !Array.isArray(texts);
+}
+
+/** How many texts there are. */
+function countOf(texts: DecimalTexts): number {
+  return isRanges(texts) ? texts.from.length : texts.length;
+}
+
+/** Text i as a string (only on the slow paths: ranges are scanned in place). */
+function textAt(texts: DecimalTexts, i: number): string {
+  return isRanges(texts) ? texts.source.slice(texts.from[i]!, texts.to[i]!) : (texts[i] ?? '');
+}
+
 /**
  * The correctly rounded double of each text (Clinger's fast path when the significand and the
  * power of ten are both exact, the exact path otherwise).
  */
-function readValues(texts: readonly string[], significand: Float64Array, scale: Int32Array): Float64Array {
-  const n = texts.length;
+function readValues(texts: DecimalTexts, significand: Float64Array, scale: Int32Array): Float64Array {
+  const n = countOf(texts);
   const values = new Float64Array(n);
   const scan = newDecimalScan();
+  const ranges = isRanges(texts) ? texts : null;
+  const list = isRanges(texts) ? null : texts;
   for (let i = 0; i < n; i++) {
-    const text = texts[i] ?? '';
-    if (!scanDecimal(text, scan)) throw new DecimalTextError(i, text, 'is not a decimal number');
+    const read = ranges !== null ? scanDecimalIn(ranges.source, ranges.from[i]!, ranges.to[i]!, scan) : scanDecimal(list![i] ?? '', scan);
+    if (!read) throw new DecimalTextError(i, textAt(texts, i), 'is not a decimal number');
     const s = scan.scale;
     significand[i] = scan.fits ? scan.significand : NaN;
     scale[i] = s;
     let v: number;
     if (scan.fits && s >= -22 && s <= 22) {
       v = s >= 0 ? scan.significand * (EXACT_POWERS[s] ?? NaN) : scan.significand / (EXACT_POWERS[-s] ?? NaN);
-    } else if (significantDigits(text) <= 20) {
-      // ECMAScript requires string-to-number conversion to be correctly rounded for up to
-      // 20 significant digits, so the engine's own reader is exact enough here and fast.
-      v = Number(text.trim());
     } else {
-      v = exactShift(text, 0n, 0, 0);
+      const text = textAt(texts, i);
+      if (significantDigits(text) <= 20) {
+        // ECMAScript requires string-to-number conversion to be correctly rounded for up to
+        // 20 significant digits, so the engine's own reader is exact enough here and fast.
+        v = Number(text.trim());
+      } else {
+        v = exactShift(text, 0n, 0, 0);
+      }
     }
-    if (!Number.isFinite(v)) throw new DecimalTextError(i, text, 'is too large to hold as a number');
+    if (!Number.isFinite(v)) throw new DecimalTextError(i, textAt(texts, i), 'is too large to hold as a number');
     values[i] = v;
   }
   return values;
@@ -198,11 +220,12 @@ function chooseOffset(values: Float64Array): number {
  * digits would cost in plain doubles. Add `offset` back to means and fitted values.
  *
  * @param texts - the column's texts as typed, one per value, no missing values
- *   (leading/trailing spaces allowed; `[+-]digits[.digits][e[+-]digits]`).
+ *   (leading/trailing spaces allowed; `[+-]digits[.digits][e[+-]digits]`), as strings or as
+ *   ranges of one source text (scanned in place, no string made per text).
  * @throws DecimalTextError when a text is not a decimal number or is out of range.
  */
-export function shiftDecimals(texts: readonly string[]): DecimalShift {
-  const n = texts.length;
+export function shiftDecimals(texts: DecimalTexts): DecimalShift {
+  const n = countOf(texts);
   const significand = new Float64Array(n);
   const scale = new Int32Array(n);
   const values = readValues(texts, significand, scale);
@@ -254,7 +277,7 @@ export function shiftDecimals(texts: readonly string[]): DecimalShift {
         }
       }
     }
-    shifted[i] = exactShift(texts[i] ?? '', offsetInteger, offsetDigits, offset);
+    shifted[i] = exactShift(textAt(texts, i), offsetInteger, offsetDigits, offset);
   }
   return { offset, shifted };
 }

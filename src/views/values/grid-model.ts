@@ -3,7 +3,7 @@
  * hold a million elements, so the text of a cell is made only when its row is drawn (which
  * rows are drawn is the row-window model's job: row-window.ts).
  */
-import { isMissingAt, type Column } from '../../lang/values.ts';
+import { decimalAt, isMissingAt, type Column } from '../../lang/values.ts';
 import { numberText, quantityOf, type Quantity } from '../../format/digits.ts';
 import { fixedText, sharedDecimals } from './digits.ts';
 
@@ -65,7 +65,7 @@ export function cellText(c: Column, i: number, plan: ColumnPlan = planColumn(c))
     case 'number': {
       const x = c.values[i]!;
       if (plan.typed) {
-        const typed = c.decimals?.[i];
+        const typed = c.decimals === null ? undefined : decimalAt(c.decimals, i);
         if (typed !== undefined && typed !== '') return { text: typed, missing: false };
       }
       if (plan.quantity !== null) return { text: numberText(x, plan.quantity), missing: false };

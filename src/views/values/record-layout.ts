@@ -7,6 +7,7 @@
 import { numberText, pPhrase, quantityOf, type Quantity } from '../../format/digits.ts';
 import {
   isColumn,
+  decimalAt,
   isMissingAt,
   isRecord,
   isTable,
@@ -154,7 +155,7 @@ function numberAt(c: Column | undefined, i: number): number {
 function textAt(c: Column | undefined, i: number): string {
   if (c === undefined || isMissingAt(c, i)) return '';
   if (c.type === 'text') return c.values[i] ?? '';
-  if (c.type === 'number') return c.decimals?.[i] || numberText(c.values[i] ?? NaN, 'plain');
+  if (c.type === 'number') return (c.decimals === null ? '' : decimalAt(c.decimals, i)) || numberText(c.values[i] ?? NaN, 'plain');
   return c.values[i] === 1 ? 'true' : 'false';
 }
 

@@ -1,0 +1,214 @@
+/**
+ * Table columns built straight from CSV field ranges (csv-fields.ts), by the typing rule of
+ * table cells: a column is numbers when every non-empty field (spaces trimmed) is a decimal
+ * number, booleans when every one is `true` or `false`, text otherwise; an empty field is
+ * missing.
+ *
+ * No string is made per field: numbers are read from the source text in place (the double
+ * and, for the exact decimal shift, the range of each field's text); texts are read into a
+ * list of distinct values and a code per row, so a column of 50 varieties over a million rows
+ * makes 50 strings.
+ */
+import { newDecimalScan, scanDecimalIn } from '../stats/decimal/scan.ts';
+import { booleanColumn, numberColumn, table, textColumn, type Column, type Table } from '../lang/values.ts';
+import { isTrimmed, type FieldGrid } from './csv-fields.ts';
+
+/** Powers of ten that are exact doubles (10^0 .. 10^22). */
+const EXACT_POWERS: readonly number[] = Array.from({ length: 23 }, (_, k) => {
+  let p = 1;
+  for (let i = 0; i < k; i++) p *= 10;
+  return p;
+});
+
+const MINUS = 45;
+
+/**
+ * Distinct texts of one column, each kept once: a hash table over the characters of a range,
+ * so that a text already seen is found without making a string for it.
+ */
+class TextLevels {
+  readonly texts: string[] = [];
+  private slots: Int32Array = new Int32Array(64).fill(-1);
+  private hashes: number[] = [];
+
+  /** The code of the text source[a, b), adding it when new. */
+  codeOf(source: string, a: number, b: number): number {
+    let h = 0x811c9dc5;
+    for (let i = a; i < b; i++) h = Math.imul(h ^ source.charCodeAt(i), 0x01000193);
+    return this.find(h >>> 0, source, a, b, null);
+  }
+
+  /** The code of a text given as a string. */
+  codeOfText(text: string): number {
+    return this.codeOf(text, 0, text.length);
+  }
+
+  private find(h: number, source: string, a: number, b: number, made: string | null): number {
+    const mask = this.slots.length - 1;
+    let s = h & mask;
+    const len = b - a;
+    for (;;) {
+      const code = this.slots[s]!;
+      if (code === -1) break;
+      if (this.hashes[code] === h) {
+        const t = this.texts[code]!;
+        if (t.length === len) {
+          let same = true;
+          for (let i = 0; i < len; i++) {
+            if (t.charCodeAt(i) !== source.charCodeAt(a + i)) {
+              same = false;
+              break;
+            }
+          }
+          if (same) return code;
+        }
+      }
+      s = (s + 1) & mask;
+    }
+    const code = this.texts.length;
+    this.texts.push(made ?? source.slice(a, b));
+    this.hashes.push(h);
+    this.slots[s] = code;
+    if (this.texts.length * 2 > this.slots.length) this.grow();
+    return code;
+  }
+
+  private grow(): void {
+    const slots = new Int32Array(this.slots.length * 2).fill(-1);
+    const mask = slots.length - 1;
+    for (let code = 0; code < this.texts.length; code++) {
+      let s = this.hashes[code]! & mask;
+      while (slots[s] !== -1) s = (s + 1) & mask;
+      slots[s] = code;
+    }
+    this.slots = slots;
+  }
+}
+
+/** True when source[a, b) is exactly `word`. */
+function isWord(source: string, a: number, b: number, word: string): boolean {
+  if (b - a !== word.length) return false;
+  for (let i = 0; i < word.length; i++) if (source.charCodeAt(a + i) !== word.charCodeAt(i)) return false;
+  return true;
+}
+
+/** True when the first non-blank field of column j is neither a number nor a boolean. */
+function firstFieldIsText(g: FieldGrid, j: number): boolean {
+  const src = g.source;
+  const width = g.header.length;
+  const scan = newDecimalScan();
+  for (let r = 0; r < g.rows; r++) {
+    const k = r * width + j;
+    let a = g.from[k]!;
+    let b = g.to[k]!;
+    while (a < b && isTrimmed(src.charCodeAt(a))) a++;
+    while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
+    if (a === b) continue;
+    if (g.escaped !== null && g.escaped[k] === 1) return true;
+    return !scanDecimalIn(src, a, b, scan) && !isWord(src, a, b, 'true') && !isWord(src, a, b, 'false');
+  }
+  return false;
+}
+
+/** Builds column j of a field grid. */
+export function columnOfGrid(g: FieldGrid, j: number, name: string): Column {
+  const src = g.source;
+  const width = g.header.length;
+  const n = g.rows;
+  const escaped = g.escaped;
+  if (firstFieldIsText(g, j)) return textColumnOfGrid(g, j, name);
+  // trimmed ranges of the fields (an escaped field holds a quote, so it is text)
+  const from = new Int32Array(n);
+  const to = new Int32Array(n);
+  const missing = new Uint8Array(n);
+  let numbers = true;
+  let booleans = true;
+  let values: Float64Array | null = new Float64Array(n);
+  const scan = newDecimalScan();
+  for (let r = 0; r < n; r++) {
+    const k = r * width + j;
+    let a = g.from[k]!;
+    let b = g.to[k]!;
+    while (a < b && isTrimmed(src.charCodeAt(a))) a++;
+    while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
+    from[r] = a;
+    to[r] = b;
+    if (a === b) {
+      missing[r] = 1;
+      if (values !== null) values[r] = NaN;
+      continue;
+    }
+    if (escaped !== null && escaped[k] === 1) {
+      numbers = false;
+      booleans = false;
+      break;
+    }
+    if (numbers) {
+      if (scanDecimalIn(src, a, b, scan)) {
+        const s = scan.scale;
+        let v: number;
+        if (scan.significand === 0 && scan.fits) v = src.charCodeAt(a) === MINUS ? -0 : 0;
+        else if (scan.fits && s >= -22 && s <= 22) v = s >= 0 ? scan.significand * EXACT_POWERS[s]! : scan.significand / EXACT_POWERS[-s]!;
+        else v = Number(src.slice(a, b));
+        values![r] = v;
+      } else {
+        numbers = false;
+        values = null;
+      }
+    }
+    if (booleans && !isWord(src, a, b, 'true') && !isWord(src, a, b, 'false')) booleans = false;
+    if (!numbers && !booleans) break;
+  }
+  if (numbers) return numberColumn(values!, missing, name, { source: src, from, to });
+  if (booleans) {
+    const out = new Uint8Array(n);
+    for (let r = 0; r < n; r++) if (missing[r] === 0) out[r] = src.charCodeAt(from[r]!) === 116 /* t */ ? 1 : 0;
+    return booleanColumn(out, missing, name);
+  }
+  return textColumnOfGrid(g, j, name);
+}
+
+/** Column j as texts: each distinct text made once, as typed (untrimmed); blank fields missing. */
+function textColumnOfGrid(g: FieldGrid, j: number, name: string): Column {
+  const src = g.source;
+  const width = g.header.length;
+  const n = g.rows;
+  const levels = new TextLevels();
+  const codes = new Int32Array(n);
+  const missing = new Uint8Array(n);
+  for (let r = 0; r < n; r++) {
+    const k = r * width + j;
+    const a = g.from[k]!;
+    const b = g.to[k]!;
+    let blank = true;
+    for (let i = a; i < b; i++) {
+      if (!isTrimmed(src.charCodeAt(i))) {
+        blank = false;
+        break;
+      }
+    }
+    if (blank) {
+      missing[r] = 1;
+      codes[r] = -1;
+    } else if (g.escaped !== null && g.escaped[k] === 1) {
+      codes[r] = levels.codeOfText(src.slice(a, b).replaceAll('""', '"'));
+    } else {
+      codes[r] = levels.codeOf(src, a, b);
+    }
+  }
+  const texts = levels.texts;
+  const values: string[] = new Array<string>(n);
+  for (let r = 0; r < n; r++) {
+    const c = codes[r]!;
+    values[r] = c < 0 ? '' : texts[c]!;
+  }
+  return textColumn(values, missing, name);
+}
+
+/** The table of a field grid. */
+export function tableOfGrid(g: FieldGrid): Table {
+  return table(
+    g.header,
+    g.header.map((name, j) => columnOfGrid(g, j, name)),
+  );
+}
