@@ -218,6 +218,12 @@ export const firstHourTests = [
       const box = await page.locator('furrow-app aside.help').boundingBox();
       check(box !== null && box.x >= 0 && box.x + box.width <= 800, `the panel fits at 800 px: ${JSON.stringify(box)}`);
       await page.screenshot({ path: `${out}/help-panel-800.png` });
+      // Escape clears the search, then closes the panel
+      await search.click();
+      await page.keyboard.press('Escape');
+      check((await search.inputValue()) === '', `the first Escape clears the search: ${await search.inputValue()}`);
+      await page.keyboard.press('Escape');
+      await page.locator('furrow-app aside.help').waitFor({ state: 'detached', timeout: 5000 });
     },
   },
   {
