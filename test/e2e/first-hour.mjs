@@ -228,7 +228,7 @@ export const firstHourTests = [
   },
   {
     name: 'first hour: hover docs on a built-in name and a signature hint after ( and ,',
-    async run({ context, base }) {
+    async run({ context, base, out }) {
       const page = await context.newPage();
       await page.goto(`${base}/?sample=adhesive-cure.furrow`);
       await settled(page);
@@ -247,6 +247,7 @@ export const firstHourTests = [
       check(current === 'treatment', `after , the second parameter is marked: ${current}`);
       const doc = (await hint.locator('.furrow-param-doc').innerText()).trim();
       check(doc.startsWith('treatment:'), `the marked parameter's doc is shown: ${doc}`);
+      await page.screenshot({ path: `${out}/signature-hint.png` });
       // the hint leaves with the caret
       await page.keyboard.press('Escape');
       await page.locator('furrow-app textarea.title').click();
@@ -260,6 +261,7 @@ export const firstHourTests = [
       const hover = page.locator('section[data-name="fit"] .furrow-hover');
       await hover.waitFor({ timeout: 5000 });
       const text = (await hover.innerText()).replace(/\s+/g, ' ');
+      await page.screenshot({ path: `${out}/hover-doc.png` });
       check(text.startsWith('blocked(y, treatment, block, covariate?)'), `the hover shows the signature: ${text}`);
       check(/Returns /.test(text) && /e\.g\. blocked\(/.test(text), `the hover shows what it returns and an example: ${text}`);
     },
