@@ -92,7 +92,7 @@ export const startMsg = {
   helpInsertAdapted: (from: string, to: string) => `Add as a cell (reading ${to} for ${from})`,
   helpNeeds: (what: string) => `Reads ${what}.`,
   helpMissing: (what: string) => `This document has no ${what}: the cell will say so until you add it or change the names.`,
-  helpReady: () => 'This document has what it reads.',
+  helpReady: () => 'This document has the names it reads.',
   helpInserted: (name: string | null) => `Added the example as a new cell${name === null ? '' : ` (${name})`} at the end of the document.`,
   helpKeysHeading: () => 'Keys for cells',
   helpKeysNote: () => 'Work anywhere on the page, in editors too.',

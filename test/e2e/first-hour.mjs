@@ -218,11 +218,17 @@ export const firstHourTests = [
       const box = await page.locator('furrow-app aside.help').boundingBox();
       check(box !== null && box.x >= 0 && box.x + box.width <= 800, `the panel fits at 800 px: ${JSON.stringify(box)}`);
       await page.screenshot({ path: `${out}/help-panel-800.png` });
+      // Escape clears the search, then closes the panel
+      await search.click();
+      await page.keyboard.press('Escape');
+      check((await search.inputValue()) === '', `the first Escape clears the search: ${await search.inputValue()}`);
+      await page.keyboard.press('Escape');
+      await page.locator('furrow-app aside.help').waitFor({ state: 'detached', timeout: 5000 });
     },
   },
   {
     name: 'first hour: hover docs on a built-in name and a signature hint after ( and ,',
-    async run({ context, base }) {
+    async run({ context, base, out }) {
       const page = await context.newPage();
       await page.goto(`${base}/?sample=adhesive-cure.furrow`);
       await settled(page);
@@ -241,6 +247,7 @@ export const firstHourTests = [
       check(current === 'treatment', `after , the second parameter is marked: ${current}`);
       const doc = (await hint.locator('.furrow-param-doc').innerText()).trim();
       check(doc.startsWith('treatment:'), `the marked parameter's doc is shown: ${doc}`);
+      await page.screenshot({ path: `${out}/signature-hint.png` });
       // the hint leaves with the caret
       await page.keyboard.press('Escape');
       await page.locator('furrow-app textarea.title').click();
@@ -254,6 +261,7 @@ export const firstHourTests = [
       const hover = page.locator('section[data-name="fit"] .furrow-hover');
       await hover.waitFor({ timeout: 5000 });
       const text = (await hover.innerText()).replace(/\s+/g, ' ');
+      await page.screenshot({ path: `${out}/hover-doc.png` });
       check(text.startsWith('blocked(y, treatment, block, covariate?)'), `the hover shows the signature: ${text}`);
       check(/Returns /.test(text) && /e\.g\. blocked\(/.test(text), `the hover shows what it returns and an example: ${text}`);
     },

@@ -212,7 +212,8 @@ const tests = [
       // a new note, typed
       await page.locator('furrow-app .add button', { hasText: '+ note' }).click();
       const note = page.locator('section[data-kind="note"]').last().locator('furrow-note-cell');
-      await note.locator('.prose').dblclick();
+      // a new note opens for writing at once
+      await note.locator('textarea').waitFor();
       await note.locator('textarea').fill('Checked by the second shift: {round(fit.mse, 3)}.');
       await note.locator('textarea').blur();
       await settled(page);

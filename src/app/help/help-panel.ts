@@ -52,6 +52,14 @@ export class FurrowHelp extends LitElement {
     this.query = '';
     this.category = null;
     this.opened = new Set();
+    // Escape closes the panel (a search being typed is cleared first, by the search box)
+    this.addEventListener('keydown', (e: KeyboardEvent) => {
+      if (e.key === 'Escape') this.close();
+    });
+  }
+
+  private close(): void {
+    this.dispatchEvent(new CustomEvent(HELP_CLOSE_EVENT, { bubbles: true, composed: true }));
   }
 
   /** Puts the caret in the search box (when the panel opens). */
@@ -310,7 +318,7 @@ export class FurrowHelp extends LitElement {
       <div class="head">
         <h2 id="help-heading">${startMsg.helpHeading()}</h2>
         <span class="count">${startMsg.helpCount(found.length, all.length)}</span>
-        <button class="close" aria-label=${startMsg.helpClose()} title=${startMsg.helpClose()} @click=${() => this.dispatchEvent(new CustomEvent(HELP_CLOSE_EVENT, { bubbles: true, composed: true }))}>✕</button>
+        <button class="close" aria-label=${startMsg.helpClose()} title=${startMsg.helpClose()} @click=${() => this.close()}>✕</button>
       </div>
       <div class="find">
         <input
