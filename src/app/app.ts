@@ -233,6 +233,9 @@ export class FurrowApp extends LitElement {
   private apply(edit: Edit, mergeKey: string | null = null): void {
     try {
       this.store.apply(edit, mergeKey);
+      // a discrete edit (a field entered, a cell added or moved) is written at once; typing,
+      // which comes as edits that merge, is written when it pauses
+      if (mergeKey === null) void this.keeper.flush();
     } catch (err) {
       this.banner = { kind: 'problem', text: pageMsg.editRefused(err instanceof Error ? err.message : String(err)) };
     }

@@ -34,7 +34,10 @@ async function formulaEditor(page, name) {
  * driver's quit does not wait for that, as a crash would not.
  */
 async function closeWindow(page, browser) {
+  // with runBeforeUnload the close is only asked for: wait until the page has gone
+  const gone = page.waitForEvent('close');
   await page.close({ runBeforeUnload: true });
+  await gone;
   await new Promise((resolve) => setTimeout(resolve, 500));
   await browser.close();
 }
