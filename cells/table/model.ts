@@ -9,7 +9,7 @@ import { CsvError, parseCsv, type CsvGrid } from '../../src/doc/csv.ts';
 import type { AnalyseEnv, CellAnalysis } from '../../src/graph/cell-kind.ts';
 import { KeptTable, rereadTable, tableWork } from './model-rows.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import {
   booleanColumn,
   errorValue,

@@ -6,7 +6,7 @@
  */
 import { MISSING, isMissing, type Chart, type Column, type NumberColumn, type RecordValue, type Table, type TextColumn, type Value } from '../lang/values.ts';
 import { UsageError } from '../lang/errors.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import {
   MAX_MEANS_LEVELS,
   MAX_PAIRS,

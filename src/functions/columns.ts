@@ -4,7 +4,8 @@
  * The statistics code (src/stats) sees only complete typed arrays.
  */
 import { UsageError } from '../lang/errors.ts';
-import { msg, plural } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
+import { plural } from '../messages/words.ts';
 import type { Column, NumberColumn, Value } from '../lang/values.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import type { CallContext } from '../lang/builtins.ts';

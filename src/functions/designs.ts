@@ -7,7 +7,7 @@
  */
 import { UsageError } from '../lang/errors.ts';
 import { formatNumber } from '../lang/format.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import { MISSING, isColumn, numberColumn, record, textColumn, type Column, type NumberColumn, type RecordValue, type Table, type Value } from '../lang/values.ts';
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
 import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovariate, type Covariate, type DesignFit } from '../stats/designs/index.ts';

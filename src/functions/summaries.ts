@@ -3,7 +3,7 @@
  * many. Sums of squares use the exact decimal shift of typed data.
  */
 import { UsageError } from '../lang/errors.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import { numberColumn, table, textColumn, type Column, type NumberColumn } from '../lang/values.ts';
 import * as S from '../stats/summary/index.ts';
 import { LEVEL_ORDER_RULE, completeRows, completeValues, factorOf, levelName, plainValues, presentRows, responseOf } from './columns.ts';

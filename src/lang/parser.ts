@@ -13,7 +13,8 @@
 import type { Argument, BinaryOp, Expr, Statement } from './ast.ts';
 import { LangError } from './errors.ts';
 import { tokenize, type Token } from './lexer.ts';
-import { msg, quote } from './messages.ts';
+import { msg } from '../messages/language.ts';
+import { quote } from '../messages/words.ts';
 
 /** The deepest nesting of brackets a formula may have. */
 export const MAX_DEPTH = 200;

@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import { describe, expect, it } from 'vitest';
 import { applyEdit, freshCellId } from '../../src/doc/edits.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
