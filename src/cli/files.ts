@@ -9,7 +9,7 @@
 import { closeSync, constants, fstatSync, openSync, readSync, realpathSync } from 'node:fs';
 import { dirname, join, relative, isAbsolute, sep } from 'node:path';
 import { NotUtf8Error, decodeUtf8 } from '../doc/utf8.ts';
-import { cliMsg } from './messages.ts';
+import { cliMsg } from '../messages/cli.ts';
 
 /** The largest document the command line reads. */
 export const DOCUMENT_LIMIT_BYTES = 64 * 1024 * 1024;

@@ -35,7 +35,6 @@ import {
   drawBlocks,
   drawCompletelyRandom,
   drawLatin,
-  planningMessages as m,
   replicatesForPower,
   twoGroupCurve,
   twoGroupPower,
@@ -43,6 +42,7 @@ import {
   type KeyedPlots,
   type TwoGroupPower,
 } from '../stats/planning/index.ts';
+import { planningMsg as m } from '../messages/planning.ts';
 import { guarded } from './records.ts';
 import type { Builtin, CallContext, Param } from '../lang/builtins.ts';
 

@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, readBytes } from '../../src/cli/files.ts';
-import { cliMsg } from '../../src/cli/messages.ts';
+import { cliMsg } from '../../src/messages/cli.ts';
 import { main } from '../../src/cli/main.ts';
 
 function cli(...args: string[]): { code: number; out: string; err: string } {

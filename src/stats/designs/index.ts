@@ -20,7 +20,6 @@ export { withCovariate, type Covariate } from './covariate.ts';
 export { acrossSites } from './sites.ts';
 export { satterthwaite, bartlett, type BartlettTest } from './strata.ts';
 export { DesignError } from './errors.ts';
-export { messages } from './messages.ts';
 export type {
   AnovaTable,
   CovariateParts,

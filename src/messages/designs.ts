@@ -6,7 +6,7 @@
 const q = (s: string): string => `"${s}"`;
 
 /** Plain-words messages (errors and notes). */
-export const messages = {
+export const designMsg = {
   lengthMismatch: (what: string, got: number, n: number) =>
     `${what} has ${got} values but the response has ${n}`,
   badCode: (what: string, code: number, at: number, levels: number) =>

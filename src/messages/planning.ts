@@ -6,7 +6,7 @@
 const q = (s: string): string => `"${s}"`;
 
 /** Plain-words messages of planning. */
-export const planningMessages = {
+export const planningMsg = {
   fewTreatments: (k: number) => `a plan needs at least 2 treatments; ${k === 0 ? 'none was' : 'only 1 was'} given`,
   duplicateTreatment: (name: string) => `treatment ${q(name)} is named twice; give every treatment its own name`,
   emptyTreatment: (at: number) => `treatment ${at + 1} is empty; give every treatment a name`,
