@@ -5,10 +5,10 @@
  */
 import { UsageError } from '../lang/errors.ts';
 import { msg } from '../messages/language.ts';
-import { plural } from '../messages/words.ts';
 import type { Column, NumberColumn, Value } from '../lang/values.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import type { CallContext } from '../lang/builtins.ts';
+import { fnMsg } from '../messages/functions.ts';
 
 /** A factor as the statistics see it. */
 export interface Factor {
@@ -157,7 +157,7 @@ export function completeRows(cols: readonly Column[], ctx: CallContext, names?: 
     if (c.values.length !== n) {
       const a = names?.[0] ?? cols[0]!.name ?? 'the first column';
       const b = names?.[j] ?? c.name ?? `column ${j + 1}`;
-      throw new UsageError(`${a} has ${n} values but ${b} has ${c.values.length}; they must be the same length.`);
+      throw new UsageError(fnMsg.lengthsDiffer(a, n, b, c.values.length));
     }
   });
   if (cols.every((c) => c.missing === null)) return null;
@@ -168,7 +168,7 @@ export function completeRows(cols: readonly Column[], ctx: CallContext, names?: 
     if (ok) keep.push(i);
   }
   const dropped = n - keep.length;
-  if (dropped > 0) ctx.warn(`${plural(dropped, 'row')} with a missing value ${dropped === 1 ? 'was' : 'were'} left out.`);
+  if (dropped > 0) ctx.warn(fnMsg.rowsLeftOut(dropped));
   return Int32Array.from(keep);
 }
 

@@ -40,4 +40,19 @@ export const planningMsg = {
   mapTooLarge: (plots: number, limit: number, part: string) =>
     `a map of ${plots} plots is too large to read; the limit is ${limit}. Draw it in parts, for example layout_chart(${part})`,
   notALayout: () => `this table was not drawn by random_layout or latin_layout, so there is no record of how it was drawn`,
+  // the comparison of data with a layout (`plot` names a plot, as "block 2, plot 3")
+  layoutHolds: (plots: number) => `All ${plots} plots of the layout are in the data with the treatment drawn for them.`,
+  plotDiffers: (plot: string, inData: string | null, inLayout: string) =>
+    `${plot} has ${inData ?? 'no treatment'} in the data but ${inLayout} in the layout`,
+  plotsMissingFromData: (k: number, shown: readonly string[]) =>
+    `${k} plot${k === 1 ? '' : 's'} of the layout missing from the data (${shown.join('; ')}${k > shown.length ? '; …' : ''})`,
+  plotsNotInLayout: (k: number, shown: readonly string[]) =>
+    `${k} plot${k === 1 ? '' : 's'} in the data not in the layout (${shown.join('; ')}${k > shown.length ? '; …' : ''})`,
+  differences: (parts: readonly string[]) => `${parts.join('; ')}.`,
+  // the power curve: its size axis and what it assumes
+  perGroup: () => 'plots per group',
+  blocks: () => 'blocks',
+  curveTwoGroups: (delta: number, sd: number, level: number) => `two groups, delta ${delta}, sd ${sd}, two-sided t test at level ${level}`,
+  curveBlocked: (treatments: number, delta: number, sd: number, level: number) =>
+    `${treatments} treatments in complete blocks, two of them delta ${delta} apart and the rest midway, sd ${sd}, F test at level ${level}`,
 };

@@ -8,6 +8,7 @@ import type { Chart, Value } from '../../src/lang/values.ts';
 import { expectSelfContained, expectValidSpec, GRAFT, layerOf, PLANTS, valuesOf, obj, type Obj } from '../charts/fixtures.ts';
 import { formatNumber } from '../../src/lang/format.ts';
 import { doc, run } from '../helpers.ts';
+import { fnMsg } from '../../src/messages/functions.ts';
 
 function chart(v: Value | undefined): Chart {
   if (v === undefined || typeof v !== 'object' || v.kind !== 'chart') throw new Error(`expected a chart, got ${JSON.stringify(v)}`);
@@ -102,14 +103,14 @@ describe('rows left out by the fit', () => {
     expect(rows).not.toContain(3);
     expect(rows.length).toBe(23);
     expect(c.caption).toMatch(/^23 residuals of yield; 1 beyond 3 studentized units \(row 17\)/);
-    expect(states[1]!.warnings.join(' ')).toMatch(/1 row with a missing value was left out/);
+    expect(states[1]!.warnings).toContain(fnMsg.rowsLeftOut(1));
   });
   it('are counted by scatter, with a warning on the cell', () => {
     const { engine, states } = run(doc(...graftTable({ skip: 3 }), '--- formula', 'c = scatter(graft.batch, graft.yield_pct)'));
     const c = chart(engine.valueOf('c'));
     expect(c.caption).toBe('23 points; 1 row with a missing value left out.');
     expect(valuesOf(obj(c.spec)).map((p) => p.row)).not.toContain(3);
-    expect(states[1]!.warnings.join(' ')).toMatch(/1 row with a missing value was left out/);
+    expect(states[1]!.warnings).toContain(fnMsg.rowsLeftOut(1));
   });
 });
 
@@ -142,9 +143,7 @@ describe("one-way: Dobson's plants", () => {
     expect(obj(c.spec).title).toEqual({ text: 'Differences of group means, Tukey 95% intervals' });
   });
   it('says in plain words what a one-way fit cannot draw', () => {
-    expect(errorOf(engine.valueOf('no_blocks'))).toBe(
-      'residuals_chart: against: "block" needs a fit with blocks (from blocked); this completely randomized (one-way) fit has none. Use "fitted", "order" or "treatment".',
-    );
+    expect(errorOf(engine.valueOf('no_blocks'))).toBe(`residuals_chart: ${fnMsg.noBlocksToPlot('completely randomized (one-way)')}`);
     expect(errorOf(engine.valueOf('no_profile'))).toMatch(/^interaction_chart: an interaction chart needs a fit with two or more factors; this fit \(.*\) has one\. means_chart\(fit\) draws its means\.$/);
     expect(errorOf(engine.valueOf('not_pairs'))).toMatch(/pairwise_chart.*pairs.*the result of pairwise/);
     expect(errorOf(engine.valueOf('bad_against'))).toMatch(/residuals_chart.*against.*"fitted", "order", "treatment", "block"/);
