@@ -7,6 +7,7 @@ import { shiftDecimals } from '../../../src/stats/decimal/index.ts';
 import { blocked, DesignError } from '../../../src/stats/designs/index.ts';
 import { fitFactorModel, leastSquaresMeans } from '../../../src/stats/linear/index.ts';
 import { expectAbsolute, expectArrayNear, expectNear, expectRelative, factorOf, normals, seeded, subset, vascular, VASCULAR } from './support.ts';
+import { designMsg } from '../../../src/messages/designs.ts';
 
 describe('blocked: vascular-graft example', () => {
   const { y, pressure, batch } = vascular();
@@ -81,7 +82,7 @@ describe('blocked: a missing plot (8900 psi in batch 4)', () => {
     expectAbsolute(fit.table.ss[2]!, 90.6116, 5e-5, 'error SS');
     expectAbsolute(fit.table.ss[0]!, 172.2159, 5e-5, 'adjusted treatment SS');
     expectAbsolute(fit.table.f[0]!, 8.869, 5e-4, 'F');
-    expect(fit.notes).toContain('block 4 has no plot for treatment 8900');
+    expect(fit.notes).toContain(designMsg.missingPlot('block', '4', '8900'));
   });
 
   it("agrees with Yates's missing-plot method, computed here from its formulas", () => {
@@ -186,15 +187,15 @@ describe('blocked: designs too broken to estimate', () => {
   });
   it('refuses a response that is not finite and codes out of range', () => {
     const bad = Float64Array.from(y, (v, i) => (i === 4 ? Infinity : v));
-    expect(() => blocked(bad, pressure, batch)).toThrow(/row 5 is not a finite number/);
+    expect(() => blocked(bad, pressure, batch)).toThrow(designMsg.notFinite(4));
     const codes = Int32Array.from(batch.codes, (c, i) => (i === 2 ? 9 : c));
     expect(() => blocked(y, pressure, { ...batch, codes })).toThrow(/level code 9 at row 3, but only 6 levels/);
-    expect(() => blocked(y.subarray(2), pressure, batch)).toThrow(/has 24 values but the response has 22/);
+    expect(() => blocked(y.subarray(2), pressure, batch)).toThrow(designMsg.lengthMismatch('treatment "pressure"', 24, 22));
   });
   it('drops a block whose plots are all missing, with a note', () => {
     const { y: y2, factors } = subset(y, [pressure, batch], (i) => i % 6 !== 2);
     const fit = blocked(y2, factors[0]!, factors[1]!);
-    expect(fit.notes).toContain('block "3" has no observations and is not counted');
+    expect(fit.notes).toContain(designMsg.emptyBlockDropped('3'));
     expect(fit.df_error).toBe(3 * 4);
     expect(fit.balanced).toBe(true);
   });
