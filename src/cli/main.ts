@@ -1,6 +1,6 @@
 /**
  * The command line: `furrow run FILE [--json]` evaluates a document and prints every cell
- * (language.md section 9). Exit status: 0 when every cell evaluated, 1 when any cell holds
+ * (docs/language.md section 9). Exit status: 0 when every cell evaluated, 1 when any cell holds
  * an error (all cells are still printed), 2 when the file cannot be read as a document.
  */
 import { basename } from 'node:path';

@@ -1,5 +1,5 @@
 /**
- * Reading and writing the `.furrow` text format (language.md section 1).
+ * Reading and writing the `.furrow` text format (docs/language.md section 1).
  *
  *   line 1         furrow 1
  *   header         key: value lines until the first cell

@@ -1,5 +1,5 @@
 /**
- * Chart built-ins (language.md section 7): residuals, normal probability, means, pairwise
+ * Chart built-ins (docs/language.md section 7): residuals, normal probability, means, pairwise
  * differences, cell-mean profiles and a plain scatter, wired from src/charts. Each returns a
  * chart value whose spec carries its data inline; what the chart had to leave out or
  * approximate goes to the cell as a warning.

@@ -1,6 +1,6 @@
 /**
  * Preparing columns for the statistics: dropping missing values (and saying how many were
- * dropped), the exact decimal shift of section 5, and integer level codes for factors.
+ * dropped), the exact decimal shift of docs/language.md section 5, and integer level codes for factors.
  * The statistics code (src/stats) sees only complete typed arrays.
  */
 import { UsageError } from '../lang/errors.ts';

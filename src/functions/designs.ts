@@ -2,7 +2,7 @@
  * Design built-ins (one_way, blocked, latin_square, factorial) and what comes after a fit
  * (difference, pairwise, contrast, residual_checks), wired from src/stats.
  *
- * A fit record shows the fields of language.md section 8; its `internal` part keeps the
+ * A fit record shows the fields of docs/language.md section 8; its `internal` part keeps the
  * numeric fit and the data it came from, for the comparisons, the checks and the charts.
  */
 import { UsageError } from '../lang/errors.ts';

@@ -1,6 +1,6 @@
 /**
  * The fit record and the data behind it: complete cases shifted exactly, level codes, the
- * record's fields in the contract's order (language.md section 8) and the `internal` part
+ * record's fields in the contract's order (docs/language.md section 8) and the `internal` part
  * that comparisons, checks and charts read. Shared by every design built-in.
  */
 import { withoutErrorTests } from './exact.ts';

@@ -1,5 +1,5 @@
 /**
- * Planning built-ins (language.md section 7): seeded layouts and their map, the comparison
+ * Planning built-ins (docs/language.md section 7): seeded layouts and their map, the comparison
  * of data with their layout, power and size. The numbers come from src/stats/planning; this
  * file turns them into tables, records and charts.
  *

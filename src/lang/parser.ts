@@ -1,6 +1,6 @@
 /**
  * The parser of the cell language: a Pratt parser over the precedence table of
- * language.md section 2.
+ * docs/language.md section 2.
  *
  *   level 1  or            level 5  + -        level 9  call f(x), member t.c,
  *   level 2  and           level 6  * /                 index c[i], filter c[mask]

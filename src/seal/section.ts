@@ -1,5 +1,5 @@
 /**
- * The `--- sealed` section (language.md section 6): what it holds and how it reads back.
+ * The `--- sealed` section (docs/language.md section 6): what it holds and how it reads back.
  *
  *   engine: furrow 0.1.0
  *   fingerprint: sha256:HEX                 over the cells and every data file they name

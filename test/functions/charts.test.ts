@@ -1,6 +1,6 @@
 /**
  * The chart built-ins through documents, as a user writes them, on the published data of
- * references.md sections 3 and 4.
+ * docs/references.md sections 3 and 4.
  */
 import { describe, expect, it } from 'vitest';
 import { BEYOND } from '../../src/charts/layers.ts';
@@ -19,7 +19,7 @@ function errorOf(v: Value | undefined): string {
   return v.message;
 }
 
-// source: Montgomery, vascular-graft example (references.md section 4), in table order:
+// source: Montgomery, vascular-graft example (docs/references.md section 4), in table order:
 // pressure by pressure, batches 1 to 6; `skip` leaves a yield empty, `wild` replaces one
 function graftTable(opts: { skip?: number; wild?: { row: number; value: string } } = {}): string[] {
   let row = 0;
@@ -136,7 +136,7 @@ describe("one-way: Dobson's plants", () => {
   it('draws the Tukey intervals', () => {
     const c = chart(engine.valueOf('pairs'));
     const v = valuesOf(layerOf(c.spec, 'point'));
-    // source: scipy 1.10.1 stats.tukey_hsd (references.md section 3): trt2 - trt1 interval
+    // source: scipy 1.10.1 stats.tukey_hsd (docs/references.md section 3): trt2 - trt1 interval
     // 0.174 to 1.556 excludes zero; control - treatment 1, -0.320 to 1.062, does not
     expect(v.find((p) => p.pair === 'trt1 − trt2')!.side).toBe('interval excludes 0');
     expect(v.find((p) => p.pair === 'ctrl − trt1')!.side).toBe('interval includes 0');

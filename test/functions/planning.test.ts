@@ -60,7 +60,7 @@ describe('layouts are pinned byte for byte: a change that would re-draw old plan
 });
 
 describe('a layout is a table, and says how it was drawn', () => {
-  it('its JSON is the contract’s table shape (language.md section 9)', () => {
+  it('its JSON is the contract’s table shape (docs/language.md section 9)', () => {
     const v = evalFormula('random_layout(["a", "b"], seed: 5, blocks: 2)');
     expect(JSON.parse(toJson(v))).toEqual({ block: [1, 1, 2, 2], plot: [1, 2, 1, 2], treatment: expect.any(Array) });
   });
@@ -124,8 +124,8 @@ describe('bad input gets a plain error on its cell, never a number (issue point 
 });
 
 describe('power records say what they assumed', () => {
-  it('blocks_for_power: 24 blocks for 4 treatments at delta = sd (references.md section 7)', () => {
-    // source: references.md section 7 (scipy 1.10.1): 24 blocks give 0.8168415
+  it('blocks_for_power: 24 blocks for 4 treatments at delta = sd (docs/references.md section 7)', () => {
+    // source: docs/references.md section 7 (scipy 1.10.1): 24 blocks give 0.8168415
     const r = rec(evalFormula('blocks_for_power(1, 1, 4)'));
     expect(r.fields.get('blocks')).toBe(24);
     expect((r.fields.get('power') as number).toFixed(7)).toBe('0.8168415');
@@ -134,7 +134,7 @@ describe('power records say what they assumed', () => {
   });
 
   it('replicates_for_power: 17 per group for delta = sd, power 0.8', () => {
-    // source: references.md section 7 (scipy 1.10.1): 17 per group give 0.8070367
+    // source: docs/references.md section 7 (scipy 1.10.1): 17 per group give 0.8070367
     const r = rec(evalFormula('replicates_for_power(1, 1)'));
     expect(r.fields.get('n')).toBe(17);
     expect((r.fields.get('power') as number).toFixed(7)).toBe('0.8070367');

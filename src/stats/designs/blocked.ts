@@ -27,7 +27,7 @@ const DESIGN = 'randomized complete block';
  * correction ((df_e + 1)(df_r + 3)) / ((df_e + 3)(df_r + 1)), where df_e is the blocked
  * error df and df_r = N - t that of the randomized design.
  * source: Montgomery, Design and Analysis of Experiments (the vascular-graft example), and
- * references.md section 4, for the formula and the correction.
+ * docs/references.md section 4, for the formula and the correction.
  */
 export function relativeEfficiency(
   msBlocks: number,

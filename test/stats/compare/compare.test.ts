@@ -19,7 +19,7 @@ describe('pairwise: Tukey on Dobson\'s plant weights', () => {
   const res = pairwise(fit, 'tukey', 0.95);
 
   it('reproduces the published intervals and adjusted p-values', () => {
-    // source: references.md 3, Dobson (1983) plant weights, Tukey HSD at 95% confirmed with
+    // source: docs/references.md section 3, Dobson (1983) plant weights, Tukey HSD at 95% confirmed with
     // scipy 1.10.1 (stats.tukey_hsd): trt2 - trt1 = 0.865 (0.174 to 1.556), p = 0.012;
     // ctrl - trt1 = 0.371 (-0.320 to 1.062), p = 0.391.
     const t = res.table;
@@ -39,7 +39,7 @@ describe('pairwise: Tukey on Dobson\'s plant weights', () => {
   });
 
   it('uses the studentized range critical value q(level; k, df) / sqrt 2', () => {
-    // source: references.md 5 (handbook table, values from scipy 1.10.1): studentized range,
+    // source: docs/references.md section 5 (handbook table, values from scipy 1.10.1): studentized range,
     // 3 groups, 12 df, 5%: 3.772929. Three groups of five give 12 error df.
     const u = seeded(3);
     const labels = Array.from({ length: 15 }, (_, i) => `g${Math.floor(i / 5)}`);

@@ -13,7 +13,7 @@ describe('oneWay', () => {
   it("reproduces Dobson's plant weights", () => {
     const { y, group } = plants();
     const fit = oneWay(y, group);
-    // source: Dobson (1983), plant weights; values confirmed with scipy 1.10.1 (references.md 3)
+    // source: Dobson (1983), plant weights; values confirmed with scipy 1.10.1 (docs/references.md section 3)
     expect(fit.table.source).toEqual(['group', 'error', 'total']);
     expect(fit.table.df).toEqual([2, 27, 29]);
     expectAbsolute(fit.table.ss[0]!, 3.76634, 5e-6, 'between SS');

@@ -45,7 +45,7 @@ const byDrug = {
 
 describe('paired, on the sleep data', () => {
   it('reproduces every published figure', () => {
-    // source: references.md section 2 (Student 1908; from memory, confirmed with scipy 1.10.1)
+    // source: docs/references.md section 2 (Student 1908; from memory, confirmed with scipy 1.10.1)
     const r = paired(F(drug1), F(drug2));
     expectPrinted(r.estimate, -1.58, 10);
     expectPrinted(r.sd, 1.22999548, 8);
@@ -72,7 +72,7 @@ describe('paired, on the sleep data', () => {
 
 describe('twoSample, on the sleep data treated as unpaired', () => {
   it('pooled form reproduces the published figures', () => {
-    // source: references.md section 2 (scipy 1.10.1 stats.ttest_ind, equal_var=True)
+    // source: docs/references.md section 2 (scipy 1.10.1 stats.ttest_ind, equal_var=True)
     const r = twoSample(stacked, byDrug, 0.95, true);
     expectPrinted(r.estimate, -1.58, 10);
     expectPrinted(r.t, -1.8608135, 7);
@@ -93,7 +93,7 @@ describe('twoSample, on the sleep data treated as unpaired', () => {
   });
 
   it('Welch form reproduces the published figures', () => {
-    // source: references.md section 2 (scipy 1.10.1 stats.ttest_ind, equal_var=False)
+    // source: docs/references.md section 2 (scipy 1.10.1 stats.ttest_ind, equal_var=False)
     const r = twoSample(stacked, byDrug, 0.95, false);
     expectPrinted(r.t, -1.8608135, 7);
     expectPrinted(r.df, 17.776474, 6);
