@@ -3,6 +3,7 @@ import kruskalTest from '@stdlib/stats-kruskal-test';
 import { kruskalWallis, friedman } from '../../../src/stats/ranks/index.ts';
 import { StatsInputError } from '../../../src/stats/summary/index.ts';
 import { F, expectPrinted, expectRel, uniforms } from './helpers.ts';
+import { statsMsg } from '../../../src/messages/stats.ts';
 
 // source: Dobson (1983), An Introduction to Statistical Modelling, plant weights
 // (from memory; docs/references.md section 3)
@@ -178,7 +179,7 @@ describe('friedman', () => {
         { codes: Int32Array.from(keep, (i) => treatment.codes[i]!), levels: treatment.levels },
         { codes: Int32Array.from(keep, (i) => block.codes[i]!), levels: block.levels },
       ),
-    ).toThrow(/block "2" has no value for treatment "8700"/);
+    ).toThrow(statsMsg.friedmanMissing('2', '8700'));
     const twice = Int32Array.from(block.codes);
     twice[1] = 0; // second observation of 8500 moved into batch 1
     expect(() => friedman(y, treatment, { codes: twice, levels: block.levels })).toThrow(
@@ -189,6 +190,6 @@ describe('friedman', () => {
         codes: Int32Array.from([0, 0, 1, 1]),
         levels: ['p', 'q'],
       }),
-    ).toThrow(/nothing to rank/);
+    ).toThrow(statsMsg.blocksAllTied());
   });
 });
