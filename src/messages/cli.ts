@@ -1,7 +1,7 @@
 /**
  * The words of the command line: its usage, its complaints about arguments and files, and
  * the lines `furrow run`, `seal`, `report` and `sheet` print. Plain words: what is wrong,
- * where, and what to do. (`verify` prints through src/seal/verify-text.ts.)
+ * where, and what to do. (The verdict `verify` prints is worded in ./seal.ts.)
  */
 const MB = 1024 * 1024;
 const size = (bytes: number): string => (bytes >= MB ? `${(bytes / MB).toFixed(bytes >= 10 * MB ? 0 : 1)} MB` : `${bytes} bytes`);

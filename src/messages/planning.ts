@@ -40,6 +40,9 @@ export const planningMsg = {
   mapTooLarge: (plots: number, limit: number, part: string) =>
     `a map of ${plots} plots is too large to read; the limit is ${limit}. Draw it in parts, for example layout_chart(${part})`,
   notALayout: () => `this table was not drawn by random_layout or latin_layout, so there is no record of how it was drawn`,
+  // run sheets
+  measurementUnnamed: () => 'a measurement column needs a name.',
+  measurementTaken: (name: string) => `the layout already has a column ${q(name)}; name the measurement column differently.`,
   // the comparison of data with a layout (`plot` names a plot, as "block 2, plot 3")
   layoutHolds: (plots: number) => `All ${plots} plots of the layout are in the data with the treatment drawn for them.`,
   plotDiffers: (plot: string, inData: string | null, inLayout: string) =>

@@ -5,6 +5,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { sameValue } from '../../src/lang/values.ts';
+import { sealMsg } from '../../src/messages/seal.ts';
 import { run } from '../helpers.ts';
 import { cli, sampleCopies, scratch } from './support.ts';
 
@@ -35,7 +36,7 @@ describe('furrow verify', () => {
       expect(cli('seal', path).code).toBe(0);
       const r = cli('verify', path);
       expect(r.code, r.out).toBe(0);
-      expect(r.out).toContain('Verified: every value is the same, bit for bit, and every claim holds.');
+      expect(r.out).toContain(sealMsg.verified());
       expect(r.out).toContain('Fingerprint: matches');
       expect(reported(r.out, 'changed')).toEqual([]);
     }
@@ -52,9 +53,9 @@ describe('furrow verify', () => {
     expect(expected.length).toBeGreaterThan(2);
     expect(reported(r.out, 'changed')).toEqual(expected);
     expect(r.out).toContain('runs.loss_mg[3]: was 36.9, now 26.9');
-    expect(r.out).toContain('"felt loses more than woven" (felt_wears_most, cell 9) NO LONGER HOLDS');
+    expect(r.out).toContain(`"felt loses more than woven" ${sealMsg.claimWho('felt_wears_most', 9)} ${sealMsg.claimStanding('no-longer', '')}`);
     expect(r.out).toContain('The cells changed since sealing.');
-    expect(r.out).toMatch(/NOT VERIFIED: the fingerprint differs; \d+ values differ; 1 claim does not hold as sealed\./);
+    expect(r.out).toContain(sealMsg.notVerified([sealMsg.reasonFingerprint(), sealMsg.reasonValues(expected.length), sealMsg.reasonClaims(1)]));
   });
 
   it('fails the fingerprint and names the data file when a CSV beside the document changes', () => {
@@ -97,7 +98,7 @@ describe('furrow verify', () => {
     editLine(path!, 'engine: furrow 0.1.0', 'engine: furrow 0.0.9');
     const r = cli('verify', path!);
     expect(r.code).toBe(1);
-    expect(r.out.split('\n')[0]).toBe('Engine: sealed by furrow 0.0.9, recomputed by furrow 0.1.0; results may differ in their last digits for that reason alone.');
+    expect(r.out.split('\n')[0]).toBe(sealMsg.otherEngine('furrow 0.0.9', 'furrow 0.1.0'));
   });
 
   it('reports values that are missing and new, and claims that are gone', () => {
