@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.ts';
 import { cliMsg } from '../../src/messages/cli.ts';
+import { fnMsg } from '../../src/messages/functions.ts';
 import { msg } from '../../src/messages/language.ts';
 
 function cli(...args: string[]): { code: number; out: string; err: string } {
@@ -48,7 +49,7 @@ describe('furrow run', () => {
     expect(j.furrow).toBe(1);
     expect(j.cells).toEqual([
       { index: 0, kind: 'table', name: 'plots', type: 'table', value: { y: [1, 2, null], g: ['a', 'b', 'c'] }, error: null },
-      { index: 1, kind: 'formula', name: 'm', type: 'number', value: 1.5, error: null, warnings: ['1 row with a missing value was left out.'] },
+      { index: 1, kind: 'formula', name: 'm', type: 'number', value: 1.5, error: null, warnings: [fnMsg.rowsLeftOut(1)] },
       { index: 2, kind: 'note', name: null, type: 'text', value: 'mean 1.5', error: null },
     ]);
   });
@@ -65,7 +66,7 @@ describe('furrow run', () => {
       name: 'c',
       type: 'error',
       value: null,
-      error: { message: 'There is no cell or table called "nope".', from: 4, to: 8 },
+      error: { message: msg.unknownName('nope', null), from: 4, to: 8 },
     });
   });
   it('prints readable text, with the file line of each error', () => {
