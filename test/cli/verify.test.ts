@@ -52,9 +52,9 @@ describe('furrow verify', () => {
     const expected = changedNames(before, readFileSync(path, 'utf8'));
     expect(expected.length).toBeGreaterThan(2);
     expect(reported(r.out, 'changed')).toEqual(expected);
-    expect(r.out).toContain('runs.loss_mg[3]: was 36.9, now 26.9');
+    expect(r.out).toContain(sealMsg.valueWasNow('runs.loss_mg[3]', '36.9', '26.9', null));
     expect(r.out).toContain(`"felt loses more than woven" ${sealMsg.claimWho('felt_wears_most', 9)} ${sealMsg.claimStanding('no-longer', '')}`);
-    expect(r.out).toContain('The cells changed since sealing.');
+    expect(r.out).toContain(sealMsg.cellsChanged());
     expect(r.out).toContain(sealMsg.notVerified([sealMsg.reasonFingerprint(), sealMsg.reasonValues(expected.length), sealMsg.reasonClaims(1)]));
   });
 
@@ -72,8 +72,8 @@ describe('furrow verify', () => {
     const r = cli('verify', path);
     expect(r.code).toBe(1);
     expect(r.out).toContain('Fingerprint: DIFFERS');
-    expect(r.out).toContain('The data file plots.csv changed since sealing.');
-    expect(r.out).not.toContain('The cells changed');
+    expect(r.out).toContain(sealMsg.dataChanged('plots.csv'));
+    expect(r.out).not.toContain(sealMsg.cellsChanged());
     expect(reported(r.out, 'changed')).toEqual([]);
   });
 
@@ -87,7 +87,7 @@ describe('furrow verify', () => {
     const r = cli('verify', path);
     expect(r.code).toBe(1);
     // blocks of 100,000 / 32 = 3,125 elements: row 60,001 is in the 20th, 59,376 to 62,500
-    expect(r.out).toContain('big.y: elements 59376 to 62500 differ (of 100000, sealed by digest)');
+    expect(r.out).toContain(sealMsg.runsDiffer('big.y', ['59376 to 62500'], 0, 100000));
     expect(r.out).not.toContain('big.g:');
     expect(reported(r.out, 'changed')).toEqual(['big', 'm']);
   });
@@ -110,7 +110,7 @@ describe('furrow verify', () => {
     expect(r.code).toBe(1);
     expect(r.out).toMatch(/^ {2}missing +a$/m);
     expect(r.out).toMatch(/^ {2}new +b +\(cell 1\)$/m);
-    expect(r.out).toContain('"a is positive" (ok, cell 2) cannot be checked: its cell holds an error');
+    expect(r.out).toContain(`"a is positive" ${sealMsg.claimWho('ok', 2)} ${sealMsg.claimStanding('error', sealMsg.claimCellError(''))}`);
   });
 
   describe('a sealed section edited by hand is reported in plain words, never a crash', () => {
@@ -127,8 +127,8 @@ describe('furrow verify', () => {
       edit(path, (ls) => ls.filter((l) => !l.startsWith('fingerprint: ')));
       const r = cli('verify', path);
       expect(r.code).toBe(1);
-      expect(r.out).toContain('Sealed section: The sealed section has no "fingerprint:" line.');
-      expect(r.out).toContain('The seal has no readable fingerprint.');
+      expect(r.out).toContain(sealMsg.sectionProblem(sealMsg.keyMissing('fingerprint')));
+      expect(r.out).toContain(sealMsg.noFingerprint());
     });
     it('a value removed', () => {
       const path = sealedCopy();
@@ -171,7 +171,7 @@ describe('furrow verify', () => {
       const [path] = sampleCopies();
       const r = cli('verify', path!);
       expect(r.code).toBe(1);
-      expect(r.out).toContain('The document has no sealed section: seal it first (furrow seal FILE).');
+      expect(r.out).toContain(sealMsg.noSection());
     });
     it('a claim list altered', () => {
       const path = sealedCopy();
