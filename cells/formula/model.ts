@@ -1,6 +1,7 @@
 /**
- * Formula cells: one statement, `NAME = EXPRESSION` or a bare expression (language.md
- * section 2). The body is the formula's text; ranges in errors are offsets into it.
+ * Formula cells: one statement, `NAME = EXPRESSION` or a bare expression
+ * (docs/language.md section 2). The body is the formula's text; ranges in errors are offsets
+ * into it.
  */
 import type { Cell } from '../../src/doc/document.ts';
 import type { CellAnalysis } from '../../src/graph/cell-kind.ts';

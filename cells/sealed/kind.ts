@@ -1,5 +1,5 @@
 /**
- * The closing `--- sealed` section of a sealed document (language.md section 6): known, so
+ * The closing `--- sealed` section of a sealed document (docs/language.md section 6): known, so
  * it draws no warning, and kept as written; it is read by sealing and verifying, never
  * evaluated, and the page does not offer to add one.
  */

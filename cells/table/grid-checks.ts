@@ -4,7 +4,7 @@
  * name a column or the table. Pure functions over counts kept per column.
  */
 import { isKeyword, isPlainName } from '../../src/lang/lexer.ts';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import { DECIMAL } from './model.ts';
 import { gridMsg } from './grid-messages.ts';
 

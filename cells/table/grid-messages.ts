@@ -2,7 +2,7 @@
  * Every message the table grid shows, in one place, so that wording changes once and the
  * tests can refer to these builders. Plain words: what is wrong and what to do about it.
  */
-import { plural, quote } from '../../src/lang/messages.ts';
+import { plural, quote } from '../../src/messages/words.ts';
 
 /** What a field that is not a number most likely needs, or '' when nothing is clear. */
 function numberHint(field: string): string {

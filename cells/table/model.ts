@@ -2,7 +2,7 @@
  * Table cells: a CSV body (or a CSV file beside the document) read into a table value.
  * A column is numeric when every non-empty field reads as a decimal number; booleans when
  * every non-empty field is true or false; text otherwise. An empty field is missing. The
- * decimal text of each number is kept for exact work (language.md section 5).
+ * decimal text of each number is kept for exact work (docs/language.md section 5).
  */
 import { isSafeFileName, type Cell, type Marker } from '../../src/doc/document.ts';
 import { CsvError, type CsvGrid } from '../../src/doc/csv.ts';
@@ -11,7 +11,7 @@ import { readFieldGrid, type FieldGrid } from '../../src/doc/csv-fields.ts';
 import type { AnalyseEnv, CellAnalysis } from '../../src/graph/cell-kind.ts';
 import { KeptTable, rereadTable, tableWork } from './model-rows.ts';
 import { isPlainName } from '../../src/lang/lexer.ts';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import {
   booleanColumn,
   errorValue,

@@ -7,6 +7,7 @@ import type { Document } from '../doc/document.ts';
 import { CSV_LIMIT_BYTES, besideDocument, readBytes } from './files.ts';
 import { dataFileNames } from '../seal/fingerprint.ts';
 import { isSafeFileName } from '../doc/document.ts';
+import { cliMsg } from '../messages/cli.ts';
 
 /** Every data file the document names, by name, as bytes. */
 export function readDataFiles(documentPath: string, doc: Document): Map<string, Uint8Array> {
@@ -15,7 +16,7 @@ export function readDataFiles(documentPath: string, doc: Document): Map<string, 
     if (!isSafeFileName(name)) continue;
     try {
       // the same checks as reading the table: a regular file, in the folder, within the limit
-      out.set(name, readBytes(besideDocument(documentPath, name), 'the CSV file', CSV_LIMIT_BYTES));
+      out.set(name, readBytes(besideDocument(documentPath, name), cliMsg.theCsvFile(), CSV_LIMIT_BYTES));
     } catch {
       // missing or unreadable: recorded as missing in the fingerprint
     }

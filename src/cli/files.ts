@@ -9,7 +9,7 @@
 import { closeSync, constants, fstatSync, openSync, readSync, realpathSync } from 'node:fs';
 import { dirname, join, relative, isAbsolute, sep } from 'node:path';
 import { NotUtf8Error, decodeUtf8 } from '../doc/utf8.ts';
-import { cliMsg } from './messages.ts';
+import { cliMsg } from '../messages/cli.ts';
 
 /** The largest document the command line reads. */
 export const DOCUMENT_LIMIT_BYTES = 64 * 1024 * 1024;
@@ -84,8 +84,8 @@ export function besideDocument(documentPath: string, name: string): string {
     real = realpathSync(path);
   } catch (err) {
     const code = (err as { code?: string }).code;
-    if (code === 'ENOENT') throw new FileProblem(cliMsg.noSuchFile('the CSV file', path));
-    throw new FileProblem(cliMsg.unreadable('the CSV file', path, (err as Error).message));
+    if (code === 'ENOENT') throw new FileProblem(cliMsg.noSuchFile(cliMsg.theCsvFile(), path));
+    throw new FileProblem(cliMsg.unreadable(cliMsg.theCsvFile(), path, (err as Error).message));
   }
   const rel = relative(folder, real);
   if (rel === '' || rel === '..' || rel.startsWith(`..${sep}`) || isAbsolute(rel)) {

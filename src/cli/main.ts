@@ -1,6 +1,6 @@
 /**
  * The command line: `furrow run FILE [--json]` evaluates a document and prints every cell
- * (language.md section 9). Exit status: 0 when every cell evaluated, 1 when any cell holds
+ * (docs/language.md section 9). Exit status: 0 when every cell evaluated, 1 when any cell holds
  * an error (all cells are still printed), 2 when the file cannot be read as a document.
  */
 import { basename } from 'node:path';
@@ -17,25 +17,9 @@ import type { CellKinds } from '../graph/kinds.ts';
 import { valueText, visible } from './text.ts';
 import { sealCommand } from './seal.ts';
 import { verifyCommand } from './verify.ts';
+import { cliMsg } from '../messages/cli.ts';
 
-const USAGE = `Usage: furrow run FILE [--json]
-       furrow seal FILE
-       furrow verify FILE
-       furrow report FILE -o OUT.html
-       furrow sheet FILE NAME [-o plan.csv]
-
-  run FILE          evaluate a .furrow document and print every cell
-  run FILE --json   the same, as one JSON object (see the README)
-  seal FILE         append (or replace) the sealed section: every named value,
-                    the claims, the engine's version and the fingerprint
-  verify FILE       recompute a sealed document and say what differs
-  report FILE -o OUT.html
-                    write one self-contained HTML report of the document
-  sheet FILE NAME   a layout as a run sheet (CSV); furrow sheet --help for more
-
-Exit status: 0 when every cell evaluated (seal), everything matches (verify)
-or the report was written; 1 when a cell holds an error, or verify finds a
-difference; 2 when the file cannot be read as a document.`;
+const USAGE = cliMsg.usage();
 
 /** A failure that ends the command with status 2 and one line on standard error. */
 export class CliFailure extends Error {}
@@ -64,15 +48,15 @@ function readFile<T>(read: () => T): T {
 
 /** Loads a document and the CSV files its tables name. */
 export function loadDocument(path: string, kinds: CellKinds = CELL_KINDS): { doc: Document; engine: Engine; warnings: string[] } {
-  const text = readFile(() => readText(path, 'the file', DOCUMENT_LIMIT_BYTES));
+  const text = readFile(() => readText(path, cliMsg.theDocument(), DOCUMENT_LIMIT_BYTES));
   let doc: Document;
   const warnings: string[] = [];
   try {
     const r = readDocument(text, { kinds });
     doc = r.document;
-    for (const w of r.warnings) warnings.push(`line ${w.line}: ${w.message}`);
+    for (const w of r.warnings) warnings.push(cliMsg.atLine(w.line, w.message));
   } catch (err) {
-    if (err instanceof DocumentError) throw new CliFailure(`${path}: ${err.message}`);
+    if (err instanceof DocumentError) throw new CliFailure(cliMsg.documentProblem(path, err.message));
     throw err;
   }
   const engine = new Engine({ registry: BUILTINS, kinds });
@@ -85,7 +69,7 @@ export function loadDocument(path: string, kinds: CellKinds = CELL_KINDS): { doc
       } catch (err) {
         if (err instanceof FileProblem) {
           const heading = kinds.of(cell)!.printing.heading(kinds.nameOf(cell));
-          throw new CliFailure(`${path}: ${heading} names ${file}, but ${err.message.charAt(0).toLowerCase()}${err.message.slice(1)}`);
+          throw new CliFailure(cliMsg.tableFileProblem(path, heading, file, err.message));
         }
         throw err;
       }
@@ -115,21 +99,21 @@ function position(body: string, offset: number, markerLine: number): string {
   const before = body.slice(0, Math.max(0, offset));
   const line = markerLine + 1 + count(before, '\n');
   const col = offset - (before.lastIndexOf('\n') + 1) + 1;
-  return `line ${line}, column ${col}`;
+  return cliMsg.lineColumn(line, col);
 }
 
 function humanReport(path: string, doc: Document, states: CellState[], warnings: string[], kinds: CellKinds, output: Output): void {
   // every line a document can put on a terminal goes through `visible`
   const o: Output = { out: (s) => output.out(visible(s)), err: (s) => output.err(visible(s)) };
-  o.out(`${documentTitle(doc)}  (${basename(path)})`);
+  o.out(cliMsg.documentHeading(documentTitle(doc), basename(path)));
   const caution = headerFields(doc).get('caution');
-  if (caution) o.out(`Caution: ${caution}`);
-  for (const w of warnings) o.out(`  warning, ${w}`);
+  if (caution) o.out(cliMsg.caution(caution));
+  for (const w of warnings) o.out(cliMsg.headerWarning(w));
   o.out('');
   const lines = markerLines(doc);
   const where = (i: number, e: { from: number; to: number }): string =>
     e.from === 0 && e.to === 0 && kinds.of(doc.cells[i]!)?.printing.faultsOnMarker === true
-      ? `line ${lines[i]}`
+      ? cliMsg.line(lines[i]!)
       : position(doc.cells[i]!.body, e.from, lines[i]!);
   states.forEach((s, i) => {
     const cell = doc.cells[i]!;
@@ -138,29 +122,29 @@ function humanReport(path: string, doc: Document, states: CellState[], warnings:
     const v = s.value;
     const e = s.error;
     if (s.status === 'inert') {
-      o.out(`[${i + 1}] ${label}: kept as it is, not evaluated`);
+      o.out(cliMsg.cellInert(i + 1, label));
     } else if (e !== null && e === v) {
-      o.out(`[${i + 1}] ${label}: ${s.status === 'upstream' ? 'depends on an error' : 'error'} at ${where(i, e)}`);
+      o.out(cliMsg.cellError(i + 1, label, s.status === 'upstream', where(i, e)));
       o.out(`    ${e.message}`);
     } else {
-      o.out(`[${i + 1}] ${label}`);
+      o.out(cliMsg.cellHeading(i + 1, label));
       for (const l of valueText(v, '    ')) o.out(l);
       for (const p of s.parts ?? []) {
-        if (typeof p === 'object' && p.kind === 'error') o.out(`    placeholder error at ${where(i, p)}: ${p.message}`);
+        if (typeof p === 'object' && p.kind === 'error') o.out(`    ${cliMsg.placeholderError(where(i, p), p.message)}`);
       }
     }
-    for (const w of s.warnings) o.out(`    note: ${w}`);
+    for (const w of s.warnings) o.out(`    ${cliMsg.cellNote(w)}`);
     o.out('');
   });
   const bad = states.filter((s) => s.status === 'error' || s.status === 'upstream').length;
-  o.out(bad === 0 ? `${states.length} cells, all evaluated.` : `${states.length} cells, ${bad} with an error.`);
+  o.out(cliMsg.runSummary(states.length, bad));
 }
 
 /** Runs a command, turning a CliFailure into one line on standard error and status 2. */
 function guarded(o: Output, command: () => number | Promise<number>): number | Promise<number> {
   const fail = (err: unknown): number => {
     if (!(err instanceof CliFailure)) throw err;
-    o.err(visible(`furrow: ${err.message}`));
+    o.err(visible(cliMsg.failure(err.message)));
     return 2;
   };
   try {
@@ -205,16 +189,16 @@ function mainNow(argv: readonly string[], o: Output, kinds: CellKinds): number |
   }
   const unknownFlag = args.find((a) => a.startsWith('-'));
   if (unknownFlag !== undefined) {
-    o.err(`furrow: unknown option ${unknownFlag}\n\n${USAGE}`);
+    o.err(cliMsg.unknownOption(unknownFlag, USAGE));
     return 2;
   }
   const [command, file, ...rest] = args;
   if (command !== 'run') {
-    o.err(`furrow: unknown command "${command}".\n\n${USAGE}`);
+    o.err(cliMsg.unknownCommand(command ?? '', USAGE));
     return 2;
   }
   if (file === undefined || rest.length > 0) {
-    o.err(`furrow: run takes one file.\n\n${USAGE}`);
+    o.err(cliMsg.takesOneFile('run', USAGE));
     return 2;
   }
   try {
@@ -226,7 +210,7 @@ function mainNow(argv: readonly string[], o: Output, kinds: CellKinds): number |
       return status;
     }
     const warn = (): number => {
-      for (const w of warnings) o.err(`furrow: warning, ${w}`);
+      for (const w of warnings) o.err(cliMsg.warning(w));
       return status;
     };
     if (o.stream === undefined) {
@@ -237,7 +221,7 @@ function mainNow(argv: readonly string[], o: Output, kinds: CellKinds): number |
     return writePieces(reportPieces(states), o.stream, '\n').then(warn);
   } catch (err) {
     if (err instanceof CliFailure) {
-      o.err(visible(`furrow: ${err.message}`));
+      o.err(visible(cliMsg.failure(err.message)));
       return 2;
     }
     throw err;

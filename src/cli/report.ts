@@ -12,6 +12,7 @@ import { buildReport } from '../report/build.ts';
 import { readDataFiles } from './data-files.ts';
 import { CliFailure, loadDocument, type Output } from './main.ts';
 import { writeWhole } from './seal.ts';
+import { cliMsg } from '../messages/cli.ts';
 
 /** Builds the report of the document at `path` as HTML text. */
 export async function reportHtml(path: string): Promise<string> {
@@ -35,28 +36,28 @@ export async function reportCommand(args: readonly string[], o: Output, usage: s
     if (a === '-o' || a === '--output') {
       out = args[++i] ?? null;
       if (out === null) {
-        o.err(`furrow: ${a} needs a file name.\n\n${usage}`);
+        o.err(cliMsg.needsFileName(a, usage));
         return 2;
       }
     } else if (a.startsWith('-')) {
-      o.err(`furrow: unknown option ${a}\n\n${usage}`);
+      o.err(cliMsg.unknownOption(a, usage));
       return 2;
     } else files.push(a);
   }
   if (files.length !== 1 || out === null) {
-    o.err(`furrow: report takes one file and -o OUT.html.\n\n${usage}`);
+    o.err(cliMsg.reportArguments(usage));
     return 2;
   }
   if (resolve(out) === resolve(files[0]!)) {
-    o.err('furrow: the report would overwrite the document; name another file after -o.');
+    o.err(cliMsg.reportOverDocument());
     return 2;
   }
   const html = await reportHtml(files[0]!);
   try {
     writeWhole(out, html);
   } catch (err) {
-    throw new CliFailure(`the report cannot be written to ${out}: ${(err as Error).message}`);
+    throw new CliFailure(cliMsg.reportNotWritten(out, (err as Error).message));
   }
-  o.out(`Wrote ${out} (${Math.round(html.length / 1024)} kB).`);
+  o.out(cliMsg.reportWritten(out, Math.round(html.length / 1024)));
   return 0;
 }

@@ -12,6 +12,7 @@ import { prepareForSeal, sealDocument } from '../seal/seal.ts';
 import { claimsOf, namedValues } from '../seal/section.ts';
 import { readDataFiles } from './data-files.ts';
 import { loadDocument, type Output } from './main.ts';
+import { cliMsg } from '../messages/cli.ts';
 
 /**
  * Writes text to a file through a temporary file in the same folder and a rename: the file
@@ -57,21 +58,20 @@ export function sealFile(path: string, beforeRename?: () => void): SealOutcome {
     text,
     values: namedValues(states).length,
     claims: claimsOf(states).length,
-    errors: states.flatMap((s, i) => (s.status === 'error' || s.status === 'upstream' ? [s.name ?? `cell ${i + 1} (${s.kind})`] : [])),
+    errors: states.flatMap((s, i) => (s.status === 'error' || s.status === 'upstream' ? [s.name ?? cliMsg.unnamedCell(i + 1, s.kind)] : [])),
   };
 }
 
 /** Runs `furrow seal FILE`; returns the exit status. */
 export function sealCommand(args: readonly string[], o: Output, usage: string): number {
   if (args.length !== 1 || args[0]!.startsWith('-')) {
-    o.err(`furrow: seal takes one file.\n\n${usage}`);
+    o.err(cliMsg.takesOneFile('seal', usage));
     return 2;
   }
   const path = args[0]!;
   const r = sealFile(path);
-  const plural = (n: number, one: string, many: string): string => `${n} ${n === 1 ? one : many}`;
-  o.out(`Sealed ${path}: ${plural(r.values, 'named value', 'named values')} and ${plural(r.claims, 'claim', 'claims')}.`);
+  o.out(cliMsg.sealed(path, r.values, r.claims));
   if (r.errors.length === 0) return 0;
-  o.out(`${r.errors.length === 1 ? '1 cell holds an error; it is' : `${r.errors.length} cells hold errors; they are`} sealed as ${r.errors.length === 1 ? 'an error' : 'errors'}: ${r.errors.join(', ')}.`);
+  o.out(cliMsg.sealedWithErrors(r.errors));
   return 1;
 }

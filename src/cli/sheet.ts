@@ -7,15 +7,9 @@ import { writeFileSync } from 'node:fs';
 import { DEFAULT_MEASUREMENTS, RunSheetError, runSheet } from '../doc/run-sheet.ts';
 import { isError, isTable, describeType } from '../lang/values.ts';
 import { CliFailure, loadDocument } from './main.ts';
+import { cliMsg } from '../messages/cli.ts';
 
-const USAGE = `Usage: furrow sheet FILE NAME [-o plan.csv] [--columns a,b]
-
-  Writes the layout NAME of the document FILE (a table, for example one made by
-  random_layout) as a run sheet: its columns, then empty columns for the measurements
-  (by default: ${DEFAULT_MEASUREMENTS.join(', ')}).
-
-  -o FILE          write to FILE instead of standard output
-  --columns a,b    the measurement columns, comma-separated`;
+const USAGE = cliMsg.sheetUsage(DEFAULT_MEASUREMENTS);
 
 interface Output {
   out: (s: string) => void;
@@ -36,7 +30,7 @@ export function sheetCommand(argv: readonly string[], o: Output): number {
     if (a === '-o' || a === '--columns') {
       const v = argv[i + 1];
       if (v === undefined) {
-        o.err(`furrow sheet: ${a} needs a value.\n\n${USAGE}`);
+        o.err(cliMsg.sheetNeedsValue(a, USAGE));
         return 2;
       }
       if (a === '-o') outPath = v;
@@ -45,14 +39,14 @@ export function sheetCommand(argv: readonly string[], o: Output): number {
       continue;
     }
     if (a.startsWith('-')) {
-      o.err(`furrow sheet: unknown option ${a}\n\n${USAGE}`);
+      o.err(cliMsg.sheetUnknownOption(a, USAGE));
       return 2;
     }
     positional.push(a);
   }
   const [file, name, ...rest] = positional;
   if (file === undefined || name === undefined || rest.length > 0) {
-    o.err(`furrow sheet: give one document and the name of one layout in it.\n\n${USAGE}`);
+    o.err(cliMsg.sheetArguments(USAGE));
     return 2;
   }
   let text: string;
@@ -60,26 +54,26 @@ export function sheetCommand(argv: readonly string[], o: Output): number {
     const { engine } = loadDocument(file);
     const state = engine.states().find((s) => s.name === name);
     if (state === undefined) {
-      o.err(`furrow sheet: ${file} has no cell named "${name}".`);
+      o.err(cliMsg.sheetNoCell(file, name));
       return 2;
     }
     const v = state.value;
     if (isError(v)) {
-      o.err(`furrow sheet: "${name}" holds an error: ${v.message}`);
+      o.err(cliMsg.sheetHoldsError(name, v.message));
       return 2;
     }
     if (!isTable(v)) {
-      o.err(`furrow sheet: "${name}" is ${describeType(v)}, not a table; a run sheet is made from a layout such as random_layout(...).`);
+      o.err(cliMsg.sheetNotTable(name, describeType(v)));
       return 2;
     }
     text = runSheet(v, columns);
   } catch (err) {
     if (err instanceof RunSheetError) {
-      o.err(`furrow sheet: ${err.message}`);
+      o.err(cliMsg.sheetFailure(err.message));
       return 2;
     }
     if (err instanceof CliFailure) {
-      o.err(`furrow: ${err.message}`);
+      o.err(cliMsg.failure(err.message));
       return 2;
     }
     throw err;
@@ -91,7 +85,7 @@ export function sheetCommand(argv: readonly string[], o: Output): number {
   try {
     writeFileSync(outPath, text);
   } catch (err) {
-    o.err(`furrow sheet: cannot write ${outPath}: ${(err as Error).message}`);
+    o.err(cliMsg.sheetNotWritten(outPath, (err as Error).message));
     return 2;
   }
   return 0;

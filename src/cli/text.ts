@@ -5,6 +5,7 @@
  */
 import { numberText, quantityOf } from '../format/digits.ts';
 import { decimalAt, elementAt, isColumn, isRecord, isTable, type Table, type Value } from '../lang/values.ts';
+import { cliMsg } from '../messages/cli.ts';
 
 const MAX_ROWS = 30;
 
@@ -55,7 +56,7 @@ export function tableText(t: Table, indent = ''): string[] {
     lines.push(indent + row.join('  ').trimEnd());
     if (i === 0) lines.push(indent + widths.map((w) => '─'.repeat(w)).join('  '));
   }
-  if (t.rows > shown) lines.push(`${indent}… ${t.rows - shown} more rows (${t.rows} in all)`);
+  if (t.rows > shown) lines.push(`${indent}${cliMsg.moreRows(t.rows - shown, t.rows)}`);
   return lines;
 }
 
@@ -66,7 +67,7 @@ export function valueText(v: Value, indent = '', field = ''): string[] {
     const n = v.values.length;
     const shown: string[] = [];
     for (let i = 0; i < Math.min(n, 20); i++) shown.push(scalar(elementAt(v, i), field));
-    return [`${indent}[${shown.join(', ')}${n > 20 ? `, … ${n} in all` : ''}]`];
+    return [`${indent}[${shown.join(', ')}${n > 20 ? `, ${cliMsg.inAll(n)}` : ''}]`];
   }
   if (isRecord(v)) {
     const lines: string[] = [];

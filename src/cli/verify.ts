@@ -10,6 +10,7 @@ import { verificationText } from '../seal/verify-text.ts';
 import { verifyDocument, type Verification } from '../seal/verify.ts';
 import { readDataFiles } from './data-files.ts';
 import { loadDocument, type Output } from './main.ts';
+import { cliMsg } from '../messages/cli.ts';
 
 /** Verifies the document at `path`. Throws CliFailure when it cannot be read. */
 export function verifyFile(path: string): Verification {
@@ -20,7 +21,7 @@ export function verifyFile(path: string): Verification {
 /** Runs `furrow verify FILE`; returns the exit status. */
 export function verifyCommand(args: readonly string[], o: Output, usage: string): number {
   if (args.length !== 1 || args[0]!.startsWith('-')) {
-    o.err(`furrow: verify takes one file.\n\n${usage}`);
+    o.err(cliMsg.takesOneFile('verify', usage));
     return 2;
   }
   const v = verifyFile(args[0]!);

@@ -20,7 +20,7 @@
  *   field, not a skipped line;
  * - the first row read is the header; every other row must have one field per header name.
  */
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import { CsvError } from './csv.ts';
 
 /** What papaparse calls a malformed closing quote; our message quotes its words. */

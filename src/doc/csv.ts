@@ -7,7 +7,7 @@
  * an empty field in a one-column table is written as "".
  */
 import Papa from 'papaparse';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 
 /** A CSV text read into a header and rows of fields. */
 export interface CsvGrid {

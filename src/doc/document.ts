@@ -1,6 +1,6 @@
 /**
  * The document model: what a `.furrow` file holds, kept so that writing gives back the
- * bytes that were read (language.md section 1).
+ * bytes that were read (docs/language.md section 1).
  *
  * A document is a value. Edits (src/doc/edits.ts) make a new document and never change an
  * old one, which gives undo, autosave and the worker bridge a single shape to pass around.

@@ -1,5 +1,5 @@
 /**
- * Reading and writing the `.furrow` text format (language.md section 1).
+ * Reading and writing the `.furrow` text format (docs/language.md section 1).
  *
  *   line 1         furrow 1
  *   header         key: value lines until the first cell
@@ -12,7 +12,7 @@
  *   body line "--- x"    is written "\--- x"
  *   body line "\--- x"   is written "\\--- x"   (one more backslash, whatever the count)
  */
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import { markerKind, type Cell, type Document, type MarkerGrammar } from './document.ts';
 
 /** A file that cannot be read as a document at all. */

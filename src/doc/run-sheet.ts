@@ -9,6 +9,7 @@
 import type { Table } from '../lang/values.ts';
 import { writeCsv } from './csv.ts';
 import { csvRows } from './table-csv.ts';
+import { planningMsg } from '../messages/planning.ts';
 
 /** The measurement columns a run sheet has when none are named. */
 export const DEFAULT_MEASUREMENTS: readonly string[] = ['measurement', 'notes'];
@@ -25,8 +26,8 @@ export class RunSheetError extends Error {
 export function runSheet(layout: Table, measurements: readonly string[] = DEFAULT_MEASUREMENTS): string {
   const seen = new Set(layout.names);
   for (const m of measurements) {
-    if (m.trim() === '') throw new RunSheetError('a measurement column needs a name.');
-    if (seen.has(m)) throw new RunSheetError(`the layout already has a column "${m}"; name the measurement column differently.`);
+    if (m.trim() === '') throw new RunSheetError(planningMsg.measurementUnnamed());
+    if (seen.has(m)) throw new RunSheetError(planningMsg.measurementTaken(m));
     seen.add(m);
   }
   const rows = csvRows(layout, measurements.length);

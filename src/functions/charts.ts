@@ -1,12 +1,12 @@
 /**
- * Chart built-ins (language.md section 7): residuals, normal probability, means, pairwise
+ * Chart built-ins (docs/language.md section 7): residuals, normal probability, means, pairwise
  * differences, cell-mean profiles and a plain scatter, wired from src/charts. Each returns a
  * chart value whose spec carries its data inline; what the chart had to leave out or
  * approximate goes to the cell as a warning.
  */
 import { MISSING, isMissing, type Chart, type Column, type NumberColumn, type RecordValue, type Table, type TextColumn, type Value } from '../lang/values.ts';
 import { UsageError } from '../lang/errors.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import {
   MAX_MEANS_LEVELS,
   MAX_PAIRS,
@@ -24,6 +24,7 @@ import {
 import { completeRows, factorOf } from './columns.ts';
 import { fitInternal, type FitInternal } from './designs.ts';
 import type { Builtin, CallContext } from '../lang/builtins.ts';
+import { fnMsg } from '../messages/functions.ts';
 
 const FIT = { name: 'fit', type: 'fit' as const, doc: 'The fit to draw.' };
 
@@ -38,9 +39,7 @@ function residualInput(record: RecordValue): { input: ResidualInput; internal: F
   const internal = fitInternal(record);
   const fit = internal.fit;
   if (!(fit.df_error > 0)) {
-    throw new UsageError(
-      `this fit (${fit.design}) leaves no degrees of freedom for error, so its residuals are all zero and there is nothing to plot${fit.effects === undefined ? '' : '; judge an unreplicated two-level factorial by its effects (fit.effects, fit.lenth)'}.`,
-    );
+    throw new UsageError(fnMsg.noResidualsToPlot(fit.design, fit.effects !== undefined));
   }
   return {
     internal,
@@ -68,13 +67,11 @@ function residualAxis(against: string, internal: FitInternal): ResidualAxis {
       if (internal.fit.kind === 'split_plot') return { factor: 2 };
       if (internal.fit.kind === 'across_sites') return { factor: 1 };
       if (internal.fit.kind !== 'blocked') {
-        throw new UsageError(
-          `against: "block" needs a fit with blocks (from blocked); this ${internal.fit.design} fit has none. Use "fitted", "order" or "treatment".`,
-        );
+        throw new UsageError(fnMsg.noBlocksToPlot(internal.fit.design));
       }
       return { factor: 1 };
     default:
-      throw new UsageError(`against must be "fitted", "order", "treatment" or "block", not "${against}".`);
+      throw new UsageError(fnMsg.unknownAxis(against));
   }
 }
 
@@ -83,7 +80,7 @@ function profileOf(internal: FitInternal): ProfileInput {
   const fit = internal.fit;
   const [first, second] = internal.factors;
   if (first === undefined || second === undefined) {
-    throw new UsageError(`an interaction chart needs a fit with two or more factors; this fit (${fit.design}) has one. means_chart(fit) draws its means.`);
+    throw new UsageError(fnMsg.interactionNeedsTwo(fit.design));
   }
   const base = { y: internal.y, response: internal.response };
   switch (fit.kind) {
@@ -126,13 +123,13 @@ function profileOf(internal: FitInternal): ProfileInput {
 function tableColumn(t: Table, name: string): Column {
   const i = t.names.indexOf(name);
   const c = i < 0 ? undefined : t.columns[i];
-  if (c === undefined) throw new UsageError(`this pairs record has no column ${name}; make it with pairwise(fit).`);
+  if (c === undefined) throw new UsageError(fnMsg.pairsLacksColumn(name));
   return c;
 }
 
 function numbersOf(t: Table, name: string): Float64Array {
   const c = tableColumn(t, name);
-  if (c.type !== 'number') throw new UsageError(`the column ${name} of this pairs record is not numbers; make it with pairwise(fit).`);
+  if (c.type !== 'number') throw new UsageError(fnMsg.pairsColumnNotNumbers(name));
   const out = Float64Array.from(c.values);
   if (c.missing !== null) for (let i = 0; i < out.length; i++) if (c.missing[i] === 1) out[i] = NaN;
   return out;
@@ -146,7 +143,7 @@ function textsOf(t: Table, name: string): string[] {
 
 function field(r: RecordValue, name: string): Value {
   const v = r.fields.get(name);
-  if (v === undefined) throw new UsageError(`this pairs record has no field ${name}; make it with pairwise(fit).`);
+  if (v === undefined) throw new UsageError(fnMsg.pairsLacksField(name));
   return v;
 }
 
@@ -202,7 +199,7 @@ export const CHARTS: readonly Builtin[] = [
           dfError: fit.factor_means[0]?.error?.df ?? fit.df_error,
           leastSquares: !fit.balanced,
           ...(fit.covariate === undefined ? {} : { adjustedFor: fit.covariate.name }),
-          ...(fit.split !== undefined ? { errorName: 'whole-plot error mean square' } : fit.sites !== undefined ? { errorName: 'treatment-by-site mean square' } : {}),
+          ...(fit.split !== undefined ? { errorName: fnMsg.errorTermWholePlot() } : fit.sites !== undefined ? { errorName: fnMsg.errorTermSites() } : {}),
         }),
         ctx,
       );
@@ -218,8 +215,8 @@ export const CHARTS: readonly Builtin[] = [
     run: (a, ctx) => {
       const r = a.get('pairs') as RecordValue;
       const t = field(r, 'table');
-      if (typeof t !== 'object' || t.kind !== 'table') throw new UsageError('this pairs record has no table; make it with pairwise(fit).');
-      if (t.rows === 0) throw new UsageError('there are no pairs to draw: the fit has fewer than two treatments.');
+      if (typeof t !== 'object' || t.kind !== 'table') throw new UsageError(fnMsg.pairsLacksTable());
+      if (t.rows === 0) throw new UsageError(fnMsg.noPairsToDraw());
       if (t.rows > MAX_PAIRS) throw new UsageError(msg.tooManyPairsToDraw(t.rows, MAX_PAIRS));
       const num = (name: string): number => {
         const v = field(r, name);
@@ -273,7 +270,7 @@ export const CHARTS: readonly Builtin[] = [
       const names = [x.name ?? 'x', y.name ?? 'y', group?.name ?? 'color'];
       const rows = completeRows(cols, ctx, names);
       const n = rows === null ? x.values.length : rows.length;
-      if (n === 0) throw new UsageError('there is no row with both values present, so there is nothing to draw.');
+      if (n === 0) throw new UsageError(fnMsg.nothingToDraw());
       const at = (c: NumberColumn) => Float64Array.from({ length: n }, (_, k) => c.values[rows === null ? k : rows[k]!]!);
       return chartValue(
         scatterChart({

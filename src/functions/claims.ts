@@ -7,16 +7,17 @@ import { pPhrase } from '../format/digits.ts';
 import { mapNumbers } from '../lang/elementwise.ts';
 import { isColumn, isMissing, textColumn, type Claim, type Value } from '../lang/values.ts';
 import type { Builtin } from '../lang/builtins.ts';
+import { fnMsg } from '../messages/functions.ts';
 
 function holds(v: Value): boolean {
   if (typeof v === 'boolean') return v;
-  if (isMissing(v)) throw new UsageError('the condition is missing, so the claim cannot be checked.');
+  if (isMissing(v)) throw new UsageError(fnMsg.conditionMissing());
   if (isColumn(v) && v.type === 'boolean') {
-    if (v.missing !== null) throw new UsageError('part of the condition is missing, so the claim cannot be checked.');
+    if (v.missing !== null) throw new UsageError(fnMsg.conditionPartlyMissing());
     for (let i = 0; i < v.values.length; i++) if (v.values[i] !== 1) return false;
     return true;
   }
-  throw new UsageError('the condition must be true or false (or a column of them, which holds when every element is true).');
+  throw new UsageError(fnMsg.conditionNotBoolean());
 }
 
 export const CLAIMS: readonly Builtin[] = [

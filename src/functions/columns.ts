@@ -1,13 +1,15 @@
 /**
  * Preparing columns for the statistics: dropping missing values (and saying how many were
- * dropped), the exact decimal shift of section 5, and integer level codes for factors.
+ * dropped), the exact decimal shift of docs/language.md section 5, and integer level codes for factors.
  * The statistics code (src/stats) sees only complete typed arrays.
  */
 import { UsageError } from '../lang/errors.ts';
-import { msg, plural } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
+import { plural } from '../messages/words.ts';
 import { pickDecimals, type Column, type NumberColumn, type Value } from '../lang/values.ts';
 import { shiftDecimals } from '../stats/decimal/index.ts';
 import type { CallContext } from '../lang/builtins.ts';
+import { fnMsg } from '../messages/functions.ts';
 
 /** A factor as the statistics see it. */
 export interface Factor {
@@ -173,7 +175,7 @@ export function completeRows(cols: readonly Column[], ctx: CallContext, names?: 
     if (c.values.length !== n) {
       const a = names?.[0] ?? cols[0]!.name ?? 'the first column';
       const b = names?.[j] ?? c.name ?? `column ${j + 1}`;
-      throw new UsageError(`${a} has ${n} values but ${b} has ${c.values.length}; they must be the same length.`);
+      throw new UsageError(fnMsg.lengthsDiffer(a, n, b, c.values.length));
     }
   });
   if (cols.every((c) => c.missing === null)) return null;
@@ -184,7 +186,7 @@ export function completeRows(cols: readonly Column[], ctx: CallContext, names?: 
     if (ok) keep.push(i);
   }
   const dropped = n - keep.length;
-  if (dropped > 0) ctx.warn(`${plural(dropped, 'row')} with a missing value ${dropped === 1 ? 'was' : 'were'} left out.`);
+  if (dropped > 0) ctx.warn(fnMsg.rowsLeftOut(dropped));
   return Int32Array.from(keep);
 }
 

@@ -2,13 +2,13 @@
  * Design built-ins (one_way, blocked, latin_square, factorial) and what comes after a fit
  * (difference, pairwise, contrast, residual_checks), wired from src/stats.
  *
- * A fit record shows the fields of language.md section 8; its `internal` part keeps the
+ * A fit record shows the fields of docs/language.md section 8; its `internal` part keeps the
  * numeric fit and the data it came from, for the comparisons, the checks and the charts.
  */
 import { UsageError } from '../lang/errors.ts';
 import { pPhrase } from '../format/digits.ts';
 import { formatNumber } from '../lang/format.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import { MISSING, isColumn, numberColumn, record, textColumn, type Column, type NumberColumn, type RecordValue, type Table, type Value } from '../lang/values.ts';
 import { contrast, difference, pairwise } from '../stats/compare/index.ts';
 import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovariate, type Covariate, type DesignFit } from '../stats/designs/index.ts';
@@ -20,6 +20,7 @@ import { factorOf, numberLevel, resolveLevel, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin } from '../lang/builtins.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
+import { fnMsg } from '../messages/functions.ts';
 
 export { fitInternal, type FitInternal } from './fits.ts';
 
@@ -45,13 +46,13 @@ function comparisonRecord(r: object & { notes: string[] }): RecordValue {
  * A covariate missing where the response was measured is an error, never a silent drop.
  */
 function covariateOf(c: NumberColumn, p: Prepared): Covariate {
-  if (c.values.length !== p.length) throw new UsageError(`the covariate has ${c.values.length} values but the response has ${p.length}; they must be the same length.`);
+  if (c.values.length !== p.length) throw new UsageError(fnMsg.covariateLength(c.values.length, p.length));
   if (c.missing !== null) {
     let k = 0;
     const rows = p.rows;
     const n = rows === null ? p.length : rows.length;
     for (let j = 0; j < n; j++) if (c.missing[rows === null ? j : rows[j]!] === 1) k++;
-    if (k > 0) throw new UsageError(`the covariate ${c.name === null ? '' : `"${c.name}" `}is missing in ${k} plot${k === 1 ? '' : 's'} that ${k === 1 ? 'has' : 'have'} a response; a covariate must be measured on every plot analysed (fill it in, or leave ${k === 1 ? 'that plot' : 'those plots'} out of the table).`);
+    if (k > 0) throw new UsageError(fnMsg.covariateMissing(c.name, k));
   }
   const r = responseOf(c, p.rows);
   return { name: c.name ?? 'covariate', values: r.y, offset: r.offset };
@@ -194,7 +195,7 @@ export const DESIGNS: readonly Builtin[] = [
       const factorName = optionalText(a.get('factor')) ?? i.fit.treatment;
       const k = i.fit.factor_means.find((m) => m.factor === factorName)?.levels.length ?? i.fit.means.level.length;
       if (method === 'tukey' && k > MAX_GROUPS) {
-        throw new UsageError(`Tukey intervals use the studentized range, computed here for up to ${MAX_GROUPS} means; this fit has ${k}. Use method: "bonferroni".`);
+        throw new UsageError(fnMsg.tukeyTooManyMeans(MAX_GROUPS, k));
       }
       const r = guarded(() => pairwise(i.fit, method, a.get('level') as number, optionalText(a.get('factor')), optionalAt(a.get('at'), i.fit, optionalText(a.get('factor')))));
       return record(
@@ -227,7 +228,7 @@ export const DESIGNS: readonly Builtin[] = [
     run: (a) => {
       const i = comparable(fitInternal(a.get('fit') as RecordValue));
       const w = a.get('weights') as NumberColumn;
-      if (w.missing !== null) throw new UsageError('a weight is missing.');
+      if (w.missing !== null) throw new UsageError(fnMsg.weightMissing());
       const r = guarded(() => contrast(i.fit, Array.from(w.values), a.get('level') as number, optionalText(a.get('factor')), optionalAt(a.get('at'), i.fit, optionalText(a.get('factor')))));
       return comparisonRecord(r);
     },
@@ -263,14 +264,14 @@ export const DESIGNS: readonly Builtin[] = [
         fields.push(['shapiro_wilk', record([['w', sw.w], ['p', sw.p], ['n', sw.n]], 'test')]);
       } else {
         fields.push(['shapiro_wilk', MISSING]);
-        notes.push(`The Shapiro-Wilk test needs 3 to 5000 residuals; this fit has ${r.length}. Look at the normal probability plot instead.`);
+        notes.push(fnMsg.shapiroWilkSize(r.length));
       }
       try {
         const bf = brownForsythe(r, spreadGroups(i));
         fields.push(['brown_forsythe', record([['f', bf.f], ['df1', bf.df1], ['df2', bf.df2], ['p', bf.p]], 'test')]);
       } catch (err) {
         fields.push(['brown_forsythe', MISSING]);
-        notes.push(`No Brown-Forsythe test: ${err instanceof Error ? err.message : String(err)}.`);
+        notes.push(fnMsg.noBrownForsythe(err instanceof Error ? err.message : String(err)));
       }
       const st = fit.studentized_residuals;
       fields.push(['studentized', spread(st, i.rows, i.length, 'studentized')]);
@@ -278,7 +279,7 @@ export const DESIGNS: readonly Builtin[] = [
       const flaggedRows = Float64Array.from(flags.indices, (k) => (i.rows === null ? k : i.rows[k]!) + 1);
       fields.push(['flagged', numberColumn(flaggedRows, null, 'row')]);
       if (flaggedRows.length > 0) {
-        notes.push(`Row${flaggedRows.length === 1 ? '' : 's'} ${[...flaggedRows].map((x) => formatNumber(x)).join(', ')} ha${flaggedRows.length === 1 ? 's a' : 've'} studentized residual${flaggedRows.length === 1 ? '' : 's'} beyond 3 in size (a rule of thumb): check ${flaggedRows.length === 1 ? 'that plot' : 'those plots'} in the table.`);
+        notes.push(fnMsg.rowsFlagged([...flaggedRows].map((x) => formatNumber(x))));
       }
       if (fit.nonadditivity !== undefined) {
         const na = fit.nonadditivity;
@@ -288,11 +289,11 @@ export const DESIGNS: readonly Builtin[] = [
         const ps = fit.covariate.parallel;
         fields.push(['parallel_slopes', record([['ss', ps.ss], ['f', ps.f], ['df1', ps.df1], ['df2', ps.df2], ['p', ps.p]], 'test')]);
         if (ps.p < 0.05) {
-          notes.push(`The slope on ${fit.covariate.name} differs between treatments (test of parallel slopes, ${pPhrase(ps.p)}): adjusted means then depend on the covariate value chosen, so compare the treatments at several values of ${fit.covariate.name} rather than at its mean alone.`);
+          notes.push(fnMsg.slopesDiffer(fit.covariate.name, pPhrase(ps.p)));
         }
       }
       if (fit.split !== undefined) {
-        notes.push(`These are the residuals within whole plots (the error stratum, ${fit.df_error} df). The whole-plot error has only ${formatNumber(fit.split.dfWhole)} df of its own; look at the whole-plot means in the interaction chart for anything odd there.`);
+        notes.push(fnMsg.withinWholePlots(fit.df_error, formatNumber(fit.split.dfWhole)));
       }
       fields.push(['notes', textColumn(notes, null, 'notes')]);
       return record(fields, 'checks');

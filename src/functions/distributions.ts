@@ -5,15 +5,16 @@ import { UsageError } from '../lang/errors.ts';
 import { mapNumbers } from '../lang/elementwise.ts';
 import * as dist from '../stats/distributions/index.ts';
 import type { Builtin } from '../lang/builtins.ts';
+import { fnMsg } from '../messages/functions.ts';
 
 function positive(fn: string, name: string, v: number): number {
-  if (!(v > 0)) throw new UsageError(`${name} must be more than 0, but it is ${v}.`);
+  if (!(v > 0)) throw new UsageError(fnMsg.notPositive(name, v));
   return v;
 }
 
 function groupsCount(v: number): number {
-  if (!Number.isInteger(v) || v < 2) throw new UsageError(`groups must be a whole number of at least 2, but it is ${v}.`);
-  if (v > dist.MAX_GROUPS) throw new UsageError(`the studentized range is computed for up to ${dist.MAX_GROUPS} groups, and ${v} were asked for.`);
+  if (!Number.isInteger(v) || v < 2) throw new UsageError(fnMsg.groupsNotWhole(v));
+  if (v > dist.MAX_GROUPS) throw new UsageError(fnMsg.tooManyGroups(dist.MAX_GROUPS, v));
   return v;
 }
 

@@ -6,7 +6,7 @@
  * shows F, p, standard errors and intervals as not available, with a note that says why;
  * comparisons and residual checks say the same instead of testing noise.
  */
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import type { DesignFit, MeansTable } from '../stats/designs/index.ts';
 
 /**

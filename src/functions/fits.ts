@@ -1,6 +1,6 @@
 /**
  * The fit record and the data behind it: complete cases shifted exactly, level codes, the
- * record's fields in the contract's order (language.md section 8) and the `internal` part
+ * record's fields in the contract's order (docs/language.md section 8) and the `internal` part
  * that comparisons, checks and charts read. Shared by every design built-in.
  */
 import { withoutErrorTests } from './exact.ts';
@@ -20,6 +20,7 @@ import {
 import type { DesignFit } from '../stats/designs/index.ts';
 import { completeRows, factorOf, presentRows, responseOf, type Factor } from './columns.ts';
 import type { CallContext } from '../lang/builtins.ts';
+import { fnMsg } from '../messages/functions.ts';
 
 /** What a fit record keeps for later functions. */
 export interface FitInternal {
@@ -39,7 +40,7 @@ export interface FitInternal {
 /** The internal part of a fit record (the record was checked to be a fit). */
 export function fitInternal(r: RecordValue): FitInternal {
   const i = r.internal as FitInternal | undefined;
-  if (i === undefined || i.fit === undefined) throw new UsageError('this record is not a fit made in this document.');
+  if (i === undefined || i.fit === undefined) throw new UsageError(fnMsg.notAFit());
   return i;
 }
 
@@ -189,15 +190,13 @@ export function prepare(y: NumberColumn, factorCols: readonly { col: Column; rol
       const lost = all.levels.filter((l) => !kept.has(l));
       if (lost.length > 0) {
         const name = factors[j]!.name;
-        throw new UsageError(
-          `${name} ${lost.map((l) => `"${l}"`).join(', ')} ${lost.length === 1 ? 'has' : 'have'} no measurement left (every ${lost.length === 1 ? 'one of its rows has' : 'row of them has'} a missing value), so ${lost.length === 1 ? 'it' : 'they'} cannot be estimated. Measure ${lost.length === 1 ? 'it' : 'them'}, or remove ${lost.length === 1 ? 'its rows' : 'their rows'} from the table.`,
-        );
+        throw new UsageError(fnMsg.levelsLost(name, lost));
       }
     });
   }
   const seen = new Set<string>();
   for (const f of factors) {
-    if (seen.has(f.name)) throw new UsageError(`two factors are both called "${f.name}"; each factor needs its own column.`);
+    if (seen.has(f.name)) throw new UsageError(fnMsg.factorsShareName(f.name));
     seen.add(f.name);
   }
   const length = y.values.length;

@@ -10,7 +10,8 @@
  * response and the treatment come from the same table; the rule for "exactly once per
  * level", with missing plots, is in src/stats/planning/blocking.ts.
  */
-import { isCompleteBlocking, planningMessages as m, type Codes } from '../stats/planning/index.ts';
+import { planningMsg as m } from '../messages/planning.ts';
+import { isCompleteBlocking, type Codes } from '../stats/planning/index.ts';
 import { isMissingAt, sameValue, type Column, type Table } from '../lang/values.ts';
 import type { CallContext, SourceTable } from '../lang/builtins.ts';
 

@@ -1,5 +1,5 @@
 /**
- * Planning built-ins (language.md section 7): seeded layouts and their map, the comparison
+ * Planning built-ins (docs/language.md section 7): seeded layouts and their map, the comparison
  * of data with their layout, power and size. The numbers come from src/stats/planning; this
  * file turns them into tables, records and charts.
  *
@@ -35,7 +35,6 @@ import {
   drawBlocks,
   drawCompletelyRandom,
   drawLatin,
-  planningMessages as m,
   replicatesForPower,
   twoGroupCurve,
   twoGroupPower,
@@ -43,6 +42,7 @@ import {
   type KeyedPlots,
   type TwoGroupPower,
 } from '../stats/planning/index.ts';
+import { planningMsg as m } from '../messages/planning.ts';
 import { guarded } from './records.ts';
 import type { Builtin, CallContext, Param } from '../lang/builtins.ts';
 
@@ -346,10 +346,10 @@ export const PLANNING: readonly Builtin[] = [
       const holds = d.differ.length === 0 && d.missing.length === 0 && d.extra.length === 0;
       const plot = (side: KeyedPlots, r: number) => shape.keys.map((k, j) => `${k} ${side.keys[r]![j]}`).join(', ');
       const parts: string[] = [];
-      for (const x of d.differ) parts.push(`${plot(lp, x.layoutRow)} has ${dp.treatment[x.dataRow] ?? 'no treatment'} in the data but ${lp.treatment[x.layoutRow]} in the layout`);
-      if (d.missing.length > 0) parts.push(`${d.missing.length} plot${d.missing.length === 1 ? '' : 's'} of the layout missing from the data (${d.missing.slice(0, 5).map((r) => plot(lp, r)).join('; ')}${d.missing.length > 5 ? '; …' : ''})`);
-      if (d.extra.length > 0) parts.push(`${d.extra.length} plot${d.extra.length === 1 ? '' : 's'} in the data not in the layout (${d.extra.slice(0, 5).map((r) => plot(dp, r)).join('; ')}${d.extra.length > 5 ? '; …' : ''})`);
-      const summary = holds ? `All ${lp.keys.length} plots of the layout are in the data with the treatment drawn for them.` : `${parts.join('; ')}.`;
+      for (const x of d.differ) parts.push(m.plotDiffers(plot(lp, x.layoutRow), dp.treatment[x.dataRow] ?? null, lp.treatment[x.layoutRow]!));
+      if (d.missing.length > 0) parts.push(m.plotsMissingFromData(d.missing.length, d.missing.slice(0, 5).map((r) => plot(lp, r))));
+      if (d.extra.length > 0) parts.push(m.plotsNotInLayout(d.extra.length, d.extra.slice(0, 5).map((r) => plot(dp, r))));
+      const summary = holds ? m.layoutHolds(lp.keys.length) : m.differences(parts);
       return record(
         [
           ['holds', holds],
@@ -428,11 +428,11 @@ export const PLANNING: readonly Builtin[] = [
       const last = Math.min(Math.max(2 * p.chosen, p.chosen + 6, 10), p.chosen + 200);
       const sizes = Array.from({ length: last - 1 }, (_, i) => i + 2);
       const power = p.kind === 'two groups' ? twoGroupCurve(p.delta, p.sd, p.level, sizes) : blockedCurve(p.delta, p.sd, p.treatments, p.level, sizes);
-      const sizeName = p.kind === 'two groups' ? 'plots per group' : 'blocks';
+      const sizeName = p.kind === 'two groups' ? m.perGroup() : m.blocks();
       const assumes =
         p.kind === 'two groups'
-          ? `two groups, delta ${p.delta}, sd ${p.sd}, two-sided t test at level ${p.level}`
-          : `${p.treatments} treatments in complete blocks, two of them delta ${p.delta} apart and the rest midway, sd ${p.sd}, F test at level ${p.level}`;
+          ? m.curveTwoGroups(p.delta, p.sd, p.level)
+          : m.curveBlocked(p.treatments, p.delta, p.sd, p.level);
       return chartValue(powerCurve({ sizeName, sizes, power, chosen: p.chosen, chosenPower: p.power, target: p.target, assumes }), ctx);
     },
   },

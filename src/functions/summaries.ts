@@ -3,11 +3,12 @@
  * many. Sums of squares use the exact decimal shift of typed data.
  */
 import { UsageError } from '../lang/errors.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import { numberColumn, table, textColumn, type Column, type NumberColumn } from '../lang/values.ts';
 import * as S from '../stats/summary/index.ts';
 import { LEVEL_ORDER_RULE, completeRows, completeValues, factorOf, levelName, plainValues, presentRows, responseOf } from './columns.ts';
 import type { Builtin, CallContext } from '../lang/builtins.ts';
+import { fnMsg } from '../messages/functions.ts';
 
 const X = { name: 'x', type: 'numbers' as const, doc: 'A column of numbers; missing values are left out.' };
 
@@ -103,7 +104,7 @@ export const SUMMARIES: readonly Builtin[] = [
     run: (a) => {
       const c = a.get('x') as Column;
       const f = factorOf(c, presentRows(c), 'x');
-      if (f.levels.length === 0 && c.values.length > 0) throw new UsageError('every value of the column is missing.');
+      if (f.levels.length === 0 && c.values.length > 0) throw new UsageError(fnMsg.allMissing());
       return textColumn(f.levels, null, c.name);
     },
   },

@@ -2,7 +2,7 @@
  * Two-group comparisons and rank-based tests, wired from src/stats.
  */
 import { formatNumber } from '../lang/format.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import { MISSING, joinDecimals, numberColumn, pickDecimals, type Column, type NumberColumn } from '../lang/values.ts';
 import { friedman, kruskalWallis, rankSum, signedRank } from '../stats/ranks/index.ts';
 import { paired, twoSample } from '../stats/two-groups/index.ts';

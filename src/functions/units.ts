@@ -20,7 +20,7 @@
  */
 import type { create, createUnitDependencies, FactoryFunctionMap, Unit, unitDependencies } from 'mathjs';
 import { UsageError } from '../lang/errors.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import type { Builtin } from '../lang/builtins.ts';
 import { MISSING, decimalAt, isMissing, numberColumn, type NumberColumn, type Value } from '../lang/values.ts';
 import { readDecimal, roundScaledInteger, type ExactDecimal } from '../stats/decimal/index.ts';

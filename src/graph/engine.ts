@@ -21,7 +21,7 @@ import type { Registry } from '../lang/builtins.ts';
 import type { NameUse } from '../lang/ast.ts';
 import { LangError } from '../lang/errors.ts';
 import type { EvalEnv, Lookup, Scope } from '../lang/evaluate.ts';
-import { msg } from '../lang/messages.ts';
+import { msg } from '../messages/language.ts';
 import { MISSING, errorValue, isError, sameValue, type ErrorValue, type Value } from '../lang/values.ts';
 import type { AnalyseEnv, CellAnalysis, CellKind, FileSource } from './cell-kind.ts';
 import type { CellKinds } from './kinds.ts';

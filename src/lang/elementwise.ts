@@ -6,7 +6,7 @@
  */
 import type { BinaryOp } from './ast.ts';
 import { UsageError } from './errors.ts';
-import { msg } from './messages.ts';
+import { msg } from '../messages/language.ts';
 import {
   MISSING,
   booleanColumn,

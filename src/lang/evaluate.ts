@@ -11,7 +11,8 @@ import { TYPES } from './types.ts';
 import type { Argument, CallNode, Expr, IndexNode, MemberNode } from './ast.ts';
 import { filterColumn, binary, negate, not, pickColumn } from './elementwise.ts';
 import { LangError, UsageError } from './errors.ts';
-import { msg, quote } from './messages.ts';
+import { msg } from '../messages/language.ts';
+import { quote } from '../messages/words.ts';
 import { suggest } from './suggest.ts';
 import {
   MISSING,

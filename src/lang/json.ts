@@ -1,5 +1,5 @@
 /**
- * The one canonical JSON form of every value (language.md sections 6 and 9): the command
+ * The one canonical JSON form of every value (docs/language.md sections 6 and 9): the command
  * line's --json output, the sealed values of a document and the digests of large ones all
  * rest on it, so a value has exactly one text and two equal values have the same text.
  *

@@ -5,7 +5,7 @@
  * disagree on what a formula says.
  */
 import { LangError } from './errors.ts';
-import { msg } from './messages.ts';
+import { msg } from '../messages/language.ts';
 
 /** Reserved words. */
 export const KEYWORDS = ['and', 'or', 'not', 'true', 'false'] as const;

@@ -1,6 +1,6 @@
 /**
  * The parser of the cell language: a Pratt parser over the precedence table of
- * language.md section 2.
+ * docs/language.md section 2.
  *
  *   level 1  or            level 5  + -        level 9  call f(x), member t.c,
  *   level 2  and           level 6  * /                 index c[i], filter c[mask]
@@ -13,7 +13,8 @@
 import type { Argument, BinaryOp, Expr, Statement } from './ast.ts';
 import { LangError } from './errors.ts';
 import { tokenize, type Token } from './lexer.ts';
-import { msg, quote } from './messages.ts';
+import { msg } from '../messages/language.ts';
+import { quote } from '../messages/words.ts';
 
 /** The deepest nesting of brackets a formula may have. */
 export const MAX_DEPTH = 200;

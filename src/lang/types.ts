@@ -3,7 +3,7 @@
  * completion and error messages) and checks a value, converting where the language allows
  * (a single number where numbers are expected stays a number; a list literal is a column).
  */
-import { msg } from './messages.ts';
+import { msg } from '../messages/language.ts';
 import {
   describeType,
   isColumn,

@@ -1,5 +1,5 @@
 /**
- * The value model of the cell language (language.md section 3).
+ * The value model of the cell language (docs/language.md section 3).
  *
  * Numbers, texts and booleans are plain JavaScript primitives; everything else is a tagged
  * object with a `kind`. Columns keep their data in typed arrays with a separate missing mask,
@@ -53,7 +53,7 @@ export interface NumberColumn extends ColumnBase {
   readonly values: Float64Array;
   /**
    * The decimal text of each element as it was typed, when the column came straight from a
-   * table (language.md section 5); null for computed columns. Entries of missing elements
+   * table (docs/language.md section 5); null for computed columns. Entries of missing elements
    * are empty strings.
    */
   readonly decimals: DecimalTexts | null;

@@ -1,5 +1,5 @@
 /**
- * The `--- sealed` section (language.md section 6): what it holds and how it reads back.
+ * The `--- sealed` section (docs/language.md section 6): what it holds and how it reads back.
  *
  *   engine: furrow 0.1.0
  *   fingerprint: sha256:HEX                 over the cells and every data file they name
@@ -20,6 +20,7 @@ import type { Fingerprint } from './fingerprint.ts';
 import { JsonObject, JsonSyntaxError, readJson, type JsonTree } from './json-tree.ts';
 import { sealedJson } from './sealed-json.ts';
 import { ENGINE_NAME } from './version.ts';
+import { sealMsg } from '../messages/seal.ts';
 
 /** A claim as sealed. */
 export interface SealedClaim {
@@ -128,35 +129,35 @@ export function readSeal(body: string, firstLine: number): SealRecord {
     }
     const m = LINE.exec(text);
     if (m === null) {
-      problems.push(`Line ${line} of the sealed section is not "name: value": ${clip(text)}`);
+      problems.push(sealMsg.notNameValue(line, clip(text)));
       return;
     }
     const key = m[1]!;
     if (inHead && (HEAD_KEYS as readonly string[]).includes(key)) {
-      if (head.has(key)) problems.push(`Line ${line}: the sealed section says "${key}" twice.`);
+      if (head.has(key)) problems.push(sealMsg.keyTwice(line, key));
       else head.set(key, { text: m[2]!, line });
       return;
     }
     inHead = false;
     if (values.has(key)) {
-      problems.push(`Line ${line}: the value of ${key} is sealed twice.`);
+      problems.push(sealMsg.valueTwice(line, key));
       return;
     }
     try {
       values.set(key, { json: readJson(m[2]!), text: m[2]!, line });
     } catch (err) {
       if (!(err instanceof JsonSyntaxError)) throw err;
-      problems.push(`Line ${line}: the sealed value of ${key} cannot be read (${err.message}).`);
+      problems.push(sealMsg.valueUnreadable(line, key, err.message));
     }
   });
-  for (const key of HEAD_KEYS) if (!head.has(key)) problems.push(`The sealed section has no "${key}:" line.`);
+  for (const key of HEAD_KEYS) if (!head.has(key)) problems.push(sealMsg.keyMissing(key));
 
   const digestOf = (key: string): string | null => {
     const h = head.get(key);
     if (h === undefined) return null;
     const m = DIGEST.exec(h.text.trim());
     if (m === null) {
-      problems.push(`Line ${h.line}: "${key}:" should be sha256: followed by 64 hex digits.`);
+      problems.push(sealMsg.badDigest(h.line, key));
       return null;
     }
     return m[1]!;
@@ -176,7 +177,7 @@ function clip(s: string): string {
 function readData(h: { text: string; line: number } | undefined, problems: string[]): Map<string, string | null> | null {
   if (h === undefined) return null;
   const bad = (): null => {
-    problems.push(`Line ${h.line}: "data:" should list each data file with its sha256 digest.`);
+    problems.push(sealMsg.badData(h.line));
     return null;
   };
   let tree: JsonTree;
@@ -198,7 +199,7 @@ function readData(h: { text: string; line: number } | undefined, problems: strin
 function readClaims(h: { text: string; line: number } | undefined, problems: string[]): SealedClaim[] | null {
   if (h === undefined) return null;
   const bad = (): null => {
-    problems.push(`Line ${h.line}: "claims:" should be a list of claims, each with cell, name, holds and statement.`);
+    problems.push(sealMsg.badClaims(h.line));
     return null;
   };
   let tree: JsonTree;

@@ -11,6 +11,7 @@ import { JsonObject, readJson, sameTree, type JsonTree } from './json-tree.ts';
 import { claimsJson, claimsOf, namedValues, readSeal, type SealRecord, type SealedClaim } from './section.ts';
 import { blockSize } from './sealed-json.ts';
 import { ENGINE_NAME } from './version.ts';
+import { sealMsg } from '../messages/seal.ts';
 
 /** How one named value compares with its seal. */
 export interface ValueCheck {
@@ -83,7 +84,7 @@ export function verifyDocument(doc: Document, states: readonly CellState[], file
     fingerprint: { same: false, details: [], now: print.whole },
     values: [],
     claims: [],
-    problems: ['The document has no sealed section: seal it first (furrow seal FILE).'],
+    problems: [sealMsg.noSection()],
     matches: false,
   };
   const last = sealedAt[sealedAt.length - 1];
@@ -92,11 +93,11 @@ export function verifyDocument(doc: Document, states: readonly CellState[], file
   const lines = markerLines(doc);
   if (sealedAt.length > 1) {
     problems.push(
-      `The document has ${sealedAt.length} sealed sections (at lines ${sealedAt.map((i) => lines[i]).join(', ')}); a sealed document has one. The last one is checked.`,
+      sealMsg.manySections(sealedAt.length, sealedAt.map((i) => lines[i]!)),
     );
   }
   const cell = doc.cells[last]!;
-  if (cell.marker.trim().split(/[ \t]+/).length > 1) problems.push(`Line ${lines[last]}: the sealed section's marker has extra words: --- ${cell.marker}`);
+  if (cell.marker.trim().split(/[ \t]+/).length > 1) problems.push(sealMsg.markerExtraWords(lines[last]!, cell.marker));
   const seal = readSeal(cell.body, lines[last]! + 1);
   problems.push(...seal.problems);
 
@@ -106,7 +107,7 @@ export function verifyDocument(doc: Document, states: readonly CellState[], file
   const claims = checkClaims(seal.claims ?? [], states);
   const claimsAsSealed = claims.every((c) => c.state === 'holds' && c.heldWhenSealed === true);
   if (seal.claims !== null && claimsAsSealed && fp.same && seal.claimsText !== claimsJson(claimsOf(states))) {
-    problems.push('The "claims:" line is not written as a seal writes it for this document (it was edited by hand).');
+    problems.push(sealMsg.claimsEdited());
   }
   const matches =
     problems.length === 0 &&
@@ -121,18 +122,18 @@ function checkFingerprint(seal: SealRecord, print: ReturnType<typeof fingerprint
   const details: string[] = [];
   const wholeSame = seal.fingerprint === print.whole;
   if (seal.cells !== null && seal.cells !== print.cells) {
-    details.push(wholeSame ? 'The "cells:" line does not match the document (it was edited).' : 'The cells changed since sealing.');
+    details.push(wholeSame ? sealMsg.cellsLineEdited() : sealMsg.cellsChanged());
   }
   if (seal.data !== null) {
     for (const [name, d] of print.files) {
-      if (!seal.data.has(name)) details.push(`The data file ${name} was not named when the document was sealed.`);
-      else if (d === null) details.push(`The data file ${name} is missing.`);
-      else if (seal.data.get(name) !== d) details.push(wholeSame ? `The "data:" line does not match ${name} (it was edited).` : `The data file ${name} changed since sealing.`);
+      if (!seal.data.has(name)) details.push(sealMsg.dataNotNamed(name));
+      else if (d === null) details.push(sealMsg.dataMissing(name));
+      else if (seal.data.get(name) !== d) details.push(wholeSame ? sealMsg.dataLineEdited(name) : sealMsg.dataChanged(name));
     }
-    for (const name of seal.data.keys()) if (!print.files.has(name)) details.push(`The data file ${name} is no longer named by any table.`);
+    for (const name of seal.data.keys()) if (!print.files.has(name)) details.push(sealMsg.dataNoLongerNamed(name));
   }
   if (!wholeSame && details.length === 0) {
-    details.push(seal.fingerprint === null ? 'The seal has no readable fingerprint.' : 'The fingerprint line does not match the document (it was edited).');
+    details.push(seal.fingerprint === null ? sealMsg.noFingerprint() : sealMsg.fingerprintEdited());
   }
   // every part must match as well as the whole: a seal whose parts disagree was altered
   const same = wholeSame && details.length === 0 && seal.cells !== null && seal.data !== null;
@@ -145,25 +146,25 @@ function checkValues(seal: SealRecord, states: readonly CellState[], problems: s
   for (const [name, sealed] of seal.values) {
     const current = now.get(name);
     if (current === undefined) {
-      out.push({ name, cell: null, state: 'missing', details: [`${name} was sealed, but no cell defines it now.`] });
+      out.push({ name, cell: null, state: 'missing', details: [sealMsg.valueGone(name)] });
       continue;
     }
     const tree = readJson(current.json);
     if (sameTree(sealed.json, tree)) {
       out.push({ name, cell: current.cell, state: 'same', details: [] });
       // the same value, written otherwise: a seal writes one canonical text, so this was edited
-      if (sealed.text !== current.json) problems.push(`Line ${sealed.line}: the sealed value of ${name} is not written as a seal writes it (it reads as the same value, but was edited by hand).`);
+      if (sealed.text !== current.json) problems.push(sealMsg.valueEdited(sealed.line, name));
     }
     else {
       const details: string[] = [];
       describeDifference(name, sealed.json, tree, details);
       const more = details.length - MAX_DETAILS;
-      const tail = more <= 0 ? [] : [`and ${details.length >= MAX_COUNTED ? 'more than ' : ''}${more} more ${more === 1 ? 'difference' : 'differences'}`];
+      const tail = more <= 0 ? [] : [sealMsg.moreDifferences(more, details.length >= MAX_COUNTED)];
       out.push({ name, cell: current.cell, state: 'changed', details: details.slice(0, MAX_DETAILS).concat(tail) });
     }
   }
   for (const [name, v] of now) {
-    if (!seal.values.has(name)) out.push({ name, cell: v.cell, state: 'new', details: [`${name} is defined now but was not sealed.`] });
+    if (!seal.values.has(name)) out.push({ name, cell: v.cell, state: 'new', details: [sealMsg.valueNew(name)] });
   }
   return out;
 }
@@ -184,7 +185,7 @@ function checkClaims(sealed: readonly SealedClaim[], states: readonly CellState[
       cell: c.cell,
       state: was === undefined ? 'new' : c.holds ? 'holds' : 'fails',
       heldWhenSealed: was?.holds ?? null,
-      detail: was === undefined ? `${c.holds ? 'holds' : 'does not hold'}, but was not sealed` : null,
+      detail: was === undefined ? sealMsg.claimNotSealed(c.holds) : null,
     });
   }
   for (const c of sealed) {
@@ -192,9 +193,9 @@ function checkClaims(sealed: readonly SealedClaim[], states: readonly CellState[
     const i = c.name === null ? -1 : states.findIndex((s) => s.name === c.name);
     const s = i >= 0 ? states[i] : undefined;
     if (s !== undefined && s.error !== null) {
-      out.push({ name: c.name, statement: c.statement, cell: i + 1, state: 'error', heldWhenSealed: c.holds, detail: `its cell holds an error: ${s.error.message}` });
+      out.push({ name: c.name, statement: c.statement, cell: i + 1, state: 'error', heldWhenSealed: c.holds, detail: sealMsg.claimCellError(s.error.message) });
     } else {
-      out.push({ name: c.name, statement: c.statement, cell: i >= 0 ? i + 1 : null, state: 'gone', heldWhenSealed: c.holds, detail: 'it is no longer in the document' });
+      out.push({ name: c.name, statement: c.statement, cell: i >= 0 ? i + 1 : null, state: 'gone', heldWhenSealed: c.holds, detail: sealMsg.claimGone() });
     }
   }
   return out;
@@ -215,8 +216,8 @@ export function shortJson(t: JsonTree, room = 70): string {
   let s: string;
   if (isErrorWrap(t)) {
     const m = ((t as JsonObject).members.get('error') as JsonObject).members.get('message');
-    s = `an error (${typeof m === 'string' ? m : '?'})`;
-  } else if (isStandIn(t)) s = `${t.members.get('length') as number} elements, sealed by digest`;
+    s = sealMsg.sealedError(typeof m === 'string' ? m : '?');
+  } else if (isStandIn(t)) s = sealMsg.sealedByDigest(t.members.get('length') as number);
   else s = writeShort(t);
   return s.length > room ? `${s.slice(0, room - 1)}…` : s;
 }
@@ -241,7 +242,7 @@ function describeDifference(path: string, was: JsonTree, now: JsonTree, out: str
     const n0 = was.members.get('length') as number;
     const n1 = now.members.get('length') as number;
     if (n0 !== n1) {
-      out.push(`${path}: ${n0} elements when sealed, ${n1} now`);
+      out.push(sealMsg.lengthsDiffer(path, n0, n1));
       return;
     }
     const b0 = was.members.get('blocks') as readonly JsonTree[];
@@ -254,8 +255,8 @@ function describeDifference(path: string, was: JsonTree, now: JsonTree, out: str
       const to = Math.min(n1, (k + 1) * size);
       ranges.push(from === to ? `${from}` : `${from} to ${to}`);
     }
-    if (ranges.length === 0) out.push(`${path}: the digest of its ${n1} elements differs`);
-    else out.push(`${path}: elements ${ranges.slice(0, 6).join(', ')}${ranges.length > 6 ? ` and ${ranges.length - 6} more runs` : ''} differ (of ${n1}, sealed by digest)`);
+    if (ranges.length === 0) out.push(sealMsg.digestDiffers(path, n1));
+    else out.push(sealMsg.runsDiffer(path, ranges.slice(0, 6), ranges.length - 6, n1));
     return;
   }
   if (was instanceof JsonObject && now instanceof JsonObject && !isErrorWrap(was) && !isErrorWrap(now)) {
@@ -263,14 +264,14 @@ function describeDifference(path: string, was: JsonTree, now: JsonTree, out: str
     const k1 = [...now.members.keys()];
     if (k0.join('\u0000') !== k1.join('\u0000')) {
       if (was.members.has('sha256') && now.members.has('sha256') && path.endsWith('vega_lite')) {
-        out.push(`${path}: the chart's specification differs`);
+        out.push(sealMsg.chartDiffers(path));
         return;
       }
-      out.push(`${path}: fields were ${k0.join(', ') || 'none'}; now ${k1.join(', ') || 'none'}`);
+      out.push(sealMsg.fieldsDiffer(path, k0, k1));
       return;
     }
     if (path.endsWith('vega_lite') && was.members.has('sha256')) {
-      out.push(`${path}: the chart's specification differs`);
+      out.push(sealMsg.chartDiffers(path));
       return;
     }
     const labels = tableRowLabels(now);
@@ -285,7 +286,7 @@ function describeDifference(path: string, was: JsonTree, now: JsonTree, out: str
     const a = was as readonly JsonTree[];
     const b = now as readonly JsonTree[];
     if (a.length !== b.length) {
-      out.push(`${path}: ${a.length} elements when sealed, ${b.length} now`);
+      out.push(sealMsg.lengthsDiffer(path, a.length, b.length));
       return;
     }
     for (let i = 0; i < a.length && out.length < MAX_COUNTED; i++) {
@@ -295,8 +296,7 @@ function describeDifference(path: string, was: JsonTree, now: JsonTree, out: str
     return;
   }
   const ulps = typeof was === 'number' && typeof now === 'number' ? ulpDistance(was, now) : null;
-  const near = ulps !== null && ulps <= NEAR_ULPS ? ` (${ulps} ${ulps === 1 ? 'unit' : 'units'} in the last place)` : '';
-  out.push(`${path}: was ${shortJson(was)}, now ${shortJson(now)}${near}`);
+  out.push(sealMsg.valueWasNow(path, shortJson(was), shortJson(now), ulps !== null && ulps <= NEAR_ULPS ? ulps : null));
 }
 
 /**

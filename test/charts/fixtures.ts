@@ -10,7 +10,7 @@ import { reachingKeys } from '../../src/charts/safety.ts';
 import { blocked, oneWay, type DesignFit } from '../../src/stats/designs/index.ts';
 
 // source: Montgomery, Design and Analysis of Experiments, vascular-graft example (from
-// memory), references.md section 4: four extrusion pressures (rows) by six resin batches
+// memory), docs/references.md section 4: four extrusion pressures (rows) by six resin batches
 // (columns, the blocks)
 export const GRAFT: readonly (readonly number[])[] = [
   [90.3, 89.2, 98.2, 93.9, 87.4, 97.9],
@@ -21,7 +21,7 @@ export const GRAFT: readonly (readonly number[])[] = [
 export const PRESSURES = ['8500', '8700', '8900', '9100'] as const;
 
 // source: Dobson (1983), An Introduction to Statistical Modelling, plant weights (from
-// memory), references.md section 3
+// memory), docs/references.md section 3
 export const PLANTS: ReadonlyMap<string, readonly number[]> = new Map([
   ['ctrl', [4.17, 5.58, 5.18, 6.11, 4.5, 4.61, 5.17, 4.53, 5.33, 5.14]],
   ['trt1', [4.81, 4.17, 4.41, 3.59, 5.87, 3.83, 6.03, 4.89, 4.32, 4.69]],

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { renderSvg } from '../../src/charts/render.ts';
 import { MAX_MEANS_LEVELS, MAX_PAIRS } from '../../src/charts/index.ts';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import { isError, type Chart } from '../../src/lang/values.ts';
 import { doc, run, valueOf } from '../helpers.ts';
 

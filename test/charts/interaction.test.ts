@@ -35,7 +35,7 @@ describe('treatments across blocks: the graft data', () => {
     expect(encodingOf(layerOf(r.spec, 'point')).shape).toMatchObject({ field: 'line', scale: { range: [...SHAPES] } });
   });
   it('reports Tukey’s nonadditivity test beside the picture', () => {
-    // source: references.md section 4 (statsmodels 0.13.5): F = 0.02513 on 1 and 14 df, p = 0.8763
+    // source: docs/references.md section 4 (statsmodels 0.13.5): F = 0.02513 on 1 and 14 df, p = 0.8763
     expect(obj(r.spec).title).toEqual({
       text: 'Yield of each pressure across the batch levels',
       subtitle: "Tukey's test for nonadditivity: F = 0.0251 on 1 and 14 df, p = 0.88",

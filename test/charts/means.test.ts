@@ -19,14 +19,14 @@ describe('treatment means with intervals: the graft blocks', () => {
   const r = meansChart(meansOf(fit, 'yield_pct'));
   const values = valuesOf(layerOf(r.spec, 'point'), r.spec);
   it('orders the pressures by mean, highest first', () => {
-    // by hand from the published data (references.md section 4): row sums 556.9, 550.1,
+    // by hand from the published data (docs/references.md section 4): row sums 556.9, 550.1,
     // 533.5, 514.6 over 6 batches
     expect(values.map((v) => v.level)).toEqual(['8500', '8700', '8900', '9100']);
     [556.9, 550.1, 533.5, 514.6].forEach((s, i) => near(values[i]!.mean, s / 6, 1e-9));
     expect(encodingOf(layerOf(r.spec, 'point')).y).toMatchObject({ field: 'level', type: 'nominal', sort: ['8500', '8700', '8900', '9100'], title: 'pressure' });
   });
   it('draws each interval as mean -/+ t(0.975, 15) sqrt(MSE / 6)', () => {
-    // source: MSE 7.32575 on 15 df, statsmodels 0.13.5 (references.md section 4);
+    // source: MSE 7.32575 on 15 df, statsmodels 0.13.5 (docs/references.md section 4);
     // t quantile from @stdlib/stats-base-dists-t-quantile 0.2.3
     const half = tQuantile(0.975, 15) * Math.sqrt(7.32575 / 6);
     for (const v of values) {
@@ -50,7 +50,7 @@ describe("Dobson's plant means", () => {
   it('orders trt2, ctrl, trt1', () => {
     const { fit } = plantsFit();
     const r = meansChart(meansOf(fit, 'weight'));
-    // by hand from the published weights (references.md section 3): sums 55.26, 50.32, 46.61
+    // by hand from the published weights (docs/references.md section 3): sums 55.26, 50.32, 46.61
     const v = valuesOf(layerOf(r.spec, 'point'), r.spec);
     expect(v.map((x) => x.level)).toEqual(['trt2', 'ctrl', 'trt1']);
     near(v[0]!.mean, 5.526, 1e-12);

@@ -25,7 +25,7 @@ describe("Blom's plotting positions", () => {
   });
 });
 
-// Dobson's control plants alone, as residuals about their mean (references.md sections 3, 6):
+// Dobson's control plants alone, as residuals about their mean (docs/references.md sections 3, 6):
 // the Shapiro-Wilk test does not change with a shift, so W and p are those of the weights.
 const CTRL = Float64Array.from(PLANTS.get('ctrl')!);
 const ctrlMean = CTRL.reduce((s, x) => s + x, 0) / CTRL.length;
@@ -71,7 +71,7 @@ describe('normal probability plot of a small sample', () => {
   });
   it('reports the Shapiro-Wilk test in the subtitle and caption', () => {
     // source: scipy 1.10.1 stats.shapiro on the control weights: W = 0.9566815, p = 0.7474745
-    // (references.md section 6), printed to 3 decimals and 2 significant digits
+    // (docs/references.md section 6), printed to 3 decimals and 2 significant digits
     expect(obj(r.spec).title).toEqual({ text: 'Normal probability plot of the residuals', subtitle: 'Shapiro-Wilk W = 0.957, p = 0.75' });
     expect(r.caption).toBe('10 residuals of weight; none beyond 3 studentized units; Shapiro-Wilk W = 0.957, p = 0.75; reference line through the quartiles (slope 0.5504).');
     const enc = encodingOf(layerOf(r.spec, 'point'));

@@ -25,7 +25,7 @@ describe("pairwise differences: Dobson's plants, Tukey", () => {
   it('draws every pair in table order, with its interval', () => {
     expect(values.map((v) => v.pair)).toEqual(['ctrl − trt1', 'ctrl − trt2', 'trt1 − trt2']);
     const trt = values[2]!;
-    // source: scipy 1.10.1 stats.tukey_hsd (references.md section 3): trt2 - trt1 = 0.865,
+    // source: scipy 1.10.1 stats.tukey_hsd (docs/references.md section 3): trt2 - trt1 = 0.865,
     // interval 0.174 to 1.556; here the pair is trt1 - trt2, so the signs turn over
     printed(trt.estimate, '-0.865');
     printed(trt.low, '-1.556');

@@ -6,7 +6,7 @@ import { blocked } from '../../src/stats/designs/index.ts';
 import { studentizedFlags } from '../../src/stats/diagnostics/index.ts';
 import { encodingOf, expectSelfContained, expectValidSpec, graftData, graftFit, layerOf, residualInput, valuesOf, obj, type Obj } from './fixtures.ts';
 
-// The vascular-graft blocks (references.md section 4) with one plot made wild on purpose:
+// The vascular-graft blocks (docs/references.md section 4) with one plot made wild on purpose:
 // row 17 of the table (8900 psi, batch 5, published 88.0) set to 60.0.
 const WILD = { row: 17, value: 60.0 };
 

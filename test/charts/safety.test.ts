@@ -37,7 +37,7 @@ describe('renderSvg loads nothing from outside', () => {
     expect(warnings.some((w) => /refused: \/etc\/passwd/.test(w))).toBe(true);
   });
   // The check above means something only if vega's default loader reads the file
-  // (libraries.md: in Node it does).
+  // (docs/libraries.md section 3: in Node it does).
   it.runIf(existsSync('/etc/passwd'))("would have drawn the file's rows with vega's default loader", async () => {
     const view = new vega.View(vega.parse(compile(asking('/etc/passwd') as never).spec), { renderer: 'none', loader: vega.loader() });
     const svg = await view.toSVG();

@@ -4,6 +4,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.ts';
+import { cliMsg } from '../../src/messages/cli.ts';
+import { fnMsg } from '../../src/messages/functions.ts';
+import { msg } from '../../src/messages/language.ts';
 
 function cli(...args: string[]): { code: number; out: string; err: string } {
   const out: string[] = [];
@@ -46,7 +49,7 @@ describe('furrow run', () => {
     expect(j.furrow).toBe(1);
     expect(j.cells).toEqual([
       { index: 0, kind: 'table', name: 'plots', type: 'table', value: { y: [1, 2, null], g: ['a', 'b', 'c'] }, error: null },
-      { index: 1, kind: 'formula', name: 'm', type: 'number', value: 1.5, error: null, warnings: ['1 row with a missing value was left out.'] },
+      { index: 1, kind: 'formula', name: 'm', type: 'number', value: 1.5, error: null, warnings: [fnMsg.rowsLeftOut(1)] },
       { index: 2, kind: 'note', name: null, type: 'text', value: 'mean 1.5', error: null },
     ]);
   });
@@ -63,7 +66,7 @@ describe('furrow run', () => {
       name: 'c',
       type: 'error',
       value: null,
-      error: { message: 'There is no cell or table called "nope".', from: 4, to: 8 },
+      error: { message: msg.unknownName('nope', null), from: 4, to: 8 },
     });
   });
   it('prints readable text, with the file line of each error', () => {
@@ -71,44 +74,44 @@ describe('furrow run', () => {
     const r = cli('run', join(dir, 'd.furrow'));
     expect(r.code).toBe(1);
     expect(r.out).toContain('Readable');
-    expect(r.out).toContain('[1] formula x\n    6');
-    expect(r.out).toContain('[2] formula y: error at line 8, column 7');
-    expect(r.out).toContain('2 cells, 1 with an error.');
+    expect(r.out).toContain(`${cliMsg.cellHeading(1, 'formula x')}\n    6`);
+    expect(r.out).toContain(cliMsg.cellError(2, 'formula y', false, cliMsg.lineColumn(8, 7)));
+    expect(r.out).toContain(cliMsg.runSummary(2, 1));
   });
   it('exits 2 with one clear line for a missing file', () => {
     const r = cli('run', 'no/such/file.furrow');
     expect(r.code).toBe(2);
-    expect(r.err).toBe('furrow: The file no/such/file.furrow does not exist.');
+    expect(r.err).toBe(cliMsg.failure(cliMsg.noSuchFile(cliMsg.theDocument(), 'no/such/file.furrow')));
     expect(r.out).toBe('');
   });
   it('exits 2 for a file that is not a document', () => {
     const dir = scratch({ 'data.csv': 'a,b\n1,2\n', 'bin.furrow': Buffer.from([0xff, 0xfe, 0x00, 0x41]) });
     const r = cli('run', join(dir, 'data.csv'));
     expect(r.code).toBe(2);
-    expect(r.err).toMatch(/data\.csv: This is not a Furrow document: its first line must be "furrow 1"\.$/);
+    expect(r.err).toBe(cliMsg.failure(cliMsg.documentProblem(join(dir, 'data.csv'), msg.notADocument())));
     expect(r.err.split('\n')).toHaveLength(1);
     const b = cli('run', join(dir, 'bin.furrow'));
     expect(b.code).toBe(2);
-    expect(b.err).toMatch(/is not UTF-8 text/);
-    expect(cli('run', dir).err).toMatch(/is a folder, not a file/);
+    expect(b.err).toBe(cliMsg.failure(cliMsg.notUtf8(cliMsg.theDocument(), join(dir, 'bin.furrow'))));
+    expect(cli('run', dir).err).toBe(cliMsg.failure(cliMsg.isFolder(cliMsg.theDocument(), dir)));
   });
   it('exits 2 when a CSV file a table names is not there', () => {
     const dir = scratch({ 'd.furrow': GOOD });
     const r = cli('run', join(dir, 'd.furrow'));
     expect(r.code).toBe(2);
-    expect(r.err).toMatch(/d\.furrow: table plots names plots\.csv, but the CSV file .*plots\.csv does not exist\.$/);
+    expect(r.err).toBe(cliMsg.failure(cliMsg.tableFileProblem(join(dir, 'd.furrow'), 'table plots', 'plots.csv', cliMsg.noSuchFile(cliMsg.theCsvFile(), join(dir, 'plots.csv')))));
   });
   it('refuses a CSV file outside the document folder, on the table cell', () => {
     const dir = scratch({ 'd.furrow': 'furrow 1\n--- table t from ../etc/passwd\n' });
     const r = cli('run', join(dir, 'd.furrow'), '--json');
     expect(r.code).toBe(1);
-    expect(JSON.parse(r.out).cells[0].error.message).toMatch(/not allowed: a table may only name a file in the document's own folder/);
+    expect(JSON.parse(r.out).cells[0].error.message).toBe(msg.csvFileUnsafe('../etc/passwd'));
   });
   it('explains its usage', () => {
     expect(cli().code).toBe(2);
-    expect(cli('--help').out).toMatch(/Usage: furrow run FILE/);
-    expect(cli('frobnicate', 'x').err).toMatch(/unknown command "frobnicate"/);
-    expect(cli('run', 'a', '--fast').err).toMatch(/unknown option --fast/);
+    expect(cli('--help').out).toBe(cliMsg.usage());
+    expect(cli('frobnicate', 'x').err).toBe(cliMsg.unknownCommand('frobnicate', cliMsg.usage()));
+    expect(cli('run', 'a', '--fast').err).toBe(cliMsg.unknownOption('--fast', cliMsg.usage()));
   });
   it('works as `npx furrow` through the package bin', () => {
     const out = execFileSync('npx', ['furrow', 'run', 'samples/adhesive-cure.furrow', '--json'], { encoding: 'utf8' });
@@ -117,6 +120,6 @@ describe('furrow run', () => {
     expect(j.cells.length).toBeGreaterThan(3);
     const bad = spawnSync('npx', ['furrow', 'run', 'missing.furrow'], { encoding: 'utf8' });
     expect(bad.status).toBe(2);
-    expect(bad.stderr.trim()).toBe('furrow: The file missing.furrow does not exist.');
+    expect(bad.stderr.trim()).toBe(cliMsg.failure(cliMsg.noSuchFile(cliMsg.theDocument(), 'missing.furrow')));
   }, 60_000);
 });

@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, readBytes } from '../../src/cli/files.ts';
-import { cliMsg } from '../../src/cli/messages.ts';
+import { cliMsg } from '../../src/messages/cli.ts';
 import { main } from '../../src/cli/main.ts';
 
 function cli(...args: string[]): { code: number; out: string; err: string } {
@@ -55,7 +55,7 @@ describe('files beside a document', () => {
     const t0 = performance.now();
     const r = cli('run', join(dir, 'd.furrow'));
     expect(r.code).toBe(2);
-    expect(r.err).toContain('leads outside the document');
+    expect(r.err).toContain(cliMsg.outsideFolder('plots.csv'));
     expect(performance.now() - t0).toBeLessThan(5000);
   });
 
@@ -66,14 +66,14 @@ describe('files beside a document', () => {
     const t0 = performance.now();
     const r = cli('run', join(dir, 'd.furrow'));
     expect(r.code).toBe(2);
-    expect(r.err).toContain('is not a regular file');
+    expect(r.err).toContain(cliMsg.notRegular(cliMsg.theCsvFile(), join(dir, 'plots.csv')).slice(1));
     expect(performance.now() - t0).toBeLessThan(5000);
     // and a pipe given as the document itself
     const p = join(dir, 'doc.fifo');
     execFileSync('mkfifo', [p]);
     const d = cli('run', p);
     expect(d.code).toBe(2);
-    expect(d.err).toContain('is not a regular file');
+    expect(d.err).toBe(cliMsg.failure(cliMsg.notRegular(cliMsg.theDocument(), p)));
   });
 
   it('a CSV file past the limit is refused by its size, before it is read', () => {
@@ -86,7 +86,7 @@ describe('files beside a document', () => {
     const r = cli('run', join(dir, 'd.furrow'));
     expect(r.code).toBe(2);
     // the table's line lowercases the message's first letter after "but"
-    expect(r.err).toContain(cliMsg.tooLarge('the CSV file', join(dir, 'plots.csv'), CSV_LIMIT_BYTES).slice(1));
+    expect(r.err).toContain(cliMsg.tooLarge(cliMsg.theCsvFile(), join(dir, 'plots.csv'), CSV_LIMIT_BYTES).slice(1));
     expect(performance.now() - t0).toBeLessThan(5000);
   });
 
@@ -97,7 +97,7 @@ describe('files beside a document', () => {
     truncateSync(p, DOCUMENT_LIMIT_BYTES * 10);
     const r = cli('run', p);
     expect(r.code).toBe(2);
-    expect(r.err).toContain(cliMsg.tooLarge('the file', p, DOCUMENT_LIMIT_BYTES));
+    expect(r.err).toContain(cliMsg.tooLarge(cliMsg.theDocument(), p, DOCUMENT_LIMIT_BYTES));
     expect(r.err).not.toMatch(/UTF-8/);
   });
 
@@ -115,7 +115,7 @@ describe('files beside a document', () => {
     writeFileSync(join(dir, 'plots.csv'), Buffer.from([0x79, 0x0a, 0xff, 0x0a]));
     const r = cli('run', join(dir, 'd.furrow'));
     expect(r.code).toBe(2);
-    expect(r.err).toContain('is not UTF-8 text');
+    expect(r.err).toContain(cliMsg.notUtf8(cliMsg.theCsvFile(), join(dir, 'plots.csv')).slice(1));
   });
 });
 

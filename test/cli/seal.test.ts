@@ -15,6 +15,7 @@ import { columnDigest } from '../../src/seal/sealed-json.ts';
 import { run } from '../helpers.ts';
 import { cli, sampleCopies, scratch } from './support.ts';
 import { isNumberColumn, isTable } from '../../src/lang/values.ts';
+import { cliMsg } from '../../src/messages/cli.ts';
 
 const sealedPart = (text: string): string => text.slice(text.indexOf('--- sealed'));
 
@@ -96,7 +97,7 @@ describe('furrow seal', () => {
     const path = join(dir, 'd.furrow');
     const r = cli('seal', path);
     expect(r.code).toBe(1);
-    expect(r.out).toContain('2 cells hold errors; they are sealed as errors: a, b.');
+    expect(r.out).toContain(cliMsg.sealedWithErrors(['a', 'b']));
     const text = readFileSync(path, 'utf8');
     expect(text).toMatch(/^a: \{"error":\{"message":".*nope.*","from":4,"to":8\}\}$/m);
     expect(text).toMatch(/^b: \{"error":\{"message":".*which has an error.*","from":4,"to":5\}\}$/m);
@@ -142,7 +143,7 @@ describe('furrow seal', () => {
 
   it('refuses bad arguments with the usage', () => {
     expect(cli('seal').code).toBe(2);
-    expect(cli('seal', 'a', 'b').err).toContain('seal takes one file');
-    expect(cli('seal', '/nonexistent/x.furrow').err).toContain('does not exist');
+    expect(cli('seal', 'a', 'b').err).toBe(cliMsg.takesOneFile('seal', cliMsg.usage()));
+    expect(cli('seal', '/nonexistent/x.furrow').err).toBe(cliMsg.failure(cliMsg.noSuchFile(cliMsg.theDocument(), '/nonexistent/x.furrow')));
   });
 });

@@ -7,6 +7,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.ts';
+import { DEFAULT_MEASUREMENTS } from '../../src/doc/run-sheet.ts';
+import { cliMsg } from '../../src/messages/cli.ts';
+import { planningMsg } from '../../src/messages/planning.ts';
 
 function cli(...args: string[]): { code: number; out: string; err: string } {
   const out: string[] = [];
@@ -45,12 +48,12 @@ describe('furrow sheet', () => {
   it('says plainly what is wrong, with exit status 2', () => {
     const dir = scratch(PLAN);
     const f = join(dir, 'plan.furrow');
-    expect(cli('sheet', f, 'nope')).toMatchObject({ code: 2, err: `furrow sheet: ${f} has no cell named "nope".` });
-    expect(cli('sheet', f, 'n')).toMatchObject({ code: 2, err: expect.stringMatching(/"n" is a number, not a table/) });
-    expect(cli('sheet', f, 'plan', '--columns', 'plot')).toMatchObject({ code: 2, err: expect.stringMatching(/already has a column "plot"/) });
-    expect(cli('sheet', f)).toMatchObject({ code: 2, err: expect.stringMatching(/give one document and the name of one layout/) });
+    expect(cli('sheet', f, 'nope')).toMatchObject({ code: 2, err: cliMsg.sheetNoCell(f, 'nope') });
+    expect(cli('sheet', f, 'n')).toMatchObject({ code: 2, err: cliMsg.sheetNotTable('n', 'a number') });
+    expect(cli('sheet', f, 'plan', '--columns', 'plot')).toMatchObject({ code: 2, err: cliMsg.sheetFailure(planningMsg.measurementTaken('plot')) });
+    expect(cli('sheet', f)).toMatchObject({ code: 2, err: cliMsg.sheetArguments(cliMsg.sheetUsage(DEFAULT_MEASUREMENTS)) });
     expect(cli('sheet', join(dir, 'missing.furrow'), 'plan')).toMatchObject({ code: 2, err: expect.stringMatching(/does not exist/) });
-    expect(cli('sheet', f, 'plan', '--bogus')).toMatchObject({ code: 2, err: expect.stringMatching(/unknown option --bogus/) });
+    expect(cli('sheet', f, 'plan', '--bogus')).toMatchObject({ code: 2, err: cliMsg.sheetUnknownOption('--bogus', cliMsg.sheetUsage(DEFAULT_MEASUREMENTS)) });
   });
 });
 

@@ -5,6 +5,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { sameValue } from '../../src/lang/values.ts';
+import { sealMsg } from '../../src/messages/seal.ts';
 import { run } from '../helpers.ts';
 import { cli, sampleCopies, scratch } from './support.ts';
 
@@ -35,7 +36,7 @@ describe('furrow verify', () => {
       expect(cli('seal', path).code).toBe(0);
       const r = cli('verify', path);
       expect(r.code, r.out).toBe(0);
-      expect(r.out).toContain('Verified: every value is the same, bit for bit, and every claim holds.');
+      expect(r.out).toContain(sealMsg.verified());
       expect(r.out).toContain('Fingerprint: matches');
       expect(reported(r.out, 'changed')).toEqual([]);
     }
@@ -51,10 +52,10 @@ describe('furrow verify', () => {
     const expected = changedNames(before, readFileSync(path, 'utf8'));
     expect(expected.length).toBeGreaterThan(2);
     expect(reported(r.out, 'changed')).toEqual(expected);
-    expect(r.out).toContain('runs.loss_mg[3]: was 36.9, now 26.9');
-    expect(r.out).toContain('"felt loses more than woven" (felt_wears_most, cell 9) NO LONGER HOLDS');
-    expect(r.out).toContain('The cells changed since sealing.');
-    expect(r.out).toMatch(/NOT VERIFIED: the fingerprint differs; \d+ values differ; 1 claim does not hold as sealed\./);
+    expect(r.out).toContain(sealMsg.valueWasNow('runs.loss_mg[3]', '36.9', '26.9', null));
+    expect(r.out).toContain(`"felt loses more than woven" ${sealMsg.claimWho('felt_wears_most', 9)} ${sealMsg.claimStanding('no-longer', '')}`);
+    expect(r.out).toContain(sealMsg.cellsChanged());
+    expect(r.out).toContain(sealMsg.notVerified([sealMsg.reasonFingerprint(), sealMsg.reasonValues(expected.length), sealMsg.reasonClaims(1)]));
   });
 
   it('fails the fingerprint and names the data file when a CSV beside the document changes', () => {
@@ -71,8 +72,8 @@ describe('furrow verify', () => {
     const r = cli('verify', path);
     expect(r.code).toBe(1);
     expect(r.out).toContain('Fingerprint: DIFFERS');
-    expect(r.out).toContain('The data file plots.csv changed since sealing.');
-    expect(r.out).not.toContain('The cells changed');
+    expect(r.out).toContain(sealMsg.dataChanged('plots.csv'));
+    expect(r.out).not.toContain(sealMsg.cellsChanged());
     expect(reported(r.out, 'changed')).toEqual([]);
   });
 
@@ -86,7 +87,7 @@ describe('furrow verify', () => {
     const r = cli('verify', path);
     expect(r.code).toBe(1);
     // blocks of 100,000 / 32 = 3,125 elements: row 60,001 is in the 20th, 59,376 to 62,500
-    expect(r.out).toContain('big.y: elements 59376 to 62500 differ (of 100000, sealed by digest)');
+    expect(r.out).toContain(sealMsg.runsDiffer('big.y', ['59376 to 62500'], 0, 100000));
     expect(r.out).not.toContain('big.g:');
     expect(reported(r.out, 'changed')).toEqual(['big', 'm']);
   });
@@ -97,7 +98,7 @@ describe('furrow verify', () => {
     editLine(path!, 'engine: furrow 0.1.0', 'engine: furrow 0.0.9');
     const r = cli('verify', path!);
     expect(r.code).toBe(1);
-    expect(r.out.split('\n')[0]).toBe('Engine: sealed by furrow 0.0.9, recomputed by furrow 0.1.0; results may differ in their last digits for that reason alone.');
+    expect(r.out.split('\n')[0]).toBe(sealMsg.otherEngine('furrow 0.0.9', 'furrow 0.1.0'));
   });
 
   it('reports values that are missing and new, and claims that are gone', () => {
@@ -109,7 +110,7 @@ describe('furrow verify', () => {
     expect(r.code).toBe(1);
     expect(r.out).toMatch(/^ {2}missing +a$/m);
     expect(r.out).toMatch(/^ {2}new +b +\(cell 1\)$/m);
-    expect(r.out).toContain('"a is positive" (ok, cell 2) cannot be checked: its cell holds an error');
+    expect(r.out).toContain(`"a is positive" ${sealMsg.claimWho('ok', 2)} ${sealMsg.claimStanding('error', sealMsg.claimCellError(''))}`);
   });
 
   describe('a sealed section edited by hand is reported in plain words, never a crash', () => {
@@ -126,8 +127,8 @@ describe('furrow verify', () => {
       edit(path, (ls) => ls.filter((l) => !l.startsWith('fingerprint: ')));
       const r = cli('verify', path);
       expect(r.code).toBe(1);
-      expect(r.out).toContain('Sealed section: The sealed section has no "fingerprint:" line.');
-      expect(r.out).toContain('The seal has no readable fingerprint.');
+      expect(r.out).toContain(sealMsg.sectionProblem(sealMsg.keyMissing('fingerprint')));
+      expect(r.out).toContain(sealMsg.noFingerprint());
     });
     it('a value removed', () => {
       const path = sealedCopy();
@@ -170,7 +171,7 @@ describe('furrow verify', () => {
       const [path] = sampleCopies();
       const r = cli('verify', path!);
       expect(r.code).toBe(1);
-      expect(r.out).toContain('The document has no sealed section: seal it first (furrow seal FILE).');
+      expect(r.out).toContain(sealMsg.noSection());
     });
     it('a claim list altered', () => {
       const path = sealedCopy();

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { CsvError, parseCsv, writeCsv } from '../../src/doc/csv.ts';
 import { columnFromFields } from '../../cells/table/model.ts';
 import { toJson } from '../../src/lang/json.ts';
+import { msg } from '../../src/messages/language.ts';
 
 function csvError(text: string): CsvError {
   try {
@@ -28,7 +29,7 @@ describe('CSV bodies (RFC 4180)', () => {
   it('gives the range of a ragged row, counted from the first data row', () => {
     const text = 'block,trt,y\n1,a,10\n1,b\n2,a,11\n';
     const e = csvError(text);
-    expect(e.message).toBe('Row 2 has 2 fields, but the header has 3. Every row needs one field per column.');
+    expect(e.message).toBe(msg.raggedRow(2, 2, 3));
     expect(text.slice(e.from, e.to)).toBe('1,b');
   });
   it('refuses a header that repeats a name or leaves one empty', () => {

@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import { describe, expect, it } from 'vitest';
 import { applyEdit, freshCellId } from '../../src/doc/edits.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
@@ -51,8 +51,8 @@ describe('reading documents', () => {
     const text = 'furrow 1\ntitle: x\nsponsor: nobody\n\n--- sketch 3d\nwhatever\n--- formula\nx = 1\n--- sealed\n';
     const { document: d, warnings } = readDocument(text, { kinds: CELL_KINDS });
     expect(warnings.map((w) => w.line)).toEqual([3, 5]);
-    expect(warnings[0]!.message).toMatch(/Unknown header key "sponsor"/);
-    expect(warnings[1]!.message).toMatch(/Unknown cell kind "sketch"/);
+    expect(warnings[0]!.message).toBe(msg.unknownHeaderKey('sponsor'));
+    expect(warnings[1]!.message).toBe(msg.unknownCellKind('sketch'));
     expect(d.cells[0]!.body).toBe('whatever\n');
     expect(writeDocument(d)).toBe(text);
   });

@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { MAX_TABLE_COLUMNS, MAX_TABLE_ROWS } from '../../cells/table/model.ts';
 import { DocumentError, MAX_CELLS, readDocument } from '../../src/doc/format.ts';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import { isError } from '../../src/lang/values.ts';
 import { doc, run } from '../helpers.ts';
 

@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { readDocument, writeDocument } from '../../src/doc/format.ts';
 import { NotUtf8Error, decodeUtf8 } from '../../src/doc/utf8.ts';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 
 const bytes = (s: string): Uint8Array => new TextEncoder().encode(s);
 

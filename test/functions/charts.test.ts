@@ -1,6 +1,6 @@
 /**
  * The chart built-ins through documents, as a user writes them, on the published data of
- * references.md sections 3 and 4.
+ * docs/references.md sections 3 and 4.
  */
 import { describe, expect, it } from 'vitest';
 import { BEYOND } from '../../src/charts/layers.ts';
@@ -8,6 +8,7 @@ import type { Chart, Value } from '../../src/lang/values.ts';
 import { expectSelfContained, expectValidSpec, GRAFT, layerOf, PLANTS, valuesOf, obj, type Obj } from '../charts/fixtures.ts';
 import { numberText } from '../../src/format/digits.ts';
 import { doc, run } from '../helpers.ts';
+import { fnMsg } from '../../src/messages/functions.ts';
 
 function chart(v: Value | undefined): Chart {
   if (v === undefined || typeof v !== 'object' || v.kind !== 'chart') throw new Error(`expected a chart, got ${JSON.stringify(v)}`);
@@ -18,7 +19,7 @@ function errorOf(v: Value | undefined): string {
   return v.message;
 }
 
-// source: Montgomery, vascular-graft example (references.md section 4), in table order:
+// source: Montgomery, vascular-graft example (docs/references.md section 4), in table order:
 // pressure by pressure, batches 1 to 6; `skip` leaves a yield empty, `wild` replaces one
 function graftTable(opts: { skip?: number; wild?: { row: number; value: string } } = {}): string[] {
   let row = 0;
@@ -102,14 +103,14 @@ describe('rows left out by the fit', () => {
     expect(rows).not.toContain(3);
     expect(rows.length).toBe(23);
     expect(c.caption).toMatch(/^23 residuals of yield; 1 beyond 3 studentized units \(row 17\)/);
-    expect(states[1]!.warnings.join(' ')).toMatch(/1 row with a missing value was left out/);
+    expect(states[1]!.warnings).toContain(fnMsg.rowsLeftOut(1));
   });
   it('are counted by scatter, with a warning on the cell', () => {
     const { engine, states } = run(doc(...graftTable({ skip: 3 }), '--- formula', 'c = scatter(graft.batch, graft.yield_pct)'));
     const c = chart(engine.valueOf('c'));
     expect(c.caption).toBe('23 points; 1 row with a missing value left out.');
     expect(valuesOf(obj(c.spec)).map((p) => p.row)).not.toContain(3);
-    expect(states[1]!.warnings.join(' ')).toMatch(/1 row with a missing value was left out/);
+    expect(states[1]!.warnings).toContain(fnMsg.rowsLeftOut(1));
   });
 });
 
@@ -135,16 +136,14 @@ describe("one-way: Dobson's plants", () => {
   it('draws the Tukey intervals', () => {
     const c = chart(engine.valueOf('pairs'));
     const v = valuesOf(layerOf(c.spec, 'point'));
-    // source: scipy 1.10.1 stats.tukey_hsd (references.md section 3): trt2 - trt1 interval
+    // source: scipy 1.10.1 stats.tukey_hsd (docs/references.md section 3): trt2 - trt1 interval
     // 0.174 to 1.556 excludes zero; control - treatment 1, -0.320 to 1.062, does not
     expect(v.find((p) => p.pair === 'trt1 − trt2')!.side).toBe('interval excludes 0');
     expect(v.find((p) => p.pair === 'ctrl − trt1')!.side).toBe('interval includes 0');
     expect(obj(c.spec).title).toEqual({ text: 'Differences of group means, Tukey 95% intervals' });
   });
   it('says in plain words what a one-way fit cannot draw', () => {
-    expect(errorOf(engine.valueOf('no_blocks'))).toBe(
-      'residuals_chart: against: "block" needs a fit with blocks (from blocked); this completely randomized (one-way) fit has none. Use "fitted", "order" or "treatment".',
-    );
+    expect(errorOf(engine.valueOf('no_blocks'))).toBe(`residuals_chart: ${fnMsg.noBlocksToPlot('completely randomized (one-way)')}`);
     expect(errorOf(engine.valueOf('no_profile'))).toMatch(/^interaction_chart: an interaction chart needs a fit with two or more factors; this fit \(.*\) has one\. means_chart\(fit\) draws its means\.$/);
     expect(errorOf(engine.valueOf('not_pairs'))).toMatch(/pairwise_chart.*pairs.*the result of pairwise/);
     expect(errorOf(engine.valueOf('bad_against'))).toMatch(/residuals_chart.*against.*"fitted", "order", "treatment", "block"/);

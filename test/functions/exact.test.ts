@@ -4,7 +4,7 @@
  * Brown-Forsythe check of a factorial compares the spreads of its cells.
  */
 import { describe, expect, it } from 'vitest';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import { toJson } from '../../src/lang/json.ts';
 import { isError, type RecordValue, type Value } from '../../src/lang/values.ts';
 import { doc, evalFormula, run, valueOf } from '../helpers.ts';

@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { LEVEL_ORDER_RULE } from '../../src/functions/columns.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import { toJson } from '../../src/lang/json.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { evalFormula } from '../helpers.ts';

@@ -6,7 +6,7 @@
 import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { msg } from '../../src/lang/messages.ts';
+import { msg } from '../../src/messages/language.ts';
 import { headerUnit, unitConversion } from '../../src/functions/units.ts';
 import type { NumberColumn, Value } from '../../src/lang/values.ts';
 import { doc, evalFormula, run, valueOf } from '../helpers.ts';

@@ -7,6 +7,7 @@ import { CELL_KINDS } from '../../cells/kinds.ts';
 import { Engine } from '../../src/graph/engine.ts';
 import { isError, type ErrorValue } from '../../src/lang/values.ts';
 import { doc } from '../helpers.ts';
+import { msg } from '../../src/messages/language.ts';
 
 /** An engine on a document made of formula cells, one per line given. */
 function setup(...formulas: string[]): { engine: Engine; d: Document; ids: Map<string, string> } {
@@ -137,16 +138,16 @@ describe('errors stay where they arise', () => {
   it('an unknown name suggests the closest one', () => {
     const { engine, ids } = setup('fit = 3', 'gain = fitt * 2');
     const e = error(engine, ids.get('gain')!);
-    expect(e.message).toBe('There is no cell or table called "fitt". Did you mean fit?');
+    expect(e.message).toBe(msg.unknownName('fitt', 'fit'));
     expect([e.from, e.to]).toEqual([7, 11]);
   });
   it('a cell that reads a failed cell says which name failed', () => {
     const { engine, ids } = setup('a = 1 +', 'b = a * 2', 'c = b + 1');
     expect(engine.state(ids.get('a') ?? 'c1')!.status).toBe('error');
     const e = error(engine, ids.get('b')!);
-    expect(e.message).toBe('This cell reads "a", which has an error.');
+    expect(e.message).toBe(msg.upstream('a'));
     expect(e.upstream).toBe('a');
-    expect(error(engine, ids.get('c')!).message).toMatch(/reads "b"/);
+    expect(error(engine, ids.get('c')!).message).toBe(msg.upstream('b'));
   });
 });
 
@@ -169,8 +170,8 @@ describe('notes', () => {
     expect(s.value).toBe('ok 2, bad {nothing}, broken {1 +}, open {x');
     const errs = s.parts!.filter(isError);
     expect(errs.map((e) => e.message)).toEqual([
-      'There is no cell or table called "nothing".',
-      'The operator "+" needs a value after it.',
+      msg.unknownName('nothing', null),
+      msg.expectedAfterOperator('+'),
       'This { is never closed: end the placeholder with }, or write \\{ for a brace.',
     ]);
     // positions are in the note's text

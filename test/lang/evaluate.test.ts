@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { toJson } from '../../src/lang/json.ts';
 import { isError, type ErrorValue, type Value } from '../../src/lang/values.ts';
 import { doc, evalFormula, run } from '../helpers.ts';
+import { msg } from '../../src/messages/language.ts';
+import { fnMsg } from '../../src/messages/functions.ts';
 
 const PLOTS = ['--- table p', 'block,trt,y,ok', '1,a,10,true', '1,b,12,false', '2,a,,true', '2,b,15,true', ''];
 
@@ -57,10 +59,10 @@ describe('arithmetic and broadcasting', () => {
     expect(e.message).toMatch(/different lengths \(4 and 3\)/);
   });
   it('refuses text where a number is needed', () => {
-    expect(err(evalFormula('p.trt * 2', ...PLOTS)).message).toMatch(/cannot combine a column of texts with a number/);
-    expect(err(evalFormula('"a" + 1')).message).toMatch(/cannot combine a text with a number/);
-    expect(err(evalFormula('-"a"')).message).toMatch(/cannot be applied to a text/);
-    expect(err(evalFormula('1 == "1"')).message).toMatch(/Cannot compare a number with a text/);
+    expect(err(evalFormula('p.trt * 2', ...PLOTS)).message).toBe(msg.operatorTypes('*', 'a column of texts', 'a number'));
+    expect(err(evalFormula('"a" + 1')).message).toBe(msg.operatorTypes('+', 'a text', 'a number'));
+    expect(err(evalFormula('-"a"')).message).toBe(msg.operatorType('-', 'a text'));
+    expect(err(evalFormula('1 == "1"')).message).toBe(msg.compareTypes('a number', 'a text'));
   });
 });
 
@@ -95,13 +97,13 @@ describe('calls', () => {
     expect(evalFormula('round(2.5)')).toBe(3);
   });
   it('names the function, the argument and what was expected', () => {
-    expect(err(evalFormula('round(1, 2, 3)')).message).toMatch(/round takes at most 2 arguments \(x, digits\), but 3 were given/);
-    expect(err(evalFormula('round(1, digit: 2)')).message).toMatch(/round has no argument called "digit". Did you mean digits\?/);
+    expect(err(evalFormula('round(1, 2, 3)')).message).toBe(msg.tooManyArguments('round', 2, 3, ['x', 'digits']));
+    expect(err(evalFormula('round(1, digit: 2)')).message).toBe(msg.unknownArgument('round', 'digit', ['x', 'digits'], 'digits'));
     expect(err(evalFormula('round(digits: 2)')).message).toMatch(/round needs the argument "x"/);
     expect(err(evalFormula('mean(p.trt)', ...PLOTS)).message).toMatch(/mean: x must be a column of numbers, but the column "trt" holds text: row 1 is "a"/);
     expect(err(evalFormula('round(1, digits: "two")')).message).toMatch(/digits must be a whole number, but it is a text/);
-    expect(err(evalFormula('meen(p.y)', ...PLOTS)).message).toMatch(/no function called "meen". Did you mean mean\?/);
-    expect(err(evalFormula('p(1)', ...PLOTS)).message).toMatch(/is a cell's value, not a function/);
+    expect(err(evalFormula('meen(p.y)', ...PLOTS)).message).toBe(msg.unknownFunction('meen', 'mean'));
+    expect(err(evalFormula('p(1)', ...PLOTS)).message).toBe(msg.notAFunction('p'));
     expect(err(evalFormula('mean')).message).toMatch(/is a built-in function: call it/);
   });
   it('points at the argument at fault', () => {
@@ -126,7 +128,7 @@ describe('summaries and maths', () => {
   it('leave missing values out and say so', () => {
     const { engine, states } = run(doc(...PLOTS, '--- formula', 'm = mean(p.y)'));
     expect(engine.valueOf('m')).toBeCloseTo(37 / 3, 14);
-    expect(states[1]!.warnings[0]).toMatch(/1 row with a missing value was left out/);
+    expect(states[1]!.warnings[0]).toBe(fnMsg.rowsLeftOut(1));
   });
   it('apply element by element', () => {
     expect(json(evalFormula('sqrt([4, 9])'))).toEqual([2, 3]);

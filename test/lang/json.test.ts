@@ -98,7 +98,7 @@ describe('texts', () => {
   });
 });
 
-describe('value shapes (language.md section 9)', () => {
+describe('value shapes (docs/language.md section 9)', () => {
   const y = numberColumn(new Float64Array([1.5, NaN, -0.0025]), new Uint8Array([0, 1, 0]), 'y', ['1.5', '', '-0.0025']);
   const g = textColumn(['a', '__proto__', 'c'], null, 'g');
   const t = table(['y', 'g'], [y, g]);

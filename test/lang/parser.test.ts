@@ -15,7 +15,7 @@ function parseError(s: string): LangError {
   throw new Error(`expected a parse error for ${s}`);
 }
 
-// The precedence table of language.md section 2, one row at a time, each against its
+// The precedence table of docs/language.md section 2, one row at a time, each against its
 // neighbours: the fully bracketed tree shows which operator binds tighter.
 describe('precedence table', () => {
   it('level 1: or is loosest, left-associative', () => {

@@ -82,7 +82,7 @@ describe("Bartlett's test", () => {
       return ys.reduce((a, b) => a + (b - m) ** 2, 0) / (ys.length - 1);
     });
     const b = bartlett(variances, [9, 9, 9]);
-    // source: scipy 1.10.1 stats.bartlett on Dobson's plant weights (references.md section 3)
+    // source: scipy 1.10.1 stats.bartlett on Dobson's plant weights (docs/references.md section 3)
     expectRelative(b.statistic, 2.8785737872360935, 1e-12, 'statistic');
     expectRelative(b.p, 0.23709677363455822, 1e-10, 'p');
     expect(b.df).toBe(2);

@@ -1,6 +1,6 @@
 /**
  * Designs and their follow-ups through documents, as a user writes them, against the
- * published values of references.md sections 3 to 6.
+ * published values of docs/references.md sections 3 to 6.
  */
 import { describe, expect, it } from 'vitest';
 import { isRecord, isTable, type RecordValue, type Table, type Value } from '../../src/lang/values.ts';
@@ -27,7 +27,7 @@ function printed(actual: unknown, figure: string): void {
 }
 
 // source: Montgomery, Design and Analysis of Experiments, vascular-graft example (from
-// memory), confirmed with statsmodels 0.13.5 (references.md section 4)
+// memory), confirmed with statsmodels 0.13.5 (docs/references.md section 4)
 const GRAFT: Record<string, number[]> = {
   '8500': [90.3, 89.2, 98.2, 93.9, 87.4, 97.9],
   '8700': [92.5, 89.5, 90.6, 94.7, 87.0, 95.8],
@@ -79,14 +79,14 @@ describe('randomized complete blocks: the vascular-graft example', () => {
     printed(na.fields.get('p'), '0.8763');
     expect(rec(rec(engine.valueOf('checks')).fields.get('nonadditivity')).fields.get('f')).toBe(na.fields.get('f'));
   });
-  it("gives Friedman's test (scipy 1.10.1, references.md section 6)", () => {
+  it("gives Friedman's test (scipy 1.10.1, docs/references.md section 6)", () => {
     const f = rec(engine.valueOf('ranks'));
     printed(f.fields.get('statistic'), '6.4576271');
     printed(f.fields.get('p'), '0.0913486');
   });
 });
 
-describe('a lost plot: least squares against Yates (references.md section 4; statsmodels 0.13.5)', () => {
+describe('a lost plot: least squares against Yates (docs/references.md section 4; statsmodels 0.13.5)', () => {
   it('fits the graft data without the 8900-psi plot of batch 4', () => {
     const { engine, states } = run(doc(...graftRows(['8900', 4]), '--- formula', 'fit = blocked(graft.yield, graft.pressure, graft.batch)'));
     const fit = rec(engine.valueOf('fit'));
@@ -104,7 +104,7 @@ describe('a lost plot: least squares against Yates (references.md section 4; sta
 });
 
 // source: Dobson (1983), An Introduction to Statistical Modelling, plant weights (from
-// memory), confirmed with scipy 1.10.1 (references.md section 3)
+// memory), confirmed with scipy 1.10.1 (docs/references.md section 3)
 const PLANTS: Record<string, number[]> = {
   ctrl: [4.17, 5.58, 5.18, 6.11, 4.5, 4.61, 5.17, 4.53, 5.33, 5.14],
   trt1: [4.81, 4.17, 4.41, 3.59, 5.87, 3.83, 6.03, 4.89, 4.32, 4.69],
@@ -170,7 +170,7 @@ describe("one-way: Dobson's plant weights", () => {
   });
 });
 
-describe('handbook table values through the distribution built-ins (references.md section 5, scipy 1.10.1)', () => {
+describe('handbook table values through the distribution built-ins (docs/references.md section 5, scipy 1.10.1)', () => {
   const cases: [string, string][] = [
     ['t_critical(0.95, 18)', '2.100922'],
     ['t_critical(0.95, 9)', '2.262157'],

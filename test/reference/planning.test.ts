@@ -1,5 +1,5 @@
 /**
- * Power and size (src/stats/planning/power.ts) against scipy 1.10.1 (references.md section 7)
+ * Power and size (src/stats/planning/power.ts) against scipy 1.10.1 (docs/references.md section 7)
  * and against a seeded Monte Carlo of simulated trials run in the test itself.
  */
 import { readFileSync } from 'node:fs';
@@ -22,21 +22,21 @@ function expectRel(actual: number, expected: number, tol: number, what: string):
   expect(rel, `${what}: ${actual} against ${expected}`).toBeLessThanOrEqual(tol);
 }
 
-describe('power against scipy 1.10.1 (references.md section 7)', () => {
+describe('power against scipy 1.10.1 (docs/references.md section 7)', () => {
   it('the fixture was made by the stated scipy', () => {
     expect(scipy.scipy).toBe('1.10.1');
   });
 
-  it('two groups: the printed figures of references.md', () => {
-    // source: references.md section 7 (scipy 1.10.1): n = 16 gives 0.7813978, n = 17 gives 0.8070367
+  it('two groups: the printed figures of docs/references.md section 7', () => {
+    // source: docs/references.md section 7 (scipy 1.10.1): n = 16 gives 0.7813978, n = 17 gives 0.8070367
     expect(twoGroupPower(1, 1, 16, 0.95).power.toFixed(7)).toBe('0.7813978');
     expect(twoGroupPower(1, 1, 17, 0.95).power.toFixed(7)).toBe('0.8070367');
     // source: the issue's figure, scipy 1.10.1: 0.807037
     expect(twoGroupPower(1, 1, 17, 0.95).power.toFixed(6)).toBe('0.807037');
   });
 
-  it('blocks: the printed figures of references.md', () => {
-    // source: references.md section 7 (scipy 1.10.1): 4 treatments, delta = sd = 1
+  it('blocks: the printed figures of docs/references.md section 7', () => {
+    // source: docs/references.md section 7 (scipy 1.10.1): 4 treatments, delta = sd = 1
     expect(blockedPower(1, 1, 4, 10, 0.95).power.toFixed(7)).toBe('0.3863486');
     expect(blockedPower(1, 1, 4, 23, 0.95).power.toFixed(7)).toBe('0.7973731');
     expect(blockedPower(1, 1, 4, 24, 0.95).power.toFixed(7)).toBe('0.8168415');
@@ -53,15 +53,15 @@ describe('power against scipy 1.10.1 (references.md section 7)', () => {
   });
 
   it('replicates_for_power gives 17 per group for delta = sd, power 0.8: the smallest n that reaches it', () => {
-    // common practice, no source: "about 17 per group"; exact figure from references.md
-    // section 7 (scipy 1.10.1): 16 gives 0.7813978 < 0.8 and 17 gives 0.8070367
+    // common practice, no source: "about 17 per group"; exact figure from
+    // docs/references.md section 7 (scipy 1.10.1): 16 gives 0.7813978 < 0.8 and 17 gives 0.8070367
     const r = replicatesForPower(1, 1, 0.8, 0.95);
     expect(r.n).toBe(17);
     expect(r.power.toFixed(7)).toBe('0.8070367');
   });
 
   it('blocks_for_power gives 24 blocks for 4 treatments, delta = sd, power 0.8', () => {
-    // source: references.md section 7 (scipy 1.10.1): 23 blocks 0.7973731, 24 blocks 0.8168415
+    // source: docs/references.md section 7 (scipy 1.10.1): 23 blocks 0.7973731, 24 blocks 0.8168415
     const r = blocksForPower(1, 1, 4, 0.8, 0.95);
     expect(r.blocks).toBe(24);
     expect(r.power.toFixed(7)).toBe('0.8168415');

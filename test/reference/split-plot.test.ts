@@ -161,7 +161,7 @@ describe("split plot: Yates's oats", () => {
   const t = tab(fit.fields.get('table'));
   it('gives the published sums of squares', () => {
     expect(nums(t, 'df')).toEqual([5, 2, 10, 3, 6, 45, 71]);
-    // source: Yates (1935), published sums of squares (from memory, references.md section 8):
+    // source: Yates (1935), published sums of squares (from memory, docs/references.md section 8):
     // blocks 15875.3, varieties 1786.4, whole-plot error 6013.3, nitrogen 20020.5,
     // varieties x nitrogen 321.8, subplot error 7968.8
     const published = [15875.3, 1786.4, 6013.3, 20020.5, 321.8, 7968.8];

@@ -6,7 +6,7 @@ import { isRecord, type RecordValue, type Value } from '../../src/lang/values.ts
 import { doc, run } from '../helpers.ts';
 
 // source: Student (1908), "The probable error of a mean", Biometrika 6 (from memory),
-// values confirmed with scipy 1.10.1 (stats.ttest_rel, stats.ttest_ind), references.md section 2
+// values confirmed with scipy 1.10.1 (stats.ttest_rel, stats.ttest_ind), docs/references.md section 2
 const DRUG1 = [0.7, -1.6, -0.2, -1.2, -0.1, 3.4, 3.7, 0.8, 0.0, 2.0];
 const DRUG2 = [1.9, 0.8, 1.1, 0.1, -0.1, 4.4, 5.5, 1.6, 4.6, 3.4];
 const wide = ['--- table sleep', 'patient,drug_1,drug_2', ...DRUG1.map((x, i) => `${i + 1},${x.toFixed(1)},${DRUG2[i]!.toFixed(1)}`), ''];

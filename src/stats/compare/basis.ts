@@ -3,7 +3,7 @@
  * the error mean square and its degrees of freedom.
  */
 import { DesignError } from '../designs/errors.ts';
-import { messages } from '../designs/messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import { diagonalCovariance, factorMeans } from '../designs/assemble.ts';
 import { satterthwaite } from '../designs/strata.ts';
 import type { DesignFit, FactorMeans, SplitParts } from '../designs/types.ts';
@@ -26,14 +26,14 @@ export interface ComparisonBasis {
 export function comparisonBasis(fit: DesignFit, factor?: string, at?: string): ComparisonBasis {
   const name = factor ?? fit.treatment;
   if (at !== undefined) {
-    if (fit.split === undefined) throw new DesignError(messages.splitAtNeedsSplit());
+    if (fit.split === undefined) throw new DesignError(designMsg.splitAtNeedsSplit());
     return splitSlice(fit.split, name, at, fit.level);
   }
   const means = fit.factor_means.find((m) => m.factor === name);
-  if (means === undefined) throw new DesignError(messages.unknownFactor(name, fit.factor_means.map((m) => m.factor)));
+  if (means === undefined) throw new DesignError(designMsg.unknownFactor(name, fit.factor_means.map((m) => m.factor)));
   const mse = means.error?.mse ?? fit.mse;
   const df = means.error?.df ?? fit.df_error;
-  if (!(df > 0) || !(mse >= 0)) throw new DesignError(messages.noErrorForComparison());
+  if (!(df > 0) || !(mse >= 0)) throw new DesignError(designMsg.noErrorForComparison());
   return { means, mse, df, note: means.error?.note ?? null };
 }
 
@@ -53,24 +53,24 @@ function splitSlice(s: SplitParts, factor: string, at: string, level: number): C
   let note: string;
   if (factor === s.sub) {
     const i = s.wholeLevels.indexOf(at);
-    if (i < 0) throw new DesignError(messages.unknownLevel(s.whole, at, s.wholeLevels));
+    if (i < 0) throw new DesignError(designMsg.unknownLevel(s.whole, at, s.wholeLevels));
     levels = [...s.subLevels];
     shifted = s.cellShifted.slice(i * b, i * b + b);
     mse = s.mseSub;
     df = s.dfSub;
-    note = messages.splitSubAtWholeNote(s.whole, at);
+    note = designMsg.splitSubAtWholeNote(s.whole, at);
   } else if (factor === s.whole) {
     const j = s.subLevels.indexOf(at);
-    if (j < 0) throw new DesignError(messages.unknownLevel(s.sub, at, s.subLevels));
+    if (j < 0) throw new DesignError(designMsg.unknownLevel(s.sub, at, s.subLevels));
     levels = [...s.wholeLevels];
     shifted = Float64Array.from({ length: a }, (_, i) => s.cellShifted[i * b + j]!);
     mse = (s.mseWhole + (b - 1) * s.mseSub) / b;
     df = satterthwaite([s.mseWhole / b, ((b - 1) * s.mseSub) / b], [s.dfWhole, s.dfSub]);
-    note = messages.splitWholeAtSubNote(s.sub, at);
+    note = designMsg.splitWholeAtSubNote(s.sub, at);
   } else {
-    throw new DesignError(messages.splitAtFactor(s.whole, s.sub));
+    throw new DesignError(designMsg.splitAtFactor(s.whole, s.sub));
   }
-  if (!(df > 0) || !(mse >= 0)) throw new DesignError(messages.noErrorForComparison());
+  if (!(df > 0) || !(mse >= 0)) throw new DesignError(designMsg.noErrorForComparison());
   const counts = new Float64Array(levels.length).fill(s.r);
   const means = factorMeans(factor, levels, counts, shifted, s.offset, diagonalCovariance(counts), mse, df, level);
   return { means, mse, df, note };
@@ -79,13 +79,13 @@ function splitSlice(s: SplitParts, factor: string, at: string, level: number): C
 /** Position of `level` among the factor's levels. */
 export function levelIndex(means: FactorMeans, level: string): number {
   const k = means.levels.indexOf(level);
-  if (k < 0) throw new DesignError(messages.unknownLevel(means.factor, level, means.levels));
+  if (k < 0) throw new DesignError(designMsg.unknownLevel(means.factor, level, means.levels));
   return k;
 }
 
 /** Check a confidence level. */
 export function checkLevel(level: number): void {
-  if (!(level > 0 && level < 1)) throw new DesignError(messages.badLevel(level));
+  if (!(level > 0 && level < 1)) throw new DesignError(designMsg.badLevel(level));
 }
 
 /** Covariance (units of sigma^2) of mean_i and mean_j, whatever the stored form. */

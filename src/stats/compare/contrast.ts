@@ -3,7 +3,7 @@
  */
 import { tInterval } from '../distributions/index.ts';
 import { DesignError } from '../designs/errors.ts';
-import { messages } from '../designs/messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import type { DesignFit } from '../designs/types.ts';
 import { checkLevel, comparisonBasis, meansCovariance } from './basis.ts';
 
@@ -42,16 +42,16 @@ export function contrast(fit: DesignFit, weights: readonly number[], level = 0.9
   checkLevel(level);
   const { means, mse, df, note } = comparisonBasis(fit, factor, at);
   const k = means.levels.length;
-  if (weights.length !== k) throw new DesignError(messages.weightsCount(weights.length, k, means.factor));
+  if (weights.length !== k) throw new DesignError(designMsg.weightsCount(weights.length, k, means.factor));
   let sum = 0;
   let size = 0;
   for (const w of weights) {
-    if (!Number.isFinite(w)) throw new DesignError(messages.weightsNotFinite());
+    if (!Number.isFinite(w)) throw new DesignError(designMsg.weightsNotFinite());
     sum += w;
     size += Math.abs(w);
   }
-  if (size === 0) throw new DesignError(messages.weightsZero());
-  if (Math.abs(sum) > SUM_TOLERANCE * size) throw new DesignError(messages.weightsSum(sum));
+  if (size === 0) throw new DesignError(designMsg.weightsZero());
+  if (Math.abs(sum) > SUM_TOLERANCE * size) throw new DesignError(designMsg.weightsSum(sum));
   let estimate = 0;
   let variance = 0;
   for (let i = 0; i < k; i++) {

@@ -3,7 +3,7 @@
  */
 import { tInterval } from '../distributions/index.ts';
 import { DesignError } from '../designs/errors.ts';
-import { messages } from '../designs/messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import type { DesignFit } from '../designs/types.ts';
 import { checkLevel, comparisonBasis, differenceVariance, levelIndex } from './basis.ts';
 
@@ -35,7 +35,7 @@ export interface DifferenceResult {
 export function difference(fit: DesignFit, a: string, b: string, level = 0.95, factor?: string, at?: string): DifferenceResult {
   checkLevel(level);
   const { means, mse, df, note } = comparisonBasis(fit, factor, at);
-  if (a === b) throw new DesignError(messages.sameLevel(a));
+  if (a === b) throw new DesignError(designMsg.sameLevel(a));
   const i = levelIndex(means, a);
   const j = levelIndex(means, b);
   const estimate = means.shifted_mean[i]! - means.shifted_mean[j]!;

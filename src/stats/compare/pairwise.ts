@@ -4,7 +4,7 @@
  */
 import { rangeCritical, rangeUpper, tCritical, tTwoSided } from '../distributions/index.ts';
 import { DesignError } from '../designs/errors.ts';
-import { messages } from '../designs/messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import type { DesignFit } from '../designs/types.ts';
 import { checkLevel, comparisonBasis, differenceVariance } from './basis.ts';
 
@@ -58,14 +58,14 @@ export interface PairwiseResult {
  *   without error df.
  */
 export function pairwise(fit: DesignFit, method: string = 'tukey', level = 0.95, factor?: string, at?: string): PairwiseResult {
-  if (!(PAIRWISE_METHODS as readonly string[]).includes(method)) throw new DesignError(messages.unknownMethod(method));
+  if (!(PAIRWISE_METHODS as readonly string[]).includes(method)) throw new DesignError(designMsg.unknownMethod(method));
   const m = method as PairwiseMethod;
   checkLevel(level);
   const { means, mse, df, note } = comparisonBasis(fit, factor, at);
   const k = means.levels.length;
-  if (k < 2) throw new DesignError(messages.tooFewForPairs());
+  if (k < 2) throw new DesignError(designMsg.tooFewForPairs());
   const pairs = (k * (k - 1)) / 2;
-  if (pairs > MAX_PAIRS) throw new DesignError(messages.tooManyPairs(means.factor, k));
+  if (pairs > MAX_PAIRS) throw new DesignError(designMsg.tooManyPairs(means.factor, k));
   let critical: number;
   if (m === 'tukey') critical = rangeCritical(level, k, df) / Math.SQRT2;
   else if (m === 'bonferroni') critical = tCritical(1 - (1 - level) / pairs, df);

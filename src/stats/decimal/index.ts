@@ -1,5 +1,5 @@
 /**
- * Exact decimal shift of numeric columns (language.md, section 5): choose an exactly
+ * Exact decimal shift of numeric columns (docs/language.md section 5): choose an exactly
  * representable offset from a column's decimal texts and subtract it on the digits.
  */
 export { shiftDecimals, DecimalTextError } from './shift.ts';

@@ -1,5 +1,5 @@
 /**
- * The exact decimal shift (language.md, section 5).
+ * The exact decimal shift (docs/language.md section 5).
  *
  * Data such as 1000000000000.4, 1000000000000.3, ... carry 13 constant leading digits. As
  * binary doubles each value is off by up to 6e-5, which is most of the spread that the
@@ -213,7 +213,7 @@ function chooseOffset(values: Float64Array): number {
 
 /**
  * Shift a numeric column given as decimal texts by an exactly representable offset chosen
- * from the texts, subtracting on the decimal digits (language.md, section 5).
+ * from the texts, subtracting on the decimal digits (docs/language.md section 5).
  *
  * Each `shifted[i]` is the correctly rounded double of (exact decimal value of `texts[i]` -
  * `offset`); sums of squares formed on `shifted` keep the digits that constant leading

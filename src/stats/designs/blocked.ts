@@ -14,7 +14,7 @@ import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance,
 import { commonCount, compactFactor, requireAllLevels, resolveOptions, type ResolvedOptions } from './check.ts';
 import { DesignError } from './errors.ts';
 import { fitOrExplain } from './least.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import { accumulateTwoWay, correctTwoWay, type TwoWaySums } from './twoway.ts';
 import type { DesignFit, DesignOptions, Factor, Nonadditivity } from './types.ts';
 
@@ -27,7 +27,7 @@ const DESIGN = 'randomized complete block';
  * correction ((df_e + 1)(df_r + 3)) / ((df_e + 3)(df_r + 1)), where df_e is the blocked
  * error df and df_r = N - t that of the randomized design.
  * source: Montgomery, Design and Analysis of Experiments (the vascular-graft example), and
- * references.md section 4, for the formula and the correction.
+ * docs/references.md section 4, for the formula and the correction.
  */
 export function relativeEfficiency(
   msBlocks: number,
@@ -92,7 +92,7 @@ function checkConnected(trt: Int32Array, t: number, blk: Int32Array, b: number, 
   }
   const root = find(0);
   for (let k = 1; k < t; k++) {
-    if (find(k) !== root) throw new DesignError(messages.disconnected(levels[0] ?? '1', levels[k] ?? String(k + 1)));
+    if (find(k) !== root) throw new DesignError(designMsg.disconnected(levels[0] ?? '1', levels[k] ?? String(k + 1)));
   }
 }
 
@@ -203,7 +203,7 @@ function leastSquaresFit(
   const n = y.length;
   const lin = fitOrExplain({ y, factors: [treatment, block], terms: [[0]], absorb: 1 });
   const dfError = lin.dfError;
-  if (dfError <= 0) throw new DesignError(messages.noErrorDf());
+  if (dfError <= 0) throw new DesignError(designMsg.noErrorDf());
   const sse = lin.sse;
   const mse = sse / dfError;
   const ssTrt = lin.termSS[0]!;
@@ -231,7 +231,7 @@ function leastSquaresFit(
   const bm = groupMeans(y, block.codes, b).mean;
   const blkMeans = factorMeans(block.name, block.levels, blkCounts, bm, opts.offset, diagonalCovariance(blkCounts), mse, dfError, opts.level);
   const re = relativeEfficiency(ssBlk / (b - 1), b - 1, t - 1, mse, dfError, n, t);
-  notes.push(messages.efficiencyAdjusted(), messages.nonadditivitySkipped());
+  notes.push(designMsg.efficiencyAdjusted(), designMsg.nonadditivitySkipped());
   return {
     design: DESIGN,
     kind: 'blocked',
@@ -268,9 +268,9 @@ function leastSquaresFit(
 export function blocked(y: Float64Array, treatment: Factor, block: Factor, options?: DesignOptions): DesignFit {
   const opts = resolveOptions(options);
   const n = y.length;
-  if (n === 0) throw new DesignError(messages.noData());
-  if (treatment.codes.length !== n) throw new DesignError(messages.lengthMismatch(`treatment "${treatment.name}"`, treatment.codes.length, n));
-  if (block.codes.length !== n) throw new DesignError(messages.lengthMismatch(`block "${block.name}"`, block.codes.length, n));
+  if (n === 0) throw new DesignError(designMsg.noData());
+  if (treatment.codes.length !== n) throw new DesignError(designMsg.lengthMismatch(`treatment "${treatment.name}"`, treatment.codes.length, n));
+  if (block.codes.length !== n) throw new DesignError(designMsg.lengthMismatch(`block "${block.name}"`, block.codes.length, n));
   let blk = block;
   let sums = accumulateTwoWay(y, treatment, blk, 'treatment', 'block');
   requireAllLevels(treatment, sums.countA, 'treatment');
@@ -281,18 +281,18 @@ export function blocked(y: Float64Array, treatment: Factor, block: Factor, optio
   }
   const t = sums.countA.length;
   const b = sums.countB.length;
-  if (b < 2) throw new DesignError(messages.tooFewLevels('block', blk.name, b));
+  if (b < 2) throw new DesignError(designMsg.tooFewLevels('block', blk.name, b));
   for (let k = 0; k < b; k++) {
-    if (sums.countB[k] === 1) throw new DesignError(messages.blockWithOnePlot(blk.levels[k] ?? String(k + 1)));
+    if (sums.countB[k] === 1) throw new DesignError(designMsg.blockWithOnePlot(blk.levels[k] ?? String(k + 1)));
   }
   const notes: string[] = [];
-  if (opts.dropped > 0) notes.push(messages.dropped(opts.dropped));
-  for (const name of compact.removed) notes.push(messages.emptyBlockDropped(name));
+  if (opts.dropped > 0) notes.push(designMsg.dropped(opts.dropped));
+  for (const name of compact.removed) notes.push(designMsg.emptyBlockDropped(name));
 
   const cells = sums.cells;
   const r = commonCount(cells);
   if (r >= 1) {
-    if (n - t - b + 1 <= 0) throw new DesignError(messages.noErrorDf());
+    if (n - t - b + 1 <= 0) throw new DesignError(designMsg.noErrorDf());
     return balancedFit(y, treatment, blk, sums, r, opts, notes);
   }
   checkConnected(treatment.codes, t, blk.codes, b, treatment.levels);
@@ -300,10 +300,10 @@ export function blocked(y: Float64Array, treatment: Factor, block: Factor, optio
     cells,
     treatment.levels,
     blk.levels,
-    (trt, bl) => messages.missingPlot('block', bl, trt),
-    messages.moreMissing,
+    (trt, bl) => designMsg.missingPlot('block', bl, trt),
+    designMsg.moreMissing,
   );
-  if (missing.length === 0 || cells.some((c) => c > 1)) notes.push(messages.unequalCells('treatment-block cells'));
-  notes.push(...missing, messages.adjustedNote());
+  if (missing.length === 0 || cells.some((c) => c > 1)) notes.push(designMsg.unequalCells('treatment-block cells'));
+  notes.push(...missing, designMsg.adjustedNote());
   return leastSquaresFit(y, treatment, blk, t, b, sums.countA, sums.countB, opts, notes);
 }

@@ -2,7 +2,7 @@
  * Input checks and small helpers shared by the design analyses.
  */
 import { DesignError } from './errors.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import type { DesignOptions, Factor } from './types.ts';
 
 /** Options with defaults filled in. */
@@ -17,28 +17,28 @@ export function resolveOptions(options: DesignOptions | undefined): ResolvedOpti
   const offset = options?.offset ?? 0;
   const level = options?.level ?? 0.95;
   const dropped = options?.dropped ?? 0;
-  if (!(level > 0 && level < 1)) throw new DesignError(messages.badLevel(level));
-  if (!Number.isFinite(offset)) throw new DesignError(messages.badOffset());
+  if (!(level > 0 && level < 1)) throw new DesignError(designMsg.badLevel(level));
+  if (!Number.isFinite(offset)) throw new DesignError(designMsg.badOffset());
   return { offset, level, dropped };
 }
 
 /** The response must be non-empty and finite. */
 export function checkResponse(y: Float64Array): void {
-  if (y.length === 0) throw new DesignError(messages.noData());
+  if (y.length === 0) throw new DesignError(designMsg.noData());
   for (let i = 0; i < y.length; i++) {
     const v = y[i]!;
-    if (v - v !== 0) throw new DesignError(messages.notFinite(i));
+    if (v - v !== 0) throw new DesignError(designMsg.notFinite(i));
   }
 }
 
 /** The factor must match the response in length, with codes in range and >= 2 levels. */
 export function checkFactor(f: Factor, n: number, role: string): Int32Array {
-  if (f.codes.length !== n) throw new DesignError(messages.lengthMismatch(`${role} "${f.name}"`, f.codes.length, n));
+  if (f.codes.length !== n) throw new DesignError(designMsg.lengthMismatch(`${role} "${f.name}"`, f.codes.length, n));
   const L = f.levels.length;
   const counts = new Int32Array(L);
   for (let i = 0; i < n; i++) {
     const c = f.codes[i]!;
-    if (!(c >= 0 && c < L)) throw new DesignError(messages.badCode(`${role} "${f.name}"`, c, i, L));
+    if (!(c >= 0 && c < L)) throw new DesignError(designMsg.badCode(`${role} "${f.name}"`, c, i, L));
     counts[c]! += 1;
   }
   return counts;
@@ -49,9 +49,9 @@ export function checkFactor(f: Factor, n: number, role: string): Int32Array {
  * be at least two levels. `levelRole` words a level in messages (default: `role`).
  */
 export function requireAllLevels(f: Factor, counts: Int32Array, role: string, levelRole = role): void {
-  if (counts.length < 2) throw new DesignError(messages.tooFewLevels(role, f.name, counts.length));
+  if (counts.length < 2) throw new DesignError(designMsg.tooFewLevels(role, f.name, counts.length));
   for (let k = 0; k < counts.length; k++) {
-    if (counts[k] === 0) throw new DesignError(messages.levelWithoutData(levelRole, f.levels[k] ?? String(k)));
+    if (counts[k] === 0) throw new DesignError(designMsg.levelWithoutData(levelRole, f.levels[k] ?? String(k)));
   }
 }
 
@@ -83,7 +83,7 @@ export function compactFactor(f: Factor, counts: Int32Array): { factor: Factor; 
 /** Counts of each (a, b) combination, a varying fastest: `out[a + A * b]`. */
 export function crossCounts(a: Int32Array, levelsA: number, b: Int32Array, levelsB: number): Int32Array {
   const cells = levelsA * levelsB;
-  if (cells > 268_435_456) throw new DesignError(messages.tooManyCells(cells));
+  if (cells > 268_435_456) throw new DesignError(designMsg.tooManyCells(cells));
   const out = new Int32Array(cells);
   for (let i = 0; i < a.length; i++) out[a[i]! + levelsA * b[i]!]! += 1;
   return out;

@@ -23,7 +23,7 @@ import { anovaTable, factorMeans, fullCovariance, errorFields } from './assemble
 import { blocked } from './blocked.ts';
 import { DesignError } from './errors.ts';
 import { fitOrExplain } from './least.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import { oneWay } from './oneway.ts';
 import type { CovariateParts, DesignFit, DesignOptions, Factor } from './types.ts';
 
@@ -145,8 +145,8 @@ export function withCovariate(
 ): DesignFit {
   const n = y.length;
   const x = covariate.values;
-  if (x.length !== n) throw new DesignError(messages.covariateLength(x.length, n));
-  for (let i = 0; i < n; i++) if (!Number.isFinite(x[i]!)) throw new DesignError(messages.covariateMissing(1, covariate.name));
+  if (x.length !== n) throw new DesignError(designMsg.covariateLength(x.length, n));
+  for (let i = 0; i < n; i++) if (!Number.isFinite(x[i]!)) throw new DesignError(designMsg.covariateMissing(1, covariate.name));
   // The analysis without the covariate makes every check of the design (and gives block means).
   const base = block === null ? oneWay(y, treatment, options) : blocked(y, treatment, block, options);
   const offset = base.offset;
@@ -162,14 +162,14 @@ export function withCovariate(
   const exx = dot(ex, ex);
   const totalX = centredSumOfSquares(x);
   // a covariate that the factors explain entirely (or that never varies) adjusts nothing
-  if (!(exx > 1e-10 * totalX) || !(totalX > 0)) throw new DesignError(messages.covariateConstant(covariate.name));
+  if (!(exx > 1e-10 * totalX) || !(totalX > 0)) throw new DesignError(designMsg.covariateConstant(covariate.name));
   const exy = dot(ex, ey);
   const slope = exy / exx;
   const residuals = new Float64Array(n);
   for (let i = 0; i < n; i++) residuals[i] = ey[i]! - slope * ex[i]!;
   const sse = centredSumOfSquares(residuals, 0);
   const dfError = base.df_error - 1;
-  if (dfError <= 0) throw new DesignError(messages.noErrorDf());
+  if (dfError <= 0) throw new DesignError(designMsg.noErrorDf());
   const mse = sse / dfError;
   const sst = centredSumOfSquares(y);
 
@@ -231,7 +231,7 @@ export function withCovariate(
     covariateMeans: Array.from(groupMeans(x, treatment.codes, t).mean, (m) => m + covOffset),
     parallel,
   };
-  const notes = [...base.notes.filter((s) => s !== messages.nonadditivitySkipped() && s !== messages.efficiencyAdjusted()), messages.covariateNote(covariate.name)];
+  const notes = [...base.notes.filter((s) => s !== designMsg.nonadditivitySkipped() && s !== designMsg.efficiencyAdjusted()), designMsg.covariateNote(covariate.name)];
   const fit: DesignFit = {
     design: `${base.design} with a covariate`,
     kind: base.kind,

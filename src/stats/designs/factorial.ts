@@ -21,7 +21,7 @@ import { checkFactor, checkResponse, commonCount, requireAllLevels, resolveOptio
 import { DesignError } from './errors.ts';
 import { fitOrExplain } from './least.ts';
 import { lenthMargins } from './lenth.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import type { DesignFit, DesignOptions, EffectsTable, Factor, FactorMeans, LenthMargins } from './types.ts';
 
 /** All non-empty subsets of 0..k-1, by size, then in lexicographic order. */
@@ -46,7 +46,7 @@ export function allTerms(k: number): number[][] {
 function cellCodes(factors: readonly Factor[], n: number): { codes: Int32Array; cells: number } {
   let cells = 1;
   for (const f of factors) cells *= f.levels.length;
-  if (cells > 268_435_456) throw new DesignError(messages.tooManyCells(cells));
+  if (cells > 268_435_456) throw new DesignError(designMsg.tooManyCells(cells));
   const codes = new Int32Array(n);
   let stride = 1;
   for (const f of factors) {
@@ -133,7 +133,7 @@ export function factorial(y: Float64Array, factors: readonly Factor[], options?:
   checkResponse(y);
   const n = y.length;
   const k = factors.length;
-  if (k < 2) throw new DesignError(messages.factorialNeedsTwo(k));
+  if (k < 2) throw new DesignError(designMsg.factorialNeedsTwo(k));
   const levelCounts = factors.map((f) => {
     const c = checkFactor(f, n, 'factor');
     requireAllLevels(f, c, 'factor', `factor "${f.name}": level`);
@@ -144,17 +144,17 @@ export function factorial(y: Float64Array, factors: readonly Factor[], options?:
   const termNames = terms.map((t) => t.map((f) => factors[f]!.name).join(':'));
   const top = termNames[termNames.length - 1]!;
   const cellsTotal = shape.reduce((a, b) => a * b, 1);
-  if (cellsTotal > n) throw new DesignError(messages.moreCellsThanData(cellsTotal, n, top));
+  if (cellsTotal > n) throw new DesignError(designMsg.moreCellsThanData(cellsTotal, n, top));
   const { codes: cellOf, cells } = cellCodes(factors, n);
   const cellCount = new Int32Array(cells);
   for (let i = 0; i < n; i++) cellCount[cellOf[i]!]! += 1;
   for (let c = 0; c < cells; c++) {
-    if (cellCount[c] === 0) throw new DesignError(messages.emptyCell(describeCell(factors, c), top));
+    if (cellCount[c] === 0) throw new DesignError(designMsg.emptyCell(describeCell(factors, c), top));
   }
   const r = commonCount(cellCount);
   const twoLevel = shape.every((L) => L === 2);
   const notes: string[] = [];
-  if (opts.dropped > 0) notes.push(messages.dropped(opts.dropped));
+  if (opts.dropped > 0) notes.push(designMsg.dropped(opts.dropped));
 
   let termSS: number[];
   let sse: number;
@@ -199,7 +199,7 @@ export function factorial(y: Float64Array, factors: readonly Factor[], options?:
       return factorMeans(f.name, f.levels, counts, m, opts.offset, diagonalCovariance(counts), mse, dfError, opts.level);
     });
   } else {
-    notes.push(messages.unequalCells('cells'), messages.adjustedNote());
+    notes.push(designMsg.unequalCells('cells'), designMsg.adjustedNote());
     const lin = fitOrExplain({ y, factors, terms });
     dfError = lin.dfError;
     sse = lin.sse;
@@ -230,13 +230,13 @@ export function factorial(y: Float64Array, factors: readonly Factor[], options?:
   let lenth: LenthMargins | undefined;
   if (twoLevel) {
     effects = { term: [...termNames], estimate: effectAtPlus };
-    notes.push(messages.twoLevelSigns(factors.map((f) => `${f.name}: ${f.levels[0]} then ${f.levels[1]}`).join('; ')));
+    notes.push(designMsg.twoLevelSigns(factors.map((f) => `${f.name}: ${f.levels[0]} then ${f.levels[1]}`).join('; ')));
   }
   if (dfError === 0) {
-    notes.push(messages.noErrorTerm());
+    notes.push(designMsg.noErrorTerm());
     if (twoLevel && effects !== undefined) {
       lenth = lenthMargins(effects.estimate, opts.level);
-      notes.push(messages.lenthOffered());
+      notes.push(designMsg.lenthOffered());
     }
   }
   const first = margins[0]!;

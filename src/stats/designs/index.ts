@@ -2,7 +2,7 @@
  * Designed-experiment analyses: one-way, randomized complete blocks, Latin squares and
  * factorials. Each takes the (shifted) response as a Float64Array and factors as integer
  * codes with level names, and returns a {@link DesignFit} whose fields are the fit record's
- * fields (language.md, section 8). Errors in the design are thrown as {@link DesignError}.
+ * fields (docs/language.md section 8). Errors in the design are thrown as {@link DesignError}.
  *
  * Wiring sketch for the built-ins registry:
  * ```ts
@@ -20,7 +20,6 @@ export { withCovariate, type Covariate } from './covariate.ts';
 export { acrossSites } from './sites.ts';
 export { satterthwaite, bartlett, type BartlettTest } from './strata.ts';
 export { DesignError } from './errors.ts';
-export { messages } from './messages.ts';
 export type {
   AnovaTable,
   CovariateParts,

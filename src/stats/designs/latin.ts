@@ -10,7 +10,7 @@ import { addOffset, anovaTable, diagonalCovariance, factorMeans, fullCovariance,
 import { checkFactor, checkResponse, crossCounts, requireAllLevels, resolveOptions } from './check.ts';
 import { DesignError } from './errors.ts';
 import { fitOrExplain } from './least.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import type { DesignFit, DesignOptions, Factor, FactorMeans } from './types.ts';
 
 /** Check the Latin property: one plot per cell, each treatment at most once per line. */
@@ -18,15 +18,15 @@ function checkLatin(treatment: Factor, row: Factor, column: Factor, t: number): 
   const cells = crossCounts(row.codes, t, column.codes, t);
   for (let c = 0; c < t; c++) {
     for (let r = 0; r < t; r++) {
-      if (cells[r + t * c]! > 1) throw new DesignError(messages.twoPlotsInCell(row.levels[r] ?? '', column.levels[c] ?? ''));
+      if (cells[r + t * c]! > 1) throw new DesignError(designMsg.twoPlotsInCell(row.levels[r] ?? '', column.levels[c] ?? ''));
     }
   }
   const inRow = crossCounts(treatment.codes, t, row.codes, t);
   const inCol = crossCounts(treatment.codes, t, column.codes, t);
   for (let line = 0; line < t; line++) {
     for (let k = 0; k < t; k++) {
-      if (inRow[k + t * line]! > 1) throw new DesignError(messages.repeatedInLine(treatment.levels[k] ?? '', 'row', row.levels[line] ?? ''));
-      if (inCol[k + t * line]! > 1) throw new DesignError(messages.repeatedInLine(treatment.levels[k] ?? '', 'column', column.levels[line] ?? ''));
+      if (inRow[k + t * line]! > 1) throw new DesignError(designMsg.repeatedInLine(treatment.levels[k] ?? '', 'row', row.levels[line] ?? ''));
+      if (inCol[k + t * line]! > 1) throw new DesignError(designMsg.repeatedInLine(treatment.levels[k] ?? '', 'column', column.levels[line] ?? ''));
     }
   }
   return cells;
@@ -52,13 +52,13 @@ export function latinSquare(y: Float64Array, treatment: Factor, row: Factor, col
   const rc = checkFactor(row, n, 'row');
   const cc = checkFactor(column, n, 'column');
   const t = tc.length;
-  if (rc.length !== t || cc.length !== t) throw new DesignError(messages.notSquare(t, rc.length, cc.length));
+  if (rc.length !== t || cc.length !== t) throw new DesignError(designMsg.notSquare(t, rc.length, cc.length));
   requireAllLevels(treatment, tc, 'treatment');
   requireAllLevels(row, rc, 'row');
   requireAllLevels(column, cc, 'column');
   const cells = checkLatin(treatment, row, column, t);
   const notes: string[] = [];
-  if (opts.dropped > 0) notes.push(messages.dropped(opts.dropped));
+  if (opts.dropped > 0) notes.push(designMsg.dropped(opts.dropped));
   const complete = n === t * t;
   const terms = [treatment, row, column];
 
@@ -103,15 +103,15 @@ export function latinSquare(y: Float64Array, treatment: Factor, row: Factor, col
     margins = terms.map((f, k) =>
       factorMeans(f.name, f.levels, counts, means[k]!, opts.offset, diagonalCovariance(counts), mse, dfError, opts.level),
     );
-    if (dfError === 0) notes.push(messages.smallLatin());
+    if (dfError === 0) notes.push(designMsg.smallLatin());
   } else {
     notes.push(
-      ...missingCellNotes(cells, row.levels, column.levels, (r, c) => `row ${r}, column ${c} has no plot`, messages.moreMissing),
-      messages.adjustedNote(),
+      ...missingCellNotes(cells, row.levels, column.levels, (r, c) => `row ${r}, column ${c} has no plot`, designMsg.moreMissing),
+      designMsg.adjustedNote(),
     );
     const lin = fitOrExplain({ y, factors: terms, terms: [[0], [1], [2]] });
     dfError = lin.dfError;
-    if (dfError <= 0) throw new DesignError(messages.noErrorDf());
+    if (dfError <= 0) throw new DesignError(designMsg.noErrorDf());
     sse = lin.sse;
     sst = lin.sst;
     mse = sse / dfError;

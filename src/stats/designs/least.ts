@@ -4,7 +4,7 @@
  */
 import { fitFactorModel, LinearModelError, type FactorModelSpec, type LinearFit } from '../linear/fit.ts';
 import { DesignError } from './errors.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 
 /**
  * Fit by least squares; throws DesignError when the model cannot be set up or when some term
@@ -19,7 +19,7 @@ export function fitOrExplain(spec: FactorModelSpec): LinearFit {
     throw e;
   }
   if (fit.aliasedTerms.length > 0) {
-    throw new DesignError(messages.notEstimable(fit.aliasedTerms.map((a) => a.message).join('; ')));
+    throw new DesignError(designMsg.notEstimable(fit.aliasedTerms.map((a) => a.message).join('; ')));
   }
   return fit;
 }

@@ -7,7 +7,7 @@ import { centredSumOfSquares, groupMeans, mean } from '../linear/sums.ts';
 import { anovaTable, diagonalCovariance, factorMeans, errorFields } from './assemble.ts';
 import { checkFactor, checkResponse, requireAllLevels, resolveOptions } from './check.ts';
 import { DesignError } from './errors.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import type { DesignFit, DesignOptions, Factor } from './types.ts';
 
 /**
@@ -27,7 +27,7 @@ export function oneWay(y: Float64Array, treatment: Factor, options?: DesignOptio
   const counts = checkFactor(treatment, n, 'treatment');
   requireAllLevels(treatment, counts, 'treatment');
   const k = counts.length;
-  if (n <= k) throw new DesignError(messages.tooFewObservations(n, k));
+  if (n <= k) throw new DesignError(designMsg.tooFewObservations(n, k));
 
   const grand = mean(y);
   const { mean: m } = groupMeans(y, treatment.codes, k);
@@ -65,7 +65,7 @@ export function oneWay(y: Float64Array, treatment: Factor, options?: DesignOptio
   let balanced = true;
   for (let g = 1; g < k; g++) if (counts[g] !== counts[0]) balanced = false;
   const notes: string[] = [];
-  if (opts.dropped > 0) notes.push(messages.dropped(opts.dropped));
+  if (opts.dropped > 0) notes.push(designMsg.dropped(opts.dropped));
   return {
     design: 'completely randomized (one-way)',
     kind: 'one_way',

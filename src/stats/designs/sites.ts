@@ -19,7 +19,7 @@ import { addOffset, diagonalCovariance, errorFields, factorMeans } from './assem
 import { blocked } from './blocked.ts';
 import { checkFactor, checkResponse, requireAllLevels, resolveOptions } from './check.ts';
 import { DesignError } from './errors.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import { bartlett } from './strata.ts';
 import type { AnovaTable, DesignFit, DesignOptions, Factor, SitesParts } from './types.ts';
 import { sq } from '../math/portable.ts';
@@ -51,7 +51,7 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   const sc = checkFactor(site, n, 'site');
   const t = tc.length;
   const s = sc.length;
-  if (sc.some((c) => c === 0)) throw new DesignError(messages.levelWithoutData('site', site.levels[sc.indexOf(0)] ?? ''));
+  if (sc.some((c) => c === 0)) throw new DesignError(designMsg.levelWithoutData('site', site.levels[sc.indexOf(0)] ?? ''));
 
   // blocks within sites: code (site, block label) pairs in first-seen order per site
   const B = block.levels.length;
@@ -71,13 +71,13 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   for (let i = 0; i < n; i++) siteTreatment[site.codes[i]! * t + treatment.codes[i]!]! += 1;
   for (let u = 0; u < s; u++) {
     for (let g = 0; g < t; g++) {
-      if (siteTreatment[u * t + g] === 0) throw new DesignError(messages.sitesAbsent(treatment.levels[g] ?? '', site.name, site.levels[u] ?? ''));
+      if (siteTreatment[u * t + g] === 0) throw new DesignError(designMsg.sitesAbsent(treatment.levels[g] ?? '', site.name, site.levels[u] ?? ''));
     }
-    if (blocksAt[u]! < 2) throw new DesignError(messages.sitesOneBlock(site.name, site.levels[u] ?? '', block.name));
+    if (blocksAt[u]! < 2) throw new DesignError(designMsg.sitesOneBlock(site.name, site.levels[u] ?? '', block.name));
   }
   const b = blocksAt[0]!;
   for (let u = 1; u < s; u++) {
-    if (blocksAt[u] !== b) throw new DesignError(messages.sitesUnequalBlocks(site.name, site.levels[0] ?? '', b, site.levels[u] ?? '', blocksAt[u]!));
+    if (blocksAt[u] !== b) throw new DesignError(designMsg.sitesUnequalBlocks(site.name, site.levels[0] ?? '', b, site.levels[u] ?? '', blocksAt[u]!));
   }
   const blockOf = new Int32Array(n); // block within site: site * b + local index
   for (let i = 0; i < n; i++) blockOf[i] = site.codes[i]! * b + local[site.codes[i]! * B + block.codes[i]!]!;
@@ -89,8 +89,8 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
       if (c !== 1) {
         const u = Math.floor(k / b);
         const label = blockLabels[u]![k % b] ?? '';
-        if (c === 0) throw new DesignError(messages.sitesMissingPlot(site.name, site.levels[u] ?? '', block.name, label, treatment.levels[g] ?? ''));
-        throw new DesignError(messages.sitesIncomplete(site.name, site.levels[u] ?? '', block.name, label, treatment.levels[g] ?? '', c));
+        if (c === 0) throw new DesignError(designMsg.sitesMissingPlot(site.name, site.levels[u] ?? '', block.name, label, treatment.levels[g] ?? ''));
+        throw new DesignError(designMsg.sitesIncomplete(site.name, site.levels[u] ?? '', block.name, label, treatment.levels[g] ?? '', c));
       }
     }
   }
@@ -117,8 +117,8 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   }
   if (s === 1) {
     const only = siteFits[0]!;
-    only.notes.push(messages.sitesOne(site.name));
-    if (opts.dropped > 0) only.notes.unshift(messages.dropped(opts.dropped));
+    only.notes.push(designMsg.sitesOne(site.name));
+    if (opts.dropped > 0) only.notes.unshift(designMsg.dropped(opts.dropped));
     return only;
   }
 
@@ -185,15 +185,15 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   const fAgainstError = ssT / dfT / mse;
   const bt = bartlett(perSite.mse, perSite.df_error);
   const notes: string[] = [];
-  if (opts.dropped > 0) notes.push(messages.dropped(opts.dropped));
-  notes.push(messages.sitesNote(treatment.name, site.name));
-  notes.push(messages.sitesBartlett(bt.statistic, bt.df, bt.p));
-  if (bt.p < BARTLETT_WARN) notes.push(messages.sitesBartlettWarn());
-  notes.push(messages.sitesMeansNote(treatment.name, site.name));
+  if (opts.dropped > 0) notes.push(designMsg.dropped(opts.dropped));
+  notes.push(designMsg.sitesNote(treatment.name, site.name));
+  notes.push(designMsg.sitesBartlett(bt.statistic, bt.df, bt.p));
+  if (bt.p < BARTLETT_WARN) notes.push(designMsg.sitesBartlettWarn());
+  notes.push(designMsg.sitesMeansNote(treatment.name, site.name));
 
   const trtCounts = new Float64Array(t).fill(s * b);
   const trtMeans = factorMeans(treatment.name, treatment.levels, trtCounts, mT, opts.offset, diagonalCovariance(trtCounts), msTS, dfTS, opts.level);
-  trtMeans.error = { mse: msTS, df: dfTS, note: messages.sitesMeansNote(treatment.name, site.name) };
+  trtMeans.error = { mse: msTS, df: dfTS, note: designMsg.sitesMeansNote(treatment.name, site.name) };
   const cellMeans: SitesParts['cellMeans'] = { treatment: [], site: [], mean: [] };
   for (let g = 0; g < t; g++) {
     for (let u = 0; u < s; u++) {

@@ -18,7 +18,7 @@ import { centredSumOfSquares, groupMeans, mean } from '../linear/sums.ts';
 import { addOffset, diagonalCovariance, errorFields, factorMeans } from './assemble.ts';
 import { checkFactor, checkResponse, resolveOptions } from './check.ts';
 import { DesignError } from './errors.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import { satterthwaite } from './strata.ts';
 import type { AnovaTable, DesignFit, DesignOptions, Factor, SplitParts } from './types.ts';
 import { sq } from '../math/portable.ts';
@@ -57,12 +57,12 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   const a = wc.length;
   const b = sc.length;
   const r = bc.length;
-  if (a < 1 || wc.some((c) => c === 0)) throw new DesignError(messages.levelWithoutData('whole-plot level', firstEmpty(whole, wc)));
-  if (sc.some((c) => c === 0)) throw new DesignError(messages.levelWithoutData('subplot level', firstEmpty(sub, sc)));
-  if (bc.some((c) => c === 0)) throw new DesignError(messages.levelWithoutData('block', firstEmpty(block, bc)));
-  if (b < 2) throw new DesignError(messages.tooFewLevels('subplot factor', sub.name, b));
-  if (r < 2) throw new DesignError(messages.tooFewLevels('block', block.name, r));
-  if (a * b * r > 268_435_456) throw new DesignError(messages.tooManyCells(a * b * r));
+  if (a < 1 || wc.some((c) => c === 0)) throw new DesignError(designMsg.levelWithoutData('whole-plot level', firstEmpty(whole, wc)));
+  if (sc.some((c) => c === 0)) throw new DesignError(designMsg.levelWithoutData('subplot level', firstEmpty(sub, sc)));
+  if (bc.some((c) => c === 0)) throw new DesignError(designMsg.levelWithoutData('block', firstEmpty(block, bc)));
+  if (b < 2) throw new DesignError(designMsg.tooFewLevels('subplot factor', sub.name, b));
+  if (r < 2) throw new DesignError(designMsg.tooFewLevels('block', block.name, r));
+  if (a * b * r > 268_435_456) throw new DesignError(designMsg.tooManyCells(a * b * r));
 
   // every whole plot (block k, whole level i) holds every subplot level exactly once
   const cellOf = new Int32Array(n); // (k, i, j) with j fastest
@@ -79,8 +79,8 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
     const i = Math.floor(cell / b) % a;
     const k = Math.floor(cell / (a * b));
     const where = [block.levels[k] ?? '', whole.levels[i] ?? '', sub.levels[j] ?? ''] as const;
-    if (c === 0) throw new DesignError(messages.splitMissing(block.name, whole.name, sub.name, ...where));
-    throw new DesignError(messages.splitTwice(block.name, whole.name, sub.name, ...where, c));
+    if (c === 0) throw new DesignError(designMsg.splitMissing(block.name, whole.name, sub.name, ...where));
+    throw new DesignError(designMsg.splitTwice(block.name, whole.name, sub.name, ...where, c));
   }
 
   const grand = mean(y);
@@ -132,7 +132,7 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   const dfB = b - 1;
   const dfAB = (a - 1) * (b - 1);
   const dfSub = a * (r - 1) * (b - 1);
-  if (dfSub <= 0) throw new DesignError(messages.noErrorDf());
+  if (dfSub <= 0) throw new DesignError(designMsg.noErrorDf());
   const mseSub = sse / dfSub;
   const mseWhole = dfWhole > 0 ? ssWholeError / dfWhole : NaN;
   const interaction = `${whole.name}:${sub.name}`;
@@ -167,21 +167,21 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   table.p.push(NaN);
 
   const notes: string[] = [];
-  if (opts.dropped > 0) notes.push(messages.dropped(opts.dropped));
-  notes.push(messages.splitStrata(block.name, whole.name));
-  if (a === 1) notes.push(messages.splitOneWholeLevel(whole.name));
+  if (opts.dropped > 0) notes.push(designMsg.dropped(opts.dropped));
+  notes.push(designMsg.splitStrata(block.name, whole.name));
+  if (a === 1) notes.push(designMsg.splitOneWholeLevel(whole.name));
 
   // whole-plot means: variance Ea / (r b); subplot means and cell means combine both errors
   const wholeCounts = new Float64Array(a).fill(r * b);
   const wholeMeans = factorMeans(whole.name, whole.levels, wholeCounts, mA, opts.offset, diagonalCovariance(wholeCounts), mseWhole, dfWhole, opts.level);
-  wholeMeans.error = { mse: mseWhole, df: dfWhole, note: messages.splitWholeNote() };
+  wholeMeans.error = { mse: mseWhole, df: dfWhole, note: designMsg.splitWholeNote() };
   // The variance of one subplot mean is (sigma_w^2 + sigma^2) / (r a), estimated by
   // (Ea + (b - 1) Eb) / (r a b); differences of subplot means need only Eb.
   const combined = a > 1 ? (mseWhole + (b - 1) * mseSub) / b : mseSub;
   const combinedDf = a > 1 ? satterthwaite([mseWhole / b, ((b - 1) * mseSub) / b], [dfWhole, dfSub]) : dfSub;
   const subCounts = new Float64Array(b).fill(r * a);
   const subMeans = factorMeans(sub.name, sub.levels, subCounts, mB, opts.offset, diagonalCovariance(subCounts), combined, combinedDf, opts.level);
-  subMeans.error = { mse: mseSub, df: dfSub, note: messages.splitSubNote() };
+  subMeans.error = { mse: mseSub, df: dfSub, note: designMsg.splitSubNote() };
 
   const cellMeansOut: SplitParts['cells'] = { whole: [], sub: [], n: [], mean: [], se: [], low: [], high: [], df: [] };
   const tCell = tCritical(opts.level, combinedDf);
@@ -201,7 +201,7 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   }
   const blockCounts = new Float64Array(r).fill(a * b);
   const blockMeans = factorMeans(block.name, block.levels, blockCounts, mR, opts.offset, diagonalCovariance(blockCounts), mseWhole, dfWhole, opts.level);
-  blockMeans.error = { mse: mseWhole, df: dfWhole, note: messages.splitWholeNote() };
+  blockMeans.error = { mse: mseWhole, df: dfWhole, note: designMsg.splitWholeNote() };
 
   // Leverage of a subplot: the fitted value (whole-plot mean + cell mean - whole-level mean)
   // is a projection with trace a r + a b - a over n = a b r equal observations.

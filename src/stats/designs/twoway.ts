@@ -4,7 +4,7 @@
  * analysis of a million plots is a handful of passes over the data, and this is the first.
  */
 import { DesignError } from './errors.ts';
-import { messages } from './messages.ts';
+import { designMsg } from '../../messages/designs.ts';
 import type { Factor } from './types.ts';
 
 /** Sums of one pass over (y, a, b). */
@@ -23,7 +23,7 @@ export function accumulateTwoWay(y: Float64Array, a: Factor, b: Factor, roleA: s
   const n = y.length;
   const A = a.levels.length;
   const B = b.levels.length;
-  if (A * B > 268_435_456) throw new DesignError(messages.tooManyCells(A * B));
+  if (A * B > 268_435_456) throw new DesignError(designMsg.tooManyCells(A * B));
   const ca = a.codes;
   const cb = b.codes;
   const countA = new Int32Array(A);
@@ -36,10 +36,10 @@ export function accumulateTwoWay(y: Float64Array, a: Factor, b: Factor, roleA: s
     const u = ca[i]!;
     const v = cb[i]!;
     // One unsigned comparison each catches negative codes too.
-    if (u >>> 0 >= A) throw new DesignError(messages.badCode(`${roleA} "${a.name}"`, u, i, A));
-    if (v >>> 0 >= B) throw new DesignError(messages.badCode(`${roleB} "${b.name}"`, v, i, B));
+    if (u >>> 0 >= A) throw new DesignError(designMsg.badCode(`${roleA} "${a.name}"`, u, i, A));
+    if (v >>> 0 >= B) throw new DesignError(designMsg.badCode(`${roleB} "${b.name}"`, v, i, B));
     const yi = y[i]!;
-    if (yi - yi !== 0) throw new DesignError(messages.notFinite(i));
+    if (yi - yi !== 0) throw new DesignError(designMsg.notFinite(i));
     countA[u]!++;
     countB[v]!++;
     cells[u + A * v]!++;

@@ -1,5 +1,5 @@
 /**
- * The plain fit object that every design analysis returns (language.md, section 8). Field
+ * The plain fit object that every design analysis returns (docs/language.md section 8). Field
  * names are the record's field names, so the built-ins layer can hand the object over field
  * by field. Tables are columnar (one array per column, in column order), as the language's
  * tables are. A number that does not exist (the F of the error row, a standard error with no

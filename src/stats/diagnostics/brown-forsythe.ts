@@ -12,6 +12,7 @@ import { splitByLevel } from '../summary/group-stats.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
 import { quantileSorted } from '../summary/quantile.ts';
 import { sq } from '../math/portable.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** The result of {@link brownForsythe}. */
 export interface BrownForsytheResult {
@@ -50,12 +51,12 @@ export function brownForsythe(y: Float64Array, groups: GroupCodes): BrownForsyth
     for (let i = start[j]!; i < start[j + 1]!; i++) z[i] = Math.abs(values[i]! - med);
   }
   if (used < 2) {
-    throw new StatsInputError(`the spread comparison needs at least two groups with data, got ${used}`);
+    throw new StatsInputError(statsMsg.spreadGroups(used));
   }
   const df1 = used - 1;
   const df2 = n - used;
   if (df2 < 1) {
-    throw new StatsInputError('the spread comparison needs more observations than groups');
+    throw new StatsInputError(statsMsg.spreadTooFew());
   }
   const grand = mean(z);
   let between = 0;
@@ -68,9 +69,7 @@ export function brownForsythe(y: Float64Array, groups: GroupCodes): BrownForsyth
     within += sumSquaredDeviations(part, mj);
   }
   if (!(within > 0)) {
-    throw new StatsInputError(
-      'the deviations from the group medians do not vary within any group, so their spread cannot be compared',
-    );
+    throw new StatsInputError(statsMsg.spreadConstant());
   }
   const f = between / df1 / (within / df2);
   return { f, df1, df2, p: fUpper(f, df1, df2), median: medians };

@@ -10,6 +10,7 @@
 import { normalQuantile, normalUpper } from '../distributions/index.ts';
 import { StatsInputError } from '../summary/groups.ts';
 import * as pm from '../math/portable.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** The result of {@link shapiroWilk}. */
 export interface ShapiroWilkResult {
@@ -91,14 +92,12 @@ export function shapiroWilkCoefficients(n: number): Float64Array {
 export function shapiroWilk(x: Float64Array): ShapiroWilkResult {
   const n = x.length;
   if (n < SHAPIRO_WILK_MIN_N || n > SHAPIRO_WILK_MAX_N) {
-    throw new StatsInputError(
-      `the Shapiro-Wilk test covers samples of ${SHAPIRO_WILK_MIN_N} to ${SHAPIRO_WILK_MAX_N} values, got ${n}`,
-    );
+    throw new StatsInputError(statsMsg.shapiroWilkSize(SHAPIRO_WILK_MIN_N, SHAPIRO_WILK_MAX_N, n));
   }
   const s = Float64Array.from(x).sort();
   const range = s[n - 1]! - s[0]!;
   if (!(range > 0)) {
-    throw new StatsInputError('all values are equal, so normality cannot be checked');
+    throw new StatsInputError(statsMsg.normalityAllEqual());
   }
   const a = shapiroWilkCoefficients(n);
   const half = a.length;

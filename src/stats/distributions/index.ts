@@ -14,7 +14,7 @@
  *   1.0e-10 and quantile 1.3e-6 in the far tail, normal cdf 2.2e-5 in the far tail.
  *   Checked against sources independent of @stdlib to 1e-12 relative: closed forms (t on 1
  *   and 2 df, chi-square on even df, F with 2 numerator or denominator df, t^2 = F(1, df),
- *   a series and continued fraction for the normal), the handbook rows of references.md,
+ *   a series and continued fraction for the normal), the handbook rows of docs/references.md section 5,
  *   and quantile round trips down to 1e-15. Three @stdlib functions fell short and are
  *   corrected in central.ts: the F cdf (returned 0 for lower tails below ~1e-16), the F
  *   quantile (~1e-8 in the lower tail at large df2; Infinity for critical values on df2 < 2)
@@ -31,7 +31,7 @@
  *   the tail P(Q > 12) for 2 groups on 60 df. Ours: two groups against the exact t identity
  *   to 1.5e-14 (body) and 7.4e-14 (tails below 1e-12); all nine handbook quantiles to their
  *   printed digits; df = Infinity; 2 to 200 groups (NaN above), df > 0. Time: 0.07-0.09 ms
- *   per cdf or upper tail, 0.25-0.6 ms per quantile (libraries.md: jstat about 7 ms a
+ *   per cdf or upper tail, 0.25-0.6 ms per quantile (docs/libraries.md section 4: jstat about 7 ms a
  *   quantile).
  *
  * - noncentral t (noncentral-t.ts): our own, the mixture integral over the scale (Owen

@@ -4,7 +4,7 @@
  * either side is an error, since it would make the match ambiguous.
  */
 import { PlanningError } from './errors.ts';
-import { planningMessages as m } from './messages.ts';
+import { planningMsg as m } from '../../messages/planning.ts';
 
 /** One side of the comparison: a key and a treatment per plot (null where the treatment is empty). */
 export interface KeyedPlots {

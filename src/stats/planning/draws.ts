@@ -21,7 +21,7 @@
  */
 import { xoroshiro128plusFromState } from 'pure-rand/generator/xoroshiro128plus';
 import { PlanningError } from './errors.ts';
-import { planningMessages as m } from './messages.ts';
+import { planningMsg as m } from '../../messages/planning.ts';
 
 /** The generator, as a layout's record names it. */
 export const GENERATOR = 'xoroshiro128+ (pure-rand 8.4.2), state from two SplitMix64 outputs of the seed, 32-bit outputs';

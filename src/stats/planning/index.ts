@@ -5,7 +5,6 @@
  */
 export { ALGORITHM, Draws, GENERATOR, MAX_SEED, SplitMix64, checkSeed, permutation, shuffle } from './draws.ts';
 export { PlanningError } from './errors.ts';
-export { planningMessages } from './messages.ts';
 export {
   MAX_PLOTS,
   checkCount,

@@ -15,7 +15,7 @@
  */
 import { Draws, permutation, shuffle } from './draws.ts';
 import { PlanningError } from './errors.ts';
-import { planningMessages as m } from './messages.ts';
+import { planningMsg as m } from '../../messages/planning.ts';
 
 /** The most plots a plan may have. */
 export const MAX_PLOTS = 1_000_000;

@@ -17,7 +17,7 @@
 import { fCritical, noncentralFUpper, noncentralTCdf, noncentralTUpper, tCritical } from '../distributions/index.ts';
 import { PlanningError } from './errors.ts';
 import { MAX_PLOTS, checkCount } from './layouts.ts';
-import { planningMessages as m } from './messages.ts';
+import { planningMsg as m } from '../../messages/planning.ts';
 
 function checkScale(delta: number, sd: number): void {
   if (!Number.isFinite(delta)) throw new PlanningError(m.deltaNotFinite(delta));

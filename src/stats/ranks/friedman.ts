@@ -10,6 +10,7 @@ import { chi2Upper } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
 import { sq } from '../math/portable.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** The result of {@link friedman}. */
 export interface FriedmanResult {
@@ -53,8 +54,8 @@ export function friedman(
   const bIndex = compact(bCounts);
   const k = tIndex.used;
   const b = bIndex.used;
-  if (k < 2) throw new StatsInputError(`Friedman's test needs at least two treatments, got ${k}`);
-  if (b < 2) throw new StatsInputError(`Friedman's test needs at least two blocks, got ${b}`);
+  if (k < 2) throw new StatsInputError(statsMsg.friedmanTreatments(k));
+  if (b < 2) throw new StatsInputError(statsMsg.friedmanBlocks(b));
 
   const cell = new Int32Array(b * k).fill(-1);
   for (let i = 0; i < n; i++) {
@@ -62,10 +63,7 @@ export function friedman(
     const bl = bIndex.map[block.codes[i]!]!;
     const at = bl * k + t;
     if (cell[at] !== -1) {
-      throw new StatsInputError(
-        `block "${block.levels[block.codes[i]!]}" has more than one value for treatment ` +
-          `"${treatment.levels[treatment.codes[i]!]}"; Friedman's test needs exactly one`,
-      );
+      throw new StatsInputError(statsMsg.friedmanTwice(block.levels[block.codes[i]!]!, treatment.levels[treatment.codes[i]!]!));
     }
     cell[at] = i;
   }
@@ -74,9 +72,7 @@ export function friedman(
     const bl = Math.floor(at / k);
     const t = at % k;
     throw new StatsInputError(
-      `block "${block.levels[bIndex.levels[bl]!]}" has no value for treatment ` +
-        `"${treatment.levels[tIndex.levels[t]!]}"; Friedman's test needs a complete layout ` +
-        `(one value of every treatment in every block)`,
+      statsMsg.friedmanMissing(block.levels[bIndex.levels[bl]!]!, treatment.levels[tIndex.levels[t]!]!),
     );
   }
 
@@ -94,7 +90,7 @@ export function friedman(
   for (let t = 0; t < k; t++) spread += sq(rankSum[t]! - centre);
   const correction = 1 - tieTerm / (b * k * (k * k - 1));
   if (!(correction > 0)) {
-    throw new StatsInputError('every block has all its values equal, so there is nothing to rank');
+    throw new StatsInputError(statsMsg.blocksAllTied());
   }
   const statistic = ((12 / (b * k * (k + 1))) * spread) / correction;
   const df = k - 1;

@@ -7,6 +7,7 @@ import { chi2Upper } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
 import { sq } from '../math/portable.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** The result of {@link kruskalWallis}. */
 export interface KruskalWallisResult {
@@ -40,7 +41,7 @@ export function kruskalWallis(y: Float64Array, groups: GroupCodes): KruskalWalli
   let used = 0;
   for (let j = 0; j < k; j++) if (counts[j]! > 0) used++;
   if (used < 2) {
-    throw new StatsInputError(`the Kruskal-Wallis test needs at least two groups with data, got ${used}`);
+    throw new StatsInputError(statsMsg.kruskalGroups(used));
   }
   const n = y.length;
   const { ranks, tieTerm } = averageRanks(y);
@@ -58,7 +59,7 @@ export function kruskalWallis(y: Float64Array, groups: GroupCodes): KruskalWalli
   }
   const correction = 1 - tieTerm / (n * n * n - n);
   if (!(correction > 0)) {
-    throw new StatsInputError('all values are equal, so there is nothing to rank');
+    throw new StatsInputError(statsMsg.allTied());
   }
   const statistic = ((12 / (n * (n + 1))) * between) / correction;
   const df = used - 1;

@@ -8,6 +8,7 @@ import { type GroupCodes, StatsInputError, levelCounts } from '../summary/groups
 import { averageRanks } from './rank.ts';
 import { rankSumExactP } from './exact.ts';
 import type { RankPMethod } from './signed-rank.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** Largest size of either group for which the exact distribution is used. */
 export const RANK_SUM_EXACT_MAX = 50;
@@ -54,9 +55,7 @@ export interface RankSumResult {
  */
 export function rankSum(y: Float64Array, groups: GroupCodes): RankSumResult {
   if (groups.levels.length !== 2) {
-    throw new StatsInputError(
-      `the rank sum test compares exactly two groups, got ${groups.levels.length}`,
-    );
+    throw new StatsInputError(statsMsg.rankSumTwoGroups(groups.levels.length));
   }
   const counts = levelCounts(y.length, groups);
   const n1 = counts[0]!;
@@ -64,9 +63,7 @@ export function rankSum(y: Float64Array, groups: GroupCodes): RankSumResult {
   const first = groups.levels[0]!;
   const second = groups.levels[1]!;
   if (n1 < 1 || n2 < 1) {
-    throw new StatsInputError(
-      `each group needs at least one value; "${first}" has ${n1}, "${second}" has ${n2}`,
-    );
+    throw new StatsInputError(statsMsg.emptyGroup(first, n1, second, n2));
   }
   const { ranks, tieTerm, tieGroups } = averageRanks(y);
   const codes = groups.codes;
@@ -78,7 +75,7 @@ export function rankSum(y: Float64Array, groups: GroupCodes): RankSumResult {
   const centre = (n1 * n2) / 2;
   const variance = ((n1 * n2) / 12) * (total + 1 - tieTerm / (total * (total - 1)));
   if (!(variance > 0)) {
-    throw new StatsInputError('all values are equal, so there is nothing to rank');
+    throw new StatsInputError(statsMsg.allTied());
   }
   const dev = Math.max(0, Math.abs(u - centre) - 0.5);
   const z = (Math.sign(u - centre) * dev) / Math.sqrt(variance);

@@ -7,6 +7,7 @@ import { normalUpper } from '../distributions/index.ts';
 import { StatsInputError, checkSameLength } from '../summary/groups.ts';
 import { averageRanks } from './rank.ts';
 import { signedRankExactP } from './exact.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** How a rank test's p-value was obtained. */
 export type RankPMethod = 'exact' | 'normal';
@@ -70,9 +71,7 @@ export function signedRank(a: Float64Array, b: Float64Array): SignedRankResult {
   }
   const zeros = len - n;
   if (n === 0) {
-    throw new StatsInputError(
-      `every one of the ${len} pairs has a difference of zero; the signed rank test needs at least one that is not`,
-    );
+    throw new StatsInputError(statsMsg.allDifferencesZero(len));
   }
   const { ranks, tieTerm, tieGroups } = averageRanks(abs.subarray(0, n), tol);
   let v = 0;

@@ -2,6 +2,7 @@
  * The shapes shared by every analysis in src/stats that takes a grouping, and the error that
  * an analysis throws when its input cannot be analysed.
  */
+import { statsMsg } from '../../messages/stats.ts';
 
 /**
  * A factor as the analyses see it: one integer code per observation (0 .. levels.length - 1)
@@ -34,16 +35,14 @@ export class StatsInputError extends Error {
 export function levelCounts(n: number, groups: GroupCodes, what = 'group'): Int32Array {
   const { codes, levels } = groups;
   if (codes.length !== n) {
-    throw new StatsInputError(
-      `the ${what} column has ${codes.length} values but the data have ${n}`,
-    );
+    throw new StatsInputError(statsMsg.groupLength(what, codes.length, n));
   }
   const k = levels.length;
   const counts = new Int32Array(k);
   for (let i = 0; i < n; i++) {
     const c = codes[i]!;
     if (c < 0 || c >= k || !Number.isInteger(c)) {
-      throw new StatsInputError(`the ${what} code ${c} at position ${i + 1} names no level`);
+      throw new StatsInputError(statsMsg.codeNamesNoLevel(what, c, i + 1));
     }
     counts[c]!++;
   }
@@ -57,8 +56,6 @@ export function levelCounts(n: number, groups: GroupCodes, what = 'group'): Int3
  */
 export function checkSameLength(a: Float64Array, b: Float64Array, what = 'the two samples'): void {
   if (a.length !== b.length) {
-    throw new StatsInputError(
-      `${what} must have the same length (one value each per pair), got ${a.length} and ${b.length}`,
-    );
+    throw new StatsInputError(statsMsg.pairLengths(what, a.length, b.length));
   }
 }

@@ -9,6 +9,7 @@
  * The American Statistician 50, 361-365.
  */
 import { StatsInputError } from './groups.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** A sorted copy (ascending); NaN values, if any, end up last. */
 export function sortedCopy(x: Float64Array): Float64Array {
@@ -54,6 +55,6 @@ export function median(x: Float64Array): number {
 
 function checkProbability(p: number): void {
   if (!(p >= 0 && p <= 1)) {
-    throw new StatsInputError(`a quantile needs a probability from 0 to 1, got ${p}`);
+    throw new StatsInputError(statsMsg.quantileProbability(p));
   }
 }

@@ -7,6 +7,7 @@ import { tInterval } from '../distributions/index.ts';
 import { StatsInputError, checkSameLength } from '../summary/groups.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
 import { checkLevel } from './two-sample.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** The result of {@link paired}. */
 export interface PairedResult {
@@ -42,7 +43,7 @@ export function paired(a: Float64Array, b: Float64Array, level = 0.95): PairedRe
   checkLevel(level);
   checkSameLength(a, b);
   const n = a.length;
-  if (n < 2) throw new StatsInputError(`a paired comparison needs at least two pairs, got ${n}`);
+  if (n < 2) throw new StatsInputError(statsMsg.pairedTooFew(n));
   const d = new Float64Array(n);
   for (let i = 0; i < n; i++) d[i] = a[i]! - b[i]!;
   const estimate = mean(d);

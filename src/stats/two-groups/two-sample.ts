@@ -10,6 +10,7 @@ import { tInterval } from '../distributions/index.ts';
 import { type GroupCodes, StatsInputError } from '../summary/groups.ts';
 import { splitByLevel } from '../summary/group-stats.ts';
 import { mean, sumSquaredDeviations } from '../summary/moments.ts';
+import { statsMsg } from '../../messages/stats.ts';
 
 /** The result of {@link twoSample}. The difference is always first level minus second. */
 export interface TwoSampleResult {
@@ -74,9 +75,7 @@ export function twoSample(
 ): TwoSampleResult {
   checkLevel(level);
   if (groups.levels.length !== 2) {
-    throw new StatsInputError(
-      `a two-group comparison needs exactly two groups, got ${groups.levels.length}`,
-    );
+    throw new StatsInputError(statsMsg.twoGroupsOnly(groups.levels.length));
   }
   const { values, start } = splitByLevel(y, groups);
   const a = values.subarray(start[0]!, start[1]!);
@@ -86,18 +85,13 @@ export function twoSample(
   const name1 = groups.levels[0]!;
   const name2 = groups.levels[1]!;
   if (n1 < 1 || n2 < 1) {
-    throw new StatsInputError(
-      `each group needs at least one value; "${name1}" has ${n1}, "${name2}" has ${n2}`,
-    );
+    throw new StatsInputError(statsMsg.emptyGroup(name1, n1, name2, n2));
   }
   if (equalVariance && n1 + n2 < 3) {
-    throw new StatsInputError('the pooled comparison needs at least three values in all');
+    throw new StatsInputError(statsMsg.pooledTooFew());
   }
   if (!equalVariance && (n1 < 2 || n2 < 2)) {
-    throw new StatsInputError(
-      `the separate-variance comparison needs at least two values in each group; ` +
-        `"${name1}" has ${n1}, "${name2}" has ${n2}`,
-    );
+    throw new StatsInputError(statsMsg.separateTooFew(name1, n1, name2, n2));
   }
   const m1 = mean(a);
   const m2 = mean(b);
@@ -139,6 +133,6 @@ export function twoSample(
 /** @throws StatsInputError unless 0 < level < 1 */
 export function checkLevel(level: number): void {
   if (!(level > 0 && level < 1)) {
-    throw new StatsInputError(`a confidence level must lie between 0 and 1, got ${level}`);
+    throw new StatsInputError(statsMsg.badLevel(level));
   }
 }

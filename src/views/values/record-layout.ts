@@ -77,7 +77,7 @@ export interface FitLayout {
   readonly folded: readonly ValueLine[];
 }
 
-// Words for the fields the contract names (language.md section 8); other fields are shown
+// Words for the fields the contract names (docs/language.md section 8); other fields are shown
 // under their own name with underscores read as spaces.
 const LABELS: ReadonlyMap<string, string> = new Map([
   ['mse', 'error mean square'],
@@ -272,7 +272,7 @@ function sentence(s: string): string {
 const FIT_PLACED: ReadonlySet<string> = new Set(['design', 'table', 'means', 'balanced', 'notes', 'ss_method']);
 
 /**
- * The layout of a fit record (tag 'fit', language.md section 8). Fields the contract does
+ * The layout of a fit record (tag 'fit', docs/language.md section 8). Fields the contract does
  * not name are not lost: scalars join the labelled lines, everything else is shown under
  * its name.
  */

@@ -11,7 +11,7 @@ import {
 } from '../../../cells/table/grid-checks.ts';
 import { gridMsg } from '../../../cells/table/grid-messages.ts';
 import { columnTypeOf } from '../../../cells/table/model.ts';
-import { msg } from '../../../src/lang/messages.ts';
+import { msg } from '../../../src/messages/language.ts';
 
 describe('the mostly-numbers rule', () => {
   // common practice, no source: at least half of the non-empty fields are numbers

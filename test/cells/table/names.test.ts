@@ -2,7 +2,7 @@
  * Column names that look alike on every screen: a warning on the table cell.
  */
 import { describe, expect, it } from 'vitest';
-import { msg } from '../../../src/lang/messages.ts';
+import { msg } from '../../../src/messages/language.ts';
 import { lookalikeNames } from '../../../cells/table/model.ts';
 import { doc, run } from '../../helpers.ts';
 

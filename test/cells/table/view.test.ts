@@ -6,7 +6,7 @@ import { gridMsg } from '../../../cells/table/grid-messages.ts';
 import { tableFromGrid } from '../../../cells/table/model.ts';
 import { parseCsv } from '../../../src/doc/csv.ts';
 import type { Cell } from '../../../src/doc/document.ts';
-import { msg } from '../../../src/lang/messages.ts';
+import { msg } from '../../../src/messages/language.ts';
 
 const TREES = 'row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n2,open,40.1\n\n';
 

@@ -11,6 +11,7 @@ import { shiftDecimals } from '../../../src/stats/decimal/index.ts';
 import { blocked, DesignError, factorial, oneWay } from '../../../src/stats/designs/index.ts';
 import { denseDesign } from '../../../src/stats/linear/index.ts';
 import { expectAbsolute, expectNear, expectRelative, factorOf, plants, seeded, subset, vascular } from '../designs/support.ts';
+import { designMsg } from '../../../src/messages/designs.ts';
 
 describe('pairwise: Tukey on Dobson\'s plant weights', () => {
   const { y, group } = plants();
@@ -18,7 +19,7 @@ describe('pairwise: Tukey on Dobson\'s plant weights', () => {
   const res = pairwise(fit, 'tukey', 0.95);
 
   it('reproduces the published intervals and adjusted p-values', () => {
-    // source: references.md 3, Dobson (1983) plant weights, Tukey HSD at 95% confirmed with
+    // source: docs/references.md section 3, Dobson (1983) plant weights, Tukey HSD at 95% confirmed with
     // scipy 1.10.1 (stats.tukey_hsd): trt2 - trt1 = 0.865 (0.174 to 1.556), p = 0.012;
     // ctrl - trt1 = 0.371 (-0.320 to 1.062), p = 0.391.
     const t = res.table;
@@ -38,7 +39,7 @@ describe('pairwise: Tukey on Dobson\'s plant weights', () => {
   });
 
   it('uses the studentized range critical value q(level; k, df) / sqrt 2', () => {
-    // source: references.md 5 (handbook table, values from scipy 1.10.1): studentized range,
+    // source: docs/references.md section 5 (handbook table, values from scipy 1.10.1): studentized range,
     // 3 groups, 12 df, 5%: 3.772929. Three groups of five give 12 error df.
     const u = seeded(3);
     const labels = Array.from({ length: 15 }, (_, i) => `g${Math.floor(i / 5)}`);
@@ -157,10 +158,10 @@ describe('comparison errors', () => {
   const { y, group } = plants();
   const fit = oneWay(y, group);
   it('name the problem', () => {
-    expect(() => difference(fit, 'ctrl', 'trt9')).toThrow(/"group" has no level "trt9"; its levels are "ctrl", "trt1", "trt2"/);
-    expect(() => difference(fit, 'ctrl', 'ctrl')).toThrow(/two different levels/);
-    expect(() => pairwise(fit, 'scheffe')).toThrow(/unknown comparison method "scheffe"/);
-    expect(() => pairwise(fit, 'tukey', 0)).toThrow(/strictly between 0 and 1/);
+    expect(() => difference(fit, 'ctrl', 'trt9')).toThrow(designMsg.unknownLevel('group', 'trt9', ['ctrl', 'trt1', 'trt2']));
+    expect(() => difference(fit, 'ctrl', 'ctrl')).toThrow(designMsg.sameLevel('ctrl'));
+    expect(() => pairwise(fit, 'scheffe')).toThrow(designMsg.unknownMethod('scheffe'));
+    expect(() => pairwise(fit, 'tukey', 0)).toThrow(designMsg.badLevel(0));
     expect(() => difference(fit, 'ctrl', 'trt1', 0.95, 'block')).toThrow(/no factor "block"/);
   });
   it('refuse a fit without error degrees of freedom', () => {

@@ -7,6 +7,7 @@ import { shiftDecimals } from '../../../src/stats/decimal/index.ts';
 import { blocked, DesignError } from '../../../src/stats/designs/index.ts';
 import { fitFactorModel, leastSquaresMeans } from '../../../src/stats/linear/index.ts';
 import { expectAbsolute, expectArrayNear, expectNear, expectRelative, factorOf, normals, seeded, subset, vascular, VASCULAR } from './support.ts';
+import { designMsg } from '../../../src/messages/designs.ts';
 
 describe('blocked: vascular-graft example', () => {
   const { y, pressure, batch } = vascular();
@@ -14,7 +15,7 @@ describe('blocked: vascular-graft example', () => {
 
   it('reproduces the published analysis of variance', () => {
     // source: Montgomery, Design and Analysis of Experiments, vascular-graft example
-    // (from memory, references.md 4): SS 178.17, 192.25, 109.89, 480.31; F = 8.11.
+    // (from memory, docs/references.md section 4): SS 178.17, 192.25, 109.89, 480.31; F = 8.11.
     expect(fit.table.source).toEqual(['pressure', 'batch', 'error', 'total']);
     expect(fit.table.df).toEqual([3, 5, 15, 23]);
     expectAbsolute(fit.table.ss[0]!, 178.17, 0.005, 'treatment SS');
@@ -22,7 +23,7 @@ describe('blocked: vascular-graft example', () => {
     expectAbsolute(fit.table.ss[2]!, 109.89, 0.005, 'error SS');
     expectAbsolute(fit.table.ss[3]!, 480.31, 0.005, 'total SS');
     expectAbsolute(fit.table.f[0]!, 8.11, 0.005, 'F');
-    // source: statsmodels 0.13.5 (ols + anova_lm), references.md 4
+    // source: statsmodels 0.13.5 (ols + anova_lm), docs/references.md section 4
     expectRelative(fit.mse, 7.32575, 1e-6, 'error mean square');
     expectRelative(fit.table.p[0]!, 0.001916, 5e-4, 'p');
     expect(fit.design).toBe('randomized complete block');
@@ -30,7 +31,7 @@ describe('blocked: vascular-graft example', () => {
   });
 
   it('gives the relative efficiency before and after the degrees-of-freedom correction', () => {
-    // source: references.md 4: 1.9236 before, 1.8727 after ((dfb+1)(dfr+3))/((dfb+3)(dfr+1)),
+    // source: docs/references.md section 4: 1.9236 before, 1.8727 after ((dfb+1)(dfr+3))/((dfb+3)(dfr+1)),
     // dfb = 15, dfr = 20.
     expectAbsolute(fit.relative_efficiency_uncorrected!, 1.9236, 5e-5, 'uncorrected');
     expectAbsolute(fit.relative_efficiency!, 1.8727, 5e-5, 'corrected');
@@ -42,7 +43,7 @@ describe('blocked: vascular-graft example', () => {
   });
 
   it("gives Tukey's one-degree-of-freedom test for nonadditivity", () => {
-    // source: references.md 4: SS 0.19686, F = 0.02513 on 1 and 14 df, p = 0.8763
+    // source: docs/references.md section 4: SS 0.19686, F = 0.02513 on 1 and 14 df, p = 0.8763
     const na = fit.nonadditivity!;
     expectAbsolute(na.ss, 0.19686, 5e-6, 'SS');
     expectAbsolute(na.f, 0.02513, 5e-6, 'F');
@@ -75,13 +76,13 @@ describe('blocked: a missing plot (8900 psi in batch 4)', () => {
   const fit = blocked(y, factors[0]!, factors[1]!);
 
   it('fits by least squares: error SS 90.6116 on 14 df, adjusted treatment SS 172.2159, F 8.869', () => {
-    // source: statsmodels 0.13.5 (references.md 4 and the brief's missing-plot check)
+    // source: statsmodels 0.13.5 (docs/references.md section 4 and the brief's missing-plot check)
     expect(fit.balanced).toBe(false);
     expect(fit.df_error).toBe(14);
     expectAbsolute(fit.table.ss[2]!, 90.6116, 5e-5, 'error SS');
     expectAbsolute(fit.table.ss[0]!, 172.2159, 5e-5, 'adjusted treatment SS');
     expectAbsolute(fit.table.f[0]!, 8.869, 5e-4, 'F');
-    expect(fit.notes).toContain('block 4 has no plot for treatment 8900');
+    expect(fit.notes).toContain(designMsg.missingPlot('block', '4', '8900'));
   });
 
   it("agrees with Yates's missing-plot method, computed here from its formulas", () => {
@@ -186,15 +187,15 @@ describe('blocked: designs too broken to estimate', () => {
   });
   it('refuses a response that is not finite and codes out of range', () => {
     const bad = Float64Array.from(y, (v, i) => (i === 4 ? Infinity : v));
-    expect(() => blocked(bad, pressure, batch)).toThrow(/row 5 is not a finite number/);
+    expect(() => blocked(bad, pressure, batch)).toThrow(designMsg.notFinite(4));
     const codes = Int32Array.from(batch.codes, (c, i) => (i === 2 ? 9 : c));
     expect(() => blocked(y, pressure, { ...batch, codes })).toThrow(/level code 9 at row 3, but only 6 levels/);
-    expect(() => blocked(y.subarray(2), pressure, batch)).toThrow(/has 24 values but the response has 22/);
+    expect(() => blocked(y.subarray(2), pressure, batch)).toThrow(designMsg.lengthMismatch('treatment "pressure"', 24, 22));
   });
   it('drops a block whose plots are all missing, with a note', () => {
     const { y: y2, factors } = subset(y, [pressure, batch], (i) => i % 6 !== 2);
     const fit = blocked(y2, factors[0]!, factors[1]!);
-    expect(fit.notes).toContain('block "3" has no observations and is not counted');
+    expect(fit.notes).toContain(designMsg.emptyBlockDropped('3'));
     expect(fit.df_error).toBe(3 * 4);
     expect(fit.balanced).toBe(true);
   });

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { DesignError, latinSquare } from '../../../src/stats/designs/index.ts';
 import { fitFactorModel, leastSquaresMeans } from '../../../src/stats/linear/index.ts';
 import { expectAbsolute, expectArrayNear, expectRelative, factorOf, subset } from './support.ts';
+import { designMsg } from '../../../src/messages/designs.ts';
 
 // source: Montgomery, Design and Analysis of Experiments, rocket-propellant Latin square
 // (from memory): rows are batches of raw material, columns operators, letters formulations.
@@ -102,12 +103,12 @@ describe('latinSquare', () => {
   it('refuses what is not a Latin square', () => {
     const five = (name: string, k: number) => factorOf(name, Array.from({ length: 25 }, (_, i) => String(i % k)));
     expect(() => latinSquare(y, treatment, row, five('operator', 4))).toThrow(DesignError);
-    expect(() => latinSquare(y, treatment, row, five('operator', 4))).toThrow(/5 treatments, 5 rows and 4 columns/);
+    expect(() => latinSquare(y, treatment, row, five('operator', 4))).toThrow(designMsg.notSquare(5, 5, 4));
     const swapped = { ...treatment, codes: Int32Array.from(treatment.codes, (c, i) => (i === 0 ? treatment.codes[1]! : c)) };
     expect(() => latinSquare(y, swapped, row, column)).toThrow(/appears more than once in row "1"/);
     const { y: y3, factors: f3 } = subset(y, [treatment, row, column], (i) => row.codes[i] !== 4);
     expect(() => latinSquare(y3, f3[0]!, f3[1]!, f3[2]!)).toThrow(/row "5" has no observations/);
     const twice = { ...column, codes: Int32Array.from(column.codes, (c, i) => (i === 1 ? 0 : c)) };
-    expect(() => latinSquare(y, treatment, row, twice)).toThrow(/row "1" and column "1" hold more than one plot/);
+    expect(() => latinSquare(y, treatment, row, twice)).toThrow(designMsg.twoPlotsInCell('1', '1'));
   });
 });

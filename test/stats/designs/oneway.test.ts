@@ -7,12 +7,13 @@ import { describe, expect, it } from 'vitest';
 import { shiftDecimals } from '../../../src/stats/decimal/index.ts';
 import { DesignError, oneWay } from '../../../src/stats/designs/index.ts';
 import { expectAbsolute, expectArrayNear, expectNear, expectRelative, factorOf, normals, plants, PLANTS, seeded } from './support.ts';
+import { designMsg } from '../../../src/messages/designs.ts';
 
 describe('oneWay', () => {
   it("reproduces Dobson's plant weights", () => {
     const { y, group } = plants();
     const fit = oneWay(y, group);
-    // source: Dobson (1983), plant weights; values confirmed with scipy 1.10.1 (references.md 3)
+    // source: Dobson (1983), plant weights; values confirmed with scipy 1.10.1 (docs/references.md section 3)
     expect(fit.table.source).toEqual(['group', 'error', 'total']);
     expect(fit.table.df).toEqual([2, 27, 29]);
     expectAbsolute(fit.table.ss[0]!, 3.76634, 5e-6, 'between SS');
@@ -121,13 +122,13 @@ describe('oneWay', () => {
     expect(() => oneWay(y, withEmpty)).toThrow(/treatment "trt3" has no observations/);
     expect(() => oneWay(y, factorOf('g', new Array<string>(30).fill('x')))).toThrow(/at least 2 are needed/);
     expect(() => oneWay(y.subarray(1), group)).toThrow(/has 30 values but the response has 29/);
-    expect(() => oneWay(Float64Array.from([1, NaN, 3, 4]), factorOf('g', ['a', 'a', 'b', 'b']))).toThrow(/row 2 is not a finite number/);
-    expect(() => oneWay(Float64Array.from([1, 2]), factorOf('g', ['a', 'b']))).toThrow(/no degrees of freedom for error/);
-    expect(() => oneWay(y, group, { level: 1.5 })).toThrow(/strictly between 0 and 1/);
+    expect(() => oneWay(Float64Array.from([1, NaN, 3, 4]), factorOf('g', ['a', 'a', 'b', 'b']))).toThrow(designMsg.notFinite(1));
+    expect(() => oneWay(Float64Array.from([1, 2]), factorOf('g', ['a', 'b']))).toThrow(designMsg.tooFewObservations(2, 2));
+    expect(() => oneWay(y, group, { level: 1.5 })).toThrow(designMsg.badLevel(1.5));
   });
 
   it('echoes the rows dropped upstream into the notes', () => {
     const { y, group } = plants();
-    expect(oneWay(y, group, { dropped: 3 }).notes).toContain('3 rows were left out for missing values');
+    expect(oneWay(y, group, { dropped: 3 }).notes).toContain(designMsg.dropped(3));
   });
 });

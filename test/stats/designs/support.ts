@@ -86,7 +86,7 @@ export function normals(next: () => number): () => number {
 }
 
 // source: Montgomery, Design and Analysis of Experiments, vascular-graft example (from memory,
-// as given in references.md section 4): rows are extrusion pressures, columns batches 1-6.
+// as given in docs/references.md section 4): rows are extrusion pressures, columns batches 1-6.
 export const VASCULAR: ReadonlyArray<readonly [string, readonly number[]]> = [
   ['8500', [90.3, 89.2, 98.2, 93.9, 87.4, 97.9]],
   ['8700', [92.5, 89.5, 90.6, 94.7, 87.0, 95.8]],
@@ -110,7 +110,7 @@ export function vascular(): { y: Float64Array; pressure: Factor; batch: Factor }
 }
 
 // source: Dobson (1983), An Introduction to Statistical Modelling, plant weights (from memory,
-// as given in references.md section 3).
+// as given in docs/references.md section 3).
 export const PLANTS: ReadonlyArray<readonly [string, readonly number[]]> = [
   ['ctrl', [4.17, 5.58, 5.18, 6.11, 4.5, 4.61, 5.17, 4.53, 5.33, 5.14]],
   ['trt1', [4.81, 4.17, 4.41, 3.59, 5.87, 3.83, 6.03, 4.89, 4.32, 4.69]],

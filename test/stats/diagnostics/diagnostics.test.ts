@@ -33,16 +33,16 @@ function uniforms(seed: number): () => number {
   };
 }
 
-// source: Dobson (1983), plant weights (from memory; references.md section 3)
+// source: Dobson (1983), plant weights (from memory; docs/references.md section 3)
 const control = [4.17, 5.58, 5.18, 6.11, 4.5, 4.61, 5.17, 4.53, 5.33, 5.14];
 const trt1 = [4.81, 4.17, 4.41, 3.59, 5.87, 3.83, 6.03, 4.89, 4.32, 4.69];
 const trt2 = [6.31, 5.12, 5.54, 5.5, 5.37, 5.29, 4.92, 6.15, 5.8, 5.26];
-// source: Student (1908), sleep data (from memory; references.md section 2)
+// source: Student (1908), sleep data (from memory; docs/references.md section 2)
 const drug1 = [0.7, -1.6, -0.2, -1.2, -0.1, 3.4, 3.7, 0.8, 0.0, 2.0];
 const drug2 = [1.9, 0.8, 1.1, 0.1, -0.1, 4.4, 5.5, 1.6, 4.6, 3.4];
 
 describe('shapiroWilk (Royston 1995, AS R94)', () => {
-  // source: scipy 1.10.1 stats.shapiro, via references.md section 6 (asked: W to 1e-6, p to
+  // source: scipy 1.10.1 stats.shapiro, via docs/references.md section 6 (asked: W to 1e-6, p to
   // 1e-4). The p-values are checked to 1e-5, tighter than asked: the measured differences
   // are at most 2e-6 (scipy's routine works in single precision), and at 1e-4 a change of one
   // unit in the last digit of a published coefficient (3.7e-5 in p) would go unnoticed.
@@ -155,7 +155,7 @@ describe('brownForsythe', () => {
   };
 
   it('plant weights: the published statistic and p', () => {
-    // source: scipy 1.10.1 stats.levene(center='median'), via references.md section 6
+    // source: scipy 1.10.1 stats.levene(center='median'), via docs/references.md section 6
     const r = brownForsythe(y, groups);
     expectPrinted(r.f, 1.1191857, 7, 'F');
     expectPrinted(r.p, 0.3412266, 7, 'p');

@@ -112,7 +112,7 @@ describe('jstat 1.9.6 against the reference implementations', () => {
 });
 
 describe('handbook values', () => {
-  // source: references.md section 5 (handbook tables; values from scipy 1.10.1)
+  // source: docs/references.md section 5 (handbook tables; values from scipy 1.10.1)
   it('critical values', () => {
     expectPrinted(tQuantile(0.975, 18), 2.100922, 7, 't 18 df, 2.5% upper');
     expectPrinted(tCritical(0.95, 18), 2.100922, 7, 't 18 df, two-sided 95%');

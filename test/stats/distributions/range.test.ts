@@ -16,7 +16,7 @@ import { MAX_GROUPS, normalRange, normalRangeDirect, rangeTable } from '../../..
 import { expectPrinted, expectRel, jStat, relErr, Worst } from './helpers.ts';
 
 describe('handbook values', () => {
-  // source: references.md section 5 (handbook tables; values from scipy 1.10.1)
+  // source: docs/references.md section 5 (handbook tables; values from scipy 1.10.1)
   const rows: [number, number, number, number, number][] = [
     // groups, df, level, printed quantile, significant digits printed
     [3, 12, 0.95, 3.772929, 7],
@@ -38,7 +38,7 @@ describe('handbook values', () => {
   });
 
   it('upper tail, 3 groups, 12 df, q = 5', () => {
-    // source: references.md section 5
+    // source: docs/references.md section 5
     expectRel(rangeUpper(5, 3, 12), 0.010599582, 1e-6, 'range upper 3, 12, 5');
   });
 
@@ -51,12 +51,12 @@ describe('handbook values', () => {
     const simpson = tTailBySimpson(t, 60);
     expectRel(2 * simpson, tTwoSided(t, 60), 1e-10, 'Simpson against @stdlib t');
     expectRel(rangeUpper(12, 2, 60), 2 * simpson, 1e-10, 'range upper 2, 60, 12');
-    // references.md prints 7.3206996e-12 for this row; that value is 5.0e-4 above the exact
+    // docs/references.md section 5 prints 7.3206996e-12 for this row; that value is 5.0e-4 above the exact
     // identity (both checks above agree with each other to 1e-10), so it is reported here
     // rather than used.
     console.log(
       `range upper 2 groups, 60 df, q 12: ${rangeUpper(12, 2, 60)}; exact identity ${2 * simpson}; ` +
-        `references.md 7.3206996e-12 differs by ${relErr(7.3206996e-12, 2 * simpson).toExponential(2)}`,
+        `docs/references.md section 5: 7.3206996e-12 differs by ${relErr(7.3206996e-12, 2 * simpson).toExponential(2)}`,
     );
   });
 });
@@ -143,7 +143,7 @@ describe('the tabulated inner integral', () => {
   });
 
   it('agrees with jstat (an AS 190 style implementation) where jstat is accurate', () => {
-    // source: jstat 1.9.6 jStat.tukey.cdf; libraries.md measured its absolute error at about
+    // source: jstat 1.9.6 jStat.tukey.cdf; docs/libraries.md section 4 measured its absolute error at about
     // 1e-8 for df >= 10 and far worse below, which the printed table shows
     const w = new Worst();
     for (const k of [2, 3, 5, 10, 20]) {

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { chi2Quantile, chi2Upper } from '../../../src/stats/distributions/index.ts';
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
 import { Draws, SplitMix64, drawBlocks, drawCompletelyRandom, drawLatin, permutation } from '../../../src/stats/planning/index.ts';
+import { planningMsg } from '../../../src/messages/planning.ts';
 
 const names = (k: number): string[] => Array.from({ length: k }, (_, i) => `T${i + 1}`);
 
@@ -237,18 +238,18 @@ describe('whole numbers below a bound, without modulo bias', () => {
 
 describe('bad input is refused in plain words', () => {
   it.each([
-    [() => drawBlocks(['a'], 2, 1), /at least 2 treatments/],
-    [() => drawBlocks([], 2, 1), /at least 2 treatments; none/],
-    [() => drawBlocks(['a', 'a'], 2, 1), /treatment "a" is named twice/],
-    [() => drawBlocks(['a', ' '], 2, 1), /treatment 2 is empty/],
-    [() => drawBlocks(['a', 'b'], 0, 1), /blocks must be a whole number of at least 1 \(got 0\)/],
-    [() => drawBlocks(['a', 'b'], 2.5, 1), /blocks must be a whole number of at least 1 \(got 2.5\)/],
-    [() => drawCompletelyRandom(['a', 'b'], -1, 1), /replicates must be a whole number/],
-    [() => drawBlocks(['a', 'b'], 2, 1.5), /seed must be a whole number from 0 to 4294967295 \(got 1.5\)/],
-    [() => drawBlocks(['a', 'b'], 2, -1), /seed must be a whole number/],
-    [() => drawBlocks(['a', 'b'], 2, 2 ** 32), /seed must be a whole number/],
-    [() => drawBlocks(['a', 'b'], 500_001, 1), /1,000,002 plots, more than the limit of 1,000,000/],
-    [() => drawLatin(names(1001), 1), /1,002,001 plots/],
+    [() => drawBlocks(['a'], 2, 1), planningMsg.fewTreatments(1)],
+    [() => drawBlocks([], 2, 1), planningMsg.fewTreatments(0)],
+    [() => drawBlocks(['a', 'a'], 2, 1), planningMsg.duplicateTreatment('a')],
+    [() => drawBlocks(['a', ' '], 2, 1), planningMsg.emptyTreatment(1)],
+    [() => drawBlocks(['a', 'b'], 0, 1), planningMsg.countNotWhole('blocks', 0, 1)],
+    [() => drawBlocks(['a', 'b'], 2.5, 1), planningMsg.countNotWhole('blocks', 2.5, 1)],
+    [() => drawCompletelyRandom(['a', 'b'], -1, 1), planningMsg.countNotWhole('replicates', -1, 1)],
+    [() => drawBlocks(['a', 'b'], 2, 1.5), planningMsg.seedNotWhole(1.5)],
+    [() => drawBlocks(['a', 'b'], 2, -1), planningMsg.seedNotWhole(-1)],
+    [() => drawBlocks(['a', 'b'], 2, 2 ** 32), planningMsg.seedNotWhole(2 ** 32)],
+    [() => drawBlocks(['a', 'b'], 500_001, 1), planningMsg.tooManyPlots(1_000_002)],
+    [() => drawLatin(names(1001), 1), planningMsg.tooManyPlots(1_002_001)],
   ] as const)('%#', (f, message) => {
     expect(f).toThrow(message);
   });

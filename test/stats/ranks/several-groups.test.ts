@@ -3,9 +3,10 @@ import kruskalTest from '@stdlib/stats-kruskal-test';
 import { kruskalWallis, friedman } from '../../../src/stats/ranks/index.ts';
 import { StatsInputError } from '../../../src/stats/summary/index.ts';
 import { F, expectPrinted, expectRel, uniforms } from './helpers.ts';
+import { statsMsg } from '../../../src/messages/stats.ts';
 
 // source: Dobson (1983), An Introduction to Statistical Modelling, plant weights
-// (from memory; references.md section 3)
+// (from memory; docs/references.md section 3)
 const control = [4.17, 5.58, 5.18, 6.11, 4.5, 4.61, 5.17, 4.53, 5.33, 5.14];
 const trt1 = [4.81, 4.17, 4.41, 3.59, 5.87, 3.83, 6.03, 4.89, 4.32, 4.69];
 const trt2 = [6.31, 5.12, 5.54, 5.5, 5.37, 5.29, 4.92, 6.15, 5.8, 5.26];
@@ -16,7 +17,7 @@ const plantGroups = {
 };
 
 // source: Montgomery, Design and Analysis of Experiments, vascular-graft example
-// (from memory; references.md section 4): rows are pressures, columns resin batches 1-6.
+// (from memory; docs/references.md section 4): rows are pressures, columns resin batches 1-6.
 const graft = [
   [90.3, 89.2, 98.2, 93.9, 87.4, 97.9],
   [92.5, 89.5, 90.6, 94.7, 87.0, 95.8],
@@ -39,7 +40,7 @@ function graftLayout() {
 
 describe('kruskalWallis', () => {
   it('plant weights: the published tie-corrected H and p', () => {
-    // source: scipy 1.10.1 stats.kruskal, via references.md section 6
+    // source: scipy 1.10.1 stats.kruskal, via docs/references.md section 6
     const r = kruskalWallis(plants, plantGroups);
     expectPrinted(r.statistic, 7.9882287, 7, 'H');
     expectPrinted(r.p, 0.0184238, 7, 'p');
@@ -101,7 +102,7 @@ describe('kruskalWallis', () => {
 
 describe('friedman', () => {
   it('vascular-graft blocks: the published tie-corrected statistic and p', () => {
-    // source: scipy 1.10.1 stats.friedmanchisquare, via references.md section 6
+    // source: scipy 1.10.1 stats.friedmanchisquare, via docs/references.md section 6
     const { y, treatment, block } = graftLayout();
     const r = friedman(y, treatment, block);
     expectPrinted(r.statistic, 6.4576271, 7, 'statistic');
@@ -178,7 +179,7 @@ describe('friedman', () => {
         { codes: Int32Array.from(keep, (i) => treatment.codes[i]!), levels: treatment.levels },
         { codes: Int32Array.from(keep, (i) => block.codes[i]!), levels: block.levels },
       ),
-    ).toThrow(/block "2" has no value for treatment "8700"/);
+    ).toThrow(statsMsg.friedmanMissing('2', '8700'));
     const twice = Int32Array.from(block.codes);
     twice[1] = 0; // second observation of 8500 moved into batch 1
     expect(() => friedman(y, treatment, { codes: twice, levels: block.levels })).toThrow(
@@ -189,6 +190,6 @@ describe('friedman', () => {
         codes: Int32Array.from([0, 0, 1, 1]),
         levels: ['p', 'q'],
       }),
-    ).toThrow(/nothing to rank/);
+    ).toThrow(statsMsg.blocksAllTied());
   });
 });

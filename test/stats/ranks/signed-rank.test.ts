@@ -10,7 +10,7 @@ import {
 import { StatsInputError } from '../../../src/stats/summary/index.ts';
 import { F, expectRel, twoSidedFromNull, uniforms } from './helpers.ts';
 
-// source: Student (1908), Biometrika 6 (from memory; references.md section 2)
+// source: Student (1908), Biometrika 6 (from memory; docs/references.md section 2)
 const drug1 = [0.7, -1.6, -0.2, -1.2, -0.1, 3.4, 3.7, 0.8, 0.0, 2.0];
 const drug2 = [1.9, 0.8, 1.1, 0.1, -0.1, 4.4, 5.5, 1.6, 4.6, 3.4];
 

@@ -229,7 +229,7 @@ describe('groupStats', () => {
     expectRel(g.mean[0]!, 5.032, 1e-14);
     expectRel(g.mean[1]!, 4.661, 1e-14);
     expectRel(g.mean[2]!, 5.526, 1e-14);
-    // source: Dobson (1983) via references.md section 3: within SS 10.49209 (df 27) and
+    // source: Dobson (1983) via docs/references.md section 3: within SS 10.49209 (df 27) and
     // between SS 3.76634 (df 2); the pooled variance weights each group's variance by its
     // degrees of freedom (common practice, no source).
     let within = 0;

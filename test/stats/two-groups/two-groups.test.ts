@@ -3,6 +3,7 @@ import ttest from '@stdlib/stats-ttest';
 import ttest2 from '@stdlib/stats-ttest2';
 import { twoSample, paired } from '../../../src/stats/two-groups/index.ts';
 import { StatsInputError } from '../../../src/stats/summary/index.ts';
+import { statsMsg } from '../../../src/messages/stats.ts';
 
 const F = (a: readonly number[]): Float64Array => Float64Array.from(a);
 
@@ -45,7 +46,7 @@ const byDrug = {
 
 describe('paired, on the sleep data', () => {
   it('reproduces every published figure', () => {
-    // source: references.md section 2 (Student 1908; from memory, confirmed with scipy 1.10.1)
+    // source: docs/references.md section 2 (Student 1908; from memory, confirmed with scipy 1.10.1)
     const r = paired(F(drug1), F(drug2));
     expectPrinted(r.estimate, -1.58, 10);
     expectPrinted(r.sd, 1.22999548, 8);
@@ -72,7 +73,7 @@ describe('paired, on the sleep data', () => {
 
 describe('twoSample, on the sleep data treated as unpaired', () => {
   it('pooled form reproduces the published figures', () => {
-    // source: references.md section 2 (scipy 1.10.1 stats.ttest_ind, equal_var=True)
+    // source: docs/references.md section 2 (scipy 1.10.1 stats.ttest_ind, equal_var=True)
     const r = twoSample(stacked, byDrug, 0.95, true);
     expectPrinted(r.estimate, -1.58, 10);
     expectPrinted(r.t, -1.8608135, 7);
@@ -93,7 +94,7 @@ describe('twoSample, on the sleep data treated as unpaired', () => {
   });
 
   it('Welch form reproduces the published figures', () => {
-    // source: references.md section 2 (scipy 1.10.1 stats.ttest_ind, equal_var=False)
+    // source: docs/references.md section 2 (scipy 1.10.1 stats.ttest_ind, equal_var=False)
     const r = twoSample(stacked, byDrug, 0.95, false);
     expectPrinted(r.t, -1.8608135, 7);
     expectPrinted(r.df, 17.776474, 6);
@@ -147,12 +148,12 @@ describe('input checks', () => {
     const three = { codes: Int32Array.from([0, 1, 2, 0]), levels: ['a', 'b', 'c'] };
     expect(() => twoSample(F([1, 2, 3, 4]), three)).toThrow(StatsInputError);
     const lonely = { codes: Int32Array.from([0, 0, 0]), levels: ['a', 'b'] };
-    expect(() => twoSample(F([1, 2, 3]), lonely)).toThrow(/at least one value/);
+    expect(() => twoSample(F([1, 2, 3]), lonely)).toThrow(statsMsg.emptyGroup('a', 3, 'b', 0));
     const oneEach = { codes: Int32Array.from([0, 1, 1]), levels: ['a', 'b'] };
-    expect(() => twoSample(F([1, 2, 3]), oneEach, 0.95, false)).toThrow(/at least two values/);
-    expect(() => twoSample(F([1, 2, 3]), oneEach, 1.5)).toThrow(/confidence level/);
+    expect(() => twoSample(F([1, 2, 3]), oneEach, 0.95, false)).toThrow(statsMsg.separateTooFew('a', 1, 'b', 2));
+    expect(() => twoSample(F([1, 2, 3]), oneEach, 1.5)).toThrow(statsMsg.badLevel(1.5));
     expect(() => paired(F([1, 2]), F([1]))).toThrow(/same length/);
-    expect(() => paired(F([1]), F([2]))).toThrow(/at least two pairs/);
+    expect(() => paired(F([1]), F([2]))).toThrow(statsMsg.pairedTooFew(1));
   });
 
   it('pooled form works with a single value in one group', () => {

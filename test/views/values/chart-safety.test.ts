@@ -98,7 +98,7 @@ describe('a chart that asks for a file, drawn headless with the locked loader', 
   });
 
   // The check above means something only if the same spec does read the file when the
-  // loader is left open (libraries.md: vega's default loader reads local files in Node).
+  // loader is left open (docs/libraries.md section 3: vega's default loader reads local files in Node).
   it.runIf(existsSync('/etc/passwd'))('would have read the file with vega\'s default loader', async () => {
     const { rows } = await rowsLoaded(vega.loader({ mode: 'file' }));
     expect(rows).toBeGreaterThan(0);

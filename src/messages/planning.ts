@@ -3,11 +3,11 @@
  * words a power record uses to say what it assumed, the design warning on a fit).
  */
 
-import { countText, numberText } from '../../format/digits.ts';
+import { countText, numberText } from '../format/digits.ts';
 const q = (s: string): string => `"${s}"`;
 
 /** Plain-words messages of planning. */
-export const planningMessages = {
+export const planningMsg = {
   fewTreatments: (k: number) => `a plan needs at least 2 treatments; ${k === 0 ? 'none was' : 'only 1 was'} given`,
   duplicateTreatment: (name: string) => `treatment ${q(name)} is named twice; give every treatment its own name`,
   emptyTreatment: (at: number) => `treatment ${at + 1} is empty; give every treatment a name`,
@@ -41,4 +41,22 @@ export const planningMessages = {
   mapTooLarge: (plots: number, limit: number, part: string) =>
     `a map of ${plots} plots is too large to read; the limit is ${limit}. Draw it in parts, for example layout_chart(${part})`,
   notALayout: () => `this table was not drawn by random_layout or latin_layout, so there is no record of how it was drawn`,
+  // run sheets
+  measurementUnnamed: () => 'a measurement column needs a name.',
+  measurementTaken: (name: string) => `the layout already has a column ${q(name)}; name the measurement column differently.`,
+  // the comparison of data with a layout (`plot` names a plot, as "block 2, plot 3")
+  layoutHolds: (plots: number) => `All ${plots} plots of the layout are in the data with the treatment drawn for them.`,
+  plotDiffers: (plot: string, inData: string | null, inLayout: string) =>
+    `${plot} has ${inData ?? 'no treatment'} in the data but ${inLayout} in the layout`,
+  plotsMissingFromData: (k: number, shown: readonly string[]) =>
+    `${k} plot${k === 1 ? '' : 's'} of the layout missing from the data (${shown.join('; ')}${k > shown.length ? '; …' : ''})`,
+  plotsNotInLayout: (k: number, shown: readonly string[]) =>
+    `${k} plot${k === 1 ? '' : 's'} in the data not in the layout (${shown.join('; ')}${k > shown.length ? '; …' : ''})`,
+  differences: (parts: readonly string[]) => `${parts.join('; ')}.`,
+  // the power curve: its size axis and what it assumes
+  perGroup: () => 'plots per group',
+  blocks: () => 'blocks',
+  curveTwoGroups: (delta: number, sd: number, level: number) => `two groups, delta ${delta}, sd ${sd}, two-sided t test at level ${level}`,
+  curveBlocked: (treatments: number, delta: number, sd: number, level: number) =>
+    `${treatments} treatments in complete blocks, two of them delta ${delta} apart and the rest midway, sd ${sd}, F test at level ${level}`,
 };

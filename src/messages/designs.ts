@@ -3,11 +3,11 @@
  * wording is kept consistent and the tests can check against these builders.
  */
 
-import { numberText, pPhrase } from '../../format/digits.ts';
+import { numberText, pPhrase } from '../format/digits.ts';
 const q = (s: string): string => `"${s}"`;
 
 /** Plain-words messages (errors and notes). */
-export const messages = {
+export const designMsg = {
   lengthMismatch: (what: string, got: number, n: number) =>
     `${what} has ${got} values but the response has ${n}`,
   badCode: (what: string, code: number, at: number, levels: number) =>

@@ -3,23 +3,7 @@
  * catalogue, so that wording changes in one place and tests can refer to these builders.
  * Messages are plain words: what is wrong, where, and what to do about it.
  */
-
-/** Shows a piece of source text in a message, shortened when long. */
-export function quote(text: string, max = 40): string {
-  const one = text.replace(/\s+/g, ' ');
-  return one.length > max ? `"${one.slice(0, max - 1)}…"` : `"${one}"`;
-}
-
-/** Joins words as "a, b and c". */
-export function listWords(words: readonly string[], conj = 'and'): string {
-  if (words.length <= 1) return words.join('');
-  return `${words.slice(0, -1).join(', ')} ${conj} ${words[words.length - 1]}`;
-}
-
-/** "1 thing" / "2 things". */
-export function plural(n: number, one: string, many = `${one}s`): string {
-  return `${n.toLocaleString('en-US')} ${n === 1 ? one : many}`;
-}
+import { plural, quote } from './words.ts';
 
 export const msg = {
   // ---- lexer ---------------------------------------------------------------------------
