@@ -19,8 +19,9 @@ export function oneLine(field: string): string {
 }
 
 /**
- * Column widths in characters, from the names and a sample of fields (the first rows and
- * rows spread over the rest), so that a table of any length is measured in the same time.
+ * Column widths in characters, from the names and a sample of fields (the first rows, rows
+ * spread over the rest, and the last), so that a table of any length is measured in the same
+ * time.
  */
 export function columnWidths(src: FieldSource): number[] {
   const n = src.rowCount;
@@ -29,6 +30,8 @@ export function columnWidths(src: FieldSource): number[] {
   if (n > SAMPLE) {
     const step = (n - SAMPLE) / SAMPLE;
     for (let k = 0; k < SAMPLE; k++) picks.push(SAMPLE + Math.floor(k * step));
+    // the last row too: running numbers (plot, sample, batch) are widest there
+    picks.push(n - 1);
   }
   return src.header.map((name, c) => {
     let w = name.length + 1;

@@ -6,13 +6,17 @@
  * Rows have one fixed height. While the rows' full height fits in `maxHeight`, row i lies at
  * i * rowHeight. Past it, browsers refuse to make an element that tall (Chromium and WebKit
  * lay out in 1/64 px units in 32 bits, about 33.5 million px; Firefox stops near 17.9
- * million; from memory), so the scroll range is `maxHeight` and the scroll position maps to a
+ * million (from memory)), so the scroll range is `maxHeight` and the scroll position maps to a
  * row in proportion: scrolled to the end, the last row's bottom meets the viewport's bottom.
  * The drawn rows then sit where the viewport is, the (fractional) top row exactly at the
  * viewport's top, so every row from the first to the last can be reached and shown.
  */
 
-/** The scroll height a grid may use: below the caps of the browsers the page supports. */
+/**
+ * The scroll height a grid may use: below the caps above, with room to spare (a 1,000,000-row
+ * table of 26 px rows, 26 million px, is scaled in every browser, so the scaled path is the
+ * one the browser test exercises).
+ */
 export const MAX_SCROLL_HEIGHT = 15_000_000;
 
 /** Rows drawn beyond each edge of the viewport, so that a quick scroll shows no gap. */

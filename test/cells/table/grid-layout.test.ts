@@ -9,6 +9,13 @@ describe('column widths', () => {
     expect(w[1]).toBe('a_long_name_for_a_column'.length + 3);
     expect(w[2]).toBe(MAX_COLUMN_CH);
   });
+  it('measure the last row of a long table, where running numbers are widest', () => {
+    // plots numbered 1 to 1,000,000, read as the grid reads a body's fields
+    const counts = { filled: new Int32Array(2), numbers: new Int32Array(2), booleans: new Int32Array(2) };
+    const w = columnWidths({ header: ['plot', 'y'], rowCount: 1_000_000, field: (r, c) => (c === 0 ? String(r + 1) : '1'), counts });
+    // "1000000" is 7 characters, with 2 of room
+    expect(w[0]).toBe(9);
+  });
   it('shows a line break as a mark', () => {
     expect(oneLine('a\r\nb')).toBe('a ↵ b');
   });
