@@ -16,7 +16,7 @@
  * 3. Any other scale (lb/acre to kg/ha, psi to Pa) multiplies in floating point, one
  *    rounding; degF to degC, whose scale is 5/9, is converted by mathjs value by value.
  *
- * mathjs is loaded at the first conversion, never at start (see `unitLibrary`).
+ * mathjs is loaded at the first conversion, never at start (see `unitMath`).
  */
 import type { create, createUnitDependencies, FactoryFunctionMap, Unit, unitDependencies } from 'mathjs';
 import { UsageError } from '../lang/errors.ts';
@@ -75,7 +75,7 @@ function nodeUnitLibrary(): UnitLibrary | null {
  * - `ha`, the hectare under the symbol the SI brochure gives it (mathjs knows only `hectare`);
  * - `acre`, exactly 43,560 international square feet, 4046.8564224 m^2 (mathjs: 4046.86);
  * - `psi`, exactly one pound-force per square inch (mathjs's constant differs in the
- *   eleventh digit), and `kip`, exactly 1000 pound-force (mathjs: 4448.2216 N).
+ *   tenth digit), and `kip`, exactly 1000 pound-force (mathjs: 4448.2216 N).
  */
 function unitMath(): UnitMath {
   if (math !== null) return math;
@@ -87,6 +87,9 @@ function unitMath(): UnitMath {
   m.createUnit('acre', '4046.8564224 m^2', { override: true });
   m.createUnit('psi', '1 lbf / in^2', { override: true });
   m.createUnit('kip', '1000 lbf', { override: true });
+  // mathjs copies a unit to its plural when it starts, so the plurals are given again
+  m.createUnit('acres', '1 acre', { override: true });
+  m.createUnit('kips', '1 kip', { override: true });
   math = m;
   return m;
 }
