@@ -269,7 +269,7 @@ export const UNITS: readonly Builtin[] = [
     ],
     returns: 'a number, or a column of the same length',
     doc:
-      'Converts values from one unit to another with the unit system of mathjs: SI units with their prefixes, written as in the SI (kg, t, ha, m^2, MPa, N/mm^2, degC, K) and joined by / * and ^, and common non-SI units (lb, acre, psi, degF). ' +
+      'Converts values from one unit to another with the unit system of mathjs: SI units with their prefixes, written as in the SI (kg, t, ha, m^2, MPa, N/mm^2, degC, K) and joined by / * and ^, and common non-SI units (lb, acre, psi, degF). t is the tonne (1000 kg); ton is the short ton of 2000 lb. ' +
       'Units of different quantities are an error. When the factor is a short decimal (t/ha to kg/ha, MPa to Pa, lb to kg, degC to K or degF) each value is converted exactly on its decimal digits as it reads, and a table column keeps its typed digits through it; other factors (lb/acre to kg/ha, psi to Pa) multiply in floating point. ' +
       'A column whose header ends with its unit in parentheses needs only the unit to convert to, and the result is named with the new unit.',
     example: 'convert(trees["yield (t/ha)"], to: "kg/ha")',

@@ -86,6 +86,12 @@ describe('convert: units outside the SI', () => {
     expect(num('1', 'acres', 'm^2')).toBe(4046.8564224);
   });
 
+  it('the short ton, which is not the tonne', () => {
+    // source: NIST Special Publication 811 (2008), Appendix B.8: ton, short (2000 lb) = 9.071 847 E+02 kg (from memory)
+    expect(num('1', 'ton', 'kg')).toBe(907.18474);
+    expect(num('1', 'ton', 'lb')).toBe(2000);
+  });
+
   it('pressure in psi, force in kip', () => {
     // source: NIST Special Publication 811 (2008), Appendix B.8: pound-force per square inch = 6.894 757 E+03 Pa (from memory)
     const psi = num('1', 'psi', 'Pa');
