@@ -16,7 +16,7 @@
  * 3. Any other scale (lb/acre to kg/ha, psi to Pa) multiplies in floating point, one
  *    rounding; degF to degC, whose scale is 5/9, is converted by mathjs value by value.
  *
- * mathjs is loaded at the first conversion, never at start (see `unitLibrary`).
+ * mathjs is loaded at the first conversion, never at start (see `unitMath`).
  */
 import type { create, createUnitDependencies, FactoryFunctionMap, Unit, unitDependencies } from 'mathjs';
 import { UsageError } from '../lang/errors.ts';
@@ -75,7 +75,7 @@ function nodeUnitLibrary(): UnitLibrary | null {
  * - `ha`, the hectare under the symbol the SI brochure gives it (mathjs knows only `hectare`);
  * - `acre`, exactly 43,560 international square feet, 4046.8564224 m^2 (mathjs: 4046.86);
  * - `psi`, exactly one pound-force per square inch (mathjs's constant differs in the
- *   eleventh digit), and `kip`, exactly 1000 pound-force (mathjs: 4448.2216 N).
+ *   tenth digit), and `kip`, exactly 1000 pound-force (mathjs: 4448.2216 N).
  */
 function unitMath(): UnitMath {
   if (math !== null) return math;
@@ -87,6 +87,9 @@ function unitMath(): UnitMath {
   m.createUnit('acre', '4046.8564224 m^2', { override: true });
   m.createUnit('psi', '1 lbf / in^2', { override: true });
   m.createUnit('kip', '1000 lbf', { override: true });
+  // mathjs copies a unit to its plural when it starts, so the plurals are given again
+  m.createUnit('acres', '1 acre', { override: true });
+  m.createUnit('kips', '1 kip', { override: true });
   math = m;
   return m;
 }
@@ -266,7 +269,7 @@ export const UNITS: readonly Builtin[] = [
     ],
     returns: 'a number, or a column of the same length',
     doc:
-      'Converts values from one unit to another with the unit system of mathjs: SI units with their prefixes, written as in the SI (kg, t, ha, m^2, MPa, N/mm^2, degC, K) and joined by / * and ^, and common non-SI units (lb, acre, psi, degF). ' +
+      'Converts values from one unit to another with the unit system of mathjs: SI units with their prefixes, written as in the SI (kg, t, ha, m^2, MPa, N/mm^2, degC, K) and joined by / * and ^, and common non-SI units (lb, acre, psi, degF). t is the tonne (1000 kg); ton is the short ton of 2000 lb. ' +
       'Units of different quantities are an error. When the factor is a short decimal (t/ha to kg/ha, MPa to Pa, lb to kg, degC to K or degF) each value is converted exactly on its decimal digits as it reads, and a table column keeps its typed digits through it; other factors (lb/acre to kg/ha, psi to Pa) multiply in floating point. ' +
       'A column whose header ends with its unit in parentheses needs only the unit to convert to, and the result is named with the new unit.',
     example: 'convert(trees["yield (t/ha)"], to: "kg/ha")',

@@ -83,6 +83,13 @@ describe('convert: units outside the SI', () => {
     // international foot: 43560 * 0.3048^2 = 4046.8564224 m^2 exactly (SP 811 of 2008 lists the acre on the
     // U.S. survey foot, 4046.873 m^2; that foot was retired for new work at the end of 2022)
     expect(num('1', 'acre', 'm^2')).toBe(4046.8564224);
+    expect(num('1', 'acres', 'm^2')).toBe(4046.8564224);
+  });
+
+  it('the short ton, which is not the tonne', () => {
+    // source: NIST Special Publication 811 (2008), Appendix B.8: ton, short (2000 lb) = 9.071 847 E+02 kg (from memory)
+    expect(num('1', 'ton', 'kg')).toBe(907.18474);
+    expect(num('1', 'ton', 'lb')).toBe(2000);
   });
 
   it('pressure in psi, force in kip', () => {
@@ -95,6 +102,7 @@ describe('convert: units outside the SI', () => {
     // source: NIST Special Publication 811 (2008), Appendix B.8: kip (1000 lbf) = 4.448 222 E+03 N (from memory)
     expect(Math.abs(num('1', 'kip', 'N') - 4448.222)).toBeLessThan(0.0005);
     expect(num('1', 'kip', 'N')).toBe(4448.2216152605);
+    expect(num('1', 'kips', 'N')).toBe(4448.2216152605);
     expect(num('1', 'MPa', 'psi')).toBe(1e6 / 6894.757293168361);
   });
 
