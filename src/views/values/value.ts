@@ -251,6 +251,15 @@ export class FurrowValue extends LitElement {
         max-width: 100%;
         overflow-x: auto;
       }
+      /* narrow pages: column heads and pair names wrap before the table needs to scroll */
+      table.pairs-table thead th,
+      table.means thead th {
+        white-space: normal;
+      }
+      table.pairs-table tbody th {
+        white-space: normal;
+        min-width: 7rem;
+      }
       @media print {
         details > summary {
           list-style: none;
