@@ -199,7 +199,7 @@ export class FurrowValue extends LitElement {
       }
       dl.fields {
         display: grid;
-        grid-template-columns: minmax(0, max-content) minmax(0, 1fr);
+        grid-template-columns: minmax(0, max-content) minmax(0, max-content);
         max-width: 100%;
         column-gap: 1rem;
         row-gap: 0.15rem;
