@@ -97,6 +97,9 @@ export class FurrowValue extends LitElement {
       table.checks td {
         white-space: normal;
       }
+      table.checks td.verdict {
+        white-space: nowrap;
+      }
       table.checks td.numbers {
         color: var(--ink-soft);
         font-variant-numeric: tabular-nums;
