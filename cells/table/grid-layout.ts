@@ -11,6 +11,8 @@ export const ROW_HEIGHT = 26;
 /** Narrowest and widest column, in characters. */
 export const MIN_COLUMN_CH = 8;
 export const MAX_COLUMN_CH = 28;
+/** Width of one letter of a column name, in ch (bold proportional letters against figures). */
+export const HEADER_CH_PER_LETTER = 1.2;
 const SAMPLE = 400;
 
 /** How a field is shown on one line: line breaks as a visible mark. */
@@ -34,7 +36,9 @@ export function columnWidths(src: FieldSource): number[] {
     picks.push(n - 1);
   }
   return src.header.map((name, c) => {
-    let w = name.length + 1;
+    // a name is set in bold proportional type, about 1.2 times as wide per letter as the
+    // figures the ch unit measures (measured at 800 px: "compound" was cut at 1.0)
+    let w = Math.ceil(name.length * HEADER_CH_PER_LETTER) + 1;
     for (const r of picks) w = Math.max(w, oneLine(src.field(r, c)).length);
     return Math.max(MIN_COLUMN_CH, Math.min(MAX_COLUMN_CH, w + 2));
   });

@@ -97,7 +97,8 @@ export const tableCellStyles = css`
     width: fit-content;
     max-width: 100%;
     box-sizing: border-box;
-    max-height: min(70vh, 34rem);
+    /* at least 20 rows and the names whole, so a 20-row table shows its last row without scrolling */
+    max-height: max(min(70vh, 34rem), calc(20 * var(--row-h) + 3.6rem));
     overflow: auto;
     border: 1px solid var(--rule);
     border-radius: var(--radius);

@@ -22,6 +22,11 @@ export const appStyles = css`
     backdrop-filter: blur(4px);
     border-bottom: 1px solid var(--rule);
     font-size: 0.82rem;
+    flex-wrap: wrap;
+    row-gap: 0.3rem;
+  }
+  .bar button {
+    white-space: nowrap;
   }
   .mark {
     font-family: var(--font-text);
@@ -50,6 +55,12 @@ export const appStyles = css`
     margin-left: auto;
     color: var(--muted);
     font-size: 0.78rem;
+    /* one line: at 800 px the words give way (ellipsis) before the buttons wrap */
+    flex: 0 1 auto;
+    min-width: 0;
+    white-space: nowrap;
+    overflow: hidden;
+    text-overflow: ellipsis;
   }
   .banner {
     max-width: 58rem;
@@ -121,7 +132,8 @@ export const appStyles = css`
   }
   .cell {
     display: grid;
-    grid-template-columns: 7rem 1fr;
+    /* minmax(0, 1fr): a long value wraps or scrolls in its own box instead of widening the page */
+    grid-template-columns: 7rem minmax(0, 1fr);
     column-gap: 1rem;
     padding: 0.7rem 0;
     border-top: 1px solid var(--rule);
@@ -252,7 +264,7 @@ export const appStyles = css`
       margin-left: 0;
     }
     .cell {
-      grid-template-columns: 1fr;
+      grid-template-columns: minmax(0, 1fr);
     }
     .margin {
       text-align: left;

@@ -31,6 +31,12 @@ code, pre, .source, table, .scalars, .column, .size, .cut, .label, .fingerprint 
 .claim.fails .verdict { color: var(--bad); text-transform: uppercase; }
 .claims a { color: var(--accent); }
 .cell { margin: 1.2rem 0; break-inside: auto; }
+.result { border-left: 3px solid var(--rule); padding-left: 0.7rem; }
+.result .headline { font-family: Georgia, serif; font-size: 1.02rem; margin: 0 0 0.2rem; }
+.result .detail { font-size: 0.85rem; color: var(--muted); margin: 0 0 0.15rem; }
+.result table.checks th, .result table.checks td { text-align: left; }
+.result table.checks tr.flag td:nth-child(2) { color: var(--bad); font-weight: 600; }
+.result details.fields > summary { font-size: 0.8rem; color: var(--muted); cursor: pointer; }
 .label { font-size: 0.75rem; color: var(--muted); margin: 0 0 0.2rem; }
 .source { font-size: 0.82rem; color: var(--muted); background: #f6f7f9; padding: 0.3rem 0.5rem; margin: 0 0 0.4rem; white-space: pre-wrap; }
 table { border-collapse: collapse; font-size: 0.82rem; margin: 0.3rem 0 0.6rem; font-variant-numeric: tabular-nums; }

@@ -10,6 +10,7 @@ import { formatInline } from '../lang/format.ts';
 import { columnLength, isColumn, isRecord, isTable, missingCount, type Column, type RecordValue, type Table, type Value } from '../lang/values.ts';
 import { cellText, planColumn } from '../views/values/grid-model.ts';
 import { fitLayout, pairsLayout, recordLines, type ScalarLine } from '../views/values/record-layout.ts';
+import { recordSummary, type RecordSummary } from '../views/values/record-summary.ts';
 import { escapeHtml } from './sanitize.ts';
 
 /** A table longer than this is shown by its first REPORT_HEAD_ROWS rows and its count. */
@@ -112,9 +113,27 @@ function pairsHtml(r: RecordValue, charts: ChartSvgs): string {
   return `<div class="pairs-record">${parts.join('')}</div>`;
 }
 
+/** A result read in words (the page's own summary), with its fields under it. */
+function summaryHtml(s: RecordSummary, fields: string): string {
+  const parts = [`<p class="headline">${e(s.headline)}</p>`, ...s.details.map((d) => `<p class="detail">${e(d)}</p>`)];
+  if (s.checks.length > 0) {
+    const rows = s.checks.map((c) => `<tr class="${c.verdict}"><th>${e(c.check)}</th><td>${e(c.words)}</td><td>${e(c.numbers)}</td></tr>`).join('');
+    parts.push(`<table class="checks"><tbody>${rows}</tbody></table>`);
+  }
+  if (s.notes.length > 0) parts.push(`<ul class="notes">${s.notes.map((n) => `<li>${e(n)}</li>`).join('')}</ul>`);
+  parts.push(`<details class="fields" open><summary>Every field</summary>${fields}</details>`);
+  return `<div class="result">${parts.join('')}</div>`;
+}
+
 function recordHtml(r: RecordValue, charts: ChartSvgs, depth: number): string {
   if (r.tag === 'fit') return fitHtml(r, charts);
   if (r.tag === 'pairs') return pairsHtml(r, charts);
+  const summary = recordSummary(r);
+  if (summary !== null) return summaryHtml(summary, fieldsHtml(r, charts, depth));
+  return fieldsHtml(r, charts, depth);
+}
+
+function fieldsHtml(r: RecordValue, charts: ChartSvgs, depth: number): string {
   const scalars: ScalarLine[] = [];
   const rest: string[] = [];
   for (const l of recordLines(r)) {

@@ -63,6 +63,15 @@ export class FurrowChart extends LitElement {
         min-height: 2rem;
         overflow-x: auto;
       }
+      /* a chart wider than the column is drawn smaller rather than cut: the SVG keeps its
+         proportions (it carries its own viewBox) */
+      .holder .vega-embed {
+        max-width: 100%;
+      }
+      .holder svg {
+        max-width: 100%;
+        height: auto;
+      }
       .holder.loading {
         min-height: 12rem;
         background: repeating-linear-gradient(135deg, transparent 0 10px, var(--rule) 10px 11px);

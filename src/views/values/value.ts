@@ -97,6 +97,9 @@ export class FurrowValue extends LitElement {
       table.checks td {
         white-space: normal;
       }
+      table.checks td.verdict {
+        white-space: nowrap;
+      }
       table.checks td.numbers {
         color: var(--ink-soft);
         font-variant-numeric: tabular-nums;
@@ -199,7 +202,7 @@ export class FurrowValue extends LitElement {
       }
       dl.fields {
         display: grid;
-        grid-template-columns: minmax(0, max-content) minmax(0, 1fr);
+        grid-template-columns: minmax(0, max-content) minmax(0, max-content);
         max-width: 100%;
         column-gap: 1rem;
         row-gap: 0.15rem;
@@ -250,6 +253,15 @@ export class FurrowValue extends LitElement {
       .wide {
         max-width: 100%;
         overflow-x: auto;
+      }
+      /* narrow pages: column heads and pair names wrap before the table needs to scroll */
+      table.pairs-table thead th,
+      table.means thead th {
+        white-space: normal;
+      }
+      table.pairs-table tbody th {
+        white-space: normal;
+        min-width: 7rem;
       }
       @media print {
         details > summary {

@@ -4,9 +4,10 @@ import { MAX_COLUMN_CH, MIN_COLUMN_CH, columnWidths, oneLine } from '../../../ce
 
 describe('column widths', () => {
   it('follow the names and fields within bounds', () => {
-    const w = columnWidths(sourceOfBody(readBodyGrid(`id,a_long_name_for_a_column,x\n1,2,${'y'.repeat(80)}\n`)));
+    const w = columnWidths(sourceOfBody(readBodyGrid(`id,a_longer_name,x\n1,2,${'y'.repeat(80)}\n`)));
     expect(w[0]).toBe(MIN_COLUMN_CH);
-    expect(w[1]).toBe('a_long_name_for_a_column'.length + 3);
+    // 13 letters at 1.2 ch each, one for the gap and two for the padding
+    expect(w[1]).toBe(Math.ceil('a_longer_name'.length * 1.2) + 3);
     expect(w[2]).toBe(MAX_COLUMN_CH);
   });
   it('measure the last row of a long table, where running numbers are widest', () => {

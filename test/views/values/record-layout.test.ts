@@ -206,8 +206,8 @@ describe('scalars and other records', () => {
   });
 
   it('reads a nonadditivity record, and nothing else, as one line', () => {
-    expect(nonadditivityText(record([['ss', 1], ['f', 2], ['p', 0.2]]))).toBe('SS 1.000, F 2.00, p = 0.20');
-    expect(nonadditivityText(record([['ss', 1], ['f', 2], ['p', 0.2], ['df1', 1], ['df2', 5]]))).toBe('SS 1.000, F(1, 5) 2.00, p = 0.20');
+    expect(nonadditivityText(record([['ss', 1], ['f', 2], ['p', 0.2]]))).toBe('SS 1.000, F 2, p = 0.20');
+    expect(nonadditivityText(record([['ss', 1], ['f', 2], ['p', 0.2], ['df1', 1], ['df2', 5]]))).toBe('SS 1.000, F(1, 5) 2, p = 0.20');
     expect(nonadditivityText(3)).toBeNull();
   });
 });
