@@ -2,6 +2,7 @@
  * Every message the table grid shows, in one place, so that wording changes once and the
  * tests can refer to these builders. Plain words: what is wrong and what to do about it.
  */
+import { countText } from '../../src/format/digits.ts';
 import { plural, quote } from '../../src/messages/words.ts';
 
 /** What a field that is not a number most likely needs, or '' when nothing is clear. */
@@ -21,7 +22,7 @@ function numberHint(field: string): string {
 export const gridMsg = {
   notNumber: (field: string, column: string) =>
     `${quote(field)} is not a number; the column ${column} holds numbers${numberHint(field)}`,
-  notNumbersCount: (n: number) => (n === 1 ? '1 not a number' : `${n.toLocaleString('en-US')} not numbers`),
+  notNumbersCount: (n: number) => (n === 1 ? '1 not a number' : `${countText(n)} not numbers`),
   notNumbersTitle: (n: number, column: string) =>
     `${plural(n, 'field')} of ${column} ${n === 1 ? 'is' : 'are'} not numbers, so formulas read the whole column as text until ${n === 1 ? 'it is' : 'they are'} fixed.`,
   missingField: () => 'missing (an empty field)',
@@ -69,5 +70,5 @@ export const gridMsg = {
   rawReadsAgain: (rows: number, cols: number) => `The text reads as a table again (${plural(rows, 'row')}, ${plural(cols, 'column')}).`,
   noRows: (shortcut: string) => `No rows yet: add one (Add row, or ${shortcut}) or paste rows from a spreadsheet.`,
   counts: (rows: number, cols: number) => `${plural(rows, 'row')} · ${plural(cols, 'column')}`,
-  printLimit: (shown: number, all: number) => `The first ${shown.toLocaleString('en-US')} of ${all.toLocaleString('en-US')} rows are printed.`,
+  printLimit: (shown: number, all: number) => `The first ${countText(shown)} of ${countText(all)} rows are printed.`,
 };

@@ -1,5 +1,5 @@
 /**
- * `furrow run --json` written as it goes: the report (language.md section 9) as a sequence
+ * `furrow run --json` written as it goes: the report (docs/language.md section 9) as a sequence
  * of pieces of text, handed to a stream in buffers of about {@link BUFFER_CHARS} characters
  * and waiting for the stream to drain when it says it is full. The whole text is never held
  * in memory: a long column goes out {@link COLUMN_SLICE} elements at a time, and a table or

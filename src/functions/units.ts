@@ -12,7 +12,7 @@
  *    shortest text) and rounded once: 1.005 t is 1005 kg and 100 degC is 212 degF, where
  *    binary arithmetic gives 1004.9999999999999 and 211.99999999999997. A column that kept
  *    its typed texts keeps the converted texts, so the exact decimal shift of the sums of
- *    squares (language.md section 5) still applies after a conversion.
+ *    squares (docs/language.md section 5) still applies after a conversion.
  * 3. Any other scale (lb/acre to kg/ha, psi to Pa) multiplies in floating point, one
  *    rounding; degF to degC, whose scale is 5/9, is converted by mathjs value by value.
  *

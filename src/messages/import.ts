@@ -2,6 +2,7 @@
  * The words of adding a CSV file or a workbook's sheet to the document as a table, and of
  * reading a Parquet file that a table names.
  */
+import { countText } from '../format/digits.ts';
 import { plural } from './words.ts';
 
 const megabytes = (bytes: number): string => `${Math.round(bytes / (1024 * 1024))} MB`;
@@ -21,7 +22,7 @@ export const importMsg = {
   workbookUnreadable: (file: string, detail: string) => `${file} could not be read as a workbook (.xlsx): ${detail}`,
   workbookEmpty: (file: string) => `${file} has no sheet with any data.`,
   parquetUnreadable: (detail: string) => `the file could not be read as Parquet: ${detail}`,
-  parquetTooManyRows: (rows: number, limit: number) => `the Parquet file has ${plural(rows, 'row')}; a table holds at most ${limit.toLocaleString('en-US')}`,
+  parquetTooManyRows: (rows: number, limit: number) => `the Parquet file has ${plural(rows, 'row')}; a table holds at most ${countText(limit)}`,
   parquetColumnRefused: (column: string, what: string) => `the Parquet column ${column} holds ${what}, which a table cannot hold`,
   parquetNoColumns: () => 'the Parquet file has no columns',
   parquetNotDecoded: (file: string) => `the Parquet file ${file} was not decoded before the document was loaded`,

@@ -3,6 +3,7 @@
  * catalogue, so that wording changes in one place and tests can refer to these builders.
  * Messages are plain words: what is wrong, where, and what to do about it.
  */
+import { countText } from '../format/digits.ts';
 import { plural, quote } from './words.ts';
 
 export const msg = {
@@ -14,7 +15,7 @@ export const msg = {
   unexpectedCharacter: (ch: string) => `The character ${quote(ch)} has no meaning in a formula.`,
   badNumber: (text: string) => `${quote(text)} is not a number: write numbers like 12, 0.5 or 1e-3.`,
   formulaTooLong: (length: number, limit: number) =>
-    `This formula is ${plural(length, 'character')} long; formulas are limited to ${limit.toLocaleString('en-US')}. Put large data in a table cell instead.`,
+    `This formula is ${plural(length, 'character')} long; formulas are limited to ${countText(limit)}. Put large data in a table cell instead.`,
 
   // ---- parser --------------------------------------------------------------------------
   emptyFormula: () => 'This formula cell is empty: write an expression, or NAME = EXPRESSION to name a value.',
@@ -117,9 +118,9 @@ export const msg = {
   invisibleInColumn: (shown: string, codes: readonly string[]) =>
     `The column ${quote(shown)} holds an invisible character (${codes.join(', ')}) in its name; to use it, write the name with that character, or rename the column.`,
   tooManyLevelsToDraw: (levels: number, limit: number) =>
-    `this fit has ${levels.toLocaleString('en')} levels; a chart draws at most ${limit.toLocaleString('en')} (more cannot be read, and would stall the drawing). The fit's means table lists them all.`,
+    `this fit has ${countText(levels)} levels; a chart draws at most ${countText(limit)} (more cannot be read, and would stall the drawing). The fit's means table lists them all.`,
   tooManyPairsToDraw: (pairs: number, limit: number) =>
-    `there are ${pairs.toLocaleString('en')} pairs; a chart draws at most ${limit.toLocaleString('en')} (about 63 levels). The pairs table lists them all, and means_chart shows the levels side by side.`,
+    `there are ${countText(pairs)} pairs; a chart draws at most ${countText(limit)} (about 63 levels). The pairs table lists them all, and means_chart shows the levels side by side.`,
   levelNotInOrder: (column: string, levels: readonly string[]) =>
     `${quote(column)} has ${levels.length === 1 ? 'a level' : 'levels'} that its level_order does not list: ${levels.map((l) => quote(l)).join(', ')}. List every level.`,
   orderRepeats: (level: string) => `${quote(level)} is listed twice; list each level once.`,
@@ -136,11 +137,11 @@ export const msg = {
   pairedAllEqual: (n: number, value: string) =>
     `All ${n} differences are ${value}: with no variation among them there is nothing to test against, so t, p and the interval are not available.`,
   tooManyRows: (rows: number, limit: number) =>
-    `This table has ${rows.toLocaleString('en')} rows; a table holds at most ${limit.toLocaleString('en')}. Keep the rows the analysis needs, or summarize them first.`,
+    `This table has ${countText(rows)} rows; a table holds at most ${countText(limit)}. Keep the rows the analysis needs, or summarize them first.`,
   tooManyColumns: (cols: number, limit: number) =>
-    `This table has ${cols.toLocaleString('en')} columns; a table holds at most ${limit.toLocaleString('en')}. Keep the columns the analysis needs.`,
+    `This table has ${countText(cols)} columns; a table holds at most ${countText(limit)}. Keep the columns the analysis needs.`,
   tooManyCells: (cells: number, limit: number) =>
-    `This document has ${cells.toLocaleString('en')} cells; Furrow reads at most ${limit.toLocaleString('en')}. Split it into several documents.`,
+    `This document has ${countText(cells)} cells; Furrow reads at most ${countText(limit)}. Split it into several documents.`,
   firstLineSpacing: (line: string) =>
     `The first line must be exactly "furrow 1"; this one is ${JSON.stringify(line)}, with extra spaces or tabs. Remove them and open the file again.`,
   wrongVersion: (version: string) =>

@@ -2,6 +2,7 @@
  * Small helpers every catalogue of words uses: quoting a piece of text, listing words,
  * counting things in words.
  */
+import { countText } from '../format/digits.ts';
 
 /** Shows a piece of source text in a message, shortened when long. */
 export function quote(text: string, max = 40): string {
@@ -17,5 +18,5 @@ export function listWords(words: readonly string[], conj = 'and'): string {
 
 /** "1 thing" / "2 things". */
 export function plural(n: number, one: string, many = `${one}s`): string {
-  return `${n.toLocaleString('en-US')} ${n === 1 ? one : many}`;
+  return `${countText(n)} ${n === 1 ? one : many}`;
 }

@@ -3,6 +3,7 @@
  * draw only the rows in view (plus a margin) inside a scroll box, so a column of a million
  * elements costs a few dozen table rows.
  */
+import { countText } from '../../format/digits.ts';
 import { css, html, LitElement, nothing, type PropertyValues } from 'lit';
 import { columnLength, type Column } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
@@ -207,8 +208,8 @@ export class FurrowGrid extends LitElement {
       </div>
       ${long
         ? html`<p class="count">
-            ${rows.toLocaleString('en')} rows<span class="print-only">; rows ${(w.first + 1).toLocaleString('en')} to
-              ${w.last.toLocaleString('en')} printed</span>
+            ${countText(rows)} rows<span class="print-only">; rows ${countText(w.first + 1)} to
+              ${countText(w.last)} printed</span>
           </p>`
         : nothing}
     `;
