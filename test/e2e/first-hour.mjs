@@ -325,6 +325,8 @@ export const firstHourTests = [
     name: 'first hour: editors on screen at load colour built-in names like editors made later',
     async run({ context, base }) {
       const page = await context.newPage();
+      // a window tall enough that the fit cell, under the 24-row table, is on screen at load
+      await page.setViewportSize({ width: 1280, height: 1600 });
       await page.goto(`${base}/?sample=adhesive-cure.furrow`);
       await settled(page);
       await builtinsArrived(page);
