@@ -6,7 +6,7 @@
 import { isKeyword, isPlainName } from '../../src/lang/lexer.ts';
 import { msg } from '../../src/messages/language.ts';
 import { DECIMAL } from './model.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 
 /** Per column: fields that are not empty, that read as decimal numbers, that read as true/false. */
 export interface ColumnCounts {

@@ -8,7 +8,7 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import type { GridHost } from './grid-host.ts';
 import { HEADER_ROW, selectionRect } from './grid-keys.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 import { fieldsIn, isRefusal, pasteBlock, type Pasted } from './grid-model.ts';
 import { pasteWithNames } from './grid-names-row.ts';
 import { blockToTsv, readBlock, type BlockFormat } from './grid-paste.ts';

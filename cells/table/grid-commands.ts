@@ -17,7 +17,7 @@ import {
   tabMove,
   type GridCommand,
 } from './grid-keys.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 import { clearRect, deleteColumns, deleteRows, insertColumns, insertRows, isRefusal } from './grid-model.ts';
 import { keyInput } from './grid-key-input.ts';
 import type { GridRows } from './grid-rows.ts';

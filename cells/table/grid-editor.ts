@@ -9,7 +9,7 @@ import { FLUSH_EVENT } from '../view-api.ts';
 import type { EditorState, GridHost } from './grid-host.ts';
 import { HEADER_ROW, at, editorCommandForKey, enterMove, moveSelection, tabMove, type EditMode } from './grid-keys.ts';
 import { ROW_HEIGHT } from './grid-layout.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 import { isRefusal, renameColumn, setField } from './grid-model.ts';
 import { keyInput } from './grid-key-input.ts';
 import type { GridRows } from './grid-rows.ts';

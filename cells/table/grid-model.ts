@@ -11,7 +11,7 @@ import { parseCsv } from '../../src/doc/csv.ts';
 import { decimalAt, type Column, type Table } from '../../src/lang/values.ts';
 import { columnNameProblem, copyCounts, countField, countRows, emptyCounts, freshColumnName, type ColumnCounts } from './grid-checks.ts';
 import { HEADER_ROW, type Rect } from './grid-keys.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 
 /** A table body read as a grid, with where each row lies in the body text. */
 export interface BodyGrid {

@@ -7,7 +7,7 @@
  * same fields here and in a spreadsheet.
  */
 import Papa from 'papaparse';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 
 /** How pasted text is read. */
 export type BlockFormat = 'tsv' | 'csv' | 'field';

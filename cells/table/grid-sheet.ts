@@ -10,7 +10,7 @@ import type { RowWindow } from '../../src/views/values/row-window.ts';
 import { columnReading, fieldProblem, holdsNumbers, markedCount } from './grid-checks.ts';
 import { HEADER_ROW, SHAPE_KEYS, inRect, type Pos, type Rect, type Selection, selectionRect } from './grid-keys.ts';
 import { oneLine, rowNumberWidth } from './grid-layout.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 import type { FieldSource } from './grid-model.ts';
 import { PRINT_LIMIT } from './grid-rows.ts';
 

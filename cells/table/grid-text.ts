@@ -5,7 +5,7 @@
  */
 import { html, nothing, type TemplateResult } from 'lit';
 import { freshBody, visibleBody } from '../../src/doc/document.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 import { keyInput } from './grid-key-input.ts';
 import type { ToolbarHost } from './grid-toolbar.ts';
 

@@ -12,7 +12,7 @@ import { downloadCsv, fileNameFor } from '../../src/views/download.ts';
 import { tableNameProblem } from './grid-checks.ts';
 import type { GridHost } from './grid-host.ts';
 import { SHAPE_KEYS, at } from './grid-keys.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 import { bodyOfText, readBodyGrid, type BodyGrid, type FieldSource } from './grid-model.ts';
 import { tableMarker, writeTableMarker } from './model.ts';
 

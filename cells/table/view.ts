@@ -34,7 +34,7 @@ import { GridEditor } from './grid-editor.ts';
 import type { EditorState, Shown, StatusLine } from './grid-host.ts';
 import { HEADER_ROW, at, clampSelection, type GridCommand, type Selection } from './grid-keys.ts';
 import { columnWidths } from './grid-layout.ts';
-import { gridMsg } from './grid-messages.ts';
+import { gridMsg } from '../../src/messages/grid.ts';
 import { readBodyGrid, sourceOfBody, sourceOfTable, type BodyGrid } from './grid-model.ts';
 import { GridRows } from './grid-rows.ts';
 import { GridSelection } from './grid-selection.ts';

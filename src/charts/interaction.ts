@@ -13,7 +13,7 @@ import { assemble, fullLegend, measuredTip, num, tip, type Json } from './layers
 import { OKABE_ITO, SHAPES } from './look.ts';
 import { axisTitle, readName } from './titles.ts';
 import type { ChartResult, FactorInput } from './types.ts';
-import { capital, count, counted, fig, ordinal, pText } from './words.ts';
+import { capital, count, counted, fig, ordinal, pText } from '../messages/charts.ts';
 
 /** A test that the chart's caption reports beside the picture. */
 export interface ProfileTest {

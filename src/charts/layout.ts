@@ -8,7 +8,7 @@
 import { assemble, fullLegend, tip, type Json } from './layers.ts';
 import { INK, OKABE_ITO } from './look.ts';
 import type { ChartResult } from './types.ts';
-import { count, counted } from './words.ts';
+import { count, counted } from '../messages/charts.ts';
 
 /** A layout as the map draws it: for each plot, its row and position on the map (1-based) and its treatment. */
 export interface LayoutMapInput {

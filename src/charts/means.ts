@@ -6,7 +6,7 @@ import { assemble, num, tip, type Json } from './layers.ts';
 import { POINT, POINT_SHAPE, ROW_STEP, WIDTH } from './look.ts';
 import { axisTitle, derivedTitle, readName } from './titles.ts';
 import type { ChartResult } from './types.ts';
-import { capital, count, counted, fig, percent } from './words.ts';
+import { capital, count, counted, fig, percent } from '../messages/charts.ts';
 
 /** A fit's means table and what the caption states about it. */
 export interface MeansInput {

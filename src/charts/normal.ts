@@ -16,7 +16,7 @@ import { MUTED } from './look.ts';
 import { chanceWords, dataRow, marked, residualDatum, residualTips, toLabel } from './residuals.ts';
 import { derivedTitle, readName } from './titles.ts';
 import type { ChartResult, ResidualInput } from './types.ts';
-import { count, counted, fig, flaggedWords, ordinal, pText } from './words.ts';
+import { count, counted, fig, flaggedWords, ordinal, pText } from '../messages/charts.ts';
 
 /** Ranks kept at each end of a sampled plot: the tails are where departures show. */
 export const TAIL_RANKS = 50;

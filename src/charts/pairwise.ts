@@ -8,7 +8,7 @@ import { assemble, num, tip, zeroRule, type Json } from './layers.ts';
 import { MARKED, MARKED_SHAPE, POINT, POINT_SHAPE, ROW_STEP, WIDTH } from './look.ts';
 import { axisTitle, readName } from './titles.ts';
 import type { ChartResult } from './types.ts';
-import { count, counted, fig, percent } from './words.ts';
+import { count, counted, fig, percent } from '../messages/charts.ts';
 
 /** The fields of a pairs record (the `pairwise` built-in). */
 export interface PairsInput {

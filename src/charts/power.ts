@@ -6,7 +6,7 @@ import { chartFormat } from '../format/digits.ts';
 import { assemble, tip, type Json } from './layers.ts';
 import { MARKED, MARKED_SHAPE, POINT } from './look.ts';
 import type { ChartResult } from './types.ts';
-import { fig, percent } from './words.ts';
+import { fig, percent } from '../messages/charts.ts';
 
 /** A power curve and the plan to mark on it. */
 export interface PowerCurveInput {

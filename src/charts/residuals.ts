@@ -12,7 +12,7 @@ import { BEYOND, CUT, WITHIN, assemble, flagEncoding, labelLayer, markedPointMar
 import { COUNT_RANGE } from './look.ts';
 import { axisTitle, derivedTitle, readName } from './titles.ts';
 import type { ChartResult, FactorInput, ResidualInput } from './types.ts';
-import { count, counted, fig, flaggedWords } from './words.ts';
+import { count, counted, fig, flaggedWords } from '../messages/charts.ts';
 
 /** What the residuals are drawn against: fitted values, data order, or factor `factor` of the input (0 = treatment). */
 export type ResidualAxis = 'fitted' | 'order' | { readonly factor: number };

@@ -8,7 +8,7 @@ import { assemble, fullLegend, measuredTip, num, tip, type Json } from './layers
 import { COUNT_RANGE, OKABE_ITO, POINT, POINT_SHAPE, SHAPES } from './look.ts';
 import { axisTitle, readName } from './titles.ts';
 import type { ChartResult, FactorInput } from './types.ts';
-import { capital, count, counted, ordinal } from './words.ts';
+import { capital, count, counted, ordinal } from '../messages/charts.ts';
 
 /** The data of a scatter: complete pairs, with the data row each came from. */
 export interface ScatterInput {

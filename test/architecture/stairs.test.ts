@@ -59,7 +59,7 @@ describe('each rule can fail', () => {
     const right: [string, string][] = [
       ['src/functions/designs.ts', 'src/stats/designs/index.ts'],
       ['src/stats/designs/messages.ts', 'src/format/digits.ts'],
-      ['src/charts/words.ts', 'src/format/digits.ts'],
+      ['src/messages/charts.ts', 'src/format/digits.ts'],
       ['src/stats/designs/blocked.ts', 'src/messages/designs.ts'],
       ['src/messages/language.ts', 'src/messages/words.ts'],
       ['src/graph/engine.ts', 'src/lang/values.ts'],

@@ -9,7 +9,7 @@ import {
   markedCount,
   tableNameProblem,
 } from '../../../cells/table/grid-checks.ts';
-import { gridMsg } from '../../../cells/table/grid-messages.ts';
+import { gridMsg } from '../../../src/messages/grid.ts';
 import { columnTypeOf } from '../../../cells/table/model.ts';
 import { msg } from '../../../src/messages/language.ts';
 

@@ -23,7 +23,7 @@ import {
   type BodyGrid,
   type Refusal,
 } from '../../../cells/table/grid-model.ts';
-import { gridMsg } from '../../../cells/table/grid-messages.ts';
+import { gridMsg } from '../../../src/messages/grid.ts';
 import { tableFromGrid } from '../../../cells/table/model.ts';
 
 /** Reads the grid's text again and checks that it says what the grid holds, ranges and counts included. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { blockToTsv, detectBlockFormat, readBlock } from '../../../cells/table/grid-paste.ts';
-import { gridMsg } from '../../../cells/table/grid-messages.ts';
+import { gridMsg } from '../../../src/messages/grid.ts';
 
 function rows(text: string): readonly (readonly string[])[] {
   const b = readBlock(text);

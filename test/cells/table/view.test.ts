@@ -2,7 +2,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { EDIT_EVENT, type CellViewState, type EditEventDetail } from '../../../cells/view-api.ts';
 import { TableCellView } from '../../../cells/table/view.ts';
-import { gridMsg } from '../../../cells/table/grid-messages.ts';
+import { gridMsg } from '../../../src/messages/grid.ts';
 import { tableFromGrid } from '../../../cells/table/model.ts';
 import { parseCsv } from '../../../src/doc/csv.ts';
 import type { Cell } from '../../../src/doc/document.ts';

@@ -2,8 +2,8 @@
  * Every message the table grid shows, in one place, so that wording changes once and the
  * tests can refer to these builders. Plain words: what is wrong and what to do about it.
  */
-import { countText } from '../../src/format/digits.ts';
-import { plural, quote } from '../../src/messages/words.ts';
+import { countText } from '../format/digits.ts';
+import { plural, quote } from './words.ts';
 
 /** What a field that is not a number most likely needs, or '' when nothing is clear. */
 function numberHint(field: string): string {

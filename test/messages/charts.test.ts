@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { count, flaggedWords, ordinal, pText, rowList } from '../../src/charts/words.ts';
+import { count, flaggedWords, ordinal, pText, rowList } from '../../src/messages/charts.ts';
 
 describe('caption words', () => {
   it('writes counts, ordinals and p-values the same everywhere', () => {
