@@ -23,7 +23,7 @@ import { NotUtf8Error } from '../doc/utf8.ts';
 import type { CellKind } from '../graph/cell-kind.ts';
 import { isPlainName } from '../lang/lexer.ts';
 import { importMsg } from '../messages/import.ts';
-import { pageMsg, startMsg } from '../messages/page.ts';
+import { pageMsg, startMsg, shellWords } from '../messages/page.ts';
 import { shared } from '../views/theme.ts';
 import { appStyles } from './app-styles.ts';
 import { fileKey, forget, listSaved, loadSaved, newKey, sampleKey, type SavedState } from './autosave.ts';
@@ -645,15 +645,15 @@ export class FurrowApp extends LitElement {
     const fields = headerFields(this.doc);
     const catalogue = this.bridge.catalogue();
     return html`
-      <nav class="bar" aria-label="Document">
+      <nav class="bar" aria-label=${shellWords.toolbarLabel}>
         <span class="mark">FURROW</span>
-        <button @click=${() => this.newDocument()} title="Start an empty document">New</button>
-        <button @click=${() => void this.openFile()} title="Open a .furrow document, or a CSV file or workbook to add as a table">Open…</button>
-        <button @click=${() => void this.saveFile()} title="Save as a .furrow file (Ctrl+S)">Save</button>
-        <button @click=${() => void this.attachCsv()} title="Attach a CSV or Parquet file that a table of this document reads">Attach data…</button>
+        <button @click=${() => this.newDocument()} title=${shellWords.newTip}>${shellWords.newDocument}</button>
+        <button @click=${() => void this.openFile()} title=${shellWords.openTip}>${shellWords.open}</button>
+        <button @click=${() => void this.saveFile()} title=${shellWords.saveTip}>${shellWords.save}</button>
+        <button @click=${() => void this.attachCsv()} title=${shellWords.attachTip}>${shellWords.attachData}</button>
         ${this.samples.size > 0
           ? html`<select
-              aria-label="Open a sample"
+              aria-label=${shellWords.samplesLabel}
               @change=${(e: Event) => {
                 const s = e.target as HTMLSelectElement;
                 if (s.value) void this.openSample(s.value);
@@ -667,7 +667,7 @@ export class FurrowApp extends LitElement {
         ${this.kept.length > 0
           ? html`<select
               class="kept"
-              aria-label="Open a document kept in this browser"
+              aria-label=${shellWords.keptListLabel}
               @focus=${() => void this.refreshKept()}
               @change=${(e: Event) => {
                 const s = e.target as HTMLSelectElement;
@@ -680,8 +680,8 @@ export class FurrowApp extends LitElement {
             </select>`
           : nothing}
         <span class="sep"></span>
-        <button @click=${this.onUndo} ?disabled=${!this.store.canUndo} title="Undo (Ctrl+Z)">Undo</button>
-        <button @click=${this.onRedo} ?disabled=${!this.store.canRedo} title="Redo (Ctrl+Shift+Z)">Redo</button>
+        <button @click=${this.onUndo} ?disabled=${!this.store.canUndo} title=${shellWords.undoTip}>${shellWords.undo}</button>
+        <button @click=${this.onRedo} ?disabled=${!this.store.canRedo} title=${shellWords.redoTip}>${shellWords.redo}</button>
         <button class="help-toggle" aria-pressed=${this.helpOpen ? 'true' : 'false'} @click=${() => this.toggleHelp()} title=${startMsg.helpButtonTitle()}>${startMsg.helpButton()}</button>
         <span class="status" role="status" aria-live="polite">${this.summary()}</span>
       </nav>
@@ -689,7 +689,7 @@ export class FurrowApp extends LitElement {
         ? html`<div class="banner ${this.banner.kind}" role=${this.banner.kind === 'problem' ? 'alert' : 'status'}>
             <span>${this.banner.text}</span>
             ${(this.banner.actions ?? []).map((a) => html`<button class="action" @click=${a.run}>${a.label}</button>`)}
-            <button @click=${() => (this.banner = null)} aria-label="Dismiss">✕</button>
+            <button @click=${() => (this.banner = null)} aria-label=${shellWords.dismiss}>✕</button>
           </div>`
         : nothing}
       ${this.importing !== null
@@ -705,7 +705,7 @@ export class FurrowApp extends LitElement {
           <textarea
             class="title"
             rows="1"
-            aria-label="Title"
+            aria-label=${shellWords.titleLabel}
             placeholder=${startMsg.titlePlaceholder()}
             .value=${fields.get('title')?.trim() ?? ''}
             @change=${(e: Event) => this.setTitle((e.target as HTMLTextAreaElement).value)}
@@ -756,7 +756,7 @@ export class FurrowApp extends LitElement {
       <div class="body">
         ${view ? view(cell, state, catalogue) : html`<div class="inert"><pre>--- ${cell.marker}\n${cell.body}</pre></div>`}
       </div>
-      <div class="insert" role="toolbar" aria-label="Add a cell below">
+      <div class="insert" role="toolbar" aria-label=${shellWords.addACellBelow}>
         ${ADDABLE.map((k) => html`<button title=${pageMsg.addBelow(k.label)} @click=${() => this.addCell(k, index + 1)}>+ ${k.label}</button>`)}
       </div>
     </section>`;

@@ -6,7 +6,7 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import type { CellViewState } from '../../cells/view-api.ts';
 import type { CellKind } from '../graph/cell-kind.ts';
-import { pageMsg, STATUS_WORDS } from '../messages/page.ts';
+import { pageMsg, STATUS_WORDS, shellWords } from '../messages/page.ts';
 
 export interface MarginInput {
   readonly word: string;
@@ -36,7 +36,7 @@ function nameSlot(m: MarginInput, a: MarginActions): TemplateResult | typeof not
   if (m.renaming) {
     return html`<input
       class="name-input"
-      aria-label="New name"
+      aria-label=${shellWords.newName}
       .value=${name ?? ''}
       @keydown=${(e: KeyboardEvent) => {
         if (e.key === 'Enter') a.rename((e.target as HTMLInputElement).value.trim());
@@ -58,11 +58,11 @@ export function cellMargin(m: MarginInput, a: MarginActions): TemplateResult {
     ${words
       ? html`<span class="state-word" title=${m.state?.error?.message ?? ''}>${words}${upstreamName ? html`: <code>${upstreamName}</code>` : nothing}</span>`
       : nothing}
-    <span class="tools" role="toolbar" aria-label="Cell tools">
-      <button title="Move up" aria-label="Move up" ?disabled=${m.first} @click=${() => a.move(-1)}>↑</button>
-      <button title="Move down" aria-label="Move down" ?disabled=${m.last} @click=${() => a.move(1)}>↓</button>
-      <button title="Delete this cell (undo brings it back)" aria-label="Delete" @click=${() => a.remove()}>✕</button>
-      <button title="Where this value comes from" aria-label="Where this value comes from" @click=${() => a.trace()}>⇡</button>
+    <span class="tools" role="toolbar" aria-label=${shellWords.cellTools}>
+      <button title=${shellWords.moveUp} aria-label=${shellWords.moveUp} ?disabled=${m.first} @click=${() => a.move(-1)}>↑</button>
+      <button title=${shellWords.moveDown} aria-label=${shellWords.moveDown} ?disabled=${m.last} @click=${() => a.move(1)}>↓</button>
+      <button title=${shellWords.deleteTip} aria-label=${shellWords.delete} @click=${() => a.remove()}>✕</button>
+      <button title=${shellWords.whereThisValueComesFrom} aria-label=${shellWords.whereThisValueComesFrom} @click=${() => a.trace()}>⇡</button>
     </span>
   </div>`;
 }

@@ -10,6 +10,7 @@
  *
  * It takes the document and the cells' states from the shell and changes nothing in them.
  */
+import { shellWords } from '../../messages/page.ts';
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import type { CellViewState } from '../../../cells/view-api.ts';
 import { documentTitle, type Cell, type Document as FurrowDocument } from '../../doc/document.ts';
@@ -324,17 +325,17 @@ export class HandOffPanel extends LitElement {
                     .map((l) => html`<li>${l.trim()}</li>`)}
                 </ul>`}
           </div>`}
-      <div class="strip" role="navigation" aria-label="Claims">
+      <div class="strip" role="navigation" aria-label=${shellWords.claims}>
         ${this.claims.length === 0
           ? html`<span class="lead">No claims yet: <code>claim(condition, "statement")</code> states a conclusion that is checked on every evaluation.</span>`
           : html`<span class="lead">${failing === 0 ? `All ${this.claims.length} claims hold:` : `${failing} of ${this.claims.length} claims do not hold:`}</span>
               ${this.claims.map(
                 (c) =>
-                  html`<button class="claim ${c.holds ? 'holds' : 'fails'}" title="Go to its cell" @click=${() => this.goTo(c.cell)}>
+                  html`<button class="claim ${c.holds ? 'holds' : 'fails'}" title=${shellWords.goToItsCell} @click=${() => this.goTo(c.cell)}>
                     <b>${c.holds ? 'holds' : 'does not hold'}</b>${c.statement}
                   </button>`,
               )}`}
-        <button class="report" ?disabled=${this.building || this.states === null} @click=${() => void this.buildReport()} title="One HTML file with every value, chart and claim, that opens back as this document; print it or save it as PDF from the browser">
+        <button class="report" ?disabled=${this.building || this.states === null} @click=${() => void this.buildReport()} title=${shellWords.reportTip}>
           ${this.building ? 'Making the report…' : 'Report (HTML)'}
         </button>
       </div>
@@ -348,17 +349,17 @@ export class HandOffPanel extends LitElement {
     if (doc === null) return nothing;
     const chain = dependencyChain(doc.cells, id);
     const last = chain[chain.length - 1];
-    return html`<section class="chain" role="dialog" aria-label="Where this value comes from">
+    return html`<section class="chain" role="dialog" aria-label=${shellWords.whereThisValueComesFrom}>
       <header>
         <strong>Where ${last?.name ?? `cell ${last?.position ?? ''}`} comes from</strong>
-        <button @click=${() => (this.tracing = null)} aria-label="Close">✕</button>
+        <button @click=${() => (this.tracing = null)} aria-label=${shellWords.close}>✕</button>
       </header>
       <ol>
         ${chain.map((step) => {
           const state = this.stateOf(step.cell);
           const label = step.name ?? `${step.cell.marker.split(' ')[0]} (cell ${step.position})`;
           return html`<li>
-            <button class="step" title="Go to the cell" @click=${() => this.goTo(step.position)}>${label}</button>
+            <button class="step" title=${shellWords.goToTheCell} @click=${() => this.goTo(step.position)}>${label}</button>
             ${step.reads.length > 0 ? html`<span class="reads">reads ${step.reads.join(', ')}</span>` : html`<span class="reads">data</span>`}
             <span class="value">${state?.status === 'error' || state?.status === 'upstream' ? `error: ${state.error?.message ?? ''}` : stepValue(state?.value)}</span>
           </li>`;

@@ -9,7 +9,7 @@
  */
 import { css, html, LitElement, nothing } from 'lit';
 import type { BuiltinInfo, NameCatalogue } from '../../../cells/view-api.ts';
-import { startMsg } from '../../messages/page.ts';
+import { startMsg, shellWords } from '../../messages/page.ts';
 import { shared } from '../../views/theme.ts';
 import { CELL_KEYS } from '../cell-keys.ts';
 import { byCategory, fitExample, searchBuiltins } from './help-model.ts';
@@ -336,7 +336,7 @@ export class FurrowHelp extends LitElement {
           }}
         />
       </div>
-      <div class="groups" role="group" aria-label="Categories">
+      <div class="groups" role="group" aria-label=${shellWords.categories}>
         <button aria-pressed=${this.category === null ? 'true' : 'false'} @click=${() => (this.category = null)}>${startMsg.helpAll()}</button>
         ${groups.map(
           (g) => html`<button aria-pressed=${this.category === g.category ? 'true' : 'false'} @click=${() => (this.category = this.category === g.category ? null : g.category)}>${g.category}</button>`,
