@@ -3,6 +3,7 @@
  * undoes it, so undo and redo need nothing else, and the same edits travel to the worker
  * that evaluates and to the autosave store.
  */
+import { editMsg } from '../messages/page.ts';
 import type { Cell, Document } from './document.ts';
 
 export type Edit =
@@ -25,7 +26,7 @@ export class EditError extends Error {
 
 function indexOf(doc: Document, id: string): number {
   const i = doc.cells.findIndex((c) => c.id === id);
-  if (i < 0) throw new EditError(`no cell with id ${id}`);
+  if (i < 0) throw new EditError(editMsg.noCell(id));
   return i;
 }
 
@@ -40,7 +41,7 @@ export function applyEdit(doc: Document, edit: Edit): { document: Document; inve
       return { document: { ...doc, cells }, inverse: { type: 'body', id: edit.id, body: old.body } };
     }
     case 'marker': {
-      if (/[\r\n]/.test(edit.marker)) throw new EditError('a cell line cannot hold a line break');
+      if (/[\r\n]/.test(edit.marker)) throw new EditError(editMsg.lineBreakInMarker());
       const i = indexOf(doc, edit.id);
       const old = doc.cells[i]!;
       const cells = doc.cells.slice();
@@ -48,8 +49,8 @@ export function applyEdit(doc: Document, edit: Edit): { document: Document; inve
       return { document: { ...doc, cells }, inverse: { type: 'marker', id: edit.id, marker: old.marker } };
     }
     case 'insert': {
-      if (doc.cells.some((c) => c.id === edit.cell.id)) throw new EditError(`cell id ${edit.cell.id} is taken`);
-      if (/[\r\n]/.test(edit.cell.marker)) throw new EditError('a cell line cannot hold a line break');
+      if (doc.cells.some((c) => c.id === edit.cell.id)) throw new EditError(editMsg.idTaken(edit.cell.id));
+      if (/[\r\n]/.test(edit.cell.marker)) throw new EditError(editMsg.lineBreakInMarker());
       const index = Math.max(0, Math.min(edit.index, doc.cells.length));
       const cells = doc.cells.slice();
       cells.splice(index, 0, edit.cell);

@@ -132,3 +132,10 @@ export const shellWords = {
   goToTheCell: 'Go to the cell',
   categories: 'Categories',
 } as const;
+
+/** Why an edit cannot apply to the document (shown in the banner; an edit the page built wrong). */
+export const editMsg = {
+  noCell: (id: string) => `no cell with id ${id}`,
+  lineBreakInMarker: () => 'a cell line cannot hold a line break',
+  idTaken: (id: string) => `cell id ${id} is taken`,
+};

@@ -8,6 +8,17 @@
 export type ClaimStanding = 'held-now-only' | 'no-longer' | 'never' | 'error' | 'gone' | 'new';
 
 export const sealMsg = {
+  // ---- the JSON of sealed values, read back ----------------------------------------------
+  jsonAt: (what: string, character: number) => `${what} at character ${character}`,
+  jsonNestedTooDeeply: () => 'nested too deeply',
+  jsonExpectedName: () => 'expected a quoted name',
+  jsonExpected: (ch: string) => `expected "${ch}"`,
+  jsonExpectedEither: (a: string, b: string) => `expected "${a}" or "${b}"`,
+  jsonControlCharacter: () => 'a control character inside a text',
+  jsonBadUnicodeEscape: () => 'a bad \\u escape',
+  jsonBadEscape: () => 'a bad escape',
+  jsonUnclosedText: () => 'a text that is never closed',
+  jsonTrailingText: () => 'unexpected text after the value',
   notSealed: (path: string, problem: string | null) => `${path}: ${problem ?? 'not sealed.'}`,
   otherEngine: (sealedBy: string | null, now: string) =>
     `Engine: sealed by ${sealedBy ?? 'an unnamed engine'}, recomputed by ${now}; results may differ in their last digits for that reason alone.`,

@@ -10,6 +10,7 @@
  * stylesheet (by its hash) and pictures carried inside the file. Everything that came
  * from the document is escaped, or, for a note's Markdown, passed through an allow-list.
  */
+import { reportMsg } from '../messages/report.ts';
 import { sha256 } from '@noble/hashes/sha2.js';
 import { visibleBody, documentTitle, headerFields, type Document } from '../doc/document.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
@@ -86,20 +87,14 @@ export function noteHtml(body: string, parts: readonly Value[] | null, doubt: No
     return `<span class="live${inDoubt ? ' doubt' : ''}"${inDoubt ? ' title="A claim that reads this number does not hold."' : ''}>${e(placeholderText(sources[i] ?? '', v))}</span>`;
   });
   const warning =
-    doubt === undefined ? '' : `<p class="doubt-note">Marked numbers are read by a claim that does not hold: ${doubt.claims.map((c) => `“${e(c)}”`).join('; ')}.</p>`;
+    doubt === undefined ? '' : `<p class="doubt-note">${e(reportMsg.doubtNote(doubt.claims))}</p>`;
   return `<div class="note">${filled}</div>${warning}`;
 }
 
 function headerHtml(doc: Document): string {
   const fields = headerFields(doc);
   const meta: string[] = [];
-  for (const [key, words] of [
-    ['author', 'Author'],
-    ['date', 'Date'],
-    ['field', 'Field'],
-    ['contact', 'Contact'],
-    ['summary', 'Summary'],
-  ] as const) {
+  for (const [key, words] of reportMsg.headerWords) {
     const v = fields.get(key);
     if (v !== undefined && v.trim() !== '') meta.push(`<dt>${words}</dt><dd>${e(v.trim())}</dd>`);
   }
@@ -107,17 +102,17 @@ function headerHtml(doc: Document): string {
   return [
     `<h1>${e(documentTitle(doc))}</h1>`,
     meta.length > 0 ? `<dl class="meta">${meta.join('')}</dl>` : '',
-    caution ? `<p class="caution" role="note"><strong>Caution.</strong> ${e(caution)}</p>` : '',
+    caution ? `<p class="caution" role="note"><strong>${reportMsg.caution()}</strong> ${e(caution)}</p>` : '',
   ].join('\n');
 }
 
 function verdictHtml(v: Verification, whole: string): string {
   if (!v.sealed) {
-    return `<div class="verdict none"><strong>Not sealed.</strong> This report shows the document as it computes now; no sealed values were checked.<p class="fingerprint">Fingerprint of the cells and data files: sha256:${whole}</p></div>`;
+    return `<div class="verdict none"><strong>${reportMsg.notSealed()}</strong> ${reportMsg.notSealedText()}<p class="fingerprint">${reportMsg.fingerprintOfAll(whole)}</p></div>`;
   }
   const lines = verificationText('', v).filter((l) => l.trim() !== '' && !/^ {2}same /.test(l) && !/^Values:$/.test(l));
-  const headline = v.matches ? 'Verified: every value recomputes to its sealed value, bit for bit, and every claim holds.' : 'Not verified: the document no longer computes what was sealed.';
-  return `<div class="verdict ${v.matches ? 'ok' : 'bad'}"><strong>${e(headline)}</strong><ul>${lines.map((l) => `<li>${e(l.trim())}</li>`).join('')}</ul><p class="fingerprint">Fingerprint: sha256:${v.fingerprint.now}</p></div>`;
+  const headline = v.matches ? reportMsg.verified() : reportMsg.notVerified();
+  return `<div class="verdict ${v.matches ? 'ok' : 'bad'}"><strong>${e(headline)}</strong><ul>${lines.map((l) => `<li>${e(l.trim())}</li>`).join('')}</ul><p class="fingerprint">${reportMsg.fingerprint(v.fingerprint.now)}</p></div>`;
 }
 
 function claimsHtml(states: readonly CellState[]): string {
@@ -126,12 +121,12 @@ function claimsHtml(states: readonly CellState[]): string {
     const v = s.value;
     if (typeof v !== 'object' || v.kind !== 'claim') return;
     items.push(
-      `<li><a href="#cell-${i + 1}" class="claim ${v.holds ? 'holds' : 'fails'}"><span class="verdict">${v.holds ? 'Holds' : 'Does not hold'}</span> ${e(v.statement)}</a></li>`,
+      `<li><a href="#cell-${i + 1}" class="claim ${v.holds ? 'holds' : 'fails'}"><span class="verdict">${v.holds ? reportMsg.holds() : reportMsg.doesNotHold()}</span> ${e(v.statement)}</a></li>`,
     );
   });
-  if (items.length === 0) return '<p>The document states no claims.</p>';
+  if (items.length === 0) return `<p>${reportMsg.noClaims()}</p>`;
   const failing = items.filter((x) => x.includes('claim fails')).length;
-  return `<p>${failing === 0 ? `All ${items.length} claims hold.` : `${failing} of ${items.length} claims do not hold.`}</p><ul class="claims">${items.join('')}</ul>`;
+  return `<p>${failing === 0 ? reportMsg.allClaimsHold(items.length) : reportMsg.claimsFail(failing, items.length)}</p><ul class="claims">${items.join('')}</ul>`;
 }
 
 function cellHtml(doc: Document, i: number, s: CellState, charts: ChartSvgs, doubts: ReadonlyMap<string, NoteDoubt>): string {
@@ -173,17 +168,17 @@ export async function buildReport(input: ReportInput): Promise<string> {
 ${headerHtml(doc)}
 </header>
 <section class="hand-off">
-<h2>Verification</h2>
+<h2>${reportMsg.verificationHeading()}</h2>
 ${verdictHtml(verification, whole)}
-<h2>Claims</h2>
+<h2>${reportMsg.claimsHeading()}</h2>
 ${claimsHtml(states)}
 </section>
 <main>
-<h2>The trial</h2>
+<h2>${reportMsg.trialHeading()}</h2>
 ${cells.join('\n')}
 </main>
 <footer>
-<p>Computed by ${e(ENGINE_NAME)} from ${e(input.name)}. This file carries the document itself; open it in Furrow to get the document back. A statistical result supports, and does not replace, the judgement of qualified people and the rules that govern the work.</p>
+<p>${e(reportMsg.footer(ENGINE_NAME, input.name))}</p>
 </footer>
 ${sourceElements(input.name, input.bytes, input.files)}
 </body>

@@ -5,6 +5,7 @@
  * document is escaped. The layouts are the page's own (record-layout.ts, grid-model.ts), so
  * a number reads the same in the report as on the page.
  */
+import { reportMsg } from '../messages/report.ts';
 import { countText } from '../format/digits.ts';
 import { formatInline } from '../lang/format.ts';
 import { columnLength, isColumn, isRecord, isTable, missingCount, type Column, type RecordValue, type Table, type Value } from '../lang/values.ts';
@@ -76,7 +77,7 @@ function fitHtml(r: RecordValue, charts: ChartSvgs): string {
       .map((row) => `<tr class="${row.role}"><th>${e(row.source)}</th><td>${e(row.df)}</td><td>${e(row.ss)}</td><td>${e(row.ms)}</td><td>${e(row.f)}</td><td>${e(row.p)}</td></tr>`)
       .join('');
     parts.push(
-      `<table class="anova"><caption>Analysis of variance</caption><thead><tr><th>source</th><th class="num">df</th><th class="num">sum of squares</th><th class="num">mean square</th><th class="num">F</th><th class="num">p</th></tr></thead><tbody>${rows}</tbody></table>`,
+      `<table class="anova"><caption>${reportMsg.anovaCaption()}</caption><thead><tr>${reportMsg.anovaHeads().map((h, j) => `<th${j > 0 ? ' class="num"' : ''}>${h}</th>`).join('')}</tr></thead><tbody>${rows}</tbody></table>`,
     );
   }
   if (f.means !== null) {
@@ -92,7 +93,7 @@ function fitHtml(r: RecordValue, charts: ChartSvgs): string {
   for (const o of f.others) parts.push(`<div class="field"><h4>${e(o.label)}</h4>${valueHtml(o.value, charts)}</div>`);
   if (f.folded.length > 0) {
     const sizes = f.folded.map((o) => `${o.label} (${isColumn(o.value) ? count(columnLength(o.value), 'value', 'values') : ''})`);
-    parts.push(`<p class="size">Also in this record, not printed: ${e(sizes.join(', '))}.</p>`);
+    parts.push(`<p class="size">${e(reportMsg.notPrinted(sizes.join(', ')))}</p>`);
   }
   return `<div class="fit">${parts.join('')}</div>`;
 }
@@ -121,7 +122,7 @@ function summaryHtml(s: RecordSummary, fields: string): string {
     parts.push(`<table class="checks"><tbody>${rows}</tbody></table>`);
   }
   if (s.notes.length > 0) parts.push(`<ul class="notes">${s.notes.map((n) => `<li>${e(n)}</li>`).join('')}</ul>`);
-  parts.push(`<details class="fields" open><summary>Every field</summary>${fields}</details>`);
+  parts.push(`<details class="fields" open><summary>${reportMsg.everyField()}</summary>${fields}</details>`);
   return `<div class="result">${parts.join('')}</div>`;
 }
 
@@ -158,13 +159,13 @@ export function valueHtml(v: Value, charts: ChartSvgs, depth = 0): string {
     case 'chart': {
       const drawn = charts.get(v);
       const body =
-        drawn === undefined ? '<p class="failed">This chart was not drawn.</p>' : 'svg' in drawn ? drawn.svg : `<p class="failed">This chart could not be drawn: ${e(drawn.failure)}</p>`;
+        drawn === undefined ? `<p class="failed">${reportMsg.chartNotDrawn()}</p>` : 'svg' in drawn ? drawn.svg : `<p class="failed">${e(reportMsg.chartFailed(drawn.failure))}</p>`;
       return `<figure class="chart">${body}<figcaption>${e(v.caption)}</figcaption></figure>`;
     }
     case 'claim':
-      return `<p class="claim ${v.holds ? 'holds' : 'fails'}"><span class="verdict">${v.holds ? 'Holds' : 'Does not hold'}</span> ${e(v.statement)}</p>`;
+      return `<p class="claim ${v.holds ? 'holds' : 'fails'}"><span class="verdict">${v.holds ? reportMsg.holds() : reportMsg.doesNotHold()}</span> ${e(v.statement)}</p>`;
     case 'error':
-      return `<p class="error">${v.upstream !== null ? 'Depends on an error: ' : 'Error: '}${e(v.message)}</p>`;
+      return `<p class="error">${v.upstream !== null ? reportMsg.dependsOnError() : reportMsg.error()}${e(v.message)}</p>`;
   }
 }
 

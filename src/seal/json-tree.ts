@@ -5,6 +5,7 @@
  * column called "1" moves first) and builds plain objects from a document's names; here
  * order is kept, duplicate keys are refused, and every failure names its position.
  */
+import { sealMsg } from '../messages/seal.ts';
 
 /** A JSON object: members in the order written. */
 export class JsonObject {
@@ -34,13 +35,13 @@ const NUMBER = /-?(?:0|[1-9]\d*)(?:\.\d+)?(?:[eE][-+]?\d+)?/y;
 export function readJson(text: string): JsonTree {
   let i = 0;
   const fail = (what: string): never => {
-    throw new JsonSyntaxError(`${what} at character ${i + 1}`, i);
+    throw new JsonSyntaxError(sealMsg.jsonAt(what, i + 1), i);
   };
   const space = (): void => {
     while (i < text.length && (text[i] === ' ' || text[i] === '\t' || text[i] === '\n' || text[i] === '\r')) i++;
   };
   const value = (depth: number): JsonTree => {
-    if (depth > MAX_DEPTH) fail('nested too deeply');
+    if (depth > MAX_DEPTH) fail(sealMsg.jsonNestedTooDeeply());
     space();
     const c = text[i];
     if (c === '{') {
@@ -53,11 +54,11 @@ export function readJson(text: string): JsonTree {
       }
       for (;;) {
         space();
-        if (text[i] !== '"') fail('expected a quoted name');
+        if (text[i] !== '"') fail(sealMsg.jsonExpectedName());
         const at = i;
         const key = string();
         space();
-        if (text[i] !== ':') fail('expected ":"');
+        if (text[i] !== ':') fail(sealMsg.jsonExpected(':'));
         i++;
         if (members.has(key)) {
           i = at;
@@ -73,7 +74,7 @@ export function readJson(text: string): JsonTree {
           i++;
           return new JsonObject(members);
         }
-        fail('expected "," or "}"');
+        fail(sealMsg.jsonExpectedEither(',', '}'));
       }
     }
     if (c === '[') {
@@ -95,7 +96,7 @@ export function readJson(text: string): JsonTree {
           i++;
           return items;
         }
-        fail('expected "," or "]"');
+        fail(sealMsg.jsonExpectedEither(',', ']'));
       }
     }
     if (c === '"') return string();
@@ -123,24 +124,24 @@ export function readJson(text: string): JsonTree {
     for (; i < text.length; i++) {
       const ch = text.charCodeAt(i);
       if (ch === 0x22) break;
-      if (ch < 0x20) fail('a control character inside a text');
+      if (ch < 0x20) fail(sealMsg.jsonControlCharacter());
       if (ch === 0x5c) {
         i++;
         const e = text[i];
         if (e === 'u') {
-          if (!/^[0-9a-fA-F]{4}$/.test(text.slice(i + 1, i + 5))) fail('a bad \\u escape');
+          if (!/^[0-9a-fA-F]{4}$/.test(text.slice(i + 1, i + 5))) fail(sealMsg.jsonBadUnicodeEscape());
           i += 4;
-        } else if (e === undefined || !'"\\/bfnrt'.includes(e)) fail('a bad escape');
+        } else if (e === undefined || !'"\\/bfnrt'.includes(e)) fail(sealMsg.jsonBadEscape());
       }
     }
-    if (i >= text.length) fail('a text that is never closed');
+    if (i >= text.length) fail(sealMsg.jsonUnclosedText());
     i++;
     // the escapes were checked above, so JSON.parse of this one literal cannot misread it
     return JSON.parse(text.slice(start, i)) as string;
   };
   const v = value(0);
   space();
-  if (i < text.length) fail('unexpected text after the value');
+  if (i < text.length) fail(sealMsg.jsonTrailingText());
   return v;
 }
 
