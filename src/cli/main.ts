@@ -129,9 +129,15 @@ function humanReport(path: string, doc: Document, states: CellState[], warnings:
     } else {
       o.out(cliMsg.cellHeading(i + 1, label));
       for (const l of valueText(v, '    ')) o.out(l);
+      // one line per distinct error, with every placeholder it reaches (as the page shows them)
+      const byMessage = new Map<string, string[]>();
       for (const p of s.parts ?? []) {
-        if (typeof p === 'object' && p.kind === 'error') o.out(`    ${cliMsg.placeholderError(where(i, p), p.message)}`);
+        if (typeof p !== 'object' || p.kind !== 'error') continue;
+        const at = byMessage.get(p.message) ?? [];
+        at.push(where(i, p));
+        byMessage.set(p.message, at);
       }
+      for (const [message, at] of byMessage) o.out(`    ${cliMsg.placeholderError(at, message)}`);
     }
     for (const w of s.warnings) o.out(`    ${cliMsg.cellNote(w)}`);
     o.out('');

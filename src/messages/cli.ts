@@ -3,6 +3,7 @@
  * the lines `furrow run`, `seal`, `report` and `sheet` print. Plain words: what is wrong,
  * where, and what to do. (The verdict `verify` prints is worded in ./seal.ts.)
  */
+import { listWords } from './words.ts';
 const MB = 1024 * 1024;
 const size = (bytes: number): string => (bytes >= MB ? `${(bytes / MB).toFixed(bytes >= 10 * MB ? 0 : 1)} MB` : `${bytes} bytes`);
 const capital = (s: string): string => s.charAt(0).toUpperCase() + s.slice(1);
@@ -71,7 +72,8 @@ export const cliMsg = {
   cellInert: (index: number, label: string) => `[${index}] ${label}: kept as it is, not evaluated`,
   cellError: (index: number, label: string, upstream: boolean, where: string) =>
     `[${index}] ${label}: ${upstream ? 'depends on an error' : 'error'} at ${where}`,
-  placeholderError: (where: string, message: string) => `placeholder error at ${where}: ${message}`,
+  placeholderError: (where: readonly string[], message: string) =>
+    where.length === 1 ? `placeholder error at ${where[0]}: ${message}` : `placeholder errors at ${listWords(where)}: ${message}`,
   cellNote: (detail: string) => `note: ${detail}`,
   line: (line: number) => `line ${line}`,
   lineColumn: (line: number, column: number) => `line ${line}, column ${column}`,

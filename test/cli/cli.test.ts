@@ -123,3 +123,17 @@ describe('furrow run', () => {
     expect(bad.stderr.trim()).toBe(cliMsg.failure(cliMsg.noSuchFile(cliMsg.theDocument(), 'missing.furrow')));
   }, 60_000);
 });
+
+describe('a note whose placeholders read a failing cell', () => {
+  it('prints each distinct error once, with every placeholder it reaches', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'furrow-note-errors-'));
+    const path = join(dir, 'note.furrow');
+    writeFileSync(path, 'furrow 1\n\n--- formula\nbad = 1 + \n\n--- note\nFirst {bad}, then {bad * 2}, and {nothing_here}.\n');
+    const out: string[] = [];
+    main(['run', path], { out: (s) => out.push(s), err: () => {} });
+    const lines = out.join('\n').split('\n').filter((l) => /placeholder error/.test(l));
+    expect(lines.length).toBe(2);
+    expect(lines[0]).toBe(`    ${cliMsg.placeholderError(['line 7, column 8', 'line 7, column 20'], msg.upstream('bad'))}`);
+    expect(lines[1]).toMatch(new RegExp(`^ {4}placeholder error at line 7, column 35: There is no cell or table called`));
+  });
+});
