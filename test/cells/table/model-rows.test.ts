@@ -90,7 +90,7 @@ describe('reading a table again after an edit', () => {
           analysis = again;
         }
       }),
-      { numRuns: 400 },
+      { numRuns: Number(process.env.RUNS ?? 400), seed: process.env.SEED === undefined ? 20261202 : Number(process.env.SEED) },
     );
   });
 });
