@@ -641,7 +641,7 @@ export class FurrowApp extends LitElement {
   static override styles = [shared, appStyles];
 
   override render() {
-    if (!this.doc) return html`<main>Loading…</main>`;
+    if (!this.doc) return html`<main>${shellWords.loading}</main>`;
     const fields = headerFields(this.doc);
     const catalogue = this.bridge.catalogue();
     return html`
@@ -660,7 +660,7 @@ export class FurrowApp extends LitElement {
                 s.value = '';
               }}
             >
-              <option value="">Samples…</option>
+              <option value="">${shellWords.samples}</option>
               ${[...this.samples.keys()].map((k) => html`<option value=${k}>${k.replace(/\.furrow$/, '')}</option>`)}
             </select>`
           : nothing}
@@ -717,7 +717,7 @@ export class FurrowApp extends LitElement {
             }}
           ></textarea>
           ${fields.get('author') ? html`<div class="byline">${fields.get('author')}</div>` : nothing}
-          ${fields.get('caution') ? html`<div class="caution" role="note"><b>Caution</b>${fields.get('caution')}</div>` : nothing}
+          ${fields.get('caution') ? html`<div class="caution" role="note"><b>${shellWords.caution}</b>${fields.get('caution')}</div>` : nothing}
         </header>
         <furrow-hand-off .doc=${this.doc} .stateOf=${(c: Cell) => this.visible.stateFor(c.id)} .files=${this.files} .fileName=${this.fileName}></furrow-hand-off>
         ${repeat(

@@ -100,6 +100,9 @@ export const startMsg = {
 
 /** The labels, tooltips and names for assistive technology of the page's shell. */
 export const shellWords = {
+  loading: 'Loading…',
+  samples: 'Samples…',
+  caution: 'Caution',
   newDocument: 'New',
   open: 'Open…',
   save: 'Save',
