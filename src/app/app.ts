@@ -53,7 +53,7 @@ interface Banner {
 
 /** Names a pattern's first name not yet taken in a document: `value1`, `value2`, … */
 function freshNames(doc: Document): (base: string) => string {
-  const names = new Set(doc.cells.map((c) => CELL_KINDS.nameOf(c)).filter((n): n is string => n !== null));
+  const names = namesTaken(doc);
   return (base: string): string => {
     for (let k = 1; ; k++) {
       const n = `${base}${k}`;

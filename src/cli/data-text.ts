@@ -4,14 +4,12 @@
  * reads files synchronously, so the command line decodes the Parquet files a document names
  * before it loads the document (`preloadParquet`), and `dataFileText` hands out the text.
  */
+import { MAX_TABLE_ROWS } from '../../cells/table/model.ts';
 import { readDocument } from '../doc/format.ts';
 import { isParquetName, isSafeFileName } from '../doc/document.ts';
 import type { CellKinds } from '../graph/kinds.ts';
 import { importMsg } from '../messages/import.ts';
 import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, besideDocument, readBytes, readText } from './files.ts';
-
-/** The most rows a data file may give a table (the table's own limit says the same). */
-const PARQUET_MAX_ROWS = 5_000_000;
 
 /** Decoded Parquet files by real path: the text, or the problem met decoding it. */
 const decoded = new Map<string, { text: string } | { problem: string }>();
@@ -50,7 +48,7 @@ export async function preloadParquet(documentPath: string, kinds: CellKinds): Pr
       const bytes = readBytes(real, 'the data file', CSV_LIMIT_BYTES);
       // the Parquet reader loads only for documents that name a Parquet file
       const { parquetCsv } = await import('../doc/parquet.ts');
-      decoded.set(real, { text: await parquetCsv(bytes, PARQUET_MAX_ROWS) });
+      decoded.set(real, { text: await parquetCsv(bytes, MAX_TABLE_ROWS) });
     } catch (err) {
       decoded.set(real, { problem: err instanceof Error ? err.message : String(err) });
     }
