@@ -28,6 +28,13 @@ export interface BodyGrid {
   readonly headerFrom: number;
   readonly headerTo: number;
   readonly counts: ColumnCounts;
+  /**
+   * How this grid's text was made from another grid's (`of`): characters [from, to) of its
+   * text replaced by `text`. Set by a change of rows, so that the view can send the change
+   * rather than the whole body. Functions that spread a grid may carry it along; it holds
+   * only for `of`, which the view checks by identity.
+   */
+  readonly change?: { readonly of: BodyGrid; readonly from: number; readonly to: number; readonly text: string };
 }
 
 /** A change the grid could not make, with the reason to show. */
@@ -179,7 +186,7 @@ export function replaceRows(g: BodyGrid, ra: number, rb: number, fresh: readonly
   for (let i = ra; i < rb; i++) for (let c = 0; c < cols; c++) countField(counts, c, g.rows[i]![c]!, -1);
   for (const row of fresh) for (let c = 0; c < cols; c++) countField(counts, c, row[c]!, 1);
   const text = g.text.slice(0, from) + insert + g.text.slice(to);
-  return { ...g, text, rows, starts, ends, counts };
+  return { ...g, text, rows, starts, ends, counts, change: { of: g, from, to, text: insert } };
 }
 
 /** Replaces the header row's text (same number of columns). */

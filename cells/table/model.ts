@@ -104,6 +104,8 @@ export interface TableRead {
   readonly grid: FieldGrid | null;
   readonly value: Table | null;
   readonly error: ErrorValue | null;
+  /** Whether the body holds a carriage return, when the reading learnt it without a search. */
+  readonly hasReturn?: boolean;
 }
 
 /**
@@ -151,7 +153,8 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
     if (again !== null) {
       if (again.grid.rows > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(again.grid.rows, MAX_TABLE_ROWS), 0, 0));
       if (again.grid.header.length > MAX_TABLE_COLUMNS) return fail(errorValue(msg.tooManyColumns(again.grid.header.length, MAX_TABLE_COLUMNS), 0, 0));
-      return { name, file: null, grid: again.grid, value: again.value, error: null };
+      // read again only when neither the kept body nor the changed lines hold a return
+      return { name, file: null, grid: again.grid, value: again.value, error: null, hasReturn: false };
     }
   }
   try {
@@ -210,6 +213,6 @@ export function analyseTable(cell: Cell, env: AnalyseEnv): CellAnalysis {
       if (value !== null) for (const w of lookalikeNames(value.names)) ev.warn(w);
       return { value: value! };
     },
-    kept: r.file === null && r.grid !== null && r.value !== null ? new KeptTable(cell.body, r.grid, r.value) : undefined,
+    kept: r.file === null && r.grid !== null && r.value !== null ? new KeptTable(cell.body, r.grid, r.value, r.hasReturn) : undefined,
   };
 }

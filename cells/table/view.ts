@@ -191,10 +191,14 @@ export class TableCellView extends LitElement implements TextHost {
 
   commit(next: BodyGrid, mergeKey?: string): void {
     if (next === this.grid || next.text === this.readBody) return;
+    const before = this.grid;
     this.grid = next;
     this.gridError = null;
     this.readBody = next.text;
-    this.send({ type: 'body', id: this.cell.id, body: next.text }, mergeKey);
+    // a change of some rows of the body the document holds travels as that change alone
+    const c = next.change;
+    const spliced = c !== undefined && before !== null && c.of === before && before.text === this.cell.body;
+    this.send(spliced ? { type: 'splice', id: this.cell.id, from: c.from, to: c.to, text: c.text } : { type: 'body', id: this.cell.id, body: next.text }, mergeKey);
     this.requestUpdate();
   }
 

@@ -7,6 +7,7 @@
 import type { BuiltinInfo, CellViewState, NameCatalogue } from '../../cells/view-api.ts';
 import type { Document } from '../doc/document.ts';
 import type { Edit } from '../doc/edits.ts';
+import { ColumnReceiver } from './column-ledger.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
 
 export interface BridgeEvents {
@@ -45,6 +46,8 @@ export class EvaluationBridge {
   /** Resolves each time a result arrives (tests and the performance check wait on it). */
   private waiters: (() => void)[] = [];
   private readonly events: BridgeEvents;
+  /** The long columns held here, which results refer to instead of sending them again. */
+  private readonly columns = new ColumnReceiver();
 
   constructor(events: BridgeEvents, current: () => Document, factory: WorkerFactory = defaultWorker) {
     this.events = events;
@@ -162,7 +165,9 @@ export class EvaluationBridge {
       case 'result': {
         const changed = new Set<string>();
         for (const r of m.results) {
-          const s: CellViewState = { status: r.status, value: r.value, parts: r.parts, warnings: r.warnings, error: r.error, progress: null };
+          const value = this.columns.decode(r.id, r.value);
+          const parts = r.parts === null ? null : r.parts.map((p) => this.columns.decode(r.id, p));
+          const s: CellViewState = { status: r.status, value, parts, warnings: r.warnings, error: r.error, progress: null };
           this.previous.set(r.id, s);
           // a later update may already have marked this cell again: keep it pending then
           const mark = this.pending.get(r.id);
@@ -173,6 +178,7 @@ export class EvaluationBridge {
           }
           changed.add(r.id);
         }
+        this.columns.settle(m.gone);
         this.step = null;
         this.cellNames = m.cells;
         this.lastMillis = m.millis;

@@ -1,13 +1,15 @@
 /**
  * Messages between the page and the evaluation worker. Values travel by structured clone
- * (Maps and typed arrays survive it); records lose their `internal` part, which only the
- * engine needs.
+ * (Maps and typed arrays survive it), with long columns the page already holds sent by
+ * number or as a patch (column-ledger.ts); records lose their `internal` part, which only
+ * the engine needs.
  */
 import type { NameCatalogue } from '../../cells/view-api.ts';
 import type { Document } from '../doc/document.ts';
 import type { Edit } from '../doc/edits.ts';
 import type { CellStatus } from '../graph/engine.ts';
-import type { ErrorValue, Value } from '../lang/values.ts';
+import type { ErrorValue } from '../lang/values.ts';
+import type { WireValue } from './column-ledger.ts';
 
 /**
  * Page to worker. The worker holds the document: it is sent whole once (when a document is
@@ -21,12 +23,12 @@ export type ToWorker =
   /** CSV files beside the document, by name (undefined removes one); the cells reading them re-evaluate. */
   | { readonly type: 'files'; readonly seq: number; readonly files: ReadonlyArray<readonly [string, string | undefined]> };
 
-/** One evaluated cell. */
+/** One evaluated cell as it travels: its values encoded against the page's column ledger. */
 export interface CellResult {
   readonly id: string;
   readonly status: CellStatus;
-  readonly value: Value;
-  readonly parts: readonly Value[] | null;
+  readonly value: WireValue;
+  readonly parts: readonly WireValue[] | null;
   readonly warnings: readonly string[];
   readonly error: ErrorValue | null;
 }
@@ -54,14 +56,3 @@ export type FromWorker =
    * (an edit did not apply): the page sends its document again.
    */
   | { readonly type: 'failure'; readonly seq: number; readonly message: string; readonly outOfStep: boolean };
-
-/** A value without engine-only parts, ready to post. */
-export function portable(v: Value): Value {
-  if (typeof v !== 'object') return v;
-  if (v.kind === 'record') {
-    const fields = new Map<string, Value>();
-    for (const [k, x] of v.fields) fields.set(k, portable(x));
-    return v.identity === undefined ? { kind: 'record', fields, tag: v.tag } : { kind: 'record', fields, tag: v.tag, identity: v.identity };
-  }
-  return v;
-}

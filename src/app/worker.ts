@@ -14,7 +14,8 @@ import * as unitLibrary from '../functions/unit-library.ts';
 import { provideUnitLibrary } from '../functions/units.ts';
 import { isRecord, isTable, type Value } from '../lang/values.ts';
 import { builtinInfos } from './builtin-info.ts';
-import { portable, type CellResult, type FromWorker, type ToWorker } from './protocol.ts';
+import { ColumnSender } from './column-ledger.ts';
+import type { CellResult, FromWorker, ToWorker } from './protocol.ts';
 
 // convert's unit tables: bundled into this worker (the unit part of mathjs only), not the page
 provideUnitLibrary(unitLibrary);
@@ -56,6 +57,8 @@ function typeName(v: Value): string {
 }
 
 let doc: Document | null = null;
+/** The long columns the page holds, so that results send only what it lacks. */
+const ledger = new ColumnSender();
 
 scope.onmessage = (e: MessageEvent<ToWorker>) => {
   const m = e.data;
@@ -89,22 +92,18 @@ scope.onmessage = (e: MessageEvent<ToWorker>) => {
   // 2. evaluate what changed
   try {
     const ran = engine.update(doc, { touched, onPlanned: (ids) => post({ type: 'planned', seq: m.seq, ids }) });
+    const batch = ledger.batch();
     const results: CellResult[] = ran.map((id) => {
       const s = engine.state(id)!;
-      return {
-        id,
-        status: s.status,
-        value: portable(s.value),
-        parts: s.parts === null ? null : s.parts.map(portable),
-        warnings: s.warnings,
-        error: s.error,
-      };
+      const { value, parts } = batch.encode(id, { value: s.value, parts: s.parts });
+      return { id, status: s.status, value, parts, warnings: s.warnings, error: s.error };
     });
     const cells = engine.definedNames().map((name) => {
       const v = engine.valueOf(name);
       return { name, type: v === undefined ? 'unknown' : typeName(v), members: v === undefined ? [] : members(v) };
     });
     post({ type: 'result', seq: m.seq, results, gone, cells, millis: performance.now() - t0 });
+    batch.commit(gone);
   } catch (err) {
     post({ type: 'failure', seq: m.seq, message: err instanceof Error ? err.message : String(err), outOfStep: false });
   }

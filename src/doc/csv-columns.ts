@@ -9,8 +9,8 @@
  * list of distinct values and a code per row, so a column of 50 varieties over a million rows
  * makes 50 strings.
  */
-import { newDecimalScan, scanDecimalIn } from '../stats/decimal/scan.ts';
-import { booleanColumn, numberColumn, table, textColumn, type Column, type Table } from '../lang/values.ts';
+import { newDecimalScan, scanDecimalIn, type DecimalScan, type TextRanges } from '../stats/decimal/scan.ts';
+import { booleanColumn, numberColumn, table, textColumn, type Column, type NumberColumn, type Table } from '../lang/values.ts';
 import { isTrimmed, type FieldGrid } from './csv-fields.ts';
 
 /** Powers of ten that are exact doubles (10^0 .. 10^22). */
@@ -144,14 +144,9 @@ export function columnOfGrid(g: FieldGrid, j: number, name: string): Column {
       break;
     }
     if (numbers) {
-      if (scanDecimalIn(src, a, b, scan)) {
-        const s = scan.scale;
-        let v: number;
-        if (scan.significand === 0 && scan.fits) v = src.charCodeAt(a) === MINUS ? -0 : 0;
-        else if (scan.fits && s >= -22 && s <= 22) v = s >= 0 ? scan.significand * EXACT_POWERS[s]! : scan.significand / EXACT_POWERS[-s]!;
-        else v = Number(src.slice(a, b));
-        values![r] = v;
-      } else {
+      const v = numberIn(src, a, b, scan);
+      if (v !== null) values![r] = v;
+      else {
         numbers = false;
         values = null;
       }
@@ -166,6 +161,72 @@ export function columnOfGrid(g: FieldGrid, j: number, name: string): Column {
     return booleanColumn(out, missing, name);
   }
   return textColumnOfGrid(g, j, name);
+}
+
+/**
+ * Number column j of `g` made from `base`, the same column of an earlier reading of a text
+ * (`baseText`, which its ranges point into) that differs only in rows [first, last): those rows are read again, the ranges of the
+ * rows after them move by `shift`, and the rest is copied. Null when that would not give
+ * what {@link columnOfGrid} gives (base not a number column read from ranges, a row count
+ * that changed, or a field read again that is neither empty nor a number).
+ */
+export function patchNumberColumn(
+  g: FieldGrid,
+  j: number,
+  name: string,
+  base: Column,
+  baseText: string,
+  first: number,
+  last: number,
+  shift: number,
+): NumberColumn | null {
+  if (base.type !== 'number' || base.decimals === null || Array.isArray(base.decimals) || base.values.length !== g.rows) return null;
+  const old = base.decimals as TextRanges;
+  // the base's ranges must be ranges of the earlier text (a column kept unchanged through
+  // several readings points into an older one)
+  if (old.source !== baseText) return null;
+  const src = g.source;
+  const width = g.header.length;
+  const values = base.values.slice();
+  const from = old.from.slice();
+  const to = old.to.slice();
+  const missing = base.missing === null ? new Uint8Array(g.rows) : base.missing.slice();
+  if (shift !== 0) {
+    for (let r = last; r < g.rows; r++) {
+      from[r] = from[r]! + shift;
+      to[r] = to[r]! + shift;
+    }
+  }
+  const scan = newDecimalScan();
+  for (let r = first; r < last; r++) {
+    const k = r * width + j;
+    let a = g.from[k]!;
+    let b = g.to[k]!;
+    while (a < b && isTrimmed(src.charCodeAt(a))) a++;
+    while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
+    from[r] = a;
+    to[r] = b;
+    if (a === b) {
+      missing[r] = 1;
+      values[r] = NaN;
+      continue;
+    }
+    if (g.escaped !== null && g.escaped[k] === 1) return null;
+    const v = numberIn(src, a, b, scan);
+    if (v === null) return null;
+    missing[r] = 0;
+    values[r] = v;
+  }
+  return numberColumn(values, missing, name, { source: src, from, to });
+}
+
+/** The double of the decimal text source[a, b), or null when it is not one. */
+function numberIn(src: string, a: number, b: number, scan: DecimalScan): number | null {
+  if (!scanDecimalIn(src, a, b, scan)) return null;
+  const s = scan.scale;
+  if (scan.significand === 0 && scan.fits) return src.charCodeAt(a) === MINUS ? -0 : 0;
+  if (scan.fits && s >= -22 && s <= 22) return s >= 0 ? scan.significand * EXACT_POWERS[s]! : scan.significand / EXACT_POWERS[-s]!;
+  return Number(src.slice(a, b));
 }
 
 /** Column j as texts: each distinct text made once, as typed (untrimmed); blank fields missing. */

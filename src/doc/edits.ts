@@ -8,6 +8,12 @@ import type { Cell, Document } from './document.ts';
 
 export type Edit =
   | { readonly type: 'body'; readonly id: string; readonly body: string }
+  /**
+   * Characters [from, to) of a cell's body replaced by `text`: what a field typed into a
+   * long table sends, so that the edit (and its undo) is the size of the change, not of
+   * the body.
+   */
+  | { readonly type: 'splice'; readonly id: string; readonly from: number; readonly to: number; readonly text: string }
   | { readonly type: 'marker'; readonly id: string; readonly marker: string }
   | { readonly type: 'insert'; readonly index: number; readonly cell: Cell }
   | { readonly type: 'delete'; readonly id: string }
@@ -39,6 +45,20 @@ export function applyEdit(doc: Document, edit: Edit): { document: Document; inve
       const cells = doc.cells.slice();
       cells[i] = { ...old, body: edit.body };
       return { document: { ...doc, cells }, inverse: { type: 'body', id: edit.id, body: old.body } };
+    }
+    case 'splice': {
+      const i = indexOf(doc, edit.id);
+      const old = doc.cells[i]!;
+      const { from, to } = edit;
+      if (!Number.isInteger(from) || !Number.isInteger(to) || from < 0 || to < from || to > old.body.length) {
+        throw new EditError(editMsg.spliceOutside(from, to, old.body.length));
+      }
+      const cells = doc.cells.slice();
+      cells[i] = { ...old, body: old.body.slice(0, from) + edit.text + old.body.slice(to) };
+      return {
+        document: { ...doc, cells },
+        inverse: { type: 'splice', id: edit.id, from, to: from + edit.text.length, text: old.body.slice(from, to) },
+      };
     }
     case 'marker': {
       if (/[\r\n]/.test(edit.marker)) throw new EditError(editMsg.lineBreakInMarker());
@@ -109,6 +129,7 @@ export function withTitle(header: string, title: string): string {
 export function cellsTouched(edit: Edit, into: Set<string> = new Set()): Set<string> {
   switch (edit.type) {
     case 'body':
+    case 'splice':
     case 'marker':
     case 'delete':
     case 'move':

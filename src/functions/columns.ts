@@ -7,7 +7,8 @@ import { UsageError } from '../lang/errors.ts';
 import { msg } from '../messages/language.ts';
 import { plural } from '../messages/words.ts';
 import { pickDecimals, type Column, type NumberColumn, type Value } from '../lang/values.ts';
-import { shiftDecimals } from '../stats/decimal/index.ts';
+import { readDecimals, readDecimalsAgain, shiftDecimals, shiftReading, type DecimalReading } from '../stats/decimal/index.ts';
+import { columnChangeOf } from '../lang/column-changes.ts';
 import type { CallContext } from '../lang/builtins.ts';
 import { fnMsg } from '../messages/functions.ts';
 
@@ -135,15 +136,45 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
   return { name, codes, levels: order.map((j) => levels[j]!) };
 }
 
+/**
+ * The decimal texts of whole columns, read once: analyses of one column (or a column an
+ * edit changed in a few rows, read again in those rows only) do not read its texts again.
+ * Null when a text is not plain decimal.
+ */
+const readings = new WeakMap<NumberColumn, DecimalReading | null>();
+
+function readingOf(c: NumberColumn): DecimalReading | null {
+  const kept = readings.get(c);
+  if (kept !== undefined) return kept;
+  let r: DecimalReading | null = null;
+  try {
+    const change = columnChangeOf(c);
+    const base = change === undefined ? undefined : readings.get(change.base as NumberColumn);
+    r = base ? readDecimalsAgain(base, c.decimals!, change!.rows) : readDecimals(c.decimals!);
+  } catch {
+    r = null;
+  }
+  readings.set(c, r);
+  return r;
+}
+
 /** The values of a number column at the rows kept, shifted exactly when their text is kept. */
 export function responseOf(c: NumberColumn, rows: Int32Array | null): Response {
   const n = rows === null ? c.values.length : rows.length;
   if (c.decimals !== null) {
-    try {
-      const s = shiftDecimals(rows === null ? c.decimals : pickDecimals(c.decimals, rows));
-      return { y: s.shifted, offset: s.offset };
-    } catch {
-      // fall through to the binary values (a text that is not plain decimal)
+    if (rows === null) {
+      const r = readingOf(c);
+      if (r !== null) {
+        const s = shiftReading(r);
+        return { y: s.shifted, offset: s.offset };
+      }
+    } else {
+      try {
+        const s = shiftDecimals(pickDecimals(c.decimals, rows));
+        return { y: s.shifted, offset: s.offset };
+      } catch {
+        // fall through to the binary values (a text that is not plain decimal)
+      }
     }
   }
   const y = new Float64Array(n);

@@ -141,4 +141,5 @@ export const editMsg = {
   noCell: (id: string) => `no cell with id ${id}`,
   lineBreakInMarker: () => 'a cell line cannot hold a line break',
   idTaken: (id: string) => `cell id ${id} is taken`,
+  spliceOutside: (from: number, to: number, length: number) => `characters ${from} to ${to} are outside a cell body of ${length} characters`,
 };

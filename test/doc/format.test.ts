@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { msg } from '../../src/messages/language.ts';
 import { describe, expect, it } from 'vitest';
 import { applyEdit, freshCellId } from '../../src/doc/edits.ts';
+import { editMsg } from '../../src/messages/page.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import { documentTitle, headerFields, type Document } from '../../src/doc/document.ts';
 import { DocumentError, readDocument, writeDocument } from '../../src/doc/format.ts';
@@ -141,6 +142,7 @@ describe('edits as values', () => {
     const steps = [
       { type: 'insert', index: 1, cell: { id, marker: 'formula', eol: '\n', body: 'y = 2\n\n' } },
       { type: 'body', id: 'c3', body: 'fit = 3\n' },
+      { type: 'splice', id: 'c3', from: 6, to: 7, text: '41' },
       { type: 'move', id: 'c1', index: 3 },
       { type: 'marker', id: 'c2', marker: 'table plants' },
       { type: 'delete', id },
@@ -154,7 +156,25 @@ describe('edits as values', () => {
       inverses.unshift(r.inverse);
     }
     expect(d.cells.map((c) => c.id)).toEqual(['c2', 'c3', 'c1']);
+    expect(d.cells.find((c) => c.id === 'c3')!.body).toBe('fit = 41\n');
     for (const inv of inverses) d = applyEdit(d, inv).document;
     expect(writeDocument(d)).toBe(SAMPLE);
+  });
+
+  it('a splice replaces a range of a body, its inverse restores it, and a range outside the body is refused', () => {
+    const d0 = readDocument(SAMPLE).document;
+    const body = d0.cells.find((c) => c.id === 'c2')!.body;
+    fc.assert(
+      fc.property(fc.nat(body.length), fc.nat(body.length), fc.string(), (a, b, text) => {
+        const [from, to] = a <= b ? [a, b] : [b, a];
+        const r = applyEdit(d0, { type: 'splice', id: 'c2', from, to, text });
+        expect(r.document.cells.find((c) => c.id === 'c2')!.body).toBe(body.slice(0, from) + text + body.slice(to));
+        expect(writeDocument(applyEdit(r.document, r.inverse).document)).toBe(SAMPLE);
+      }),
+      { seed: 7, numRuns: 300 },
+    );
+    for (const [from, to] of [[-1, 0], [3, 2], [0, body.length + 1], [0.5, 1]] as const) {
+      expect(() => applyEdit(d0, { type: 'splice', id: 'c2', from, to, text: 'x' })).toThrow(editMsg.spliceOutside(from, to, body.length));
+    }
   });
 });

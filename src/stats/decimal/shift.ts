@@ -153,39 +153,75 @@ function textAt(texts: DecimalTexts, i: number): string {
   return isRanges(texts) ? texts.source.slice(texts.from[i]!, texts.to[i]!) : (texts[i] ?? '');
 }
 
+/** The texts of a column read once: each text's correctly rounded double, significand and scale. */
+export interface DecimalReading {
+  readonly texts: DecimalTexts;
+  readonly values: Float64Array;
+  /** The text's digits as an integer (NaN when they do not fit a double exactly). */
+  readonly significand: Float64Array;
+  /** The power of ten the significand is scaled by. */
+  readonly scale: Int32Array;
+}
+
 /**
- * The correctly rounded double of each text (Clinger's fast path when the significand and the
- * power of ten are both exact, the exact path otherwise).
+ * Reads text i into significand[i] and scale[i] and gives its correctly rounded double
+ * (Clinger's fast path when the significand and the power of ten are both exact, the exact
+ * path otherwise).
  */
-function readValues(texts: DecimalTexts, significand: Float64Array, scale: Int32Array): Float64Array {
+function readOne(texts: DecimalTexts, i: number, scan: ReturnType<typeof newDecimalScan>, significand: Float64Array, scale: Int32Array): number {
+  const read = isRanges(texts) ? scanDecimalIn(texts.source, texts.from[i]!, texts.to[i]!, scan) : scanDecimal(texts[i] ?? '', scan);
+  if (!read) throw new DecimalTextError(i, textAt(texts, i), 'is not a decimal number');
+  const s = scan.scale;
+  significand[i] = scan.fits ? scan.significand : NaN;
+  scale[i] = s;
+  let v: number;
+  if (scan.fits && s >= -22 && s <= 22) {
+    v = s >= 0 ? scan.significand * (EXACT_POWERS[s] ?? NaN) : scan.significand / (EXACT_POWERS[-s] ?? NaN);
+  } else {
+    const text = textAt(texts, i);
+    if (significantDigits(text) <= 20) {
+      // ECMAScript requires string-to-number conversion to be correctly rounded for up to
+      // 20 significant digits, so the engine's own reader is exact enough here and fast.
+      v = Number(text.trim());
+    } else {
+      v = exactShift(text, 0n, 0, 0);
+    }
+  }
+  if (!Number.isFinite(v)) throw new DecimalTextError(i, textAt(texts, i), 'is too large to hold as a number');
+  return v;
+}
+
+/**
+ * Reads decimal texts for {@link shiftReading}. A column's reading can be kept and, when a
+ * few of its texts change, brought up to date with {@link readDecimalsAgain}.
+ * @throws DecimalTextError when a text is not a decimal number or is out of range.
+ */
+export function readDecimals(texts: DecimalTexts): DecimalReading {
   const n = countOf(texts);
+  const significand = new Float64Array(n);
+  const scale = new Int32Array(n);
   const values = new Float64Array(n);
   const scan = newDecimalScan();
-  const ranges = isRanges(texts) ? texts : null;
-  const list = isRanges(texts) ? null : texts;
-  for (let i = 0; i < n; i++) {
-    const read = ranges !== null ? scanDecimalIn(ranges.source, ranges.from[i]!, ranges.to[i]!, scan) : scanDecimal(list![i] ?? '', scan);
-    if (!read) throw new DecimalTextError(i, textAt(texts, i), 'is not a decimal number');
-    const s = scan.scale;
-    significand[i] = scan.fits ? scan.significand : NaN;
-    scale[i] = s;
-    let v: number;
-    if (scan.fits && s >= -22 && s <= 22) {
-      v = s >= 0 ? scan.significand * (EXACT_POWERS[s] ?? NaN) : scan.significand / (EXACT_POWERS[-s] ?? NaN);
-    } else {
-      const text = textAt(texts, i);
-      if (significantDigits(text) <= 20) {
-        // ECMAScript requires string-to-number conversion to be correctly rounded for up to
-        // 20 significant digits, so the engine's own reader is exact enough here and fast.
-        v = Number(text.trim());
-      } else {
-        v = exactShift(text, 0n, 0, 0);
-      }
-    }
-    if (!Number.isFinite(v)) throw new DecimalTextError(i, textAt(texts, i), 'is too large to hold as a number');
-    values[i] = v;
+  for (let i = 0; i < n; i++) values[i] = readOne(texts, i, scan, significand, scale);
+  return { texts, values, significand, scale };
+}
+
+/**
+ * The reading of `texts`, which are the texts of `base` with those at `rows` changed (same
+ * count): the rest is copied, only those are read.
+ * @throws DecimalTextError when a changed text is not a decimal number or is out of range.
+ */
+export function readDecimalsAgain(base: DecimalReading, texts: DecimalTexts, rows: ArrayLike<number>): DecimalReading {
+  if (countOf(texts) !== base.values.length) throw new RangeError('a reading read again must keep its count of texts');
+  const values = base.values.slice();
+  const significand = base.significand.slice();
+  const scale = base.scale.slice();
+  const scan = newDecimalScan();
+  for (let k = 0; k < rows.length; k++) {
+    const i = rows[k]!;
+    values[i] = readOne(texts, i, scan, significand, scale);
   }
-  return values;
+  return { texts, values, significand, scale };
 }
 
 /**
@@ -225,10 +261,18 @@ function chooseOffset(values: Float64Array): number {
  * @throws DecimalTextError when a text is not a decimal number or is out of range.
  */
 export function shiftDecimals(texts: DecimalTexts): DecimalShift {
-  const n = countOf(texts);
-  const significand = new Float64Array(n);
-  const scale = new Int32Array(n);
-  const values = readValues(texts, significand, scale);
+  return shiftRead(readDecimals(texts), false);
+}
+
+/** {@link shiftDecimals} of texts already read; the reading is left as it was. */
+export function shiftReading(reading: DecimalReading): DecimalShift {
+  return shiftRead(reading, true);
+}
+
+function shiftRead(reading: DecimalReading, keep: boolean): DecimalShift {
+  const { texts, significand, scale } = reading;
+  const n = reading.values.length;
+  const values = keep ? reading.values.slice() : reading.values;
   const offset = chooseOffset(values);
   if (offset === 0) return { offset: 0, shifted: values };
 

@@ -6,6 +6,7 @@ import { gridMsg } from '../../../src/messages/grid.ts';
 import { tableFromGrid } from '../../../cells/table/model.ts';
 import { parseCsv } from '../../../src/doc/csv.ts';
 import type { Cell } from '../../../src/doc/document.ts';
+import type { Edit } from '../../../src/doc/edits.ts';
 import { msg } from '../../../src/messages/language.ts';
 
 const TREES = 'row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n2,open,40.1\n\n';
@@ -14,6 +15,20 @@ interface Mounted {
   el: TableCellView;
   edits: EditEventDetail[];
   root: ShadowRoot;
+  /** The body the view was given first. */
+  start: string;
+}
+
+/** A body with one edit applied (a whole body, or a splice of part of it). */
+function withEdit(body: string, e: Edit): string {
+  if (e.type === 'body') return e.body;
+  if (e.type === 'splice') return body.slice(0, e.from) + e.text + body.slice(e.to);
+  return body;
+}
+
+/** The body after the view's edits 0..i, applied in order to the body it was given. */
+function bodyAfter(m: Mounted, i: number): string {
+  return m.edits.slice(0, i + 1).reduce((b, d) => withEdit(b, d.edit), m.start);
 }
 
 async function mount(cell: Cell, state: CellViewState | null = null): Promise<Mounted> {
@@ -25,13 +40,13 @@ async function mount(cell: Cell, state: CellViewState | null = null): Promise<Mo
   el.catalogue = { builtins: [], cells: [{ name: 'fit', type: 'record', members: [] }] };
   document.body.append(el);
   await el.updateComplete;
-  return { el, edits, root: el.shadowRoot! };
+  return { el, edits, root: el.shadowRoot!, start: cell.body };
 }
 
 /** Does what the shell does with an edit: hands the view the cell with the new body. */
 async function echo(m: Mounted, cell: Cell): Promise<Cell> {
   const last = m.edits[m.edits.length - 1]!.edit;
-  const next = last.type === 'body' ? { ...cell, body: last.body } : last.type === 'marker' ? { ...cell, marker: last.marker } : cell;
+  const next = last.type === 'marker' ? { ...cell, marker: last.marker } : { ...cell, body: withEdit(cell.body, last) };
   m.el.cell = next;
   await m.el.updateComplete;
   return next;
@@ -60,7 +75,7 @@ describe('<furrow-table-cell>', () => {
     expect(m.root.querySelector('#f-1-1')!.getAttribute('title')).toBe(gridMsg.missingField());
   });
 
-  it('typing over a field and pressing Enter sends the new CSV as one body edit with a merge key', async () => {
+  it('typing over a field and pressing Enter sends the changed row as one splice of the body with a merge key', async () => {
     const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
     const m = await mount(cell);
     const grid = m.root.querySelector<HTMLElement>('.scroller')!;
@@ -78,7 +93,9 @@ describe('<furrow-table-cell>', () => {
     await m.el.updateComplete;
     expect(m.edits).toHaveLength(1);
     const d = m.edits[0]!;
-    expect(d.edit).toEqual({ type: 'body', id: 'c1', body: 'row,method,yield_kg\n1,open,41.2\n1,spindle,39.5\n2,open,40.1\n\n' });
+    // the row's text alone travels, not the whole body
+    expect(d.edit).toEqual({ type: 'splice', id: 'c1', from: 32, to: 46, text: '1,spindle,39.5' });
+    expect(bodyAfter(m, 0)).toBe('row,method,yield_kg\n1,open,41.2\n1,spindle,39.5\n2,open,40.1\n\n');
     expect(d.mergeKey).toBe('field:c1:1:2');
     expect(m.root.querySelector('textarea.editor')).toBeNull();
     // the shell hands the body back: shown as is, nothing sent again
@@ -103,7 +120,7 @@ describe('<furrow-table-cell>', () => {
     ta.value = '12,5';
     key(ta, 'Tab');
     await echo(m, cell);
-    expect((m.edits[0]!.edit as { body: string }).body).toBe('row,method,yield_kg\n1,open,"12,5"\n1,spindle,38.9\n2,open,40.1\n\n');
+    expect(bodyAfter(m, 0)).toBe('row,method,yield_kg\n1,open,"12,5"\n1,spindle,38.9\n2,open,40.1\n\n');
     const f = m.root.querySelector('#f-0-2')!;
     expect(f.classList.contains('bad')).toBe(true);
     expect(f.getAttribute('title')).toBe('"12,5" is not a number; the column yield_kg holds numbers (use a point for decimals)');
@@ -123,7 +140,7 @@ describe('<furrow-table-cell>', () => {
     key(grid, 'ArrowDown', { shiftKey: true });
     key(grid, 'Delete');
     await m.el.updateComplete;
-    expect((m.edits[0]!.edit as { body: string }).body).toBe('row,method,yield_kg\n,,41.2\n,,38.9\n2,open,40.1\n\n');
+    expect(bodyAfter(m, 0)).toBe('row,method,yield_kg\n,,41.2\n,,38.9\n2,open,40.1\n\n');
   });
 
   it('pastes a three-column block from a spreadsheet as three columns, growing the table', async () => {
@@ -136,7 +153,7 @@ describe('<furrow-table-cell>', () => {
     Object.defineProperty(ev, 'clipboardData', { value: { getData: () => '3\tvase\t37.0\r\n3\topen\t42.8\r\n' } });
     grid.dispatchEvent(ev);
     await m.el.updateComplete;
-    expect((m.edits[0]!.edit as { body: string }).body).toBe('row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n3,vase,37.0\n3,open,42.8\n\n');
+    expect(bodyAfter(m, 0)).toBe('row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n3,vase,37.0\n3,open,42.8\n\n');
     expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.pasted(2, 3, 1, 0));
   });
 
@@ -149,7 +166,7 @@ describe('<furrow-table-cell>', () => {
     grid.dispatchEvent(ev);
     await m.el.updateComplete;
     expect(m.edits).toHaveLength(1);
-    expect((m.edits[0]!.edit as { body: string }).body).toBe('variety,block,yield\nA,1,4.2\nB,1,3.9\n\n');
+    expect(bodyAfter(m, 0)).toBe('variety,block,yield\nA,1,4.2\nB,1,3.9\n\n');
     expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.pastedWithNames(3, 3));
     expect([...m.root.querySelectorAll('.col-reads')].map((e) => e.textContent)).toEqual(['text', 'numbers', 'numbers']);
     const undo = m.root.querySelector<HTMLButtonElement>('button.names-as-data')!;
@@ -157,7 +174,7 @@ describe('<furrow-table-cell>', () => {
     undo.click();
     await m.el.updateComplete;
     expect(m.edits).toHaveLength(2);
-    expect((m.edits[1]!.edit as { body: string }).body).toBe('block,treatment,response\nvariety,block,yield\nA,1,4.2\nB,1,3.9\n\n');
+    expect(bodyAfter(m, 1)).toBe('block,treatment,response\nvariety,block,yield\nA,1,4.2\nB,1,3.9\n\n');
     expect(m.root.querySelector('.status')!.textContent).toBe(`${gridMsg.pasted(3, 3, 2, 0)} ${gridMsg.pastedAsCsv()}`);
     expect(m.root.querySelector('button.names-as-data')).toBeNull();
   });
@@ -169,7 +186,7 @@ describe('<furrow-table-cell>', () => {
     Object.defineProperty(ev, 'clipboardData', { value: { getData: () => 'plot\tyield\n4\t39.0' } });
     grid.dispatchEvent(ev);
     await m.el.updateComplete;
-    expect((m.edits[0]!.edit as { body: string }).body).toBe('row,method,yield_kg\nplot,yield,41.2\n4,39.0,38.9\n2,open,40.1\n\n');
+    expect(bodyAfter(m, 0)).toBe('row,method,yield_kg\nplot,yield,41.2\n4,39.0,38.9\n2,open,40.1\n\n');
     expect(m.root.querySelector('button.names-as-data')).toBeNull();
   });
 
@@ -204,7 +221,7 @@ describe('<furrow-table-cell>', () => {
     ta2.value = 'orchard_row';
     key(ta2, 'Enter');
     await m.el.updateComplete;
-    expect((m.edits[0]!.edit as { body: string }).body).toBe('orchard_row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n2,open,40.1\n\n');
+    expect(bodyAfter(m, 0)).toBe('orchard_row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n2,open,40.1\n\n');
   });
 
   it('renames the table with a marker edit, refusing a name that is not plain', async () => {
@@ -230,10 +247,10 @@ describe('<furrow-table-cell>', () => {
     const grid = m.root.querySelector<HTMLElement>('.scroller')!;
     key(grid, 'ArrowRight', { altKey: true, shiftKey: true });
     const c1 = await echo(m, cell);
-    expect((m.edits[0]!.edit as { body: string }).body).toBe('a,column_2,b\n1,,2\n\n');
+    expect(bodyAfter(m, 0)).toBe('a,column_2,b\n1,,2\n\n');
     key(grid, 'ArrowDown', { altKey: true, shiftKey: true });
     await echo(m, c1);
-    expect((m.edits[1]!.edit as { body: string }).body).toBe('a,column_2,b\n,,\n1,,2\n\n');
+    expect(bodyAfter(m, 1)).toBe('a,column_2,b\n,,\n1,,2\n\n');
   });
 
   it('takes a new body from outside (undo) without sending anything', async () => {
@@ -263,11 +280,11 @@ describe('<furrow-table-cell>', () => {
     }
     expect(m.edits).toHaveLength(2);
     // the store applied both at once: the shell hands back the latest body
-    m.el.cell = { ...cell, body: (m.edits[1]!.edit as { body: string }).body };
+    m.el.cell = { ...cell, body: bodyAfter(m, 1) };
     await m.el.updateComplete;
     expect(fieldText(m.root, 0, 2)).toBe('51');
     // undo of the second edit hands back the first body: the view shows it
-    m.el.cell = { ...cell, body: (m.edits[0]!.edit as { body: string }).body };
+    m.el.cell = { ...cell, body: bodyAfter(m, 0) };
     await m.el.updateComplete;
     expect(fieldText(m.root, 0, 2)).toBe('50');
     expect(m.edits).toHaveLength(2);
@@ -313,7 +330,7 @@ describe('<furrow-table-cell>', () => {
     expect(m.edits).toHaveLength(0);
     expect(m.root.querySelector('.status')!.textContent).toBe(gridMsg.lastColumn());
     key(grid, 'R', { altKey: true, shiftKey: true, code: 'KeyR' });
-    expect((m.edits[0]!.edit as { body: string }).body).toBe('a,b\n\n');
+    expect(bodyAfter(m, 0)).toBe('a,b\n\n');
   });
 
   it('shows a body that does not read as its text with the reason, and sends edits of the text', async () => {

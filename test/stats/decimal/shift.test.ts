@@ -7,7 +7,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { DecimalTextError, exactDecimalText, roundScaledInteger, shiftDecimals } from '../../../src/stats/decimal/index.ts';
+import { DecimalTextError, exactDecimalText, readDecimals, readDecimalsAgain, roundScaledInteger, shiftDecimals, shiftReading } from '../../../src/stats/decimal/index.ts';
 import { lre } from '../designs/support.ts';
 
 interface Rational {
@@ -225,5 +225,36 @@ describe('shiftDecimals', () => {
     console.log(`SmLs09-like within SS: LRE ${plain.toFixed(1)} on plain doubles, ${shifted.toFixed(1)} after the shift`);
     expect(plain).toBeLessThan(6);
     expect(shifted).toBeGreaterThanOrEqual(12);
+  });
+});
+
+describe('a reading of decimal texts kept and read again', () => {
+  it('reading again the changed texts gives what reading all of them gives, and shifting a kept reading leaves it as it was', () => {
+    const text = fc.oneof(
+      fc.constantFrom('0', '-0', '1.5', '1000000000000.4', '1e-7', ' 42 ', '12345678901234567890123', '9.999999999999999e22'),
+      fc.integer({ min: -10_000_000, max: 10_000_000 }).map((k) => (k / 1000).toString()),
+    );
+    fc.assert(
+      fc.property(fc.array(text, { minLength: 1, maxLength: 40 }), fc.array(fc.tuple(fc.nat(), text), { maxLength: 5 }), (texts, changes) => {
+        const base = readDecimals(texts);
+        const next = texts.slice();
+        const rows = changes.map(([at, t]) => {
+          next[at % texts.length] = t;
+          return at % texts.length;
+        });
+        const again = readDecimalsAgain(base, next, rows);
+        const full = readDecimals(next);
+        expect(Array.from(again.values)).toEqual(Array.from(full.values));
+        expect(Array.from(again.significand)).toEqual(Array.from(full.significand));
+        expect(Array.from(again.scale)).toEqual(Array.from(full.scale));
+        const before = Array.from(again.values);
+        const s = shiftReading(again);
+        const direct = shiftDecimals(next);
+        expect(s.offset).toBe(direct.offset);
+        expect(Array.from(s.shifted)).toEqual(Array.from(direct.shifted));
+        expect(Array.from(again.values)).toEqual(before);
+      }),
+      { numRuns: 500, seed: 20261202 },
+    );
   });
 });
