@@ -9,6 +9,7 @@ import type { Document } from '../doc/document.ts';
 import type { Edit } from '../doc/edits.ts';
 import { ColumnReceiver } from './column-ledger.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
+import type { Value } from '../lang/values.ts';
 
 export interface BridgeEvents {
   /** States changed (after a result, or when cells were marked pending). */
@@ -47,7 +48,7 @@ export class EvaluationBridge {
   private waiters: (() => void)[] = [];
   private readonly events: BridgeEvents;
   /** The long columns held here, which results refer to instead of sending them again. */
-  private readonly columns = new ColumnReceiver();
+  private columns = new ColumnReceiver();
 
   constructor(events: BridgeEvents, current: () => Document, factory: WorkerFactory = defaultWorker) {
     this.events = events;
@@ -78,8 +79,8 @@ export class EvaluationBridge {
   }
 
   /** Sends a document opened (or reloaded): the worker evaluates all of it. */
-  load(doc: Document): void {
-    this.post({ type: 'load', seq: this.next(), doc });
+  load(doc: Document, forget = false): void {
+    this.post(forget ? { type: 'load', seq: this.next(), doc, forget } : { type: 'load', seq: this.next(), doc });
   }
 
   /** Sends an edit the store applied: the worker applies it to its document too. */
@@ -164,9 +165,22 @@ export class EvaluationBridge {
         return;
       case 'result': {
         const changed = new Set<string>();
-        for (const r of m.results) {
-          const value = this.columns.decode(r.id, r.value);
-          const parts = r.parts === null ? null : r.parts.map((p) => this.columns.decode(r.id, p));
+        let decoded: { value: Value; parts: Value[] | null }[];
+        try {
+          decoded = m.results.map((r) => ({
+            value: this.columns.decode(r.id, r.value),
+            parts: r.parts === null ? null : r.parts.map((p) => this.columns.decode(r.id, p)),
+          }));
+        } catch {
+          // the column ledgers fell out of step (they should not): start both afresh, and
+          // have the worker send the document's values again, whole
+          this.columns = new ColumnReceiver();
+          this.clearPending(m.seq, changed);
+          this.load(this.current(), true);
+          return;
+        }
+        for (const [i, r] of m.results.entries()) {
+          const { value, parts } = decoded[i]!;
           const s: CellViewState = { status: r.status, value, parts, warnings: r.warnings, error: r.error, progress: null };
           this.previous.set(r.id, s);
           // a later update may already have marked this cell again: keep it pending then

@@ -17,7 +17,13 @@ import type { WireValue } from './column-ledger.ts';
  */
 export type ToWorker =
   /** Take this document and evaluate it. */
-  | { readonly type: 'load'; readonly seq: number; readonly doc: Document }
+  | {
+      readonly type: 'load';
+      readonly seq: number;
+      readonly doc: Document;
+      /** The page holds no columns (its ledger was lost): send every column whole from now on. */
+      readonly forget?: boolean;
+    }
   /** Apply this edit to the document held and evaluate what it touched. */
   | { readonly type: 'edit'; readonly seq: number; readonly edit: Edit }
   /** CSV files beside the document, by name (undefined removes one); the cells reading them re-evaluate. */

@@ -58,7 +58,7 @@ function typeName(v: Value): string {
 
 let doc: Document | null = null;
 /** The long columns the page holds, so that results send only what it lacks. */
-const ledger = new ColumnSender();
+let ledger = new ColumnSender();
 
 scope.onmessage = (e: MessageEvent<ToWorker>) => {
   const m = e.data;
@@ -70,6 +70,7 @@ scope.onmessage = (e: MessageEvent<ToWorker>) => {
     if (m.type === 'load') {
       gone = doc === null ? [] : doc.cells.map((c) => c.id).filter((id) => !m.doc.cells.some((c) => c.id === id));
       doc = m.doc;
+      if (m.forget === true) ledger = new ColumnSender();
     } else if (m.type === 'edit') {
       if (doc === null) throw new Error('an edit arrived before a document');
       const next = applyEdit(doc, m.edit).document;
