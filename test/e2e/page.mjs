@@ -79,3 +79,43 @@ export async function openDocument(page, text, name = 'dropped.furrow') {
     { text, name },
   );
 }
+
+/**
+ * Watches the page's evaluation worker without changing what it does: when each edit is
+ * posted (and of what kind), when each result comes back and how long the worker took. The
+ * clock of an edit starts at the Enter that commits it (window.__t0, set by the test).
+ */
+export async function watchEdits(page) {
+  await page.evaluate(() => {
+    window.__marks = {};
+    const w = document.querySelector('furrow-app').bridge.worker;
+    const post = w.postMessage.bind(w);
+    w.postMessage = (m) => {
+      if (m.type === 'edit') {
+        window.__marks.post = performance.now();
+        window.__marks.editType = m.edit.type;
+      }
+      post(m);
+    };
+    w.addEventListener('message', (e) => {
+      if (e.data.type === 'result') {
+        window.__marks.result = performance.now();
+        window.__marks.millis = e.data.millis;
+      }
+    });
+  });
+}
+
+/** Where the last edit's time went: Enter to the edit posted, the worker's own time, Enter to the result back. */
+export function editParts(page) {
+  return page.evaluate(() => {
+    const m = window.__marks;
+    return { type: m.editType, post: m.post - window.__t0, worker: m.millis, result: m.result - window.__t0 };
+  });
+}
+
+/** The medians of several edits' parts, as a line for the measured output. */
+export function partsLine(parts) {
+  const mid = (key) => [...parts.map((p) => p[key])].sort((a, b) => a - b)[Math.floor(parts.length / 2)].toFixed(1);
+  return `of which (medians) Enter to the edit posted ${mid('post')} ms, the worker ${mid('worker')} ms, Enter to the result back ${mid('result')} ms; edits sent as ${[...new Set(parts.map((p) => p.type))].join(', ')}`;
+}

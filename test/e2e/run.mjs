@@ -16,7 +16,7 @@ import { largePageTests } from './large-page.mjs';
 import { firstHourTests } from './first-hour.mjs';
 import { convertingTests } from './converting.mjs';
 import { readingTests } from './reading.mjs';
-import { cellText, noteText, statusOf, settled, shownF, field, openDocument } from './page.mjs';
+import { cellText, noteText, statusOf, settled, shownF, field, openDocument, watchEdits, editParts, partsLine } from './page.mjs';
 
 const args = process.argv.slice(2);
 const jsonAt = args.indexOf('--json');
@@ -348,7 +348,9 @@ const tests = [
       await openDocument(page, `furrow 1\ntitle: Two hundred cells\n\n${cells.join('\n')}`, 'many.furrow');
       await page.locator('section[data-name="f5"] furrow-value').waitFor();
       await settled(page);
+      await watchEdits(page);
       const times = [];
+      const parts = [];
       for (let k = 0; k < 5; k++) {
         const value = String(40 + k);
         await field(page, 'base', 0, 1).click();
@@ -356,15 +358,6 @@ const tests = [
         // the clock starts at the Enter that commits the field (the event's own time stamp)
         await page.evaluate(() => {
           window.__t0 = null;
-          window.__marks = {};
-          // the bridge's worker, watched without changing what it does
-          const w = document.querySelector('furrow-app').bridge.worker;
-          if (!w.__hooked) {
-            w.__hooked = true;
-            const post = w.postMessage.bind(w);
-            w.postMessage = (m) => { if (m.type === 'edit') { window.__marks.post = performance.now(); window.__marks.editType = m.edit.type; } post(m); };
-            w.addEventListener('message', (e) => { if (e.data.type === 'result') { window.__marks.result = performance.now(); window.__marks.millis = e.data.millis; } });
-          }
           window.addEventListener('keydown', (e) => { if (e.key === 'Enter') window.__t0 = e.timeStamp; }, { capture: true, once: true });
         });
         const expected = String(Number(value) + 50 + 4); // f5 = sum(base.y) + 4
@@ -384,12 +377,14 @@ const tests = [
         await page.keyboard.press('Enter');
         const ms = await waiting;
         times.push(ms);
+        parts.push(await editParts(page));
         await settled(page);
       }
       times.sort((a, b) => a - b);
       const median = times[2];
       measured.editToVisibleDependentMs = times.map((t) => Math.round(t * 10) / 10);
       console.log(`    measured: edit to visible dependent ${times.map((t) => t.toFixed(1)).join(', ')} ms (median ${median.toFixed(1)}; target under 16 ms)`);
+      console.log(`    measured: ${partsLine(parts)}`);
     },
   },
   {
@@ -406,8 +401,8 @@ const tests = [
       const readTotal = () =>
         page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="total"] furrow-formula-cell')?.shadowRoot?.querySelector('furrow-value')?.shadowRoot?.textContent ?? '');
       check(/550,?000/.test(await readTotal()), `the total before: ${await readTotal()}`);
+      await watchEdits(page);
       const times = [];
-      // where the time goes: Enter to the edit posted, the worker's own time, Enter to the result back
       const parts = [];
       for (let k = 0; k < 5; k++) {
         const value = 20 + k;
@@ -415,15 +410,6 @@ const tests = [
         await page.keyboard.type(String(value));
         await page.evaluate(() => {
           window.__t0 = null;
-          window.__marks = {};
-          // the bridge's worker, watched without changing what it does
-          const w = document.querySelector('furrow-app').bridge.worker;
-          if (!w.__hooked) {
-            w.__hooked = true;
-            const post = w.postMessage.bind(w);
-            w.postMessage = (m) => { if (m.type === 'edit') { window.__marks.post = performance.now(); window.__marks.editType = m.edit.type; } post(m); };
-            w.addEventListener('message', (e) => { if (e.data.type === 'result') { window.__marks.result = performance.now(); window.__marks.millis = e.data.millis; } });
-          }
           window.addEventListener('keydown', (e) => { if (e.key === 'Enter') window.__t0 = e.timeStamp; }, { capture: true, once: true });
         });
         const expected = String(550_000 - 1 + value); // row 1's y was 1
@@ -438,7 +424,7 @@ const tests = [
           { polling: 'raf', timeout: 30_000 },
         );
         times.push(await handle.jsonValue());
-        parts.push(await page.evaluate(() => { const m = window.__marks; return { type: m.editType, post: m.post - window.__t0, worker: m.millis, result: m.result - window.__t0 }; }));
+        parts.push(await editParts(page));
         await settled(page);
       }
       times.sort((a, b) => a - b);
@@ -458,8 +444,7 @@ const tests = [
       measured.autosavePerKeystrokeMs = Math.round(cost.perTouch * 10000) / 10000;
       measured.autosaveTextPerPauseMs = Math.round(cost.build * 10) / 10;
       console.log(`    measured: 100,000-row table, edit to visible dependent ${times.map((t) => t.toFixed(1)).join(', ')} ms (median ${times[2].toFixed(1)}; target under 16 ms)`);
-      const mid = (key) => [...parts.map((p) => p[key])].sort((a, b) => a - b)[Math.floor(parts.length / 2)].toFixed(1);
-      console.log(`    measured: of which (medians) Enter to the edit posted ${mid('post')} ms, the worker ${mid('worker')} ms, Enter to the result back ${mid('result')} ms; edits sent as ${[...new Set(parts.map((p) => p.type))].join(', ')}`);
+      console.log(`    measured: ${partsLine(parts)}`);
       check(parts.every((p) => p.type === 'splice'), `a field edit travels as a splice: ${parts.map((p) => p.type).join(', ')}`);
       console.log(`    measured: autosave ${cost.perTouch.toFixed(4)} ms per keystroke (target under 1 ms); writing the text when typing pauses ${cost.build.toFixed(1)} ms`);
     },
