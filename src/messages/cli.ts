@@ -97,14 +97,16 @@ export const cliMsg = {
   reportWritten: (out: string, kilobytes: number) => `Wrote ${out} (${kilobytes} kB).`,
 
   // ---- furrow sheet --------------------------------------------------------------------
-  sheetUsage: (defaults: readonly string[]) => `Usage: furrow sheet FILE NAME [-o plan.csv] [--columns a,b]
+  sheetUsage: (defaults: readonly string[]) => `Usage: furrow sheet FILE NAME [-o plan.csv] [--columns a,b] [--replace]
 
   Writes the layout NAME of the document FILE (a table, for example one made by
   random_layout) as a run sheet: its columns, then empty columns for the measurements
   (by default: ${defaults.join(', ')}).
 
   -o FILE          write to FILE instead of standard output
-  --columns a,b    the measurement columns, comma-separated`,
+  --columns a,b    the measurement columns, comma-separated
+  --replace        write over the file at -o even when it holds something else
+                   (without it, a run sheet already filled in is never written over)`,
   sheetFailure: (detail: string) => `furrow sheet: ${detail}`,
   sheetNeedsValue: (option: string, usage: string) => `furrow sheet: ${option} needs a value.\n\n${usage}`,
   sheetUnknownOption: (option: string, usage: string) => `furrow sheet: unknown option ${option}\n\n${usage}`,
@@ -114,4 +116,7 @@ export const cliMsg = {
   sheetNotTable: (name: string, type: string) =>
     `furrow sheet: "${name}" is ${type}, not a table; a run sheet is made from a layout such as random_layout(...).`,
   sheetNotWritten: (path: string, detail: string) => `furrow sheet: cannot write ${path}: ${detail}`,
+  sheetWouldOverwrite: (path: string) =>
+    `furrow sheet: ${path} already exists and holds something other than this run sheet (perhaps measurements typed into it); nothing was written. Name another file after -o, or add --replace to write over it.`,
+  sheetOverDocument: () => 'furrow sheet: the run sheet would overwrite the document; name another file after -o.',
 } as const;

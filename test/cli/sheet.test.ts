@@ -45,6 +45,33 @@ describe('furrow sheet', () => {
     expect(r.out.split('\n').length).toBe(13);
   });
 
+  it('never writes over a sheet that has been filled in, unless told to', () => {
+    const dir = scratch(PLAN);
+    const doc = join(dir, 'plan.furrow');
+    const out = join(dir, 'plan.csv');
+    expect(cli('sheet', doc, 'plan', '-o', out).code).toBe(0);
+    const blank = readFileSync(out, 'utf8');
+    // the same sheet again: nothing to lose, so it succeeds and the file is unchanged
+    expect(cli('sheet', doc, 'plan', '-o', out)).toMatchObject({ code: 0, err: '' });
+    expect(readFileSync(out, 'utf8')).toBe(blank);
+    // a measurement typed into the sheet: running the command again keeps it
+    const filled = blank.replace('1,1,early,,', '1,1,early,41.7,dry');
+    expect(filled).not.toBe(blank);
+    writeFileSync(out, filled);
+    expect(cli('sheet', doc, 'plan', '-o', out)).toMatchObject({ code: 2, err: cliMsg.sheetWouldOverwrite(out) });
+    expect(readFileSync(out, 'utf8')).toBe(filled);
+    // other columns asked for: still a different sheet, still kept
+    expect(cli('sheet', doc, 'plan', '-o', out, '--columns', 'y').code).toBe(2);
+    expect(readFileSync(out, 'utf8')).toBe(filled);
+    // said plainly: written over
+    expect(cli('sheet', doc, 'plan', '-o', out, '--replace')).toMatchObject({ code: 0, err: '' });
+    expect(readFileSync(out, 'utf8')).toBe(blank);
+    // never over the document itself, even with --replace
+    const before = readFileSync(doc, 'utf8');
+    expect(cli('sheet', doc, 'plan', '-o', doc, '--replace')).toMatchObject({ code: 2, err: cliMsg.sheetOverDocument() });
+    expect(readFileSync(doc, 'utf8')).toBe(before);
+  });
+
   it('says plainly what is wrong, with exit status 2', () => {
     const dir = scratch(PLAN);
     const f = join(dir, 'plan.furrow');
