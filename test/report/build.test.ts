@@ -10,6 +10,8 @@ import { reportHtml } from '../../src/cli/report.ts';
 import { REPORT_CSS } from '../../src/report/style.ts';
 import { reportPolicy } from '../../src/report/build.ts';
 import { carriedDocument } from '../../src/report/source.ts';
+import { reportMsg } from '../../src/messages/report.ts';
+import { ENGINE_NAME } from '../../src/seal/version.ts';
 import { cli, sampleCopies, scratch } from '../cli/support.ts';
 
 describe('the report', () => {
@@ -44,6 +46,16 @@ describe('the report', () => {
     const [adhesive, backing] = ['adhesive-cure', 'backing-abrasion'].map((n) => sampleCopies().find((p) => p.endsWith(`${n}.furrow`))!);
     expect(await reportHtml(adhesive!)).toContain('<p class="caution" role="note"><strong>Caution.</strong> These coupons qualify a bonding process');
     expect(await reportHtml(backing!)).not.toContain('class="caution"');
+  });
+
+  it('ends every report, caution declared or not, with the line that a statistical result does not replace qualified judgement', async () => {
+    // design rule (docs: Cautions): a document that declares no caution may still touch health,
+    // food or safety, so the footer of every report says it in plain words
+    for (const path of sampleCopies()) {
+      const footer = (await reportHtml(path)).match(/<footer>([\s\S]*?)<\/footer>/)?.[1] ?? '';
+      expect(footer, path).toContain('A statistical result supports, and does not replace, the judgement of qualified people');
+      expect(footer, path).toContain(reportMsg.footer(ENGINE_NAME, path.split('/').pop()!));
+    }
   });
 
   it('cuts a long table to its first rows and says how many there are', async () => {
