@@ -22,7 +22,8 @@ const USAGE = `Usage: furrow run FILE [--json]
                     the claims, the engine's version and the fingerprint
   verify FILE       recompute a sealed document and say what differs
   report FILE -o OUT.html
-                    write one self-contained HTML report of the document
+                    write one self-contained HTML report of the document (a file
+                    at OUT.html that is not a report is kept unless --replace)
   sheet FILE NAME   a layout as a run sheet (CSV); furrow sheet --help for more
 
 Exit status: 0 when every cell evaluated (seal), everything matches (verify)
@@ -93,6 +94,8 @@ export const cliMsg = {
   // ---- furrow report -------------------------------------------------------------------
   reportArguments: (usage: string) => `furrow: report takes one file and -o OUT.html.\n\n${usage}`,
   reportOverDocument: () => 'furrow: the report would overwrite the document; name another file after -o.',
+  reportWouldOverwrite: (out: string) =>
+    `furrow: ${out} already exists and is not a report made by furrow; nothing was written. Name another file after -o, or add --replace to write over it.`,
   reportNotWritten: (out: string, detail: string) => `the report cannot be written to ${out}: ${detail}`,
   reportWritten: (out: string, kilobytes: number) => `Wrote ${out} (${kilobytes} kB).`,
 

@@ -3,8 +3,8 @@
  * in it runs or loads.
  */
 import { createHash } from 'node:crypto';
-import { readFileSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readFileSync, symlinkSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { reportHtml } from '../../src/cli/report.ts';
 import { REPORT_CSS } from '../../src/report/style.ts';
@@ -13,6 +13,7 @@ import { carriedDocument } from '../../src/report/source.ts';
 import { reportMsg } from '../../src/messages/report.ts';
 import { ENGINE_NAME } from '../../src/seal/version.ts';
 import { cli, sampleCopies, scratch } from '../cli/support.ts';
+import { cliMsg } from '../../src/messages/cli.ts';
 
 describe('the report', () => {
   it('allows its one stylesheet by the SHA-256 of its text, and no script at all', () => {
@@ -107,5 +108,34 @@ describe('furrow report', () => {
     expect(await main(['report', path!], o)).toBe(2);
     expect(await main(['report', path!, '-o', path!], o)).toBe(2);
     expect(err.join('\n')).toContain('the report would overwrite the document');
+  });
+
+  it('writes over an earlier report, but over any other file only when told to', async () => {
+    const [path] = sampleCopies();
+    const dir = resolve(path!, '..');
+    const err: string[] = [];
+    const o = { out: () => {}, err: (s: string) => err.push(s) };
+    const { main } = await import('../../src/cli/main.ts');
+    const html = join(dir, 'r.html');
+    expect(await main(['report', path!, '-o', html], o)).toBe(0);
+    // an earlier report is made again without a word
+    writeFileSync(html, readFileSync(html, 'utf8').replace('<title>', '<title>old '));
+    expect(await main(['report', path!, '-o', html], o)).toBe(0);
+    expect(readFileSync(html, 'utf8')).not.toContain('<title>old ');
+    // a data file named by mistake is kept
+    const csv = join(dir, 'plots.csv');
+    writeFileSync(csv, 'block,y\n1,4.2\n');
+    expect(await main(['report', path!, '-o', csv], o)).toBe(2);
+    expect(err.pop()).toBe(cliMsg.reportWouldOverwrite(csv));
+    expect(readFileSync(csv, 'utf8')).toBe('block,y\n1,4.2\n');
+    expect(await main(['report', path!, '-o', csv, '--replace'], o)).toBe(0);
+    expect(readFileSync(csv, 'utf8').startsWith('<!doctype html>')).toBe(true);
+    // the document itself, even through a link to it and with --replace, never
+    const before = readFileSync(path!, 'utf8');
+    const link = join(dir, 'link.furrow');
+    symlinkSync(path!, link);
+    expect(await main(['report', path!, '-o', link, '--replace'], o)).toBe(2);
+    expect(err.pop()).toBe(cliMsg.reportOverDocument());
+    expect(readFileSync(path!, 'utf8')).toBe(before);
   });
 });
