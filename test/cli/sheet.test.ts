@@ -72,6 +72,33 @@ describe('furrow sheet', () => {
     expect(readFileSync(doc, 'utf8')).toBe(before);
   });
 
+  it('the whole round: sheet to a file, filled in, read back from the file, checked against the plan in furrow run', () => {
+    const dir = scratch(PLAN);
+    const sheet = join(dir, 'plan.csv');
+    expect(cli('sheet', join(dir, 'plan.furrow'), 'plan', '-o', sheet, '--columns', 'yield_kg,notes').code).toBe(0);
+    const lines = readFileSync(sheet, 'utf8').trimEnd().split('\n');
+    const filled = [lines[0]!, ...lines.slice(1).map((l, i) => l.replace(/,,$/, `,${(30 + i * 0.7).toFixed(1)},`))];
+    writeFileSync(sheet, `${filled.join('\n')}\n`);
+    const checked = PLAN + '\n--- table harvest from plan.csv\n--- formula\ncheck = layout_check(harvest, plan)\n\n--- formula\nok = claim(check.holds, "the harvest follows the plan")\n';
+    writeFileSync(join(dir, 'checked.furrow'), checked);
+    const r = cli('run', join(dir, 'checked.furrow'), '--json');
+    expect(r.code, r.err).toBe(0);
+    const cells = (JSON.parse(r.out) as { cells: { name: string | null; value: unknown }[] }).cells;
+    expect(cells.find((c) => c.name === 'check')!.value).toMatchObject({ holds: true, plots: 12, matched: 12 });
+    // two treatments swapped in block 2 of the file: the check fails and names both plots
+    const [x, y] = [filled[4]!.split(','), filled[5]!.split(',')];
+    expect([x[0], x[1], y[0], y[1]]).toEqual(['2', '1', '2', '2']);
+    [x[2], y[2]] = [y[2]!, x[2]!];
+    filled[4] = x.join(',');
+    filled[5] = y.join(',');
+    writeFileSync(sheet, `${filled.join('\n')}\n`);
+    const s2 = (JSON.parse(cli('run', join(dir, 'checked.furrow'), '--json').out) as { cells: { name: string | null; value: unknown }[] }).cells;
+    const check = s2.find((c) => c.name === 'check')!.value as { holds: boolean; summary: string };
+    expect(check.holds).toBe(false);
+    expect(check.summary).toContain(planningMsg.plotDiffers('block 2, plot 1', x[2]!, y[2]!));
+    expect(check.summary).toContain(planningMsg.plotDiffers('block 2, plot 2', y[2]!, x[2]!));
+  });
+
   it('says plainly what is wrong, with exit status 2', () => {
     const dir = scratch(PLAN);
     const f = join(dir, 'plan.furrow');
