@@ -88,6 +88,8 @@ export const cliMsg = {
     `Sealed ${path}: ${count(values, 'named value', 'named values')} and ${count(claims, 'claim', 'claims')}.`,
   sealedWithErrors: (names: readonly string[]) =>
     `${names.length === 1 ? '1 cell holds an error; it is' : `${names.length} cells hold errors; they are`} sealed as ${names.length === 1 ? 'an error' : 'errors'}: ${names.join(', ')}.`,
+  sealedFailingClaims: (statements: readonly string[]) =>
+    `${statements.length === 1 ? '1 claim does not hold; it is' : `${statements.length} claims do not hold; they are`} sealed as not holding, and furrow verify will say so: ${statements.map((x) => `"${x}"`).join(', ')}.`,
   /** How a cell without a name is called in a list of cells. */
   unnamedCell: (index: number, kind: string) => `cell ${index} (${kind})`,
 
