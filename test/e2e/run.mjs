@@ -2,6 +2,7 @@
 //   npm run e2e                 build, serve with vite preview, run every test
 //   npm run e2e -- --no-build   reuse dist/
 //   npm run e2e -- --json FILE  also write {passed, failed, results} to FILE
+import { spawnSync } from 'node:child_process';
 import { readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { cpus } from 'node:os';
 import { join } from 'node:path';
@@ -472,6 +473,9 @@ tests.push({
     const text = readFileSync(await download.path(), 'utf8');
     const lines = text.trimEnd().split('\n');
     check(lines[0] === 'block,plot,treatment,measurement,notes' && lines.length === 29, `run sheet: ${lines.slice(0, 3).join(' | ')} (${lines.length} lines)`);
+    // drawn in the browser's worker, the plan is the one the command line draws from the same seed, plot for plot
+    const cli = spawnSync(process.execPath, ['bin/furrow.js', 'sheet', 'samples/goalmouth-turf.furrow', 'plan'], { encoding: 'utf8' });
+    check(cli.status === 0 && cli.stdout.trimEnd() === text.trimEnd(), `the page's run sheet differs from furrow sheet's: ${cli.stderr}${cli.stdout.slice(0, 120)}`);
   },
 });
 
