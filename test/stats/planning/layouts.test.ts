@@ -148,7 +148,7 @@ describe('no position bias over 10,000 seeded layouts (chi-square, fail at p < 0
     // memory). Of the 576 of size 4, 432 are isotopic to the cyclic square (the rest to the
     // table of the Klein four-group), so the draw must reach exactly 432, evenly: 12, 576 and
     // 432 were also counted by enumerating every square and every row, column and symbol
-    // permutation of the cyclic one (Python 3 itertools, /usr/bin/python3, December 2026)
+    // permutation of the cyclic one (test/reference/fixtures/latin_counts.py)
     [3, 12, 0],
     [4, 432, 50_000],
   ] as const)('Latin squares of %i over 10,000 seeds: every reachable square equally likely', (k, reachable, offset) => {
