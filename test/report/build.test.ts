@@ -11,6 +11,7 @@ import { REPORT_CSS } from '../../src/report/style.ts';
 import { reportPolicy } from '../../src/report/build.ts';
 import { carriedDocument } from '../../src/report/source.ts';
 import { reportMsg } from '../../src/messages/report.ts';
+import { planningMsg } from '../../src/messages/planning.ts';
 import { ENGINE_NAME } from '../../src/seal/version.ts';
 import { cli, sampleCopies, scratch } from '../cli/support.ts';
 import { cliMsg } from '../../src/messages/cli.ts';
@@ -57,6 +58,20 @@ describe('the report', () => {
       expect(footer, path).toContain('A statistical result supports, and does not replace, the judgement of qualified people');
       expect(footer, path).toContain(reportMsg.footer(ENGINE_NAME, path.split('/').pop()!));
     }
+  });
+
+  it('shows what the engine warned about on a cell: the design warning on the fit that ignores the pairs, none on the one that uses them', async () => {
+    const path = sampleCopies().find((p) => p.endsWith('tread-wear.furrow'))!;
+    const html = await reportHtml(path);
+    const section = (name: string): string => {
+      const found = [...html.matchAll(/<section class="cell" id="cell-\d+">([\s\S]*?)<\/section>/g)].find((m) => m[1]!.includes(`<pre class="source">${name} = `));
+      if (found === undefined) throw new Error(`no cell ${name} in the report`);
+      return found[1]!;
+    };
+    const warning = planningMsg.ignoredBlocks('tread', 'van', 'compound', 'two_sample', 'blocked(tread.wear_mm, tread.compound, tread.van) (the paired comparison)');
+    const escaped = warning.replace(/&/g, '&amp;').replace(/"/g, '&quot;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+    expect(section('as_groups')).toContain(`<ul class="warnings" role="note"><li><strong>${reportMsg.warningLead()}</strong> ${escaped}</li></ul>`);
+    expect(section('as_blocks')).not.toContain('class="warnings"');
   });
 
   it('cuts a long table to its first rows and says how many there are', async () => {
