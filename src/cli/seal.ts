@@ -42,6 +42,8 @@ export interface SealOutcome {
   readonly text: string;
   readonly values: number;
   readonly claims: number;
+  /** The statements of the claims that do not hold: sealed as they are, and said. */
+  readonly failing: readonly string[];
   readonly errors: readonly string[];
 }
 
@@ -51,13 +53,15 @@ export function sealFile(path: string, beforeRename?: () => void): SealOutcome {
   const prepared = prepareForSeal(doc);
   engine.update(prepared);
   const states = engine.states();
+  const claims = claimsOf(states);
   const sealed = sealDocument(prepared, states, readDataFiles(path, prepared));
   const text = writeDocument(sealed);
   writeWhole(path, text, beforeRename);
   return {
     text,
     values: namedValues(states).length,
-    claims: claimsOf(states).length,
+    claims: claims.length,
+    failing: claims.filter((c) => !c.holds).map((c) => c.statement),
     errors: states.flatMap((s, i) => (s.status === 'error' || s.status === 'upstream' ? [s.name ?? cliMsg.unnamedCell(i + 1, s.kind)] : [])),
   };
 }
@@ -71,6 +75,7 @@ export function sealCommand(args: readonly string[], o: Output, usage: string): 
   const path = args[0]!;
   const r = sealFile(path);
   o.out(cliMsg.sealed(path, r.values, r.claims));
+  if (r.failing.length > 0) o.out(cliMsg.sealedFailingClaims(r.failing));
   if (r.errors.length === 0) return 0;
   o.out(cliMsg.sealedWithErrors(r.errors));
   return 1;

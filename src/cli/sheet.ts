@@ -1,9 +1,15 @@
 /**
- * `furrow sheet FILE NAME -o plan.csv [--columns yield,notes]`: writes the layout named NAME
- * of a document as a run sheet (src/doc/run-sheet.ts). Without -o the sheet goes to standard
- * output. Exit status 0 when written, 2 when the document, the name or the output fails.
+ * `furrow sheet FILE NAME -o plan.csv [--columns yield,notes] [--replace]`: writes the layout
+ * named NAME of a document as a run sheet (src/doc/run-sheet.ts). Without -o the sheet goes to
+ * standard output. Exit status 0 when written, 2 when the document, the name or the output
+ * fails.
+ *
+ * A run sheet is where measurements get typed, so an existing file at -o is never written
+ * over unless it already holds exactly this sheet or --replace says so: running the command
+ * again after the sheet was filled in must not wipe the measurements.
  */
-import { writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, realpathSync, writeFileSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { DEFAULT_MEASUREMENTS, RunSheetError, runSheet } from '../doc/run-sheet.ts';
 import { isError, isTable, describeType } from '../lang/values.ts';
 import { CliFailure, loadDocument } from './main.ts';
@@ -21,6 +27,7 @@ export function sheetCommand(argv: readonly string[], o: Output): number {
   const positional: string[] = [];
   let outPath: string | null = null;
   let columns: string[] = [...DEFAULT_MEASUREMENTS];
+  let replace = false;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     if (a === '-h' || a === '--help') {
@@ -36,6 +43,10 @@ export function sheetCommand(argv: readonly string[], o: Output): number {
       if (a === '-o') outPath = v;
       else columns = v.split(',').map((s) => s.trim());
       i++;
+      continue;
+    }
+    if (a === '--replace') {
+      replace = true;
       continue;
     }
     if (a.startsWith('-')) {
@@ -83,7 +94,21 @@ export function sheetCommand(argv: readonly string[], o: Output): number {
     return 0;
   }
   try {
-    writeFileSync(outPath, text);
+    if (existsSync(outPath)) {
+      if (realpathSync(outPath) === realpathSync(resolve(file))) {
+        o.err(cliMsg.sheetOverDocument());
+        return 2;
+      }
+      if (readFileSync(outPath, 'utf8') === text) return 0;
+      if (!replace) {
+        o.err(cliMsg.sheetWouldOverwrite(outPath));
+        return 2;
+      }
+      writeFileSync(outPath, text);
+    } else {
+      // 'wx': if a file appeared since the look above, it is not written over
+      writeFileSync(outPath, text, { flag: 'wx' });
+    }
   } catch (err) {
     o.err(cliMsg.sheetNotWritten(outPath, (err as Error).message));
     return 2;

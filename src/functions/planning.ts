@@ -330,7 +330,7 @@ export const PLANNING: readonly Builtin[] = [
       const tName = a.get('treatment') as string;
       const lp = keyedPlots(layout, shape.keys, 'treatment', 'layout');
       const dp = keyedPlots(data, shape.keys, tName, 'data');
-      const d = guarded(() => compareWithLayout(lp, dp));
+      const d = guarded(() => compareWithLayout(lp, dp, shape.keys));
       const keyCols = (rows: readonly number[], side: KeyedPlots): [string, Column][] =>
         shape.keys.map((k, j) => [k, textColumn(rows.map((r) => side.keys[r]![j]!), null, k)]);
       const text = (xs: readonly (string | null)[]): Column => {

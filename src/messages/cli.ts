@@ -22,7 +22,8 @@ const USAGE = `Usage: furrow run FILE [--json]
                     the claims, the engine's version and the fingerprint
   verify FILE       recompute a sealed document and say what differs
   report FILE -o OUT.html
-                    write one self-contained HTML report of the document
+                    write one self-contained HTML report of the document (a file
+                    at OUT.html that is not a report is kept unless --replace)
   sheet FILE NAME   a layout as a run sheet (CSV); furrow sheet --help for more
 
 Exit status: 0 when every cell evaluated (seal), everything matches (verify)
@@ -87,24 +88,30 @@ export const cliMsg = {
     `Sealed ${path}: ${count(values, 'named value', 'named values')} and ${count(claims, 'claim', 'claims')}.`,
   sealedWithErrors: (names: readonly string[]) =>
     `${names.length === 1 ? '1 cell holds an error; it is' : `${names.length} cells hold errors; they are`} sealed as ${names.length === 1 ? 'an error' : 'errors'}: ${names.join(', ')}.`,
+  sealedFailingClaims: (statements: readonly string[]) =>
+    `${statements.length === 1 ? '1 claim does not hold; it is' : `${statements.length} claims do not hold; they are`} sealed as not holding, and furrow verify will say so: ${statements.map((x) => `"${x}"`).join(', ')}.`,
   /** How a cell without a name is called in a list of cells. */
   unnamedCell: (index: number, kind: string) => `cell ${index} (${kind})`,
 
   // ---- furrow report -------------------------------------------------------------------
   reportArguments: (usage: string) => `furrow: report takes one file and -o OUT.html.\n\n${usage}`,
   reportOverDocument: () => 'furrow: the report would overwrite the document; name another file after -o.',
+  reportWouldOverwrite: (out: string) =>
+    `furrow: ${out} already exists and is not a report made by furrow; nothing was written. Name another file after -o, or add --replace to write over it.`,
   reportNotWritten: (out: string, detail: string) => `the report cannot be written to ${out}: ${detail}`,
   reportWritten: (out: string, kilobytes: number) => `Wrote ${out} (${kilobytes} kB).`,
 
   // ---- furrow sheet --------------------------------------------------------------------
-  sheetUsage: (defaults: readonly string[]) => `Usage: furrow sheet FILE NAME [-o plan.csv] [--columns a,b]
+  sheetUsage: (defaults: readonly string[]) => `Usage: furrow sheet FILE NAME [-o plan.csv] [--columns a,b] [--replace]
 
   Writes the layout NAME of the document FILE (a table, for example one made by
   random_layout) as a run sheet: its columns, then empty columns for the measurements
   (by default: ${defaults.join(', ')}).
 
   -o FILE          write to FILE instead of standard output
-  --columns a,b    the measurement columns, comma-separated`,
+  --columns a,b    the measurement columns, comma-separated
+  --replace        write over the file at -o even when it holds something else
+                   (without it, a run sheet already filled in is never written over)`,
   sheetFailure: (detail: string) => `furrow sheet: ${detail}`,
   sheetNeedsValue: (option: string, usage: string) => `furrow sheet: ${option} needs a value.\n\n${usage}`,
   sheetUnknownOption: (option: string, usage: string) => `furrow sheet: unknown option ${option}\n\n${usage}`,
@@ -114,4 +121,7 @@ export const cliMsg = {
   sheetNotTable: (name: string, type: string) =>
     `furrow sheet: "${name}" is ${type}, not a table; a run sheet is made from a layout such as random_layout(...).`,
   sheetNotWritten: (path: string, detail: string) => `furrow sheet: cannot write ${path}: ${detail}`,
+  sheetWouldOverwrite: (path: string) =>
+    `furrow sheet: ${path} already exists and holds something other than this run sheet (perhaps measurements typed into it); nothing was written. Name another file after -o, or add --replace to write over it.`,
+  sheetOverDocument: () => 'furrow sheet: the run sheet would overwrite the document; name another file after -o.',
 } as const;

@@ -143,3 +143,28 @@ export const editMsg = {
   idTaken: (id: string) => `cell id ${id} is taken`,
   spliceOutside: (from: number, to: number, length: number) => `characters ${from} to ${to} are outside a cell body of ${length} characters`,
 };
+
+/** The hand-off panel at the top of the sheet: the verdict of a seal, the claims strip, the report, where a value comes from. */
+export const handOffWords = {
+  verified: () => 'Verified: every value recomputes to its sealed value, bit for bit, and every claim holds.',
+  notVerified: () => 'Not verified: this document no longer computes what was sealed. The differences are marked on their cells.',
+  noClaimsLead: () => 'No claims yet: ',
+  claimExample: () => 'claim(condition, "statement")',
+  noClaimsTail: () => ' states a conclusion that is checked on every evaluation.',
+  allClaimsHold: (n: number) => `All ${n} ${n === 1 ? 'claim holds' : 'claims hold'}:`,
+  claimsFail: (failing: number, n: number) => `${failing} of ${n} ${n === 1 ? 'claim does' : 'claims do'} not hold:`,
+  holds: () => 'holds',
+  doesNotHold: () => 'does not hold',
+  report: () => 'Report (HTML)',
+  makingReport: () => 'Making the report…',
+  reportFailed: (why: string) => `The report could not be made: ${why}`,
+  notInSeal: () => 'Not in the seal: this value was defined after sealing.',
+  differsFromSeal: (details: readonly string[]) => `Differs from its sealed value:\n${details.join('\n')}`,
+  noteInDoubt: (claims: readonly string[]) => `A claim that reads numbers in this note does not hold: ${claims.join('; ')}`,
+  whereFrom: (what: string) => `Where ${what} comes from`,
+  cellAt: (position: number) => `cell ${position}`,
+  stepOfKind: (kind: string, position: number) => `${kind} (cell ${position})`,
+  reads: (names: readonly string[]) => `reads ${names.join(', ')}`,
+  fromData: () => 'data',
+  stepError: (detail: string) => `error: ${detail}`,
+};

@@ -34,7 +34,8 @@ export const planningMsg = {
   layoutNoKeys: () =>
     `the layout must have columns block and plot, row and column, or plot, with a treatment column (as random_layout and latin_layout make)`,
   dataLacks: (column: string) => `the data have no column ${q(column)} to match the layout on`,
-  repeatedKey: (where: string, key: string) => `${where} holds plot ${key} more than once`,
+  repeatedKey: (inData: boolean, plot: string, firstRow: number, row: number) =>
+    `${inData ? 'the data hold' : 'the layout holds'} ${plot} more than once (rows ${firstRow} and ${row}), so it cannot be matched plot for plot; ${inData ? 'a plot is measured once: correct or remove the repeated row' : 'a layout has each plot once'}`,
   bothCounts: () => 'give either blocks (a randomized complete block plan) or replicates (a completely randomized plan), not both',
   noCount: () => 'give blocks: for a randomized complete block plan, or replicates: for a completely randomized plan',
   notAPowerRecord: () => 'plan must be the result of power_two_sample, replicates_for_power, power_blocked or blocks_for_power',

@@ -12,6 +12,7 @@ export const reportMsg = {
     ['summary', 'Summary'],
   ] as const,
   caution: () => 'Caution.',
+  warningLead: () => 'Note:',
   notSealed: () => 'Not sealed.',
   notSealedText: () => 'This report shows the document as it computes now; no sealed values were checked.',
   fingerprintOfAll: (hex: string) => `Fingerprint of the cells and data files: sha256:${hex}`,

@@ -129,6 +129,12 @@ function claimsHtml(states: readonly CellState[]): string {
   return `<p>${failing === 0 ? reportMsg.allClaimsHold(items.length) : reportMsg.claimsFail(failing, items.length)}</p><ul class="claims">${items.join('')}</ul>`;
 }
 
+/** What the engine warned about on a cell (rows left out, a design the fit ignores, ...): a reviewer reads them too. */
+function warningsHtml(s: CellState): string {
+  if (s.warnings.length === 0) return '';
+  return `<ul class="warnings" role="note">${s.warnings.map((w) => `<li><strong>${reportMsg.warningLead()}</strong> ${e(w)}</li>`).join('')}</ul>`;
+}
+
 function cellHtml(doc: Document, i: number, s: CellState, charts: ChartSvgs, doubts: ReadonlyMap<string, NoteDoubt>): string {
   const cell = doc.cells[i]!;
   const m = CELL_KINDS.readMarker(cell.marker) ?? { kind: cell.marker.trim().split(/[ \t]+/)[0] ?? '', name: null, file: null, extra: [] };
@@ -136,10 +142,10 @@ function cellHtml(doc: Document, i: number, s: CellState, charts: ChartSvgs, dou
   if (m.kind === 'note') return `<section class="cell note-cell" id="${id}">${noteHtml(cell.body, s.parts, doubts.get(cell.id))}</section>`;
   if (m.kind === 'table') {
     const label = `table ${m.name ?? ''}${m.file !== null ? `, read from ${m.file}` : ''}`;
-    return `<section class="cell" id="${id}"><p class="label">${e(label)}</p>${valueHtml(s.value, charts)}</section>`;
+    return `<section class="cell" id="${id}"><p class="label">${e(label)}</p>${valueHtml(s.value, charts)}${warningsHtml(s)}</section>`;
   }
   if (m.kind === 'formula') {
-    return `<section class="cell" id="${id}"><pre class="source">${e(visibleBody(cell))}</pre>${valueHtml(s.value, charts)}</section>`;
+    return `<section class="cell" id="${id}"><pre class="source">${e(visibleBody(cell))}</pre>${valueHtml(s.value, charts)}${warningsHtml(s)}</section>`;
   }
   return `<section class="cell" id="${id}"><p class="label">${e(`--- ${cell.marker}`)}: kept as written, not evaluated</p><pre class="source">${e(visibleBody(cell))}</pre></section>`;
 }

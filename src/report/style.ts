@@ -17,6 +17,7 @@ code, pre, .source, table, .scalars, .column, .size, .cut, .label, .fingerprint 
 .meta dt { font-weight: 600; }
 .meta dd { margin: 0; }
 .caution { border-left: 6px solid var(--warn); background: var(--warn-soft); padding: 0.6rem 0.9rem; margin: 1rem 0; }
+.warnings { list-style: none; margin: 0.4rem 0; padding: 0.3rem 0.7rem; border-left: 3px solid var(--warn); background: var(--warn-soft); font-size: 0.9rem; }
 .verdict { padding: 0.7rem 0.9rem; border-radius: 4px; margin: 0.6rem 0; }
 .verdict.ok { background: var(--good-soft); border-left: 6px solid var(--good); }
 .verdict.bad { background: var(--bad-soft); border-left: 6px solid var(--bad); }
@@ -67,7 +68,7 @@ footer { margin-top: 3rem; border-top: 1px solid var(--rule); padding-top: 0.6re
 @media print {
   body { max-width: none; padding: 0; font-size: 11pt; }
   h2 { break-after: avoid; }
-  table, figure.chart, .claim, .verdict, .caution { break-inside: avoid; }
+  table, figure.chart, .claim, .verdict, .caution, .warnings { break-inside: avoid; }
   a { color: inherit; text-decoration: none; }
 }
 `;

@@ -104,6 +104,17 @@ describe('furrow seal', () => {
     expect(text).toContain('\nc: 2\n');
   });
 
+  it('says which claims do not hold when it seals them', () => {
+    const dir = scratch({ 'd.furrow': 'furrow 1\ntitle: t\n\n--- formula\na = 1\n\n--- formula\nlow = claim(a < 2, "a is below 2")\n\n--- formula\nhigh = claim(a > 2, "a is above 2")\n' });
+    const path = join(dir, 'd.furrow');
+    const r = cli('seal', path);
+    expect(r.code).toBe(0);
+    expect(r.out.split('\n')).toEqual([cliMsg.sealed(path, 3, 2), cliMsg.sealedFailingClaims(['a is above 2'])]);
+    expect(readFileSync(path, 'utf8')).toContain('{"cell":3,"name":"high","holds":false,"statement":"a is above 2"}');
+    // and verify does not pass it
+    expect(cli('verify', path).code).toBe(1);
+  });
+
   it('seals a long column by its length and digest, with the digest of its canonical JSON', () => {
     const rows = Array.from({ length: 2000 }, (_, i) => `${i % 7},${(i * 0.37).toFixed(2)}`);
     const dir = scratch({ 'd.furrow': `furrow 1\ntitle: t\n\n--- table big\ng,y\n${rows.join('\n')}\n\n--- formula\nm = mean(big.y)\n` });

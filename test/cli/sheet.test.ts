@@ -45,6 +45,60 @@ describe('furrow sheet', () => {
     expect(r.out.split('\n').length).toBe(13);
   });
 
+  it('never writes over a sheet that has been filled in, unless told to', () => {
+    const dir = scratch(PLAN);
+    const doc = join(dir, 'plan.furrow');
+    const out = join(dir, 'plan.csv');
+    expect(cli('sheet', doc, 'plan', '-o', out).code).toBe(0);
+    const blank = readFileSync(out, 'utf8');
+    // the same sheet again: nothing to lose, so it succeeds and the file is unchanged
+    expect(cli('sheet', doc, 'plan', '-o', out)).toMatchObject({ code: 0, err: '' });
+    expect(readFileSync(out, 'utf8')).toBe(blank);
+    // a measurement typed into the sheet: running the command again keeps it
+    const filled = blank.replace('1,1,early,,', '1,1,early,41.7,dry');
+    expect(filled).not.toBe(blank);
+    writeFileSync(out, filled);
+    expect(cli('sheet', doc, 'plan', '-o', out)).toMatchObject({ code: 2, err: cliMsg.sheetWouldOverwrite(out) });
+    expect(readFileSync(out, 'utf8')).toBe(filled);
+    // other columns asked for: still a different sheet, still kept
+    expect(cli('sheet', doc, 'plan', '-o', out, '--columns', 'y').code).toBe(2);
+    expect(readFileSync(out, 'utf8')).toBe(filled);
+    // said plainly: written over
+    expect(cli('sheet', doc, 'plan', '-o', out, '--replace')).toMatchObject({ code: 0, err: '' });
+    expect(readFileSync(out, 'utf8')).toBe(blank);
+    // never over the document itself, even with --replace
+    const before = readFileSync(doc, 'utf8');
+    expect(cli('sheet', doc, 'plan', '-o', doc, '--replace')).toMatchObject({ code: 2, err: cliMsg.sheetOverDocument() });
+    expect(readFileSync(doc, 'utf8')).toBe(before);
+  });
+
+  it('the whole round: sheet to a file, filled in, read back from the file, checked against the plan in furrow run', () => {
+    const dir = scratch(PLAN);
+    const sheet = join(dir, 'plan.csv');
+    expect(cli('sheet', join(dir, 'plan.furrow'), 'plan', '-o', sheet, '--columns', 'yield_kg,notes').code).toBe(0);
+    const lines = readFileSync(sheet, 'utf8').trimEnd().split('\n');
+    const filled = [lines[0]!, ...lines.slice(1).map((l, i) => l.replace(/,,$/, `,${(30 + i * 0.7).toFixed(1)},`))];
+    writeFileSync(sheet, `${filled.join('\n')}\n`);
+    const checked = PLAN + '\n--- table harvest from plan.csv\n--- formula\ncheck = layout_check(harvest, plan)\n\n--- formula\nok = claim(check.holds, "the harvest follows the plan")\n';
+    writeFileSync(join(dir, 'checked.furrow'), checked);
+    const r = cli('run', join(dir, 'checked.furrow'), '--json');
+    expect(r.code, r.err).toBe(0);
+    const cells = (JSON.parse(r.out) as { cells: { name: string | null; value: unknown }[] }).cells;
+    expect(cells.find((c) => c.name === 'check')!.value).toMatchObject({ holds: true, plots: 12, matched: 12 });
+    // two treatments swapped in block 2 of the file: the check fails and names both plots
+    const [x, y] = [filled[4]!.split(','), filled[5]!.split(',')];
+    expect([x[0], x[1], y[0], y[1]]).toEqual(['2', '1', '2', '2']);
+    [x[2], y[2]] = [y[2]!, x[2]!];
+    filled[4] = x.join(',');
+    filled[5] = y.join(',');
+    writeFileSync(sheet, `${filled.join('\n')}\n`);
+    const s2 = (JSON.parse(cli('run', join(dir, 'checked.furrow'), '--json').out) as { cells: { name: string | null; value: unknown }[] }).cells;
+    const check = s2.find((c) => c.name === 'check')!.value as { holds: boolean; summary: string };
+    expect(check.holds).toBe(false);
+    expect(check.summary).toContain(planningMsg.plotDiffers('block 2, plot 1', x[2]!, y[2]!));
+    expect(check.summary).toContain(planningMsg.plotDiffers('block 2, plot 2', y[2]!, x[2]!));
+  });
+
   it('says plainly what is wrong, with exit status 2', () => {
     const dir = scratch(PLAN);
     const f = join(dir, 'plan.furrow');

@@ -92,6 +92,22 @@ describe('furrow verify', () => {
     expect(reported(r.out, 'changed')).toEqual(['big', 'm']);
   });
 
+  it('compares numbers bit for bit: one unit in the last place, and -0 for 0, are changes', () => {
+    // 0.1 + 0.2 is 0.30000000000000004 in IEEE 754 binary64; the next double up is 0.3000000000000001
+    const dir = scratch({ 'd.furrow': 'furrow 1\ntitle: t\n\n--- formula\na = 0.1 + 0.2\n\n--- formula\nb = -0\n\n--- formula\nc = 2\n' });
+    const path = join(dir, 'd.furrow');
+    expect(cli('seal', path).code).toBe(0);
+    expect(cli('verify', path).code).toBe(0);
+    editLine(path, 'a: 0.30000000000000004', 'a: 0.3000000000000001');
+    editLine(path, 'b: -0', 'b: 0');
+    const r = cli('verify', path);
+    expect(r.code).toBe(1);
+    expect(reported(r.out, 'changed')).toEqual(['a', 'b']);
+    expect(reported(r.out, 'same')).toEqual(['c']);
+    expect(r.out).toContain(sealMsg.valueWasNow('a', '0.3000000000000001', '0.30000000000000004', 1));
+    expect(r.out).toContain(sealMsg.valueWasNow('b', '0', '-0', null));
+  });
+
   it('says first when another engine version sealed the document', () => {
     const [path] = sampleCopies();
     expect(cli('seal', path!).code).toBe(0);

@@ -153,6 +153,36 @@ async function main() {
       check(/<script>window\.pwned/.test(seen.title), `the title shows its text as text: ${seen.title}`);
       check(seen.caution !== null && /onerror/.test(seen.caution), `the caution shows its text: ${seen.caution}`);
     });
+    await run('the report prints as it shows: the same text, charts and tables kept whole, the carried source hidden, saved as PDF by Chromium', async () => {
+      const out = join(DIR, 'adhesive-cure.html');
+      report(join('samples', 'adhesive-cure.furrow'), out);
+      const context = await browser.newContext({ viewport: { width: 1100, height: 900 }, offline: true });
+      const page = await context.newPage();
+      await page.goto(pathToFileURL(resolve(out)).href);
+      const look = () =>
+        page.evaluate(() => ({
+          text: document.body.innerText,
+          maxWidth: getComputedStyle(document.body).maxWidth,
+          charts: [...document.querySelectorAll('figure.chart')].map((f) => getComputedStyle(f).breakInside),
+          tables: [...document.querySelectorAll('table')].map((t) => getComputedStyle(t).breakInside),
+          source: getComputedStyle(document.getElementById('furrow-source')).display,
+          caution: document.querySelector('.caution') !== null && getComputedStyle(document.querySelector('.caution')).display !== 'none',
+        }));
+      const screen = await look();
+      await page.emulateMedia({ media: 'print' });
+      const print = await look();
+      check(print.text === screen.text, 'printing shows other words than the screen');
+      check(screen.maxWidth !== 'none' && print.maxWidth === 'none', `the print stylesheet did not apply: ${screen.maxWidth} then ${print.maxWidth}`);
+      check(print.charts.length > 0 && print.charts.every((b) => b === 'avoid'), `charts may break across pages: ${print.charts.join(', ')}`);
+      check(print.tables.length > 0 && print.tables.every((b) => b === 'avoid'), `tables may break across pages: ${print.tables.join(', ')}`);
+      check(print.source === 'none', `the carried document prints: ${print.source}`);
+      check(print.caution, 'the caution line does not print');
+      const pdf = await page.pdf({ format: 'A4', printBackground: true });
+      const pages = (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? []).length;
+      check(pdf.subarray(0, 5).toString('latin1') === '%PDF-' && pages >= 2, `PDF: ${pdf.length} bytes, ${pages} pages`);
+      writeFileSync(join(OUT, 'report-adhesive-cure.pdf'), pdf);
+      await context.close();
+    });
   } finally {
     await browser.close();
   }

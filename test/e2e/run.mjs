@@ -2,6 +2,7 @@
 //   npm run e2e                 build, serve with vite preview, run every test
 //   npm run e2e -- --no-build   reuse dist/
 //   npm run e2e -- --json FILE  also write {passed, failed, results} to FILE
+import { spawnSync } from 'node:child_process';
 import { readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { cpus } from 'node:os';
 import { join } from 'node:path';
@@ -16,6 +17,7 @@ import { largePageTests } from './large-page.mjs';
 import { firstHourTests } from './first-hour.mjs';
 import { convertingTests } from './converting.mjs';
 import { readingTests } from './reading.mjs';
+import { handingTests } from './handing.mjs';
 import { cellText, noteText, statusOf, settled, shownF, field, openDocument, watchEdits, editParts, partsLine } from './page.mjs';
 
 const args = process.argv.slice(2);
@@ -480,6 +482,9 @@ tests.push({
     const text = readFileSync(await download.path(), 'utf8');
     const lines = text.trimEnd().split('\n');
     check(lines[0] === 'block,plot,treatment,measurement,notes' && lines.length === 29, `run sheet: ${lines.slice(0, 3).join(' | ')} (${lines.length} lines)`);
+    // drawn in the browser's worker, the plan is the one the command line draws from the same seed, plot for plot
+    const cli = spawnSync(process.execPath, ['bin/furrow.js', 'sheet', 'samples/goalmouth-turf.furrow', 'plan'], { encoding: 'utf8' });
+    check(cli.status === 0 && cli.stdout.trimEnd() === text.trimEnd(), `the page's run sheet differs from furrow sheet's: ${cli.stderr}${cli.stdout.slice(0, 120)}`);
   },
 });
 
@@ -537,6 +542,7 @@ tests.push(...largePageTests(measured));
 tests.push(...firstHourTests);
 tests.push(...convertingTests);
 tests.push(...readingTests());
+tests.push(...handingTests());
 
 const { failed } = await runTests(tests, { build, json });
 writeFileSync(`test-output/e2e/measured.json`, `${JSON.stringify({ machine: cpus()[0]?.model ?? 'unknown', ...measured }, null, 2)}\n`);

@@ -224,6 +224,20 @@ describe('run sheet -> filled in -> layout_check', () => {
     expect(String(r.fields.get('summary'))).toBe(m.differences([m.plotsMissingFromData(1, ['block 2, plot 2']), m.plotsNotInLayout(1, ['block 3, plot 1'])]));
   });
 
+  it('a plot entered twice in the data is named with its rows, never matched to either', () => {
+    const v = evalFormula(
+      'layout_check(d, random_layout(["a", "b"], seed: 3, blocks: 2))',
+      '--- table d',
+      'block,plot,treatment,y',
+      '1,1,b,5',
+      '1,2,a,6',
+      '2,1,b,7',
+      '1,2,a,6.5',
+      '2,2,a,8',
+    );
+    expect(errorText(v)).toContain(m.repeatedKey(true, 'block 1, plot 2', 2, 4));
+  });
+
   it('data without the layout’s key columns get a plain error', () => {
     const v = evalFormula('layout_check(d, random_layout(["a", "b"], seed: 1, blocks: 2))', '--- table d', 'plot,treatment', '1,a');
     expect(errorText(v)).toContain(m.dataLacks('block'));

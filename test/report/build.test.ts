@@ -3,14 +3,18 @@
  * in it runs or loads.
  */
 import { createHash } from 'node:crypto';
-import { readFileSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readFileSync, symlinkSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { reportHtml } from '../../src/cli/report.ts';
 import { REPORT_CSS } from '../../src/report/style.ts';
 import { reportPolicy } from '../../src/report/build.ts';
 import { carriedDocument } from '../../src/report/source.ts';
+import { reportMsg } from '../../src/messages/report.ts';
+import { planningMsg } from '../../src/messages/planning.ts';
+import { ENGINE_NAME } from '../../src/seal/version.ts';
 import { cli, sampleCopies, scratch } from '../cli/support.ts';
+import { cliMsg } from '../../src/messages/cli.ts';
 
 describe('the report', () => {
   it('allows its one stylesheet by the SHA-256 of its text, and no script at all', () => {
@@ -44,6 +48,30 @@ describe('the report', () => {
     const [adhesive, backing] = ['adhesive-cure', 'backing-abrasion'].map((n) => sampleCopies().find((p) => p.endsWith(`${n}.furrow`))!);
     expect(await reportHtml(adhesive!)).toContain('<p class="caution" role="note"><strong>Caution.</strong> These coupons qualify a bonding process');
     expect(await reportHtml(backing!)).not.toContain('class="caution"');
+  });
+
+  it('ends every report, caution declared or not, with the line that a statistical result does not replace qualified judgement', async () => {
+    // design rule (docs: Cautions): a document that declares no caution may still touch health,
+    // food or safety, so the footer of every report says it in plain words
+    for (const path of sampleCopies()) {
+      const footer = (await reportHtml(path)).match(/<footer>([\s\S]*?)<\/footer>/)?.[1] ?? '';
+      expect(footer, path).toContain('A statistical result supports, and does not replace, the judgement of qualified people');
+      expect(footer, path).toContain(reportMsg.footer(ENGINE_NAME, path.split('/').pop()!));
+    }
+  });
+
+  it('shows what the engine warned about on a cell: the design warning on the fit that ignores the pairs, none on the one that uses them', async () => {
+    const path = sampleCopies().find((p) => p.endsWith('tread-wear.furrow'))!;
+    const html = await reportHtml(path);
+    const section = (name: string): string => {
+      const found = [...html.matchAll(/<section class="cell" id="cell-\d+">([\s\S]*?)<\/section>/g)].find((m) => m[1]!.includes(`<pre class="source">${name} = `));
+      if (found === undefined) throw new Error(`no cell ${name} in the report`);
+      return found[1]!;
+    };
+    const warning = planningMsg.ignoredBlocks('tread', 'van', 'compound', 'two_sample', 'blocked(tread.wear_mm, tread.compound, tread.van) (the paired comparison)');
+    const escaped = warning.replace(/&/g, '&amp;').replace(/"/g, '&quot;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+    expect(section('as_groups')).toContain(`<ul class="warnings" role="note"><li><strong>${reportMsg.warningLead()}</strong> ${escaped}</li></ul>`);
+    expect(section('as_blocks')).not.toContain('class="warnings"');
   });
 
   it('cuts a long table to its first rows and says how many there are', async () => {
@@ -95,5 +123,34 @@ describe('furrow report', () => {
     expect(await main(['report', path!], o)).toBe(2);
     expect(await main(['report', path!, '-o', path!], o)).toBe(2);
     expect(err.join('\n')).toContain('the report would overwrite the document');
+  });
+
+  it('writes over an earlier report, but over any other file only when told to', async () => {
+    const [path] = sampleCopies();
+    const dir = resolve(path!, '..');
+    const err: string[] = [];
+    const o = { out: () => {}, err: (s: string) => err.push(s) };
+    const { main } = await import('../../src/cli/main.ts');
+    const html = join(dir, 'r.html');
+    expect(await main(['report', path!, '-o', html], o)).toBe(0);
+    // an earlier report is made again without a word
+    writeFileSync(html, readFileSync(html, 'utf8').replace('<title>', '<title>old '));
+    expect(await main(['report', path!, '-o', html], o)).toBe(0);
+    expect(readFileSync(html, 'utf8')).not.toContain('<title>old ');
+    // a data file named by mistake is kept
+    const csv = join(dir, 'plots.csv');
+    writeFileSync(csv, 'block,y\n1,4.2\n');
+    expect(await main(['report', path!, '-o', csv], o)).toBe(2);
+    expect(err.pop()).toBe(cliMsg.reportWouldOverwrite(csv));
+    expect(readFileSync(csv, 'utf8')).toBe('block,y\n1,4.2\n');
+    expect(await main(['report', path!, '-o', csv, '--replace'], o)).toBe(0);
+    expect(readFileSync(csv, 'utf8').startsWith('<!doctype html>')).toBe(true);
+    // the document itself, even through a link to it and with --replace, never
+    const before = readFileSync(path!, 'utf8');
+    const link = join(dir, 'link.furrow');
+    symlinkSync(path!, link);
+    expect(await main(['report', path!, '-o', link, '--replace'], o)).toBe(2);
+    expect(err.pop()).toBe(cliMsg.reportOverDocument());
+    expect(readFileSync(path!, 'utf8')).toBe(before);
   });
 });

@@ -10,7 +10,7 @@
  *
  * It takes the document and the cells' states from the shell and changes nothing in them.
  */
-import { shellWords } from '../../messages/page.ts';
+import { handOffWords as w, shellWords } from '../../messages/page.ts';
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import type { CellViewState } from '../../../cells/view-api.ts';
 import { documentTitle, type Cell, type Document as FurrowDocument } from '../../doc/document.ts';
@@ -21,6 +21,7 @@ import { isSealedCell } from '../../seal/fingerprint.ts';
 import { claimsOf, type SealedClaim } from '../../seal/section.ts';
 import { verificationText } from '../../seal/verify-text.ts';
 import { verifyDocument, type Verification } from '../../seal/verify.ts';
+import { sealMsg } from '../../messages/seal.ts';
 import { shared } from '../../views/theme.ts';
 import { formatInline, formatNumber } from '../../lang/format.ts';
 import type { Value } from '../../lang/values.ts';
@@ -259,7 +260,7 @@ export class HandOffPanel extends LitElement {
         if (x.state === 'same' || x.cell === null) continue;
         const cell = this.doc.cells[x.cell - 1];
         if (cell === undefined) continue;
-        const note = x.state === 'new' ? 'Not in the seal: this value was defined after sealing.' : `Differs from its sealed value:\n${x.details.join('\n')}`;
+        const note = x.state === 'new' ? w.notInSeal() : w.differsFromSeal(x.details);
         marks.set(cell.id, { verify: x.state, note });
       }
     }
@@ -301,7 +302,7 @@ export class HandOffPanel extends LitElement {
       a.remove();
       setTimeout(() => URL.revokeObjectURL(url), 10_000);
     } catch (err) {
-      this.failure = `The report could not be made: ${err instanceof Error ? err.message : String(err)}`;
+      this.failure = w.reportFailed(err instanceof Error ? err.message : String(err));
     } finally {
       this.building = false;
     }
@@ -314,29 +315,27 @@ export class HandOffPanel extends LitElement {
       ${v === null
         ? nothing
         : html`<div class="verdict ${v.matches ? 'ok' : 'bad'}" role=${v.matches ? 'status' : 'alert'} data-verdict=${v.matches ? 'verified' : 'differs'}>
-            <strong>${v.matches
-              ? 'Verified: every value recomputes to its sealed value, bit for bit, and every claim holds.'
-              : 'Not verified: this document no longer computes what was sealed. The differences are marked on their cells.'}</strong>
+            <strong>${v.matches ? w.verified() : w.notVerified()}</strong>
             ${v.matches
               ? nothing
               : html`<ul>
                   ${verificationText('', v)
-                    .filter((l) => l.trim() !== '' && !/^ {2}same /.test(l) && l !== 'Values:')
+                    .filter((l) => l.trim() !== '' && !/^ {2}same /.test(l) && l !== sealMsg.valuesHeading())
                     .map((l) => html`<li>${l.trim()}</li>`)}
                 </ul>`}
           </div>`}
       <div class="strip" role="navigation" aria-label=${shellWords.claims}>
         ${this.claims.length === 0
-          ? html`<span class="lead">No claims yet: <code>claim(condition, "statement")</code> states a conclusion that is checked on every evaluation.</span>`
-          : html`<span class="lead">${failing === 0 ? `All ${this.claims.length} claims hold:` : `${failing} of ${this.claims.length} claims do not hold:`}</span>
+          ? html`<span class="lead">${w.noClaimsLead()}<code>${w.claimExample()}</code>${w.noClaimsTail()}</span>`
+          : html`<span class="lead">${failing === 0 ? w.allClaimsHold(this.claims.length) : w.claimsFail(failing, this.claims.length)}</span>
               ${this.claims.map(
                 (c) =>
                   html`<button class="claim ${c.holds ? 'holds' : 'fails'}" title=${shellWords.goToItsCell} @click=${() => this.goTo(c.cell)}>
-                    <b>${c.holds ? 'holds' : 'does not hold'}</b>${c.statement}
+                    <b>${c.holds ? w.holds() : w.doesNotHold()}</b>${c.statement}
                   </button>`,
               )}`}
         <button class="report" ?disabled=${this.building || this.states === null} @click=${() => void this.buildReport()} title=${shellWords.reportTip}>
-          ${this.building ? 'Making the report…' : 'Report (HTML)'}
+          ${this.building ? w.makingReport() : w.report()}
         </button>
       </div>
       ${this.failure ? html`<div class="failure" role="alert">${this.failure}</div>` : nothing}
@@ -351,17 +350,17 @@ export class HandOffPanel extends LitElement {
     const last = chain[chain.length - 1];
     return html`<section class="chain" role="dialog" aria-label=${shellWords.whereThisValueComesFrom}>
       <header>
-        <strong>Where ${last?.name ?? `cell ${last?.position ?? ''}`} comes from</strong>
+        <strong>${w.whereFrom(last?.name ?? w.cellAt(last?.position ?? 0))}</strong>
         <button @click=${() => (this.tracing = null)} aria-label=${shellWords.close}>✕</button>
       </header>
       <ol>
         ${chain.map((step) => {
           const state = this.stateOf(step.cell);
-          const label = step.name ?? `${step.cell.marker.split(' ')[0]} (cell ${step.position})`;
+          const label = step.name ?? w.stepOfKind(step.cell.marker.split(' ')[0] ?? '', step.position);
           return html`<li>
             <button class="step" title=${shellWords.goToTheCell} @click=${() => this.goTo(step.position)}>${label}</button>
-            ${step.reads.length > 0 ? html`<span class="reads">reads ${step.reads.join(', ')}</span>` : html`<span class="reads">data</span>`}
-            <span class="value">${state?.status === 'error' || state?.status === 'upstream' ? `error: ${state.error?.message ?? ''}` : stepValue(state?.value)}</span>
+            <span class="reads">${step.reads.length > 0 ? w.reads(step.reads) : w.fromData()}</span>
+            <span class="value">${state?.status === 'error' || state?.status === 'upstream' ? w.stepError(state.error?.message ?? '') : stepValue(state?.value)}</span>
           </li>`;
         })}
       </ol>

@@ -6,6 +6,7 @@
  * cells' DOM.
  */
 import type { NoteDoubt } from '../../seal/doubt.ts';
+import { handOffWords } from '../../messages/page.ts';
 
 /** What to mark on one cell. */
 export interface CellMark {
@@ -60,7 +61,7 @@ export function applyMarks(root: ShadowRoot | Document, marks: ReadonlyMap<strin
     const doubt = doubts.get(id);
     if (doubt !== undefined) {
       section.dataset.doubt = '';
-      section.title = `A claim that reads numbers in this note does not hold: ${doubt.claims.join('; ')}`;
+      section.title = handOffWords.noteInDoubt(doubt.claims);
     } else if (section.dataset.doubt !== undefined) {
       delete section.dataset.doubt;
       section.removeAttribute('title');

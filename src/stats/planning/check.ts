@@ -25,20 +25,30 @@ export interface LayoutDifferences {
 
 const keyText = (k: readonly string[]): string => k.join('\u0000');
 
-function index(side: KeyedPlots, where: string): Map<string, number> {
+/** A plot in words, as "block 2, plot 3" (or the key's values alone when its columns are not named). */
+function plotWords(k: readonly string[], names: readonly string[] | undefined): string {
+  return names === undefined ? k.join(' / ') : k.map((v, j) => `${names[j] ?? ''} ${v}`).join(', ');
+}
+
+function index(side: KeyedPlots, inData: boolean, names: readonly string[] | undefined): Map<string, number> {
   const at = new Map<string, number>();
   side.keys.forEach((k, i) => {
     const t = keyText(k);
-    if (at.has(t)) throw new PlanningError(m.repeatedKey(where, k.join(' / ')));
+    const first = at.get(t);
+    if (first !== undefined) throw new PlanningError(m.repeatedKey(inData, plotWords(k, names), first + 1, i + 1));
     at.set(t, i);
   });
   return at;
 }
 
-/** Compares data with a layout, plot by plot. */
-export function compareWithLayout(layout: KeyedPlots, data: KeyedPlots): LayoutDifferences {
-  const inLayout = index(layout, 'the layout');
-  const inData = index(data, 'the data');
+/**
+ * Compares data with a layout, plot by plot.
+ *
+ * @param keyNames the names of the key's columns ("block", "plot"), for the words of an error
+ */
+export function compareWithLayout(layout: KeyedPlots, data: KeyedPlots, keyNames?: readonly string[]): LayoutDifferences {
+  const inLayout = index(layout, false, keyNames);
+  const inData = index(data, true, keyNames);
   const differ: { layoutRow: number; dataRow: number }[] = [];
   const missing: number[] = [];
   let matched = 0;

@@ -144,9 +144,11 @@ describe('no position bias over 10,000 seeded layouts (chi-square, fail at p < 0
 
   it.each([
     // size, squares the randomization reaches, seed offset
-    // common practice, no source: there are 12 Latin squares of size 3, all isotopic to the
-    // cyclic one; of the 576 of size 4, 432 are isotopic to the cyclic square (the rest to
-    // the table of the Klein four-group), so the draw must reach exactly 432, evenly
+    // source: OEIS A002860, the number of Latin squares of order n (12 for 3, 576 for 4; from
+    // memory). Of the 576 of size 4, 432 are isotopic to the cyclic square (the rest to the
+    // table of the Klein four-group), so the draw must reach exactly 432, evenly: 12, 576 and
+    // 432 were also counted by enumerating every square and every row, column and symbol
+    // permutation of the cyclic one (test/reference/fixtures/latin_counts.py)
     [3, 12, 0],
     [4, 432, 50_000],
   ] as const)('Latin squares of %i over 10,000 seeds: every reachable square equally likely', (k, reachable, offset) => {
