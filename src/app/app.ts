@@ -179,8 +179,21 @@ export class FurrowApp extends LitElement {
   }
 
   /** Waits until every evaluation sent has come back (for tests and measurements). */
-  settled(): Promise<void> {
+  async settled(): Promise<void> {
+    // a document being read from the browser's keeping comes first, then its evaluation
+    while (this.opening.size > 0) await Promise.all([...this.opening]);
     return this.bridge.settled();
+  }
+
+  /** Documents being opened from the browser's keeping (read asynchronously). */
+  private readonly opening = new Set<Promise<void>>();
+
+  /** Runs an opening and notes it until it ends, so that `settled` waits for it. */
+  private track(p: Promise<void>): Promise<void> {
+    this.opening.add(p);
+    const done = (): void => void this.opening.delete(p);
+    p.then(done, done);
+    return p;
   }
 
   /** Writes what autosave is holding (before the page goes away). */
@@ -480,7 +493,11 @@ export class FurrowApp extends LitElement {
   }
 
   /** The original of a sample, instead of the edited copy: the copy is kept aside first. */
-  private async openOriginal(name: string, text: string): Promise<void> {
+  private openOriginal(name: string, text: string): Promise<void> {
+    return this.track(this.openOriginalNow(name, text));
+  }
+
+  private async openOriginalNow(name: string, text: string): Promise<void> {
     await this.keeper.flush();
     const kept = await loadSaved(this.keeper.key);
     const title = kept !== null ? await this.keeper.keepAside(kept) : documentTitle(this.doc);
@@ -491,7 +508,11 @@ export class FurrowApp extends LitElement {
     }
   }
 
-  private async openSample(name: string): Promise<void> {
+  private openSample(name: string): Promise<void> {
+    return this.track(this.openSampleNow(name));
+  }
+
+  private async openSampleNow(name: string): Promise<void> {
     const text = this.samples.get(name);
     if (text === undefined) return;
     const o = await DocumentKeeper.sample(name, text);
@@ -500,7 +521,11 @@ export class FurrowApp extends LitElement {
   }
 
   /** Opens a document kept in this browser. */
-  private async reopenKept(key: string): Promise<void> {
+  private reopenKept(key: string): Promise<void> {
+    return this.track(this.reopenKeptNow(key));
+  }
+
+  private async reopenKeptNow(key: string): Promise<void> {
     const kept = await loadSaved(key);
     if (kept === null) return;
     this.fileHandle = null;
