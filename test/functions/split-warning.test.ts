@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { factorOf } from '../stats/designs/support.ts';
 import { splitPlotSuspicion } from '../../src/stats/designs/index.ts';
 import { doc, run } from '../helpers.ts';
+import { planningMsg } from '../../src/messages/planning.ts';
 
 /** Rows of a trial: 3 blocks; `strip` names whole plots when `split` (strip numbers restart in each block). */
 function rows(split: boolean): string[] {
@@ -28,7 +29,9 @@ function rows(split: boolean): string[] {
 describe('the split-plot warning on factorial', () => {
   it('fires when a column names whole plots on which one factor is constant', () => {
     const { states } = run(doc(...rows(true), '--- formula', 'fit = factorial(t.yield, [t.water, t.variety])'));
-    const w = states[1]!.warnings.join(' ');
+    expect(states[1]!.warnings).toContain(planningMsg.splitPlotSuspected('water', 'variety', ['block', 'strip']));
+    // the words name the unit, the wrong error and the analysis to use
+    const w = planningMsg.splitPlotSuspected('water', 'variety', ['block', 'strip']);
     expect(w).toMatch(/"water" is the same on every plot of each "block" and "strip" while "variety" changes within it: this looks like a split plot/);
     expect(w).toMatch(/Use split_plot\(y, water, variety, block\)/);
   });
