@@ -16,6 +16,7 @@ import { largePageTests } from './large-page.mjs';
 import { firstHourTests } from './first-hour.mjs';
 import { convertingTests } from './converting.mjs';
 import { readingTests } from './reading.mjs';
+import { strataTests } from './strata.mjs';
 import { cellText, noteText, statusOf, settled, shownF, field, openDocument } from './page.mjs';
 
 const args = process.argv.slice(2);
@@ -528,6 +529,7 @@ tests.push(...largePageTests(measured));
 tests.push(...firstHourTests);
 tests.push(...convertingTests);
 tests.push(...readingTests());
+tests.push(...strataTests());
 
 const { failed } = await runTests(tests, { build, json });
 writeFileSync(`test-output/e2e/measured.json`, `${JSON.stringify({ machine: cpus()[0]?.model ?? 'unknown', ...measured }, null, 2)}\n`);
