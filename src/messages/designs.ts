@@ -83,6 +83,8 @@ export const designMsg = {
     `sites are taken as a sample of the places the result should hold for: ${q(treatment)} is tested against the ${treatment}:${site} mean square; its F against the pooled error is in f_against_error`,
   sitesBartlett: (stat: number, df: number, p: number) =>
     `Bartlett's test of equal error variances across sites before pooling: chi-square ${numberText(stat, 'statistic')} on ${df} df, ${pPhrase(p)}`,
+  sitesExact: (siteName: string, sites: readonly string[]) =>
+    `at ${siteName} ${sites.map(q).join(', ')} the data fit blocks and treatments exactly (no error left): ${sites.length === 1 ? 'that site has' : 'those sites have'} no F test of ${sites.length === 1 ? 'its' : 'their'} own, and Bartlett's test of equal error variances across sites cannot be made, so nothing checks the pooled error before pooling; look at the per-site analyses`,
   sitesBartlettWarn: () =>
     'the error variances differ between sites (Bartlett p < 0.05): the pooled error and the F tests against it are doubtful; look at the per-site analyses',
   sitesMeansNote: (treatment: string, site: string) =>

@@ -4,6 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { acrossSites, blocked } from '../../../src/stats/designs/index.ts';
+import { designMsg } from '../../../src/messages/designs.ts';
 import { expectRelative, factorOf, normals, seeded, subset } from './support.ts';
 
 function series(sites: number, blocks: number, treatments: number, seed: number) {
@@ -61,6 +62,18 @@ describe('across_sites block labels', () => {
 });
 
 describe('across_sites bad input', () => {
+  it('a site whose data fit exactly has no F of its own, and Bartlett is not made, in plain words', () => {
+    const d = series(2, 2, 3, 4);
+    // site 1 made exactly additive: block effect plus treatment effect, no error
+    const y = Float64Array.from(d.y, (v, i) => (d.site.codes[i] === 0 ? 10 + d.block.codes[i]! + 2 * d.trt.codes[i]! : v));
+    const fit = acrossSites(y, d.trt, d.block, d.site);
+    const st = fit.sites!;
+    expect(Number.isNaN(st.bartlett.statistic) && Number.isNaN(st.bartlett.p)).toBe(true);
+    expect(Number.isNaN(st.perSite.f[0]!) && Number.isNaN(st.perSite.p[0]!)).toBe(true);
+    expect(Number.isFinite(st.perSite.f[1]!)).toBe(true);
+    expect(fit.notes).toContain(designMsg.sitesExact('site', ['site1']));
+    expect(fit.notes.some((n) => /chi-square/.test(n))).toBe(false);
+  });
   it('refuses a site with one block', () => {
     const d = series(2, 2, 3, 1);
     const keep = subset(d.y, [d.trt, d.block, d.site], (i) => !(d.site.codes[i] === 1 && d.block.codes[i] === 1));
