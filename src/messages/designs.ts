@@ -115,6 +115,12 @@ export const designMsg = {
   unknownFactor: (factor: string, known: readonly string[]) =>
     `the fit has no factor ${q(factor)}; its factors are ${known.map(q).join(', ')}`,
   sameLevel: (level: string) => `a difference needs two different levels (both are ${q(level)})`,
+  ownErrorZero: (which: string) =>
+    `the error these means are judged against is zero, so a standard error, an interval or a test would be a number without meaning; ${which}`,
+  splitWholeExact: (whole: string) =>
+    `whole_error is zero: the whole-plot totals are exactly additive in blocks and ${whole}, so ${whole} has no F test and its means no standard errors`,
+  sitesInteractionExact: (treatment: string, site: string) =>
+    `the ${treatment}:${site} mean square is zero: the treatment differences are the same at every site, so ${q(treatment)} has no F test against it and its means no standard errors; f_against_error gives the test against the pooled error`,
   noErrorForComparison: () =>
     'the fit has no error degrees of freedom, so no standard error or interval can be given',
   weightsCount: (got: number, want: number, factor: string) =>

@@ -171,10 +171,13 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   const msBlocks = ssBlocks / dfBlocks;
   const msTS = ssTS / dfTS;
   const interaction = `${treatment.name}:${site.name}`;
+  // the treatment-by-site sum of squares zero to rounding beside the total (the rule of
+  // src/functions/exact.ts): the treatment has nothing to be tested against
+  const interactionExact = !(ssTS > 1e-12 * sst);
   const rows = [
     { source: site.name, df: dfSite, ss: ssSite, err: msBlocks, edf: dfBlocks },
     { source: `${block.name} within ${site.name}`, df: dfBlocks, ss: ssBlocks, err: mse, edf: dfError },
-    { source: treatment.name, df: dfT, ss: ssT, err: msTS, edf: dfTS },
+    { source: treatment.name, df: dfT, ss: ssT, err: interactionExact ? NaN : msTS, edf: dfTS },
     { source: interaction, df: dfTS, ss: ssTS, err: mse, edf: dfError },
   ];
   const table: AnovaTable = { source: [], df: [], ss: [], ms: [], f: [], p: [] };
@@ -204,9 +207,10 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   else notes.push(designMsg.sitesBartlett(bt.statistic, bt.df, bt.p));
   if (bt.p < BARTLETT_WARN) notes.push(designMsg.sitesBartlettWarn());
   notes.push(designMsg.sitesMeansNote(treatment.name, site.name));
+  if (interactionExact) notes.push(designMsg.sitesInteractionExact(treatment.name, site.name));
 
   const trtCounts = new Float64Array(t).fill(s * b);
-  const trtMeans = factorMeans(treatment.name, treatment.levels, trtCounts, mT, opts.offset, diagonalCovariance(trtCounts), msTS, dfTS, opts.level);
+  const trtMeans = factorMeans(treatment.name, treatment.levels, trtCounts, mT, opts.offset, diagonalCovariance(trtCounts), interactionExact ? NaN : msTS, dfTS, opts.level);
   trtMeans.error = { mse: msTS, df: dfTS, note: designMsg.sitesMeansNote(treatment.name, site.name) };
   const cellMeans: SitesParts['cellMeans'] = { treatment: [], site: [], mean: [] };
   for (let g = 0; g < t; g++) {
