@@ -76,11 +76,13 @@ export const STRATA: readonly Builtin[] = [
  */
 function notSplitPlotWarning(owner: Table | null, used: readonly Column[], p: Prepared): string | null {
   if (owner === null) return null;
+  const [whole, sub, block] = p.factors as [Prepared['factors'][0], Prepared['factors'][0], Prepared['factors'][0]];
+  // only complete whole plots can be grouped as whole plots: skip reading the other columns
+  if (whole.levels.length * block.levels.length * sub.levels.length !== p.y.length) return null;
   const taken = new Set<Column>(used);
   const others = owner.columns
     .filter((c) => !taken.has(c) && c.values.length === p.length)
     .map((c, i) => factorOf(c, p.rows, c.name ?? `column_${i + 1}`));
-  const [whole, sub, block] = p.factors as [Prepared['factors'][0], Prepared['factors'][0], Prepared['factors'][0]];
   const s = notSplitPlotSuspicion(whole, sub, block, others);
   return s === null ? null : planningMsg.notSplitPlot(whole.name, sub.name, s.unit);
 }
