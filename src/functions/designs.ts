@@ -21,6 +21,7 @@ import { guarded, toRecord } from './records.ts';
 import type { Builtin } from '../lang/builtins.ts';
 import { IGNORED_BLOCKS_DOC, warnIgnoredBlocks } from './ignored-blocks.ts';
 import { fnMsg } from '../messages/functions.ts';
+import { planningMsg } from '../messages/planning.ts';
 
 export { fitInternal, type FitInternal } from './fits.ts';
 
@@ -343,8 +344,7 @@ function splitPlotWarning(owner: Table | null, y: NumberColumn, factorCols: read
     .map((c, i) => factorOf(c, p.rows, c.name ?? `column_${i + 1}`));
   const s = splitPlotSuspicion(p.factors, others);
   if (s === null) return null;
-  const unit = s.unit.map((u) => `"${u}"`).join(' and ');
-  return `"${s.whole}" is the same on every plot of each ${unit} while "${s.sub}" changes within it: this looks like a split plot, with ${s.whole} on whole plots. factorial tests ${s.whole} against the error between subplots, which is the wrong error for a factor applied to whole plots, so its F and p overstate the evidence. Use split_plot(y, ${s.whole}, ${s.sub}, block).`;
+  return planningMsg.splitPlotSuspected(s.whole, s.sub, s.unit);
 }
 
 /** A level given as text or a number, as the fit names it. */

@@ -6,6 +6,7 @@
 import { withoutErrorTests } from './exact.ts';
 import { UsageError } from '../lang/errors.ts';
 import {
+  MISSING,
   booleanColumn,
   numberColumn,
   record,
@@ -156,7 +157,9 @@ function stratumFields(fit: DesignFit): [string, Value][] {
   if (st !== undefined) {
     out.push(['f_against_error', st.f_against_error], ['p_against_error', st.p_against_error]);
     const b = st.bartlett;
-    out.push(['bartlett', record([['statistic', b.statistic], ['df', b.df], ['p', b.p]], 'test')]);
+    // not made (a site without error): shown as missing, not as a number
+    const made = (x: number): Value => (Number.isNaN(x) ? MISSING : x);
+    out.push(['bartlett', record([['statistic', made(b.statistic)], ['df', b.df], ['p', made(b.p)]], 'test')]);
     const ps = st.perSite;
     out.push(['per_site', columnsTable({ site: ps.site, blocks: ps.blocks, mean: ps.mean, mse: ps.mse, df_error: ps.df_error, f: ps.f, p: ps.p }, ['site', 'blocks', 'mean', 'mse', 'df_error', 'f', 'p'])]);
     const cm = st.cellMeans;

@@ -83,6 +83,8 @@ export const designMsg = {
     `sites are taken as a sample of the places the result should hold for: ${q(treatment)} is tested against the ${treatment}:${site} mean square; its F against the pooled error is in f_against_error`,
   sitesBartlett: (stat: number, df: number, p: number) =>
     `Bartlett's test of equal error variances across sites before pooling: chi-square ${numberText(stat, 'statistic')} on ${df} df, ${pPhrase(p)}`,
+  sitesExact: (siteName: string, sites: readonly string[]) =>
+    `at ${siteName} ${sites.map(q).join(', ')} the data fit blocks and treatments exactly (no error left): ${sites.length === 1 ? 'that site has' : 'those sites have'} no F test of ${sites.length === 1 ? 'its' : 'their'} own, and Bartlett's test of equal error variances across sites cannot be made, so nothing checks the pooled error before pooling; look at the per-site analyses`,
   sitesBartlettWarn: () =>
     'the error variances differ between sites (Bartlett p < 0.05): the pooled error and the F tests against it are doubtful; look at the per-site analyses',
   sitesMeansNote: (treatment: string, site: string) =>
@@ -113,6 +115,12 @@ export const designMsg = {
   unknownFactor: (factor: string, known: readonly string[]) =>
     `the fit has no factor ${q(factor)}; its factors are ${known.map(q).join(', ')}`,
   sameLevel: (level: string) => `a difference needs two different levels (both are ${q(level)})`,
+  ownErrorZero: (which: string) =>
+    `the error these means are judged against is zero, so a standard error, an interval or a test would be a number without meaning; ${which}`,
+  splitWholeExact: (whole: string) =>
+    `whole_error is zero: the whole-plot totals are exactly additive in blocks and ${whole}, so ${whole} has no F test and its means no standard errors`,
+  sitesInteractionExact: (treatment: string, site: string) =>
+    `the ${treatment}:${site} mean square is zero: the treatment differences are the same at every site, so ${q(treatment)} has no F test against it and its means no standard errors; f_against_error gives the test against the pooled error`,
   noErrorForComparison: () =>
     'the fit has no error degrees of freedom, so no standard error or interval can be given',
   weightsCount: (got: number, want: number, factor: string) =>

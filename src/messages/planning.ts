@@ -31,6 +31,18 @@ export const planningMsg = {
   /** The design warning on a fit that ignores a complete-block or pairing column. */
   ignoredBlocks: (table: string, column: string, treatment: string, fn: string, better: string) =>
     `${table === '' ? 'The data have' : `Table ${q(table)} has`} a column ${q(column)} in which every ${treatment} appears exactly once per level (complete blocks, or pairs). ${fn} ignores it and treats the plots as independent; ${better} would use it.`,
+  /**
+   * The design warning on a factorial whose data name whole plots (`unit`, the column or the
+   * two columns together that name them) on which `whole` is constant while `sub` varies.
+   */
+  splitPlotSuspected: (whole: string, sub: string, unit: readonly string[]) =>
+    `${q(whole)} is the same on every plot of each ${unit.map(q).join(' and ')} while ${q(sub)} changes within it: this looks like a split plot, with ${whole} on whole plots. factorial tests ${whole} against the error between subplots, which is the wrong error for a factor applied to whole plots, so its F and p overstate the evidence. Use split_plot(y, ${whole}, ${sub}, block).`,
+  /**
+   * The design warning on a split_plot whose data name groups of plots shaped like whole
+   * plots (`unit`) inside which the whole-plot factor changes.
+   */
+  notSplitPlot: (whole: string, sub: string, unit: readonly string[]) =>
+    `Each ${unit.map(q).join(' and ')} holds one plot of every ${sub}, as a whole plot would, but ${q(whole)} changes inside it: if ${whole} was drawn plot by plot rather than for whole plots, these data are not a split plot, whole_error is not the error of anything that was randomized, and split_plot understates the evidence for ${whole}. Check the field plan; for a trial randomized plot by plot, use an analysis of the factorial instead.`,
   layoutNoKeys: () =>
     `the layout must have columns block and plot, row and column, or plot, with a treatment column (as random_layout and latin_layout make)`,
   dataLacks: (column: string) => `the data have no column ${q(column)} to match the layout on`,

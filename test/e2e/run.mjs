@@ -18,6 +18,7 @@ import { firstHourTests } from './first-hour.mjs';
 import { convertingTests } from './converting.mjs';
 import { readingTests } from './reading.mjs';
 import { handingTests } from './handing.mjs';
+import { strataTests } from './strata.mjs';
 import { cellText, noteText, statusOf, settled, shownF, field, openDocument, watchEdits, editParts, partsLine } from './page.mjs';
 
 const args = process.argv.slice(2);
@@ -543,6 +544,7 @@ tests.push(...firstHourTests);
 tests.push(...convertingTests);
 tests.push(...readingTests());
 tests.push(...handingTests());
+tests.push(...strataTests());
 
 const { failed } = await runTests(tests, { build, json });
 writeFileSync(`test-output/e2e/measured.json`, `${JSON.stringify({ machine: cpus()[0]?.model ?? 'unknown', ...measured }, null, 2)}\n`);

@@ -49,6 +49,10 @@ describe('one_way with a covariate: the fibre-strength example', () => {
     // comparisons use the adjusted means
     const d = rec(engine.valueOf('d'));
     expectRelative(num(d, 'estimate'), 41.41922290388549 - 38.798364008179966, 1e-11, 'difference');
+    // source: statsmodels 0.13.5, the contrast m2 - m3 of the adjusted means on the parameters
+    expectRelative(num(d, 'estimate'), 2.6208588957055223, 1e-11, 'difference, as a contrast');
+    expectRelative(num(d, 'se'), 1.1477588141491721, 1e-10, 'se of the difference');
+    expect(num(d, 'df')).toBe(11);
   });
   it('tests that the slopes are parallel', () => {
     const ps = rec(rec(engine.valueOf('checks')).fields.get('parallel_slopes'));
@@ -89,6 +93,7 @@ describe('blocked with a covariate: generated trial (rule in covariate.py)', () 
       means: [31.974772727272715, 33.986590909090886, 35.97840909090909, 37.98022727272724],
       se: [0.25204880800219454, 0.2546481769560667, 0.24799658384198583, 0.2475877137409933],
       parallel: { ss: 0.8641224910424402, f: 0.9191102704377125, p: 0.4741411595016908, df2: 8 },
+      difference: { estimate: -1.991818181818192, se: 0.3578573854758274 },
     },
     {
       label: 'one plot missing',
@@ -103,12 +108,13 @@ describe('blocked with a covariate: generated trial (rule in covariate.py)', () 
       means: [32.02870813397114, 34.097329834850896, 36.03691927766616, 38.041024849513654],
       se: [0.2665982823953355, 0.33168009243249247, 0.26004667431198925, 0.258925711666427],
       parallel: { ss: 2.4627857141464387, f: 6.471132663039036, p: 0.019868774634241314, df2: 7 },
+      difference: { estimate: -1.9395894428152634, se: 0.42979603601138583 },
     },
   ];
   for (const c of cases) {
     it(`matches statsmodels (${c.label})`, () => {
       const { engine } = run(
-        doc('--- table trial', 'trt,block,x,y', ...generatedRows(c.skip), '', '--- formula', 'fit = blocked(trial.y, trial.trt, trial.block, covariate: trial.x)', '--- formula', 'checks = residual_checks(fit)'),
+        doc('--- table trial', 'trt,block,x,y', ...generatedRows(c.skip), '', '--- formula', 'fit = blocked(trial.y, trial.trt, trial.block, covariate: trial.x)', '--- formula', 'checks = residual_checks(fit)', '--- formula', 'd = difference(fit, "t2", "t3")'),
       );
       const fit = rec(engine.valueOf('fit'));
       const t = tab(fit.fields.get('table'));
@@ -127,6 +133,12 @@ describe('blocked with a covariate: generated trial (rule in covariate.py)', () 
       expectRelative(num(ps, 'f'), c.parallel.f, 1e-9, 'parallel F');
       expectRelative(num(ps, 'p'), c.parallel.p, 1e-8, 'parallel p');
       expect(num(ps, 'df2')).toBe(c.parallel.df2);
+      // comparisons use the adjusted means and their covariance
+      // source: statsmodels 0.13.5, the contrast t2 - t3 of the adjusted means on the parameters
+      const d = rec(engine.valueOf('d'));
+      expectRelative(num(d, 'estimate'), c.difference.estimate, 1e-11, 'difference');
+      expectRelative(num(d, 'se'), c.difference.se, 1e-10, 'se of the difference');
+      expect(num(d, 'df')).toBe(c.df[3]);
     });
   }
 });

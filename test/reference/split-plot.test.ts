@@ -55,6 +55,14 @@ describe('split plot: the paper tensile-strength example', () => {
       'pairs_at = pairwise(fit, at: "200", method: "lsd")',
       '--- formula',
       'typed_numbers = difference(fit, "m1", "m2", at: 200)',
+      '--- formula',
+      'pairs_whole = pairwise(fit, method: "lsd")',
+      '--- formula',
+      'pairs_sub = pairwise(fit, factor: "temp", method: "lsd")',
+      '--- formula',
+      'pairs_sub_at = pairwise(fit, factor: "temp", at: "m1", method: "lsd")',
+      '--- formula',
+      'pairs_at_tukey = pairwise(fit, at: "200")',
     ),
   );
   const fit = rec(engine.valueOf('fit'));
@@ -117,6 +125,28 @@ describe('split plot: the paper tensile-strength example', () => {
     expectRelative(num(whole, 'estimate'), methodMean(1) - methodMean(2), 1e-13, 'whole estimate');
     expectRelative(num(wholeAt, 'estimate'), cellMean(1, 0) - cellMean(2, 0), 1e-13, 'whole at 200 estimate');
     expectRelative(num(subAt, 'estimate'), cellMean(1, 0) - cellMean(1, 1), 1e-13, 'sub at m1 estimate');
+  });
+
+  it('gives pairwise the same four standard errors and degrees of freedom', () => {
+    // source: statsmodels 0.13.5 figures as in the test above (Ea = 9.0694, Eb = 3.9722)
+    const pairs = (name: string) => tab(rec(engine.valueOf(name)).fields.get('table'));
+    const kinds: [string, number, number][] = [
+      ['pairs_whole', 1.2294608875739315, 4],
+      ['pairs_sub', 0.9395296958493202, 18],
+      ['pairs_sub_at', 1.6273131684307567, 18],
+      ['pairs_at', 1.8702099307792135, 15.47876020549115],
+    ];
+    for (const [name, se, df] of kinds) {
+      const t = pairs(name);
+      nums(t, 'se').forEach((v, i) => expectRelative(v, se, 1e-12, `${name} se ${i}`));
+      expectRelative(num(rec(engine.valueOf(name)), 'df'), df, 1e-12, `${name} df`);
+    }
+    // Tukey on Satterthwaite's fractional degrees of freedom: the studentized range for 3 means
+    // at 15.47876 df (source: scipy 1.10.1 stats.studentized_range.ppf(0.95, 3, 15.47876020549115);
+    // the project's studentized range is checked to seven printed digits in
+    // test/stats/distributions/range.test.ts)
+    const crit = num(rec(engine.valueOf('pairs_at_tukey')), 'critical') * Math.SQRT2;
+    expectRelative(crit, 3.6613504355813244, 1e-6, 'studentized range at fractional df');
   });
 
   it('says in the notes which error each comparison uses', () => {

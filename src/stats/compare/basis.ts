@@ -34,7 +34,23 @@ export function comparisonBasis(fit: DesignFit, factor?: string, at?: string): C
   const mse = means.error?.mse ?? fit.mse;
   const df = means.error?.df ?? fit.df_error;
   if (!(df > 0) || !(mse >= 0)) throw new DesignError(designMsg.noErrorForComparison());
+  // means judged against an error of their own (whole_error, treatment by site) that the
+  // data leave at zero, to rounding beside the total: no standard error to speak of
+  if (means.error !== undefined && !(mse * df > OWN_ERROR_RELATIVE * totalSumOfSquares(fit))) {
+    throw new DesignError(designMsg.ownErrorZero(means.error.note));
+  }
   return { means, mse, df, note: means.error?.note ?? null };
+}
+
+/**
+ * An error sum of squares, relative to the total, below which it is rounding (the rule of
+ * src/functions/exact.ts for a fit's own error; common practice, no source).
+ */
+const OWN_ERROR_RELATIVE = 1e-12;
+
+function totalSumOfSquares(fit: DesignFit): number {
+  const i = fit.table.source.indexOf('total');
+  return i < 0 ? 0 : fit.table.ss[i]!;
 }
 
 /**

@@ -36,4 +36,4 @@ export type {
   MeansTable,
   Nonadditivity,
 } from './types.ts';
-export { splitPlotSuspicion, type SplitSuspicion } from './suspect.ts';
+export { notSplitPlotSuspicion, splitPlotSuspicion, type NotSplitSuspicion, type SplitSuspicion } from './suspect.ts';

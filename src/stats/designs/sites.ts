@@ -30,6 +30,14 @@ const DESIGN = 'series of randomized complete block trials across sites';
 const BARTLETT_WARN = 0.05;
 
 /**
+ * A site's error sum of squares, relative to its total, below which it is rounding: the site's
+ * data fit its blocks and treatments exactly (the same rule as src/functions/exact.ts, common
+ * practice, no source). Such a site has no F test of its own, and Bartlett's test, which takes
+ * the logarithm of every site's error variance, cannot be made.
+ */
+const EXACT_SITE_RELATIVE = 1e-12;
+
+/**
  * Combined analysis of randomized complete block trials at several sites.
  *
  * @param y - response, already shifted by `options.offset` (complete cases only).
@@ -100,6 +108,7 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   const siteRows: number[][] = Array.from({ length: s }, () => []);
   for (let i = 0; i < n; i++) siteRows[site.codes[i]!]!.push(i);
   const siteFits: DesignFit[] = [];
+  const exactSites: string[] = [];
   for (let u = 0; u < s; u++) {
     const rows = siteRows[u]!;
     const ys = Float64Array.from(rows, (i) => y[i]!);
@@ -112,8 +121,12 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
     perSite.mean.push(f.grand_mean);
     perSite.mse.push(f.mse);
     perSite.df_error.push(f.df_error);
-    perSite.f.push(f.table.f[0]!);
-    perSite.p.push(f.table.p[0]!);
+    const sseU = f.table.ss[f.table.source.indexOf('error')]!;
+    const sstU = f.table.ss[f.table.source.indexOf('total')]!;
+    const exact = !(sseU > EXACT_SITE_RELATIVE * sstU);
+    if (exact) exactSites.push(site.levels[u] ?? '');
+    perSite.f.push(exact ? NaN : f.table.f[0]!);
+    perSite.p.push(exact ? NaN : f.table.p[0]!);
   }
   if (s === 1) {
     const only = siteFits[0]!;
@@ -158,10 +171,13 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   const msBlocks = ssBlocks / dfBlocks;
   const msTS = ssTS / dfTS;
   const interaction = `${treatment.name}:${site.name}`;
+  // the treatment-by-site sum of squares zero to rounding beside the total (the rule of
+  // src/functions/exact.ts): the treatment has nothing to be tested against
+  const interactionExact = !(ssTS > 1e-12 * sst);
   const rows = [
     { source: site.name, df: dfSite, ss: ssSite, err: msBlocks, edf: dfBlocks },
     { source: `${block.name} within ${site.name}`, df: dfBlocks, ss: ssBlocks, err: mse, edf: dfError },
-    { source: treatment.name, df: dfT, ss: ssT, err: msTS, edf: dfTS },
+    { source: treatment.name, df: dfT, ss: ssT, err: interactionExact ? NaN : msTS, edf: dfTS },
     { source: interaction, df: dfTS, ss: ssTS, err: mse, edf: dfError },
   ];
   const table: AnovaTable = { source: [], df: [], ss: [], ms: [], f: [], p: [] };
@@ -183,16 +199,18 @@ export function acrossSites(y: Float64Array, treatment: Factor, block: Factor, s
   table.p.push(NaN, NaN);
 
   const fAgainstError = ssT / dfT / mse;
-  const bt = bartlett(perSite.mse, perSite.df_error);
+  const bt = exactSites.length > 0 ? { statistic: NaN, df: s - 1, p: NaN } : bartlett(perSite.mse, perSite.df_error);
   const notes: string[] = [];
   if (opts.dropped > 0) notes.push(designMsg.dropped(opts.dropped));
   notes.push(designMsg.sitesNote(treatment.name, site.name));
-  notes.push(designMsg.sitesBartlett(bt.statistic, bt.df, bt.p));
+  if (exactSites.length > 0) notes.push(designMsg.sitesExact(site.name, exactSites));
+  else notes.push(designMsg.sitesBartlett(bt.statistic, bt.df, bt.p));
   if (bt.p < BARTLETT_WARN) notes.push(designMsg.sitesBartlettWarn());
   notes.push(designMsg.sitesMeansNote(treatment.name, site.name));
+  if (interactionExact) notes.push(designMsg.sitesInteractionExact(treatment.name, site.name));
 
   const trtCounts = new Float64Array(t).fill(s * b);
-  const trtMeans = factorMeans(treatment.name, treatment.levels, trtCounts, mT, opts.offset, diagonalCovariance(trtCounts), msTS, dfTS, opts.level);
+  const trtMeans = factorMeans(treatment.name, treatment.levels, trtCounts, mT, opts.offset, diagonalCovariance(trtCounts), interactionExact ? NaN : msTS, dfTS, opts.level);
   trtMeans.error = { mse: msTS, df: dfTS, note: designMsg.sitesMeansNote(treatment.name, site.name) };
   const cellMeans: SitesParts['cellMeans'] = { treatment: [], site: [], mean: [] };
   for (let g = 0; g < t; g++) {

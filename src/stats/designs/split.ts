@@ -135,6 +135,9 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   if (dfSub <= 0) throw new DesignError(designMsg.noErrorDf());
   const mseSub = sse / dfSub;
   const mseWhole = dfWhole > 0 ? ssWholeError / dfWhole : NaN;
+  // whole_error zero to rounding beside the total (the rule of src/functions/exact.ts): the
+  // whole-plot factor has nothing to be tested against
+  const wholeExact = dfWhole > 0 && !(ssWholeError > 1e-12 * centredSumOfSquares(y, mean(y)));
   const interaction = `${whole.name}:${sub.name}`;
 
   const rows: StratumRow[] = [
@@ -150,7 +153,7 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   const table: AnovaTable = { source: [], df: [], ss: [], ms: [], f: [], p: [] };
   for (const row of rows) {
     const ms = row.df > 0 ? row.ss / row.df : NaN;
-    const [em, edf] = row.against === 'whole' ? [mseWhole, dfWhole] : row.against === 'sub' ? [mseSub, dfSub] : [NaN, 0];
+    const [em, edf] = row.against === 'whole' ? [wholeExact ? NaN : mseWhole, dfWhole] : row.against === 'sub' ? [mseSub, dfSub] : [NaN, 0];
     const f = row.df > 0 && edf > 0 && em > 0 ? ms / em : NaN;
     table.source.push(row.source);
     table.df.push(row.df);
@@ -170,10 +173,11 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
   if (opts.dropped > 0) notes.push(designMsg.dropped(opts.dropped));
   notes.push(designMsg.splitStrata(block.name, whole.name));
   if (a === 1) notes.push(designMsg.splitOneWholeLevel(whole.name));
+  if (wholeExact) notes.push(designMsg.splitWholeExact(whole.name));
 
   // whole-plot means: variance Ea / (r b); subplot means and cell means combine both errors
   const wholeCounts = new Float64Array(a).fill(r * b);
-  const wholeMeans = factorMeans(whole.name, whole.levels, wholeCounts, mA, opts.offset, diagonalCovariance(wholeCounts), mseWhole, dfWhole, opts.level);
+  const wholeMeans = factorMeans(whole.name, whole.levels, wholeCounts, mA, opts.offset, diagonalCovariance(wholeCounts), wholeExact ? NaN : mseWhole, dfWhole, opts.level);
   wholeMeans.error = { mse: mseWhole, df: dfWhole, note: designMsg.splitWholeNote() };
   // The variance of one subplot mean is (sigma_w^2 + sigma^2) / (r a), estimated by
   // (Ea + (b - 1) Eb) / (r a b); differences of subplot means need only Eb.
@@ -200,7 +204,7 @@ export function splitPlot(y: Float64Array, whole: Factor, sub: Factor, block: Fa
     }
   }
   const blockCounts = new Float64Array(r).fill(a * b);
-  const blockMeans = factorMeans(block.name, block.levels, blockCounts, mR, opts.offset, diagonalCovariance(blockCounts), mseWhole, dfWhole, opts.level);
+  const blockMeans = factorMeans(block.name, block.levels, blockCounts, mR, opts.offset, diagonalCovariance(blockCounts), wholeExact ? NaN : mseWhole, dfWhole, opts.level);
   blockMeans.error = { mse: mseWhole, df: dfWhole, note: designMsg.splitWholeNote() };
 
   // Leverage of a subplot: the fitted value (whole-plot mean + cell mean - whole-level mean)

@@ -77,3 +77,48 @@ export function splitPlotSuspicion(factors: readonly Factor[], others: readonly 
   }
   return null;
 }
+
+/** What the reverse check found: the column(s) that group plots as whole plots would be. */
+export interface NotSplitSuspicion {
+  /** The column(s) naming the groups, e.g. ["strip"] or ["block", "strip"]. */
+  unit: string[];
+}
+
+/**
+ * The reverse check, for a split_plot fit: does a column of the data group the plots exactly
+ * as whole plots would be (as many groups as whole plots, each holding one plot of every
+ * subplot level), while the whole-plot factor changes inside those groups? Then the
+ * whole-plot factor was most likely drawn plot by plot, the data are not a split plot, and
+ * whole_error is not an error of anything that was randomized. The fit alone cannot see it:
+ * block and whole-plot level still hold every subplot level once. Returns the first such
+ * column (alone, or with the block when its labels restart in every block), or null.
+ */
+export function notSplitPlotSuspicion(whole: Factor, sub: Factor, block: Factor, others: readonly Factor[]): NotSplitSuspicion | null {
+  const factors = [whole, sub, block];
+  const n = whole.codes.length;
+  const b = sub.levels.length;
+  const wholePlots = whole.levels.length * block.levels.length;
+  if (b < 2 || n !== wholePlots * b) return null;
+  const candidates = others.filter((c) => !factors.some((f) => constantWithin(c, f.codes, f.levels.length))).slice(0, MAX_CANDIDATES);
+  const units: Factor[][] = [];
+  for (const c of candidates) units.push([c], [block, c]);
+  for (const cols of units) {
+    const { codes, count } = unitCodes(cols);
+    if (count !== wholePlots || !holdsEachOnce(sub, codes, count)) continue;
+    if (!constantWithin(whole, codes, count)) return { unit: cols.map((c) => c.name) };
+  }
+  return null;
+}
+
+/** Does every unit hold exactly one plot of each level of `f`? */
+function holdsEachOnce(f: Factor, unit: Int32Array, units: number): boolean {
+  const k = f.levels.length;
+  const seen = new Uint8Array(units * k);
+  for (let i = 0; i < unit.length; i++) {
+    const key = unit[i]! * k + f.codes[i]!;
+    if (seen[key] === 1) return false;
+    seen[key] = 1;
+  }
+  // n = units * k plots with no level twice in a unit: every unit holds every level once
+  return unit.length === units * k;
+}

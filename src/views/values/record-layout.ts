@@ -331,7 +331,7 @@ export function fitLayout(r: RecordValue): FitLayout {
     design: typeof design === 'string' && design !== '' ? design : null,
     balance,
     anova,
-    meansTitle: treatmentName === null ? 'Treatment means' : `Means of ${treatmentName}`,
+    meansTitle: meansTitleOf(treatmentName, f.has('covariate_mean'), f.has('mse_whole')),
     means: meanRows,
     intervalHeader: typeof level === 'number' && level > 0 && level < 1 ? `${levelText(level)} interval` : 'interval',
     scalars,
@@ -339,6 +339,17 @@ export function fitLayout(r: RecordValue): FitLayout {
     others,
     folded,
   };
+}
+
+/**
+ * The heading of a fit's means: with a covariate they are adjusted means (a reader must not
+ * take them for the plain ones), and a split plot's are the whole-plot factor's means.
+ */
+function meansTitleOf(treatment: string | null, adjusted: boolean, wholePlots: boolean): string {
+  if (treatment === null) return adjusted ? 'Adjusted treatment means' : 'Treatment means';
+  if (adjusted) return `Adjusted means of ${treatment} (at the covariate's mean)`;
+  if (wholePlots) return `Means of ${treatment} (whole plots)`;
+  return `Means of ${treatment}`;
 }
 
 /** One row of a table of pairwise differences, as written. */

@@ -3,7 +3,9 @@
  * figures are in test/reference/across-sites.test.ts.
  */
 import { describe, expect, it } from 'vitest';
+import { difference } from '../../../src/stats/compare/index.ts';
 import { acrossSites, blocked } from '../../../src/stats/designs/index.ts';
+import { designMsg } from '../../../src/messages/designs.ts';
 import { expectRelative, factorOf, normals, seeded, subset } from './support.ts';
 
 function series(sites: number, blocks: number, treatments: number, seed: number) {
@@ -61,6 +63,31 @@ describe('across_sites block labels', () => {
 });
 
 describe('across_sites bad input', () => {
+  it('treatment differences identical at every site: no F against the interaction, no comparison, said in words', () => {
+    const d = series(3, 2, 3, 6);
+    // every site: its own level and block effects plus the same treatment effects, plus noise
+    // that sums to zero over treatments in each block (so the site-by-treatment means are additive)
+    const noise = [0.3, -0.1, -0.2, -0.4, 0.5, -0.1];
+    const y = Float64Array.from(d.y, (_, i) => 20 + 4 * d.site.codes[i]! + d.block.codes[i]! + 2 * d.trt.codes[i]! + noise[(d.block.codes[i]! * 3 + d.trt.codes[i]! + d.site.codes[i]! * 3) % 6]!);
+    const fit = acrossSites(y, d.trt, d.block, d.site);
+    expect(fit.table.ss[3]! / fit.table.ss[5]!).toBeLessThan(1e-12);
+    expect(Number.isNaN(fit.table.f[2]!)).toBe(true);
+    expect(Number.isFinite(fit.sites!.f_against_error)).toBe(true);
+    expect(fit.notes).toContain(designMsg.sitesInteractionExact('trt', 'site'));
+    expect(() => difference(fit, 't1', 't2')).toThrow(designMsg.ownErrorZero(designMsg.sitesMeansNote('trt', 'site')));
+  });
+  it('a site whose data fit exactly has no F of its own, and Bartlett is not made, in plain words', () => {
+    const d = series(2, 2, 3, 4);
+    // site 1 made exactly additive: block effect plus treatment effect, no error
+    const y = Float64Array.from(d.y, (v, i) => (d.site.codes[i] === 0 ? 10 + d.block.codes[i]! + 2 * d.trt.codes[i]! : v));
+    const fit = acrossSites(y, d.trt, d.block, d.site);
+    const st = fit.sites!;
+    expect(Number.isNaN(st.bartlett.statistic) && Number.isNaN(st.bartlett.p)).toBe(true);
+    expect(Number.isNaN(st.perSite.f[0]!) && Number.isNaN(st.perSite.p[0]!)).toBe(true);
+    expect(Number.isFinite(st.perSite.f[1]!)).toBe(true);
+    expect(fit.notes).toContain(designMsg.sitesExact('site', ['site1']));
+    expect(fit.notes.some((n) => /chi-square/.test(n))).toBe(false);
+  });
   it('refuses a site with one block', () => {
     const d = series(2, 2, 3, 1);
     const keep = subset(d.y, [d.trt, d.block, d.site], (i) => !(d.site.codes[i] === 1 && d.block.codes[i] === 1));

@@ -5,6 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { contrast, difference, pairwise } from '../../../src/stats/compare/index.ts';
 import { blocked, DesignError, splitPlot } from '../../../src/stats/designs/index.ts';
+import { designMsg } from '../../../src/messages/designs.ts';
 import { expectRelative, factorOf, normals, seeded } from './support.ts';
 
 /** A generated split plot: r blocks, a whole levels, b sub levels, seeded normal noise. */
@@ -76,6 +77,30 @@ describe('split plot cross-checks', () => {
 });
 
 describe('split plot bad input', () => {
+  it('whole_error zero: no F for the whole-plot factor, no standard errors, no comparison, said in words', () => {
+    const d = generated(3, 2, 3, 4);
+    // whole-plot totals made exactly additive in blocks and whole levels: each subplot value
+    // shifted so that its whole plot's mean is 50 + block + 3 * whole level
+    const mRA = new Map<string, number[]>();
+    for (let t = 0; t < d.y.length; t++) {
+      const key = `${d.block.codes[t]}-${d.whole.codes[t]}`;
+      mRA.set(key, [...(mRA.get(key) ?? []), d.y[t]!]);
+    }
+    const y = Float64Array.from(d.y, (v, t) => {
+      const vs = mRA.get(`${d.block.codes[t]}-${d.whole.codes[t]}`)!;
+      const m = vs.reduce((a, b) => a + b, 0) / vs.length;
+      return v - m + 50 + d.block.codes[t]! + 3 * d.whole.codes[t]!;
+    });
+    const sp = splitPlot(y, d.whole, d.sub, d.block);
+    expect(sp.table.ss[2]! / sp.table.ss[6]!).toBeLessThan(1e-12);
+    expect(Number.isNaN(sp.table.f[1]!) && Number.isNaN(sp.table.p[1]!)).toBe(true);
+    expect(sp.means.se.every((s) => Number.isNaN(s))).toBe(true);
+    expect(sp.notes).toContain(designMsg.splitWholeExact('whole'));
+    expect(() => difference(sp, 'w1', 'w2')).toThrow(designMsg.ownErrorZero(designMsg.splitWholeNote()));
+    // the subplot factor keeps its test and its comparisons within whole plots
+    expect(Number.isFinite(sp.table.f[3]!)).toBe(true);
+    expect(difference(sp, 's1', 's2', 0.95, 'sub').se).toBeGreaterThan(0);
+  });
   it('refuses a subplot level twice in one whole plot: not a split plot', () => {
     const d = generated(3, 2, 3, 1);
     const codes = Int32Array.from(d.sub.codes);

@@ -247,6 +247,19 @@ describe('the layout of records the engine makes', () => {
     for (const f of ['mse', 'df_error', 'sd', 'grand_mean', 'r2', 'relative_efficiency']) expect(l.scalars.some((s) => s.field === f)).toBe(true);
   });
 
+  it('heads adjusted means and whole-plot means as what they are', () => {
+    const x = nums([5, 6, 4, 6, 7, 5, 4, 5, 6, 7, 5, 6], 'start');
+    const withCovariate = BUILTINS.get('blocked')!.run(new Map<string, Value>([['y', y], ['treatment', treatment], ['block', block], ['covariate', x]]), ctx);
+    if (!isRecord(withCovariate)) throw new Error('expected a fit');
+    expect(fitLayout(withCovariate).meansTitle).toBe("Adjusted means of method (at the covariate's mean)");
+    const whole = textColumn(['dry', 'dry', 'dry', 'wet', 'wet', 'wet', 'dry', 'dry', 'dry', 'wet', 'wet', 'wet'], null, 'water');
+    const reps = textColumn(['1', '1', '1', '1', '1', '1', '2', '2', '2', '2', '2', '2'], null, 'rep');
+    const sub = textColumn(['a', 'b', 'c', 'a', 'b', 'c', 'a', 'b', 'c', 'a', 'b', 'c'], null, 'variety');
+    const split = BUILTINS.get('split_plot')!.run(new Map<string, Value>([['y', y], ['whole', whole], ['sub', sub], ['block', reps]]), ctx);
+    if (!isRecord(split)) throw new Error('expected a fit');
+    expect(fitLayout(split).meansTitle).toBe('Means of water (whole plots)');
+  });
+
   it('lays out the pairs that pairwise makes from it', () => {
     const pairs = BUILTINS.get('pairwise')!.run(new Map<string, Value>([['fit', fitValue], ['method', 'tukey'], ['level', 0.95]]), { ...ctx, fn: 'pairwise' });
     if (!isRecord(pairs)) throw new Error('pairwise did not give a record');
