@@ -10,7 +10,10 @@ import { noteColumnChange } from '../../src/lang/column-changes.ts';
 import type { FieldGrid } from '../../src/doc/csv-fields.ts';
 import { table, type Table } from '../../src/lang/values.ts';
 
-/** What a table keeps of its last reading of a body. */
+/**
+ * What a table keeps of its last reading of a body. It is read again at most once: reading
+ * again may bring its grid's arrays up to date in place, for the reading that replaces it.
+ */
 export class KeptTable {
   readonly body: string;
   readonly grid: FieldGrid;
@@ -134,20 +137,45 @@ export function rereadTable(kept: KeptTable, body: string): { grid: FieldGrid; v
   tableWork.rowsRead += added;
   const shift = body.length - old.length;
   const rows = grid.rows - (last - first) + added;
-  const from = new Int32Array(rows * width);
-  const to = new Int32Array(rows * width);
-  const rowRanges = new Int32Array(rows * 2);
-  // rows before the change keep their places; the new ones follow; the rest move by `shift`
-  from.set(grid.from.subarray(0, first * width));
-  to.set(grid.to.subarray(0, first * width));
-  rowRanges.set(grid.rowRanges.subarray(0, first * 2));
+  const sameCount = added === last - first;
+  // the old ranges of the changed rows, to tell below which columns changed
+  const oldFrom = grid.from.slice(first * width, last * width);
+  const oldTo = grid.to.slice(first * width, last * width);
+  const after = (first + added) * width;
+  let from: Int32Array;
+  let to: Int32Array;
+  let rowRanges: Int32Array;
+  let escaped: Uint8Array | null = null;
+  if (sameCount) {
+    // The same number of rows, as when a field is typed over: the kept grid's arrays are
+    // brought up to date in place. The kept reading is being replaced and is never read
+    // again (KeptTable); new arrays of a few hundred thousand entries at every keystroke
+    // cost more than the reading itself, most of it in fresh pages of memory.
+    from = grid.from;
+    to = grid.to;
+    rowRanges = grid.rowRanges;
+    escaped = grid.escaped;
+    if (escaped !== null) escaped.fill(0, first * width, after);
+  } else {
+    from = new Int32Array(rows * width);
+    to = new Int32Array(rows * width);
+    rowRanges = new Int32Array(rows * 2);
+    // rows before the change keep their places; the new ones follow; the rest move by `shift`
+    from.set(grid.from.subarray(0, first * width));
+    to.set(grid.to.subarray(0, first * width));
+    rowRanges.set(grid.rowRanges.subarray(0, first * 2));
+    from.set(grid.from.subarray(last * width), after);
+    to.set(grid.to.subarray(last * width), after);
+    rowRanges.set(grid.rowRanges.subarray(last * 2), (first + added) * 2);
+    if (grid.escaped !== null) {
+      escaped = new Uint8Array(rows * width);
+      escaped.set(grid.escaped.subarray(0, first * width));
+      escaped.set(grid.escaped.subarray(last * width), after);
+    }
+  }
   from.set(fieldFrom, first * width);
   to.set(fieldTo, first * width);
   rowRanges.set(ranges, first * 2);
-  const after = (first + added) * width;
-  from.set(grid.from.subarray(last * width), after);
-  to.set(grid.to.subarray(last * width), after);
-  rowRanges.set(grid.rowRanges.subarray(last * 2), (first + added) * 2);
   if (shift !== 0) {
     for (let o = after; o < rows * width; o++) {
       from[o] = from[o]! + shift;
@@ -155,22 +183,16 @@ export function rereadTable(kept: KeptTable, body: string): { grid: FieldGrid; v
     }
     for (let o = (first + added) * 2; o < rows * 2; o++) rowRanges[o] = rowRanges[o]! + shift;
   }
-  let escaped: Uint8Array | null = null;
-  if (grid.escaped !== null) {
-    escaped = new Uint8Array(rows * width);
-    escaped.set(grid.escaped.subarray(0, first * width));
-    escaped.set(grid.escaped.subarray(last * width), after);
-  }
   const next: FieldGrid = { source: body, header: grid.header, rows, from, to, escaped, rowRanges };
   // columns: when the row count stays, only columns with a changed field are built again
-  const sameCount = added === last - first;
   const columns = grid.header.map((name, j) => {
     const oldColumn = kept.value.columns[j]!;
     if (sameCount) {
       let same = true;
       for (let r = first; r < last && same; r++) {
         const k = r * width + j;
-        same = sameText(old, grid.from[k]!, grid.to[k]!, body, from[k]!, to[k]!);
+        const o = (r - first) * width + j;
+        same = sameText(old, oldFrom[o]!, oldTo[o]!, body, from[k]!, to[k]!);
       }
       if (same) return oldColumn;
     }
