@@ -172,7 +172,12 @@ export class TableCellView extends LitElement implements TextHost {
     // body this view sent comes back as the one it shows; any other body (undo, another
     // view) is read afresh.
     const body = cell.body;
-    if (body === this.readBody) return;
+    if (body === this.readBody) {
+      // the same text: keep the document's own string, so that later checks against the
+      // document's body compare one string with itself, not a long text character by character
+      this.readBody = body;
+      return;
+    }
     this.read(body);
     if (this.editor !== null && !this.grid) this.editor = null;
   }
@@ -190,14 +195,16 @@ export class TableCellView extends LitElement implements TextHost {
   }
 
   commit(next: BodyGrid, mergeKey?: string): void {
-    if (next === this.grid || next.text === this.readBody) return;
     const before = this.grid;
+    const c = next.change;
+    // a change made from the grid shown changes its text (setField gives the same grid back
+    // when it would not); any other grid is compared
+    if (next === before || (c?.of !== before && next.text === this.readBody)) return;
+    // a change of some rows of the body the document holds travels as that change alone
+    const spliced = c !== undefined && before !== null && c.of === before && this.readBody === this.cell.body;
     this.grid = next;
     this.gridError = null;
     this.readBody = next.text;
-    // a change of some rows of the body the document holds travels as that change alone
-    const c = next.change;
-    const spliced = c !== undefined && before !== null && c.of === before && before.text === this.cell.body;
     this.send(spliced ? { type: 'splice', id: this.cell.id, from: c.from, to: c.to, text: c.text } : { type: 'body', id: this.cell.id, body: next.text }, mergeKey);
     this.requestUpdate();
   }
