@@ -206,18 +206,19 @@ export interface NoteProblem {
  * near-identical ones. `sources[i]` is the source of placeholder i (as `parts[i]` is its value).
  */
 export function groupNoteProblems(parts: readonly Value[], sources: readonly string[]): NoteProblem[] {
-  const groups = new Map<string, { message: string; upstream: boolean; placeholders: string[] }>();
+  // each group's sources in a Set (kept in insertion order): a hostile note may hold a hundred
+  // thousand failing placeholders, and a list searched for each one made this quadratic
+  const groups = new Map<string, { message: string; upstream: boolean; placeholders: Set<string> }>();
   parts.forEach((v, i) => {
     if (!isError(v)) return;
     const upstream = v.upstream !== null;
     const key = `${upstream ? 'u' : 'o'}:${v.message}`;
     let g = groups.get(key);
     if (g === undefined) {
-      g = { message: v.message, upstream, placeholders: [] };
+      g = { message: v.message, upstream, placeholders: new Set() };
       groups.set(key, g);
     }
-    const source = sources[i] ?? '…';
-    if (!g.placeholders.includes(source)) g.placeholders.push(source);
+    g.placeholders.add(sources[i] ?? '…');
   });
-  return [...groups.values()];
+  return [...groups.values()].map((g) => ({ message: g.message, upstream: g.upstream, placeholders: [...g.placeholders] }));
 }
