@@ -9,6 +9,7 @@ import { gzipSync } from 'node:zlib';
 import { check, runTests } from './harness.mjs';
 import { keepingTests } from './keeping.mjs';
 import { closingTests } from './closing.mjs';
+import { hostileFileTests } from './hostile-files.mjs';
 import { exportTests } from './exports.mjs';
 import { importingTests } from './importing.mjs';
 import { largeTableTests } from './large-table.mjs';
@@ -527,6 +528,7 @@ tests.push({
 
 tests.push(...keepingTests(measured));
 tests.push(...closingTests);
+tests.push(...hostileFileTests());
 tests.push(...exportTests);
 tests.push(...importingTests());
 tests.push(...largeTableTests(measured));
