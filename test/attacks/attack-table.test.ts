@@ -335,6 +335,20 @@ const ATTACKS: Attack[] = [
     },
   },
   {
+    attack: 'means_chart of 10,000 levels, pairwise_chart of 150 levels',
+    expected: 'a plain error on each cell, no stack overflow',
+    within: 20_000,
+    run: () => {
+      // vega-lite's compiler ran out of stack on these (see test/charts/hostile-names.test.ts for the limits)
+      const rows = (k: number): string[] => Array.from({ length: 2 * k }, (_, i) => `L${i % k},${(i * 7) % 13}`);
+      const m = evalFormula('means_chart(one_way(t.y, t.g))', '--- table t', 'g,y', ...rows(10_000), '');
+      const p = evalFormula('pairwise_chart(pairwise(one_way(t.y, t.g), method: "lsd"))', '--- table t', 'g,y', ...rows(150), '');
+      const a = plainError(m, /^means_chart: .*10,000 levels/);
+      const b = plainError(p, /^pairwise_chart: .*11,175 pairs/);
+      return { ok: a.ok && b.ok, said: `${a.said.slice(0, 44)} | ${b.said.slice(0, 44)}` };
+    },
+  },
+  {
     attack: 'a column name with a backslash or a line separator, in every chart',
     expected: 'the charts still draw (see test/charts/hostile-names.test.ts)',
     within: 5000,
