@@ -191,6 +191,18 @@ export function placeholderText(source: string, v: Value): string {
   return formatInline(v, placeholderQuantity(expr));
 }
 
+/**
+ * Placeholders a problem line of the page lists before it says how many more there are: a
+ * hostile note may have a hundred thousand failing ones, and a line of that many elements
+ * would stall the page while saying nothing more (the command line lists them all).
+ */
+export const PLACEHOLDERS_LISTED = 20;
+
+/** The placeholders a problem line lists, and how many it leaves unlisted. */
+export function listedPlaceholders(placeholders: readonly string[], limit = PLACEHOLDERS_LISTED): { listed: readonly string[]; more: number } {
+  return placeholders.length <= limit ? { listed: placeholders, more: 0 } : { listed: placeholders.slice(0, limit), more: placeholders.length - limit };
+}
+
 /** One distinct error of a note, with the placeholders it affects, in the order they appear. */
 export interface NoteProblem {
   readonly message: string;

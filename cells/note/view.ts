@@ -16,7 +16,7 @@ import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/views/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { startMsg } from '../../src/messages/page.ts';
-import { groupNoteProblems, placeholderText, splitNote } from './model.ts';
+import { groupNoteProblems, listedPlaceholders, placeholderText, splitNote } from './model.ts';
 import { ATTRIBUTE_SLOT, MARKDOWN_ELEMENTS, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';
 
 /**
@@ -316,7 +316,7 @@ export class NoteCellView extends LitElement {
             ${problems.map(
               (p) =>
                 html`<li class=${p.upstream ? 'upstream' : ''}>
-                  ${p.placeholders.map((s, k) => html`${k === 0 ? '' : ', '}<code>{${s}}</code>`)}: ${p.message}
+                  ${this.placeholderList(p.placeholders)}: ${p.message}
                 </li>`,
             )}
           </ul>`
@@ -348,6 +348,12 @@ export class NoteCellView extends LitElement {
         el.classList.remove('failed', 'upstream');
       }
     }
+  }
+
+  /** The placeholders of one problem line, the first few by name and the rest counted. */
+  private placeholderList(placeholders: readonly string[]): unknown {
+    const { listed, more } = listedPlaceholders(placeholders);
+    return html`${listed.map((s, k) => html`${k === 0 ? '' : ', '}<code>{${s}}</code>`)}${more > 0 ? ` ${startMsg.morePlaceholders(more)}` : ''}`;
   }
 
   private placeholderSource(i: number): string {

@@ -74,6 +74,7 @@ export const startMsg = {
   titlePlaceholder: () => 'Untitled trial',
   notePrompt: () => 'What is compared, on what, and why.',
   emptyNote: () => 'Empty note: double-click or press Enter to write.',
+  morePlaceholders: (n: number) => `and ${plural(n, 'other placeholder')}`,
   undo: () => 'Undo',
   formulaEmpty: () => 'empty: write an expression after "=" (cells that read this name see a missing value)',
 

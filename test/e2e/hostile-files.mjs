@@ -1,8 +1,8 @@
-// Browser tests of files past the page's size limit: a document or a data file larger than
-// the page reads is refused by its size, in words, before it is read, and nothing on the page
-// is lost.
+// Browser tests of hostile files: a document or a data file larger than the page reads is
+// refused by its size, in words, before it is read, and nothing on the page is lost; a note
+// built to stall the page (a megabyte of unclosed braces) shows in bounded time.
 import { check } from './harness.mjs';
-import { settled, shownF } from './page.mjs';
+import { openDocument, settled, shownF } from './page.mjs';
 
 /** Drops a file of `megabytes` MB (zeros after a first line) on the page. */
 async function dropLarge(page, name, megabytes) {
@@ -38,6 +38,32 @@ export function hostileFileTests() {
             document.querySelector('furrow-app').banner = null;
           });
         }
+      },
+    },
+    {
+      name: 'a note of 1 MB of unclosed braces shows in bounded time, its problems counted',
+      async run({ context, base }) {
+        const page = await context.newPage();
+        await page.goto(`${base}/?fresh`);
+        await settled(page);
+        const n = Math.floor(1_000_000 / 6);
+        const started = Date.now();
+        await openDocument(page, `furrow 1\ntitle: braces\n\n--- note\n${'{"abc\n'.repeat(n)}\n--- formula\nx = 2 + 3\n`, 'braces.furrow');
+        const line = page.locator('section[data-kind="note"] furrow-note-cell .problems li');
+        await line.first().waitFor({ timeout: 60_000 });
+        await settled(page);
+        const ms = Date.now() - started;
+        console.log(`    measured: a note of ${n.toLocaleString('en')} unclosed braces opened and shown in ${ms} ms`);
+        const lines = await line.count();
+        const text = (await line.first().innerText()).replace(/\s+/g, ' ');
+        check(lines === 1, `one problem line, not ${lines}`);
+        check(text.includes(`and ${(n - 20).toLocaleString('en')} other placeholders`), `the problem line: ${text.slice(0, 300)}`);
+        const codes = await line.first().locator('code').count();
+        check(codes === 20, `placeholders listed by name: ${codes}`);
+        // the page still answers: the formula after the note is evaluated and shown
+        const x = await page.locator('section[data-name="x"]').innerText();
+        check(/\b5\b/.test(x), `the formula after the note: ${x}`);
+        check(ms < 60_000, `shown after ${ms} ms`);
       },
     },
   ];
