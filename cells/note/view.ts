@@ -101,19 +101,21 @@ export function placeSlots(root: DocumentFragment, sources: readonly string[]): 
     const value = t.data;
     if (!value.includes(SLOT_OPEN)) continue;
     const parts = value.split(SLOT);
-    // split with a capturing group: text, index, text, index, ..., text
-    const pieces: Node[] = [];
+    // split with a capturing group: text, index, text, index, ..., text; gathered in a
+    // fragment, not spread into replaceWith's arguments, which overflow the stack past about
+    // a hundred thousand (a note of 166,666 placeholders did, and the page kept the old note)
+    const pieces = doc.createDocumentFragment();
     parts.forEach((part, k) => {
       if (k % 2 === 0) {
-        if (part !== '') pieces.push(doc.createTextNode(part));
+        if (part !== '') pieces.append(doc.createTextNode(part));
       } else {
         const span = doc.createElement('span');
         span.className = 'slot';
         span.dataset.slot = String(Number(part));
-        pieces.push(span);
+        pieces.append(span);
       }
     });
-    t.replaceWith(...pieces);
+    t.replaceWith(pieces);
   }
 }
 
