@@ -26,6 +26,41 @@ export const PRIVATE_MARKS = /[\uE000\uE001]/g;
 export const ATTRIBUTE_SLOT = /(?:\uE000|%EE%80%80)(\d+)(?:\uE001|%EE%80%81)/gi;
 
 /**
+ * The elements a note's Markdown makes, with the attributes each may keep: the allow-list of
+ * both sanitizers, the page's (cells/note/view.ts) and the report's (src/report/sanitize.ts).
+ * The only attributes that carry an address are a link's href and a picture's src, and each
+ * sanitizer narrows their values further; nothing here makes a browser fetch anything.
+ */
+export const MARKDOWN_ELEMENTS: ReadonlyMap<string, readonly string[]> = new Map([
+  ['p', []],
+  ['h1', []],
+  ['h2', []],
+  ['h3', []],
+  ['h4', []],
+  ['h5', []],
+  ['h6', []],
+  ['em', []],
+  ['strong', []],
+  ['del', []],
+  ['code', []],
+  ['pre', []],
+  ['blockquote', []],
+  ['ul', []],
+  ['ol', ['start']],
+  ['li', []],
+  ['a', ['href', 'title']],
+  ['img', ['src', 'alt', 'title']],
+  ['table', []],
+  ['thead', []],
+  ['tbody', []],
+  ['tr', []],
+  ['th', ['align']],
+  ['td', ['align']],
+  ['hr', []],
+  ['br', []],
+]);
+
+/**
  * Emphasis marks (`*`, `_`, `~`) a paragraph may hold before they are shown as written. The
  * Markdown renderer pairs emphasis marks in time that grows with the square of their number
  * in one paragraph (measured: 20,000 marks took 2.3 s, 500,000 over seven minutes); no note

@@ -191,6 +191,18 @@ export function placeholderText(source: string, v: Value): string {
   return formatInline(v, placeholderQuantity(expr));
 }
 
+/**
+ * Placeholders a problem line of the page lists before it says how many more there are: a
+ * hostile note may have a hundred thousand failing ones, and a line of that many elements
+ * would stall the page while saying nothing more (the command line lists them all).
+ */
+export const PLACEHOLDERS_LISTED = 20;
+
+/** The placeholders a problem line lists, and how many it leaves unlisted. */
+export function listedPlaceholders(placeholders: readonly string[], limit = PLACEHOLDERS_LISTED): { listed: readonly string[]; more: number } {
+  return placeholders.length <= limit ? { listed: placeholders, more: 0 } : { listed: placeholders.slice(0, limit), more: placeholders.length - limit };
+}
+
 /** One distinct error of a note, with the placeholders it affects, in the order they appear. */
 export interface NoteProblem {
   readonly message: string;
@@ -206,18 +218,19 @@ export interface NoteProblem {
  * near-identical ones. `sources[i]` is the source of placeholder i (as `parts[i]` is its value).
  */
 export function groupNoteProblems(parts: readonly Value[], sources: readonly string[]): NoteProblem[] {
-  const groups = new Map<string, { message: string; upstream: boolean; placeholders: string[] }>();
+  // each group's sources in a Set (kept in insertion order): a hostile note may hold a hundred
+  // thousand failing placeholders, and a list searched for each one made this quadratic
+  const groups = new Map<string, { message: string; upstream: boolean; placeholders: Set<string> }>();
   parts.forEach((v, i) => {
     if (!isError(v)) return;
     const upstream = v.upstream !== null;
     const key = `${upstream ? 'u' : 'o'}:${v.message}`;
     let g = groups.get(key);
     if (g === undefined) {
-      g = { message: v.message, upstream, placeholders: [] };
+      g = { message: v.message, upstream, placeholders: new Set() };
       groups.set(key, g);
     }
-    const source = sources[i] ?? '…';
-    if (!g.placeholders.includes(source)) g.placeholders.push(source);
+    g.placeholders.add(sources[i] ?? '…');
   });
-  return [...groups.values()];
+  return [...groups.values()].map((g) => ({ message: g.message, upstream: g.upstream, placeholders: [...g.placeholders] }));
 }

@@ -5,8 +5,9 @@
  *
  * A note from someone else's document is data: raw HTML written in it is shown as text, so
  * no tag its author wrote reaches a parser; the Markdown is rendered by marked and then
- * sanitized by DOMPurify (javascript: links, remote images and the page's own classes
- * removed); live values go in afterwards as DOM nodes holding text.
+ * sanitized by DOMPurify with an allow-list of what Markdown makes (javascript: links,
+ * remote images and the page's own classes removed); live values go in afterwards as DOM
+ * nodes holding text.
  */
 import DOMPurify from 'dompurify';
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
@@ -15,16 +16,26 @@ import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/views/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { startMsg } from '../../src/messages/page.ts';
-import { groupNoteProblems, placeholderText, splitNote } from './model.ts';
-import { ATTRIBUTE_SLOT, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';
+import { groupNoteProblems, listedPlaceholders, placeholderText, splitNote } from './model.ts';
+import { ATTRIBUTE_SLOT, MARKDOWN_ELEMENTS, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';
 
-/** Attributes a note may not carry: the page's own marks (a fake live value) and addresses that load things. */
-const PAGE_ATTRIBUTES = ['class', 'id', 'style', 'srcset', 'poster', 'background', 'action', 'formaction', 'xlink:href'];
+/**
+ * The sanitizer keeps only what Markdown makes (MARKDOWN_ELEMENTS): no attribute the page uses
+ * for its own marks (class, data-*, a fake live value), and no address but a link's href and a
+ * picture's src, both narrowed by the hook below. Attributes are checked per element.
+ */
+const ALLOWED_TAGS = [...MARKDOWN_ELEMENTS.keys()];
+const ALLOWED_ATTR = [...new Set([...MARKDOWN_ELEMENTS.values()].flat())];
 
 let hooksInstalled = false;
 function installHooks(): void {
   if (hooksInstalled) return;
   hooksInstalled = true;
+  DOMPurify.addHook('uponSanitizeAttribute', (node, data) => {
+    // an attribute one element may carry is not allowed on every other (a src on a table)
+    const allowed = MARKDOWN_ELEMENTS.get(node.nodeName.toLowerCase());
+    if (allowed === undefined || !allowed.includes(data.attrName)) data.keepAttr = false;
+  });
   DOMPurify.addHook('afterSanitizeAttributes', (node) => {
     // by nodeName rather than instanceof: the sanitizer's parse document may be another realm
     if (node.nodeName === 'A') {
@@ -53,9 +64,10 @@ export function renderNote(text: string): { fragment: DocumentFragment; placehol
   const { html: raw, placeholders } = notePiecesHtml(splitNote(text));
   const fragment = DOMPurify.sanitize(raw, {
     RETURN_DOM_FRAGMENT: true,
-    FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe', 'object', 'embed', 'svg', 'math', 'audio', 'video', 'source', 'picture', 'track'],
-    FORBID_ATTR: PAGE_ATTRIBUTES,
+    ALLOWED_TAGS,
+    ALLOWED_ATTR,
     ALLOW_DATA_ATTR: false,
+    ALLOW_ARIA_ATTR: false,
   });
   placeSlots(
     fragment,
@@ -89,19 +101,21 @@ export function placeSlots(root: DocumentFragment, sources: readonly string[]): 
     const value = t.data;
     if (!value.includes(SLOT_OPEN)) continue;
     const parts = value.split(SLOT);
-    // split with a capturing group: text, index, text, index, ..., text
-    const pieces: Node[] = [];
+    // split with a capturing group: text, index, text, index, ..., text; gathered in a
+    // fragment, not spread into replaceWith's arguments, which overflow the stack past about
+    // a hundred thousand (a note of 166,666 placeholders did, and the page kept the old note)
+    const pieces = doc.createDocumentFragment();
     parts.forEach((part, k) => {
       if (k % 2 === 0) {
-        if (part !== '') pieces.push(doc.createTextNode(part));
+        if (part !== '') pieces.append(doc.createTextNode(part));
       } else {
         const span = doc.createElement('span');
         span.className = 'slot';
         span.dataset.slot = String(Number(part));
-        pieces.push(span);
+        pieces.append(span);
       }
     });
-    t.replaceWith(...pieces);
+    t.replaceWith(pieces);
   }
 }
 
@@ -304,7 +318,7 @@ export class NoteCellView extends LitElement {
             ${problems.map(
               (p) =>
                 html`<li class=${p.upstream ? 'upstream' : ''}>
-                  ${p.placeholders.map((s, k) => html`${k === 0 ? '' : ', '}<code>{${s}}</code>`)}: ${p.message}
+                  ${this.placeholderList(p.placeholders)}: ${p.message}
                 </li>`,
             )}
           </ul>`
@@ -336,6 +350,12 @@ export class NoteCellView extends LitElement {
         el.classList.remove('failed', 'upstream');
       }
     }
+  }
+
+  /** The placeholders of one problem line, the first few by name and the rest counted. */
+  private placeholderList(placeholders: readonly string[]): unknown {
+    const { listed, more } = listedPlaceholders(placeholders);
+    return html`${listed.map((s, k) => html`${k === 0 ? '' : ', '}<code>{${s}}</code>`)}${more > 0 ? ` ${startMsg.morePlaceholders(more)}` : ''}`;
   }
 
   private placeholderSource(i: number): string {

@@ -299,7 +299,9 @@ export interface Pasted {
  */
 export function pasteBlock(g: BodyGrid, target: Rect, block: readonly (readonly string[])[]): Pasted | Refusal {
   const height = block.length;
-  const width = height > 0 ? Math.max(...block.map((r) => r.length)) : 0;
+  // a loop, not Math.max(...rows): spreading a pasted block of a few hundred thousand rows overflows the stack
+  let width = 0;
+  for (const r of block) if (r.length > width) width = r.length;
   if (height === 0 || width === 0) return { refused: gridMsg.pasteEmpty() };
   if (height === 1 && width === 1 && (target.r1 > target.r0 || target.c1 > target.c0)) {
     const value = block[0]![0]!;

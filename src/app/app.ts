@@ -37,7 +37,7 @@ import { FileDrop } from './drop.ts';
 import './import-offer.ts';
 import type { ImportChoice } from './import-offer.ts';
 import { importedTableCell, importSource, isImportable, namesTaken, type ImportSource } from './table-import.ts';
-import { fileNameFor, pickFile, saveText } from './files.ts';
+import { FileTooLargeError, fileNameFor, pickFile, saveText } from './files.ts';
 import { DocumentKeeper, type Opening } from './keeper.ts';
 import { DocumentStore } from './store.ts';
 import './handoff/hand-off.ts';
@@ -543,7 +543,7 @@ export class FurrowApp extends LitElement {
       if (isImportable(f.name)) return void (await this.offerImport(f.name, f.bytes));
       if (this.openText(f.text, f.name)) this.fileHandle = f.handle;
     } catch (err) {
-      this.banner = { kind: 'problem', text: pageMsg.unreadable(err instanceof NotUtf8Error, String(err)) };
+      this.banner = { kind: 'problem', text: err instanceof FileTooLargeError ? err.message : pageMsg.unreadable(err instanceof NotUtf8Error, String(err)) };
     }
   }
 
@@ -613,7 +613,7 @@ export class FurrowApp extends LitElement {
       if (f === null) return;
       this.attach(f.name, f.bytes);
     } catch (err) {
-      this.banner = { kind: 'problem', text: pageMsg.csvUnreadable(String(err)) };
+      this.banner = { kind: 'problem', text: err instanceof FileTooLargeError ? err.message : pageMsg.csvUnreadable(String(err)) };
     }
   }
 

@@ -7,7 +7,7 @@
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import { pageMsg } from '../messages/page.ts';
-import { readFileText } from './files.ts';
+import { checkFileSize, readFileText } from './files.ts';
 
 export interface DropEvents {
   csv(name: string, bytes: Uint8Array): void;
@@ -44,6 +44,12 @@ export class FileDrop implements ReactiveController {
     const file = e.dataTransfer?.files[0];
     if (file === undefined || e.defaultPrevented) return;
     e.preventDefault();
+    try {
+      checkFileSize(file);
+    } catch (err) {
+      this.events.problem((err as Error).message);
+      return;
+    }
     if (/\.(csv|xlsx|parquet)$/i.test(file.name)) {
       const to = /\.csv$/i.test(file.name) ? this.events.csv : /\.xlsx$/i.test(file.name) ? this.events.workbook : this.events.data;
       void file.arrayBuffer().then(

@@ -3,6 +3,27 @@
  * an upload and a download otherwise.
  */
 import { decodeUtf8 } from '../doc/utf8.ts';
+import { pageMsg } from '../messages/page.ts';
+
+/**
+ * The largest file the page reads: a document, a report, or a data file to attach or import
+ * (the command line's limit for a document). A larger one is refused by its size before a
+ * byte of it is read, so a hostile or mistaken pick cannot freeze the page or exhaust it.
+ */
+export const PAGE_FILE_LIMIT_BYTES = 64 * 1024 * 1024;
+
+/** A file larger than the page reads; its message is the words the page shows. */
+export class FileTooLargeError extends Error {
+  constructor(name: string, limit: number) {
+    super(pageMsg.fileTooLarge(name, limit));
+    this.name = 'FileTooLargeError';
+  }
+}
+
+/** Refuses a file larger than the page reads, by the size it states (nothing is read). */
+export function checkFileSize(file: { readonly size: number; readonly name?: string }, limit = PAGE_FILE_LIMIT_BYTES): void {
+  if (file.size > limit) throw new FileTooLargeError(file.name ?? 'The file', limit);
+}
 
 interface PickerWindow {
   showOpenFilePicker?: (o: unknown) => Promise<FileSystemFileHandle[]>;
@@ -26,6 +47,7 @@ export interface PickedFile {
 }
 
 async function picked(file: File, handle: FileSystemFileHandle | null): Promise<PickedFile> {
+  checkFileSize(file);
   const bytes = new Uint8Array(await file.arrayBuffer());
   let text: string | null = null;
   return {
@@ -39,8 +61,9 @@ async function picked(file: File, handle: FileSystemFileHandle | null): Promise<
   };
 }
 
-/** Reads a File as UTF-8, refusing bytes that are not UTF-8 text. */
-export async function readFileText(file: Blob): Promise<string> {
+/** Reads a File as UTF-8, refusing bytes that are not UTF-8 text and a file past the page's limit. */
+export async function readFileText(file: Blob & { readonly name?: string }): Promise<string> {
+  checkFileSize(file);
   return decodeUtf8(new Uint8Array(await file.arrayBuffer()));
 }
 

@@ -15,7 +15,7 @@ import { blocked, factorial, latinSquare, oneWay, splitPlotSuspicion, withCovari
 import { brownForsythe, shapiroWilk, studentizedFlags } from '../stats/diagnostics/index.ts';
 import { MAX_GROUPS } from '../stats/distributions/index.ts';
 import { isExactFit } from './exact.ts';
-import { LEVEL, columnsTable, finish, fitInternal, prepare, spread, type FitInternal, type Prepared } from './fits.ts';
+import { LEVEL, columnsTable, finish, fitInternal, nonadditivityRecord, prepare, spread, type FitInternal, type Prepared } from './fits.ts';
 import { factorOf, numberLevel, resolveLevel, responseOf } from './columns.ts';
 import { guarded, toRecord } from './records.ts';
 import type { Builtin } from '../lang/builtins.ts';
@@ -282,10 +282,7 @@ export const DESIGNS: readonly Builtin[] = [
       if (flaggedRows.length > 0) {
         notes.push(fnMsg.rowsFlagged([...flaggedRows].map((x) => formatNumber(x))));
       }
-      if (fit.nonadditivity !== undefined) {
-        const na = fit.nonadditivity;
-        fields.push(['nonadditivity', record([['ss', na.ss], ['f', na.f], ['p', na.p], ['df1', na.df1], ['df2', na.df2]], 'test')]);
-      }
+      if (fit.nonadditivity !== undefined) fields.push(['nonadditivity', nonadditivityRecord(fit.nonadditivity)]);
       if (fit.covariate !== undefined) {
         const ps = fit.covariate.parallel;
         fields.push(['parallel_slopes', record([['ss', ps.ss], ['f', ps.f], ['df1', ps.df1], ['df2', ps.df2], ['p', ps.p]], 'test')]);

@@ -53,6 +53,10 @@ export function withoutErrorTests(fit: DesignFit): DesignFit {
     studentized_residuals: new Float64Array(fit.residuals.length).fill(NaN),
     // an efficiency against a design with no error either is 0 / 0
     ...(fit.relative_efficiency !== undefined ? { relative_efficiency: NaN, relative_efficiency_uncorrected: NaN } : {}),
+    // the test for nonadditivity and the test of parallel slopes divide by the error too:
+    // on rounding dust they would give an F of noise
+    ...(fit.nonadditivity !== undefined ? { nonadditivity: { ...fit.nonadditivity, f: NaN, p: NaN } } : {}),
+    ...(fit.covariate !== undefined ? { covariate: { ...fit.covariate, slope_se: NaN, parallel: { ...fit.covariate.parallel, f: NaN, p: NaN } } } : {}),
     notes: [...fit.notes, sst > 0 ? msg.exactFit() : msg.allMeasurementsEqual()],
   };
 }

@@ -55,14 +55,23 @@ export function nanAsMissing(values: ArrayLike<number>, name: string): NumberCol
   return numberColumn(v, miss, name);
 }
 
-/** A column of the data's full length: values at the rows used, missing elsewhere. */
+/** A number that does not exist (an F or an efficiency of a fit with no error: 0 / 0) as missing, not NaN. */
+export function numberOrMissing(x: number): number | typeof MISSING {
+  return Number.isNaN(x) ? MISSING : x;
+}
+
+/**
+ * A column of the data's full length: values at the rows used, missing elsewhere and where a
+ * value does not exist (a studentized residual of a fit with no error).
+ */
 export function spread(values: Float64Array, rows: Int32Array | null, length: number, name: string): NumberColumn {
-  if (rows === null) return numberColumn(Float64Array.from(values), null, name);
+  if (rows === null) return nanAsMissing(values, name);
   const out = new Float64Array(length).fill(NaN);
   const miss = new Uint8Array(length).fill(1);
   rows.forEach((r, k) => {
-    out[r] = values[k]!;
-    miss[r] = 0;
+    const v = values[k]!;
+    out[r] = v;
+    miss[r] = Number.isNaN(v) ? 1 : 0;
   });
   return numberColumn(out, miss, name);
 }
@@ -95,11 +104,8 @@ export function fitRecord(fit: DesignFit, internal: FitInternal): RecordValue {
     ['studentized', spread(fit.studentized_residuals, rows, length, 'studentized')],
     ['balanced', fit.balanced],
   ];
-  if (fit.relative_efficiency !== undefined) fields.push(['relative_efficiency', fit.relative_efficiency]);
-  if (fit.nonadditivity !== undefined) {
-    const na = fit.nonadditivity;
-    fields.push(['nonadditivity', record([['ss', na.ss], ['f', na.f], ['p', na.p], ['df1', na.df1], ['df2', na.df2]], 'test')]);
-  }
+  if (fit.relative_efficiency !== undefined) fields.push(['relative_efficiency', numberOrMissing(fit.relative_efficiency)]);
+  if (fit.nonadditivity !== undefined) fields.push(['nonadditivity', nonadditivityRecord(fit.nonadditivity)]);
   if (fit.effects !== undefined) fields.push(['effects', columnsTable(fit.effects as unknown as Record<string, ArrayLike<unknown>>, ['term', 'estimate'])]);
   if (fit.lenth !== undefined) {
     const l = fit.lenth;
@@ -125,6 +131,11 @@ export function fitRecord(fit: DesignFit, internal: FitInternal): RecordValue {
   return record(fields, 'fit', internal, identity);
 }
 
+/** Tukey's test for nonadditivity as a record; F and p missing where they do not exist. */
+export function nonadditivityRecord(na: NonNullable<DesignFit['nonadditivity']>): RecordValue {
+  return record([['ss', na.ss], ['f', numberOrMissing(na.f)], ['p', numberOrMissing(na.p)], ['df1', na.df1], ['df2', na.df2]], 'test');
+}
+
 const MEANS_COLUMNS = ['level', 'n', 'mean', 'se', 'low', 'high'] as const;
 
 /** What split plots, covariates and site series add to the record. */
@@ -147,7 +158,7 @@ function stratumFields(fit: DesignFit): [string, Value][] {
   }
   const cv = fit.covariate;
   if (cv !== undefined) {
-    out.push(['slope', cv.slope], ['slope_se', cv.slope_se], ['covariate_mean', cv.mean]);
+    out.push(['slope', cv.slope], ['slope_se', numberOrMissing(cv.slope_se)], ['covariate_mean', cv.mean]);
     out.push([
       'unadjusted_means',
       columnsTable({ level: fit.means.level, mean: cv.unadjusted, covariate: cv.covariateMeans }, ['level', 'mean', 'covariate']),

@@ -45,6 +45,8 @@ export const pageMsg = {
     `The file could not be read${notText ? ': it is not UTF-8 text, so it is not a Furrow document' : `: ${detail}`}. Nothing on the page was changed.`,
   attached: (name: string) => `Attached ${name}.`,
   csvUnreadable: (detail: string) => `The CSV file could not be read: ${detail}.`,
+  fileTooLarge: (name: string, limit: number) =>
+    `${name} was not read: it is larger than the ${Math.round(limit / (1024 * 1024))} MB that the page reads. Nothing on the page was changed; the command line reads larger data files (furrow run).`,
   savedAs: (name: string) => `Saved as ${name}.`,
   saveFailed: (detail: string) => `Saving failed: ${detail}. The document is still kept in this browser.`,
   workerStopped: (detail: string) => `The evaluation worker stopped: ${detail || 'unknown error'}. Reload the page; your document is saved.`,
@@ -72,6 +74,7 @@ export const startMsg = {
   titlePlaceholder: () => 'Untitled trial',
   notePrompt: () => 'What is compared, on what, and why.',
   emptyNote: () => 'Empty note: double-click or press Enter to write.',
+  morePlaceholders: (n: number) => `and ${plural(n, 'other placeholder')}`,
   undo: () => 'Undo',
   formulaEmpty: () => 'empty: write an expression after "=" (cells that read this name see a missing value)',
 

@@ -6,39 +6,13 @@
  * like markup, and lets no address out except a link to a place in the report itself and a
  * picture carried inside the document (data:image). The report loads nothing from anywhere.
  */
+import { MARKDOWN_ELEMENTS } from '../../cells/note/markdown.ts';
 
-/** Tags Markdown produces, with the attributes each may keep. */
-const ALLOWED: ReadonlyMap<string, readonly string[]> = new Map([
-  ['p', []],
-  ['h1', []],
-  ['h2', []],
-  ['h3', []],
-  ['h4', []],
-  ['h5', []],
-  ['h6', []],
-  ['em', []],
-  ['strong', []],
-  ['del', []],
-  ['code', []],
-  ['pre', []],
-  ['blockquote', []],
-  ['ul', []],
-  ['ol', ['start']],
-  ['li', []],
-  ['a', ['href', 'title']],
-  ['img', ['src', 'alt', 'title']],
-  ['table', []],
-  ['thead', []],
-  ['tbody', []],
-  ['tr', []],
-  ['th', ['align']],
-  ['td', ['align']],
-  ['hr', []],
-  ['br', []],
-]);
 
 /** Tags dropped without a trace (a task list's checkbox): they carry nothing to read. */
 const DROPPED: ReadonlySet<string> = new Set(['input']);
+
+const ALLOWED = MARKDOWN_ELEMENTS;
 
 const VOID: ReadonlySet<string> = new Set(['img', 'hr', 'br', 'input']);
 

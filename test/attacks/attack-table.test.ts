@@ -14,8 +14,8 @@ import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES } from '../../src/cli/files.ts';
 import { main } from '../../src/cli/main.ts';
 import { DocumentError, readDocument, writeDocument } from '../../src/doc/format.ts';
 import { decodeUtf8 } from '../../src/doc/utf8.ts';
-import { isError, type Value } from '../../src/lang/values.ts';
-import { splitNote } from '../../cells/note/model.ts';
+import { errorValue, isError, type Value } from '../../src/lang/values.ts';
+import { groupNoteProblems, splitNote } from '../../cells/note/model.ts';
 import { noteMarkdownHtml } from '../../cells/note/markdown.ts';
 import { doc, evalFormula, run } from '../helpers.ts';
 
@@ -163,6 +163,34 @@ const ATTACKS: Attack[] = [
     },
   },
   {
+    attack: 'a note of 1 MB of unclosed braces, on the command line',
+    expected: 'each placeholder placed, in linear time',
+    within: 15_000,
+    run: () => {
+      // each failing placeholder is given its line and column; counting lines from the start
+      // for each one made this quadratic (80,000 of them took 53 s)
+      const n = Math.floor(MB / 6);
+      const r = cli('run', docWith(() => {}, `furrow 1\ntitle: t\n\n--- note\n${'{"abc\n'.repeat(n)}`));
+      const lines = r.out.split('\n').filter((l) => /placeholder errors? at/.test(l));
+      const last = `line ${n + 4}, column 1`;
+      const ok = lines.length === 1 && lines[0]!.includes('line 5, column 1, line 6, column 1,') && lines[0]!.includes(`and ${last}:`);
+      return { ok, said: `${lines.length} line of errors, ${r.out.length} characters, ends at ${last}` };
+    },
+  },
+  {
+    attack: 'a note with 100,000 placeholders failing alike',
+    expected: 'grouped in linear time, each source once',
+    within: 3000,
+    run: () => {
+      // the page lists a note's errors, one line per message with the placeholders it reaches
+      const n = 100_000;
+      const parts = Array.from({ length: n }, () => errorValue('There is no cell or table called "m".', 0, 1));
+      const groups = groupNoteProblems(parts, Array.from({ length: n }, (_, i) => `m.c${i % (n / 2)}`));
+      const ok = groups.length === 1 && groups[0]!.placeholders.length === n / 2 && groups[0]!.placeholders[n / 2 - 1] === `m.c${n / 2 - 1}`;
+      return { ok, said: `${groups.length} group of ${groups[0]?.placeholders.length} placeholders` };
+    },
+  },
+  {
     attack: 'a note of 500,000 emphasis marks',
     expected: 'rendered in bounded time, marks shown as written',
     within: 5000,
@@ -304,6 +332,20 @@ const ATTACKS: Attack[] = [
     run: () => {
       const s = run(doc('--- table t', 'yield,yi\u200Beld', '1,2')).states[0]!;
       return { ok: s.warnings.some((w) => /invisible character/.test(w)), said: s.warnings[0]?.slice(0, 90) ?? 'no warning' };
+    },
+  },
+  {
+    attack: 'means_chart of 10,000 levels, pairwise_chart of 150 levels',
+    expected: 'a plain error on each cell, no stack overflow',
+    within: 20_000,
+    run: () => {
+      // vega-lite's compiler ran out of stack on these (see test/charts/hostile-names.test.ts for the limits)
+      const rows = (k: number): string[] => Array.from({ length: 2 * k }, (_, i) => `L${i % k},${(i * 7) % 13}`);
+      const m = evalFormula('means_chart(one_way(t.y, t.g))', '--- table t', 'g,y', ...rows(10_000), '');
+      const p = evalFormula('pairwise_chart(pairwise(one_way(t.y, t.g), method: "lsd"))', '--- table t', 'g,y', ...rows(150), '');
+      const a = plainError(m, /^means_chart: .*10,000 levels/);
+      const b = plainError(p, /^pairwise_chart: .*11,175 pairs/);
+      return { ok: a.ok && b.ok, said: `${a.said.slice(0, 44)} | ${b.said.slice(0, 44)}` };
     },
   },
   {

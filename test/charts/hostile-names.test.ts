@@ -62,4 +62,17 @@ describe('charts with too many levels', () => {
     const { engine: small } = run(oneWayDoc(20));
     expect(isError(valueOf(small, 'p'))).toBe(false);
   });
+  it('at the limits both still draw (the compiler does not run out of stack)', async () => {
+    // means_chart at MAX_MEANS_LEVELS levels; pairwise_chart at 63 levels, the most whose
+    // 1,953 pairs stay within MAX_PAIRS
+    const { engine } = run(oneWayDoc(MAX_MEANS_LEVELS));
+    const m = valueOf(engine, 'm');
+    if (isError(m)) throw new Error(m.message);
+    expect((await renderSvg((m as Chart).spec)).svg.startsWith('<svg')).toBe(true);
+    expect((63 * 62) / 2).toBeLessThanOrEqual(MAX_PAIRS);
+    const { engine: e63 } = run(oneWayDoc(63));
+    const p = valueOf(e63, 'p');
+    if (isError(p)) throw new Error(p.message);
+    expect((await renderSvg((p as Chart).spec)).svg.startsWith('<svg')).toBe(true);
+  }, 60_000);
 });

@@ -117,4 +117,25 @@ export const closingTests = [
         },
       ),
   },
+  {
+    name: 'the browser closed while a note is being written keeps what was typed',
+    run: ({ base }) =>
+      acrossClosing(
+        base,
+        async (page) => {
+          const note = page.locator('section[data-kind="note"] furrow-note-cell').first();
+          await note.scrollIntoViewIfNeeded();
+          await note.locator('.prose').dblclick();
+          const ta = note.locator('textarea');
+          await ta.waitFor();
+          await ta.press('Control+End');
+          // no pause and no click outside: the window goes while the note is open for writing
+          await page.keyboard.type(' Read again before closing.');
+        },
+        async (page) => {
+          const text = await page.evaluate(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-kind="note"] furrow-note-cell').cell.body);
+          check(/ Read again before closing\.\s*$/.test(text), `the note after the browser was closed and opened again: ${JSON.stringify(text.slice(-80))}`);
+        },
+      ),
+  },
 ];

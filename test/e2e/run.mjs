@@ -10,6 +10,7 @@ import { gzipSync } from 'node:zlib';
 import { check, runTests } from './harness.mjs';
 import { keepingTests } from './keeping.mjs';
 import { closingTests } from './closing.mjs';
+import { hostileFileTests } from './hostile-files.mjs';
 import { exportTests } from './exports.mjs';
 import { importingTests } from './importing.mjs';
 import { largeTableTests } from './large-table.mjs';
@@ -300,8 +301,14 @@ const tests = [
           slots: prose.querySelectorAll('[data-slot]').length,
           html: prose.innerHTML,
           tags: [...new Set(Array.from(prose.querySelectorAll('*'), (e) => e.tagName.toLowerCase()))].sort(),
+          attributes: [...new Set(Array.from(prose.querySelectorAll('*'), (e) => e.getAttributeNames().map((a) => `${e.tagName.toLowerCase()} ${a}`)).flat())].sort(),
         };
       });
+      // the allow-list (cells/note/markdown.ts), plus what the page itself sets: a link's target
+      // and rel, and its own live-value slots and the wrapper's class
+      const pageSets = ['a target', 'a rel', 'span class', 'span data-slot', 'span title', 'div class'];
+      const allowed = ['a href', 'a title', 'img src', 'img alt', 'img title', 'ol start', 'th align', 'td align', ...pageSets];
+      check(noteShown.attributes.every((a) => allowed.includes(a)), `attributes outside the allow-list in the note: ${noteShown.attributes.join(', ')}`);
       check(noteShown.text.includes('<script>window.__pwned = "script"</script>'), `the note shows its raw HTML as text: ${noteShown.text.slice(0, 200)}`);
       check(noteShown.slots === 1, `one live value in the note, not ${noteShown.slots}: ${noteShown.html}`);
       check(noteShown.tags.every((t) => ['a', 'div', 'img', 'p', 'span'].includes(t)), `only Markdown's own elements in the note: ${noteShown.tags.join(' ')}`);
@@ -536,6 +543,7 @@ tests.push({
 
 tests.push(...keepingTests(measured));
 tests.push(...closingTests);
+tests.push(...hostileFileTests());
 tests.push(...exportTests);
 tests.push(...importingTests());
 tests.push(...largeTableTests(measured));

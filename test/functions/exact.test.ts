@@ -29,8 +29,23 @@ describe('a fit with no error left', () => {
       expect(means.se.every((x) => x === null)).toBe(true);
       expect(means.low.every((x) => x === null)).toBe(true);
       expect(json(field(fit, 'notes'))).toContain(msg.exactFit());
+      // nothing else that divides by the error shows as NaN: it is not available either
+      expect(json(field(fit, 'studentized'))).toEqual(data === EXACT ? [null, null, null, null, null, null] : Array(9).fill(null));
+      expect(field(fit, 'relative_efficiency')).toEqual({ kind: 'missing' });
+      const na = field(fit, 'nonadditivity');
+      expect([field(na, 'f'), field(na, 'p')]).toEqual([{ kind: 'missing' }, { kind: 'missing' }]);
+      expect(toJson(fit)).not.toMatch(/NaN|Infinity/);
     });
   }
+  it('with a covariate: the slope kept, its standard error not available, no NaN anywhere', () => {
+    // y = 2 x + 1 for a, 2 x + 4 for b: a common slope of 2 and no error
+    const v = evalFormula('one_way(t.y, t.trt, covariate: t.x)', '--- table t', 'trt,x,y', 'a,1,3', 'a,2,5', 'a,4,9', 'b,1,6', 'b,3,10', 'b,5,14', '');
+    if (isError(v)) throw new Error(v.message);
+    expect(field(v, 'slope')).toBeCloseTo(2, 12);
+    expect(field(v, 'slope_se')).toEqual({ kind: 'missing' });
+    expect(json(field(v, 'notes'))).toContain(msg.exactFit());
+    expect(toJson(v)).not.toMatch(/NaN|Infinity/);
+  });
   it('keeps its sums of squares and means', () => {
     const fit = evalFormula('blocked(t.y, t.trt, t.block)', ...EXACT);
     const table = json(field(fit, 'table')) as { ss: number[] };

@@ -1,8 +1,20 @@
 import { describe, expect, it } from 'vitest';
-import { groupNoteProblems, placeholderQuantity, placeholderText } from '../../../cells/note/model.ts';
+import { PLACEHOLDERS_LISTED, groupNoteProblems, listedPlaceholders, placeholderQuantity, placeholderText } from '../../../cells/note/model.ts';
+import { startMsg } from '../../../src/messages/page.ts';
 import { parseExpression } from '../../../src/lang/parser.ts';
 import { errorValue, textColumn, type Value } from '../../../src/lang/values.ts';
 import { doc, evalFormula, run } from '../../helpers.ts';
+
+describe('a problem line of the page', () => {
+  it('lists the first placeholders by name and counts the rest', () => {
+    const many = Array.from({ length: 166_666 }, (_, i) => `m.c${i}`);
+    const { listed, more } = listedPlaceholders(many);
+    expect(listed).toEqual(many.slice(0, PLACEHOLDERS_LISTED));
+    expect(more).toBe(166_666 - PLACEHOLDERS_LISTED);
+    expect(startMsg.morePlaceholders(more)).toBe('and 166,646 other placeholders');
+    expect(listedPlaceholders(many.slice(0, PLACEHOLDERS_LISTED))).toEqual({ listed: many.slice(0, PLACEHOLDERS_LISTED), more: 0 });
+  });
+});
 
 describe('a note groups its errors', () => {
   it('gives one line per distinct error, naming the placeholders it affects', () => {

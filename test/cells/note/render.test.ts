@@ -6,7 +6,7 @@
  * parser differs from a browser's in ways that matter to it.)
  */
 import { describe, expect, it } from 'vitest';
-import { EMPHASIS_MARKS_PER_PARAGRAPH, NOTE_MARKDOWN_LIMIT, noteMarkdownHtml } from '../../../cells/note/markdown.ts';
+import { EMPHASIS_MARKS_PER_PARAGRAPH, MARKDOWN_ELEMENTS, NOTE_MARKDOWN_LIMIT, noteMarkdownHtml } from '../../../cells/note/markdown.ts';
 import { placeSlots } from '../../../cells/note/view.ts';
 
 /** The note as DOM, parsed by an inert template and given its slots. */
@@ -36,6 +36,30 @@ describe('raw HTML in a note', () => {
     expect(div.querySelectorAll('[data-slot]').length).toBe(1);
     expect(div.querySelectorAll('.slot').length).toBe(1);
     expect(div.textContent).toContain('<span class="slot" data-slot="0">42</span>');
+  });
+});
+
+describe('the allow-list of both sanitizers', () => {
+  it('holds every element and attribute Markdown makes', () => {
+    const html = noteMarkdownHtml('# H\n\n3. a\n\n| a | b |\n|:-:|--:|\n| 1 | 2 |\n\n- [ ] task\n\n```js\ncode\n```\n\n[l](https://example.invalid "t") ![i](data:image/png;base64,AAAA "t") ~~d~~ *e* **s** `c`\n\n> q\n\n---\nline  \nbreak').html;
+    const div = document.createElement('div');
+    div.innerHTML = html;
+    for (const el of div.querySelectorAll('*')) {
+      const tag = el.tagName.toLowerCase();
+      if (tag === 'input') continue; // a task list's checkbox: both sanitizers drop it
+      // the class Markdown puts on a fenced code block names its language; neither page nor report uses it
+      const attrs = el.getAttributeNames().filter((a) => !(tag === 'code' && a === 'class'));
+      expect(MARKDOWN_ELEMENTS.has(tag), tag).toBe(true);
+      for (const a of attrs) expect(MARKDOWN_ELEMENTS.get(tag), `${tag} ${a}`).toContain(a);
+    }
+  });
+  it('lets no address out but a link and a picture, and none of the page\'s own marks', () => {
+    const kept = [...MARKDOWN_ELEMENTS].flatMap(([tag, attrs]) => attrs.map((a) => `${tag} ${a}`));
+    // attributes that make a browser load or go to an address (HTML Living Standard, from memory)
+    const addresses = ['href', 'src', 'srcset', 'poster', 'background', 'action', 'formaction', 'cite', 'longdesc', 'usemap', 'ping', 'data', 'xlink:href', 'manifest', 'codebase', 'lowsrc', 'dynsrc'];
+    expect(kept.filter((k) => addresses.includes(k.split(' ')[1]!)).sort()).toEqual(['a href', 'img src']);
+    expect(kept.filter((k) => /^(class|id|style|on.*|data-.*|slot|name|form)$/.test(k.split(' ')[1]!))).toEqual([]);
+    expect([...MARKDOWN_ELEMENTS.keys()].filter((t) => ['span', 'div', 'style', 'script', 'iframe', 'svg', 'video', 'audio', 'object', 'form', 'input', 'link', 'base', 'meta'].includes(t))).toEqual([]);
   });
 });
 

@@ -177,6 +177,14 @@ describe('pasting a block', () => {
     ]);
     expect([p.addedRows, p.addedColumns]).toEqual([1, 2]);
   });
+  it('takes a block of 300,000 rows (its width found without spreading the rows into arguments)', () => {
+    const big = Array.from({ length: 300_000 }, (_, i) => [String(i % 9), 'open', `${40 + (i % 7)}.5`]);
+    const p = ok(pasteBlock(readBodyGrid(TREES), { r0: 1, r1: 1, c0: 0, c1: 0 }, big));
+    // the first row of the table stays, the block lands from the second on
+    expect(p.grid.rows.length).toBe(1 + 300_000);
+    expect(p.grid.rows[300_000]).toEqual(['2', 'open', '40.5']); // row 299,999 of the block: 299,999 % 9 = 2, % 7 = 0
+    expect(p.addedRows).toBe(1 + 300_000 - 3);
+  });
   it('grows rows only by splicing when the columns fit', () => {
     const g = readBodyGrid(TREES);
     const p = ok(pasteBlock(g, { r0: 2, r1: 2, c0: 0, c1: 0 }, block3));
