@@ -14,6 +14,7 @@ import { quantityOf, type Quantity } from '../../src/format/digits.ts';
 import { formatInline } from '../../src/lang/format.ts';
 import { parseExpression } from '../../src/lang/parser.ts';
 import { errorValue, isError, type ErrorValue, type Value } from '../../src/lang/values.ts';
+import { msg } from '../../src/messages/language.ts';
 
 /** A piece of a note: literal Markdown or a placeholder. */
 export type NotePiece =
@@ -123,10 +124,30 @@ function shift(uses: NameUse[], offset: number): NameUse[] {
   return uses.map((u) => ({ name: u.name, from: u.from + offset, to: u.to + offset }));
 }
 
+/**
+ * Placeholders a note may hold. Each is a live value the page keeps up to date (a slot in
+ * the page, a value in the worker's answer); real notes hold tens. A note past the limit is
+ * an error on the cell and shown as plain text, so a hostile note of a hundred thousand
+ * braces costs the page one text, not a hundred thousand slots.
+ */
+export const MAX_NOTE_PLACEHOLDERS = 2000;
+
+/** How many placeholders the pieces hold. */
+export function placeholderCount(pieces: readonly NotePiece[]): number {
+  let n = 0;
+  for (const p of pieces) if (p.type === 'placeholder') n++;
+  return n;
+}
+
 /** What a note reads and how its placeholders evaluate. */
 export function analyseNote(cell: Cell): CellAnalysis {
   const text = cell.body;
   const pieces = splitNote(text);
+  const count = placeholderCount(pieces);
+  if (count > MAX_NOTE_PLACEHOLDERS) {
+    const problem = errorValue(msg.tooManyPlaceholders(count, MAX_NOTE_PLACEHOLDERS), 0, 0);
+    return { defines: null, reads: [], problem, evaluates: true, evaluate: () => ({ value: problem }) };
+  }
   const reads: NameUse[] = [];
   for (const p of pieces) {
     if (p.type === 'placeholder' && p.expr !== null) reads.push(...shift(namesRead(p.expr), p.from + 1));

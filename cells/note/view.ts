@@ -16,7 +16,8 @@ import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/views/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { startMsg } from '../../src/messages/page.ts';
-import { groupNoteProblems, listedPlaceholders, placeholderText, splitNote } from './model.ts';
+import { MAX_NOTE_PLACEHOLDERS, groupNoteProblems, listedPlaceholders, placeholderCount, placeholderText, splitNote } from './model.ts';
+import { msg } from '../../src/messages/language.ts';
 import { ATTRIBUTE_SLOT, MARKDOWN_ELEMENTS, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';
 
 /**
@@ -59,9 +60,19 @@ function installHooks(): void {
  * image's description) is shown there as its source, and cannot end the tag. Exported for
  * tests.
  */
-export function renderNote(text: string): { fragment: DocumentFragment; placeholders: Placeholder[] } {
+export function renderNote(text: string): { fragment: DocumentFragment; placeholders: Placeholder[]; tooMany: number | null } {
   installHooks();
-  const { html: raw, placeholders } = notePiecesHtml(splitNote(text));
+  const pieces = splitNote(text);
+  const count = placeholderCount(pieces);
+  if (count > MAX_NOTE_PLACEHOLDERS) {
+    // past the limit the note is its text, in one element: no Markdown, no slots
+    const fragment = document.createDocumentFragment();
+    const pre = document.createElement('pre');
+    pre.textContent = text;
+    fragment.append(pre);
+    return { fragment, placeholders: [], tooMany: count };
+  }
+  const { html: raw, placeholders } = notePiecesHtml(pieces);
   const fragment = DOMPurify.sanitize(raw, {
     RETURN_DOM_FRAGMENT: true,
     ALLOWED_TAGS,
@@ -73,7 +84,7 @@ export function renderNote(text: string): { fragment: DocumentFragment; placehol
     fragment,
     placeholders.map((p) => p.raw.replace(PRIVATE_MARKS, '')),
   );
-  return { fragment, placeholders };
+  return { fragment, placeholders, tooMany: null };
 }
 
 /**
@@ -134,7 +145,7 @@ export class NoteCellView extends LitElement {
   declare editing: boolean;
 
   /** The rendered text and its placeholders, made once per change of the text. */
-  private rendered: { body: string; node: HTMLElement; placeholders: readonly Placeholder[] } | null = null;
+  private rendered: { body: string; node: HTMLElement; placeholders: readonly Placeholder[]; tooMany: number | null } | null = null;
 
   constructor() {
     super();
@@ -292,7 +303,7 @@ export class NoteCellView extends LitElement {
       node.className = 'markdown';
       const r = renderNote(text);
       node.append(r.fragment);
-      this.rendered = { body: this.cell.body, node, placeholders: r.placeholders };
+      this.rendered = { body: this.cell.body, node, placeholders: r.placeholders, tooMany: r.tooMany };
     }
     const problems = groupNoteProblems(
       this.state?.parts ?? [],
@@ -313,6 +324,7 @@ export class NoteCellView extends LitElement {
       >
         ${text.trim() === '' ? html`<span class="empty">${startMsg.notePrompt()} <span class="hint">${startMsg.emptyNote()}</span></span>` : this.rendered.node}
       </div>
+      ${this.rendered.tooMany !== null ? html`<ul class="problems"><li>${msg.tooManyPlaceholders(this.rendered.tooMany, MAX_NOTE_PLACEHOLDERS)}</li></ul>` : nothing}
       ${problems.length > 0
         ? html`<ul class="problems">
             ${problems.map(

@@ -140,6 +140,8 @@ export const msg = {
     `This table has ${countText(rows)} rows; a table holds at most ${countText(limit)}. Keep the rows the analysis needs, or summarize them first.`,
   tooManyColumns: (cols: number, limit: number) =>
     `This table has ${countText(cols)} columns; a table holds at most ${countText(limit)}. Keep the columns the analysis needs.`,
+  tooManyPlaceholders: (count: number, limit: number) =>
+    `This note has ${countText(count)} placeholders (a { opens each); a note shows at most ${countText(limit)} live values. Split it into several notes, or write \\{ for a brace that is not a placeholder. It is shown as plain text until then.`,
   tooManyCells: (cells: number, limit: number) =>
     `This document has ${countText(cells)} cells; Furrow reads at most ${countText(limit)}. Split it into several documents.`,
   firstLineSpacing: (line: string) =>

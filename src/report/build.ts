@@ -19,8 +19,9 @@ import type { NameUse } from '../lang/ast.ts';
 import { collectCharts } from './walk.ts';
 import { isError, type Value } from '../lang/values.ts';
 import { renderSvg } from '../charts/render.ts';
+import { msg } from '../messages/language.ts';
 import { ATTRIBUTE_SLOT, SLOT, noteMarkdownHtml, placeholderSources } from '../../cells/note/markdown.ts';
-import { placeholderText } from '../../cells/note/model.ts';
+import { MAX_NOTE_PLACEHOLDERS, placeholderCount, placeholderText, splitNote } from '../../cells/note/model.ts';
 import { notesInDoubt, type NoteDoubt } from '../seal/doubt.ts';
 import { fingerprint, isSealedCell } from '../seal/fingerprint.ts';
 import { verificationText } from '../seal/verify-text.ts';
@@ -76,6 +77,9 @@ async function drawCharts(states: readonly CellState[]): Promise<Map<unknown, { 
 /** A note's Markdown as safe HTML with its live values; placeholders in doubt are marked. */
 export function noteHtml(body: string, parts: readonly Value[] | null, doubt: NoteDoubt | undefined): string {
   const text = body.replace(/(\r?\n)+$/, '');
+  // past the page's limit of live values the note is shown as its text, as on the page
+  const count = placeholderCount(splitNote(text));
+  if (count > MAX_NOTE_PLACEHOLDERS) return `<div class="note"><pre>${e(text)}</pre></div><p class="doubt-note">${e(msg.tooManyPlaceholders(count, MAX_NOTE_PLACEHOLDERS))}</p>`;
   const sources = placeholderSources(text);
   const safe = sanitizeMarkdownHtml(noteMarkdownHtml(text).html, (v) => v.replace(ATTRIBUTE_SLOT, (_m, i: string) => sources[Number(i)] ?? ''));
   const filled = safe.replace(SLOT, (_m, k: string) => {

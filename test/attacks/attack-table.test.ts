@@ -15,7 +15,8 @@ import { main } from '../../src/cli/main.ts';
 import { DocumentError, readDocument, writeDocument } from '../../src/doc/format.ts';
 import { decodeUtf8 } from '../../src/doc/utf8.ts';
 import { errorValue, isError, type Value } from '../../src/lang/values.ts';
-import { groupNoteProblems, splitNote } from '../../cells/note/model.ts';
+import { MAX_NOTE_PLACEHOLDERS, groupNoteProblems, splitNote } from '../../cells/note/model.ts';
+import { msg } from '../../src/messages/language.ts';
 import { noteMarkdownHtml } from '../../cells/note/markdown.ts';
 import { doc, evalFormula, run } from '../helpers.ts';
 
@@ -164,12 +165,24 @@ const ATTACKS: Attack[] = [
   },
   {
     attack: 'a note of 1 MB of unclosed braces, on the command line',
+    expected: 'one plain error on the note: more placeholders than a note may hold',
+    within: 15_000,
+    run: () => {
+      const n = Math.floor(MB / 6);
+      const r = cli('run', docWith(() => {}, `furrow 1\ntitle: t\n\n--- note\n${'{"abc\n'.repeat(n)}`));
+      const said = msg.tooManyPlaceholders(n, MAX_NOTE_PLACEHOLDERS);
+      const ok = r.out.split(said).length === 2 && !/placeholder errors? at/.test(r.out) && r.out.length < 10_000;
+      return { ok, said: `${r.out.length} characters: ${r.out.includes(said) ? 'the limit, once' : r.out.slice(0, 200)}` };
+    },
+  },
+  {
+    attack: 'a note with 2,000 failing placeholders (the most a note holds), on the command line',
     expected: 'each placeholder placed, in linear time',
     within: 15_000,
     run: () => {
       // each failing placeholder is given its line and column; counting lines from the start
       // for each one made this quadratic (80,000 of them took 53 s)
-      const n = Math.floor(MB / 6);
+      const n = MAX_NOTE_PLACEHOLDERS;
       const r = cli('run', docWith(() => {}, `furrow 1\ntitle: t\n\n--- note\n${'{"abc\n'.repeat(n)}`));
       const lines = r.out.split('\n').filter((l) => /placeholder errors? at/.test(l));
       const last = `line ${n + 4}, column 1`;

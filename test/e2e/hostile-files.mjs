@@ -41,12 +41,13 @@ export function hostileFileTests() {
       },
     },
     {
-      name: 'a note of 1 MB of unclosed braces shows in bounded time, its problems counted',
+      name: 'a note of 1 MB of unclosed braces is one plain error shown with its text, and the page goes on',
       async run({ context, base }) {
         const page = await context.newPage();
         await page.goto(`${base}/?fresh`);
         await settled(page);
-        // 100,000 unclosed braces, each with a source of its own (about 1 MB)
+        // 100,000 unclosed braces, each with a source of its own (about 1 MB): far more
+        // placeholders than a note may hold (MAX_NOTE_PLACEHOLDERS, 2,000)
         const n = 100_000;
         const note = Array.from({ length: n }, (_, i) => `{"a${i}\n`).join('');
         const started = Date.now();
@@ -59,9 +60,13 @@ export function hostileFileTests() {
         const lines = await line.count();
         const text = (await line.first().innerText()).replace(/\s+/g, ' ');
         check(lines === 1, `one problem line, not ${lines}`);
-        check(text.includes(`and ${(n - 20).toLocaleString('en')} other placeholders`), `the problem line: ${text.slice(0, 300)}`);
-        const codes = await line.first().locator('code').count();
-        check(codes === 20, `placeholders listed by name: ${codes}`);
+        check(text.includes(`This note has ${n.toLocaleString('en')} placeholders`) && text.includes('at most 2,000 live values'), `the problem line: ${text.slice(0, 300)}`);
+        // the note is its text, in one element, with no slot for a live value
+        const shown = await page.locator('section[data-kind="note"] furrow-note-cell').evaluate((el) => ({
+          slots: el.shadowRoot.querySelectorAll('[data-slot]').length,
+          pre: el.shadowRoot.querySelector('.markdown pre')?.textContent.length ?? 0,
+        }));
+        check(shown.slots === 0 && shown.pre === note.length - 1, `shown as text: ${JSON.stringify(shown)}`);
         // the page still answers: the formula after the note is evaluated and shown
         const x = await cellText(page, 'x');
         check((await statusOf(page, 'x')) === 'ok' && /(^|\s)5(\s|$)/.test(x ?? ''), `the formula after the note: ${x}`);

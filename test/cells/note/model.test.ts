@@ -3,7 +3,8 @@
  * brace does, and that the split costs time in proportion to the note's length.
  */
 import { describe, expect, it } from 'vitest';
-import { splitNote } from '../../../cells/note/model.ts';
+import { MAX_NOTE_PLACEHOLDERS, analyseNote, splitNote } from '../../../cells/note/model.ts';
+import { msg } from '../../../src/messages/language.ts';
 
 const placeholders = (text: string) => splitNote(text).filter((p) => p.type === 'placeholder');
 
@@ -51,5 +52,19 @@ describe('splitNote', () => {
         expect(ms).toBeLessThan(5000);
       });
     }
+  });
+});
+
+describe('the limit of live values in a note', () => {
+  it('a note past the limit is one plain error, not thousands of placeholders; at the limit it evaluates', () => {
+    const cell = (n: number) => ({ id: 'n1', marker: 'note', eol: '\n', body: '{1 + 1} '.repeat(n) });
+    const over = analyseNote(cell(MAX_NOTE_PLACEHOLDERS + 1));
+    expect(over.problem?.message).toBe(msg.tooManyPlaceholders(MAX_NOTE_PLACEHOLDERS + 1, MAX_NOTE_PLACEHOLDERS));
+    expect(over.reads).toEqual([]);
+    const at = analyseNote(cell(MAX_NOTE_PLACEHOLDERS));
+    expect(at.problem).toBeNull();
+    const out = at.evaluate({} as never);
+    expect(out.parts).toHaveLength(MAX_NOTE_PLACEHOLDERS);
+    expect(out.value).toBe('2 '.repeat(MAX_NOTE_PLACEHOLDERS));
   });
 });
