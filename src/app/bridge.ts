@@ -65,8 +65,15 @@ export class EvaluationBridge {
 
   /** What completion may offer. */
   catalogue(): NameCatalogue {
-    return { builtins: this.builtins, cells: this.cellNames };
+    // the same object while nothing in it changed: every cell view takes it as a property,
+    // and a new one at each render would update every cell of the document
+    if (this.shownCatalogue.builtins !== this.builtins || this.shownCatalogue.cells !== this.cellNames) {
+      this.shownCatalogue = { builtins: this.builtins, cells: this.cellNames };
+    }
+    return this.shownCatalogue;
   }
+
+  private shownCatalogue: NameCatalogue = { builtins: [], cells: [] };
 
   /** True while an update has not come back. */
   get busy(): boolean {
@@ -194,7 +201,8 @@ export class EvaluationBridge {
         }
         this.columns.settle(m.gone);
         this.step = null;
-        this.cellNames = m.cells;
+        // kept as it was when the names, types and members are the same (most updates)
+        if (!sameCellNames(this.cellNames, m.cells)) this.cellNames = m.cells;
         this.lastMillis = m.millis;
         // forget cells that left the document
         for (const id of m.gone) {
@@ -236,4 +244,16 @@ export class EvaluationBridge {
       for (const f of w) f();
     }
   }
+}
+
+/** True when two lists of the document's names say the same. */
+function sameCellNames(a: NameCatalogue['cells'], b: NameCatalogue['cells']): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i]!;
+    const y = b[i]!;
+    if (x.name !== y.name || x.type !== y.type || x.members.length !== y.members.length) return false;
+    for (let k = 0; k < x.members.length; k++) if (x.members[k] !== y.members[k]) return false;
+  }
+  return true;
 }

@@ -53,6 +53,8 @@ export type FromWorker =
       readonly gone: readonly string[];
       readonly cells: NameCatalogue['cells'];
       readonly millis: number;
+      /** When the worker posted this (milliseconds since the epoch), to measure the hand-over. */
+      readonly postedAt: number;
     }
   | { readonly type: 'progress'; readonly id: string; readonly fraction: number }
   /** A long update is under way: `done` of `total` cells checked, `id` running now. */

@@ -80,7 +80,7 @@ scope.onmessage = (e: MessageEvent<ToWorker>) => {
     } else {
       for (const [name, text] of m.files) engine.setFile(name, text);
       if (doc === null) {
-        post({ type: 'result', seq: m.seq, results: [], gone: [], cells: [], millis: 0 });
+        post({ type: 'result', seq: m.seq, results: [], gone: [], cells: [], millis: 0, postedAt: performance.timeOrigin + performance.now() });
         return;
       }
       // the engine sees the files' new versions by itself; no cell text changed
@@ -103,7 +103,7 @@ scope.onmessage = (e: MessageEvent<ToWorker>) => {
       const v = engine.valueOf(name);
       return { name, type: v === undefined ? 'unknown' : typeName(v), members: v === undefined ? [] : members(v) };
     });
-    post({ type: 'result', seq: m.seq, results, gone, cells, millis: performance.now() - t0 });
+    post({ type: 'result', seq: m.seq, results, gone, cells, millis: performance.now() - t0, postedAt: performance.timeOrigin + performance.now() });
     batch.commit(gone);
   } catch (err) {
     post({ type: 'failure', seq: m.seq, message: err instanceof Error ? err.message : String(err), outOfStep: false });

@@ -40,7 +40,7 @@ describe('the bridge', () => {
     const send = (seq: number, t: Table) => {
       const batch = sender.batch();
       const { value, parts } = batch.encode('big', { value: t, parts: null });
-      worker.answer({ type: 'result', seq, results: [{ id: 'big', status: 'ok', value, parts, warnings: [], error: null }], gone: [], cells: [], millis: 1 });
+      worker.answer({ type: 'result', seq, results: [{ id: 'big', status: 'ok', value, parts, warnings: [], error: null }], gone: [], cells: [], millis: 1, postedAt: 0 });
       batch.commit([]);
     };
     send(1, table(['y'], [y0]));
@@ -54,7 +54,7 @@ describe('the bridge', () => {
     // a worker whose ledger believes the page holds a column it does not
     bridge.load(emptyDocument());
     const wrong = { kind: 'table', names: ['y'], columns: [{ kind: 'column-held', id: 999 }], rows: 1000 };
-    worker.answer({ type: 'result', seq: 3, results: [{ id: 'big', status: 'ok', value: wrong as never, parts: null, warnings: [], error: null }], gone: [], cells: [], millis: 1 });
+    worker.answer({ type: 'result', seq: 3, results: [{ id: 'big', status: 'ok', value: wrong as never, parts: null, warnings: [], error: null }], gone: [], cells: [], millis: 1, postedAt: 0 });
     const last = worker.sent[worker.sent.length - 1]!;
     expect(last.type).toBe('load');
     expect(last.type === 'load' && last.forget).toBe(true);

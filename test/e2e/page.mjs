@@ -101,6 +101,8 @@ export async function watchEdits(page) {
       if (e.data.type === 'result') {
         window.__marks.result = performance.now();
         window.__marks.millis = e.data.millis;
+        // the worker's clock and this page's, both since the epoch
+        window.__marks.handOver = performance.timeOrigin + performance.now() - e.data.postedAt;
       }
     });
   });
@@ -110,12 +112,12 @@ export async function watchEdits(page) {
 export function editParts(page) {
   return page.evaluate(() => {
     const m = window.__marks;
-    return { type: m.editType, post: m.post - window.__t0, worker: m.millis, result: m.result - window.__t0 };
+    return { type: m.editType, post: m.post - window.__t0, worker: m.millis, result: m.result - window.__t0, handOver: m.handOver };
   });
 }
 
 /** The medians of several edits' parts, as a line for the measured output. */
 export function partsLine(parts) {
   const mid = (key) => [...parts.map((p) => p[key])].sort((a, b) => a - b)[Math.floor(parts.length / 2)].toFixed(1);
-  return `of which (medians) Enter to the edit posted ${mid('post')} ms, the worker ${mid('worker')} ms, Enter to the result back ${mid('result')} ms; edits sent as ${[...new Set(parts.map((p) => p.type))].join(', ')}`;
+  return `of which (medians) Enter to the edit posted ${mid('post')} ms, the worker ${mid('worker')} ms, its result posted to received ${mid('handOver')} ms, Enter to the result back ${mid('result')} ms; edits sent as ${[...new Set(parts.map((p) => p.type))].join(', ')}`;
 }
