@@ -44,16 +44,25 @@ export function readBytes(path: string, what: string, limit: number): Uint8Array
     if (st.isDirectory()) throw new FileProblem(cliMsg.isFolder(what, path));
     if (!st.isFile()) throw new FileProblem(cliMsg.notRegular(what, path));
     if (st.size > limit) throw new FileProblem(cliMsg.tooLarge(what, path, limit));
-    // read in chunks up to the limit (plus one byte, to notice a file that grew)
-    const chunks: Buffer[] = [];
+    // Read into one buffer of the size the file says it has, plus one byte to notice a file
+    // that grew while it was read (then the rest comes in bounded chunks, up to the limit):
+    // no copy of the bytes on the common path.
+    const first = Buffer.allocUnsafe(st.size + 1);
     let total = 0;
+    for (;;) {
+      const n = readSync(fd, first, total, first.length - total, null);
+      if (n === 0) return new Uint8Array(first.buffer, first.byteOffset, total);
+      total += n;
+      if (total === first.length) break;
+    }
+    const chunks: Buffer[] = [first];
     const chunk = Buffer.allocUnsafe(1 << 20);
     for (;;) {
+      if (total > limit) throw new FileProblem(cliMsg.tooLarge(what, path, limit));
       const n = readSync(fd, chunk, 0, Math.min(chunk.length, limit + 1 - total), null);
       if (n === 0) break;
       chunks.push(Buffer.from(chunk.subarray(0, n)));
       total += n;
-      if (total > limit) throw new FileProblem(cliMsg.tooLarge(what, path, limit));
     }
     return new Uint8Array(Buffer.concat(chunks, total));
   } finally {

@@ -49,7 +49,9 @@ export const LEVEL = { name: 'level', type: 'level' as const, default: 0.95, doc
 
 /** A number column with NaN shown as missing (an F that does not exist is not a number). */
 export function nanAsMissing(values: ArrayLike<number>, name: string): NumberColumn {
-  const v = Float64Array.from(values as ArrayLike<number>);
+  // a copy made by the typed array's own slice when it is one (Float64Array.from goes
+  // element by element through the iterator, ten times slower on a million values)
+  const v = values instanceof Float64Array ? values.slice() : Float64Array.from(values as ArrayLike<number>);
   const miss = new Uint8Array(v.length);
   for (let i = 0; i < v.length; i++) if (Number.isNaN(v[i]!)) miss[i] = 1;
   return numberColumn(v, miss, name);
