@@ -110,6 +110,17 @@ function firstFieldIsText(g: FieldGrid, j: number): boolean {
   return false;
 }
 
+/** Writes the range of field k, spaces trimmed, into from[r] and to[r]. */
+function trimmedInto(g: FieldGrid, k: number, from: Int32Array, to: Int32Array, r: number): void {
+  const src = g.source;
+  let a = g.from[k]!;
+  let b = g.to[k]!;
+  while (a < b && isTrimmed(src.charCodeAt(a))) a++;
+  while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
+  from[r] = a;
+  to[r] = b;
+}
+
 /** Builds column j of a field grid. */
 export function columnOfGrid(g: FieldGrid, j: number, name: string): Column {
   const src = g.source;
@@ -127,12 +138,9 @@ export function columnOfGrid(g: FieldGrid, j: number, name: string): Column {
   const scan = newDecimalScan();
   for (let r = 0; r < n; r++) {
     const k = r * width + j;
-    let a = g.from[k]!;
-    let b = g.to[k]!;
-    while (a < b && isTrimmed(src.charCodeAt(a))) a++;
-    while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
-    from[r] = a;
-    to[r] = b;
+    trimmedInto(g, k, from, to, r);
+    const a = from[r]!;
+    const b = to[r]!;
     if (a === b) {
       missing[r] = 1;
       if (values !== null) values[r] = NaN;
@@ -200,12 +208,9 @@ export function patchNumberColumn(
   const scan = newDecimalScan();
   for (let r = first; r < last; r++) {
     const k = r * width + j;
-    let a = g.from[k]!;
-    let b = g.to[k]!;
-    while (a < b && isTrimmed(src.charCodeAt(a))) a++;
-    while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
-    from[r] = a;
-    to[r] = b;
+    trimmedInto(g, k, from, to, r);
+    const a = from[r]!;
+    const b = to[r]!;
     if (a === b) {
       missing[r] = 1;
       values[r] = NaN;
