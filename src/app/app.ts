@@ -22,21 +22,20 @@ import { DocumentError, readDocument, writeDocument } from '../doc/format.ts';
 import { NotUtf8Error } from '../doc/utf8.ts';
 import type { CellKind } from '../graph/cell-kind.ts';
 import { isPlainName } from '../lang/lexer.ts';
-import { importMsg } from '../messages/import.ts';
 import { pageMsg, startMsg, shellWords } from '../messages/page.ts';
 import { shared } from '../views/theme.ts';
 import { appStyles } from './app-styles.ts';
 import { fileKey, forget, listSaved, loadSaved, newKey, sampleKey, type SavedState } from './autosave.ts';
 import { EvaluationBridge } from './bridge.ts';
 import { cellMargin } from './cell-margin.ts';
-import { engineText, storedFile } from './data-files.ts';
+import { ArrivingFiles, type ArrivalsHost } from './arriving-files.ts';
 import { cellCommandFor, type CellCommand } from './cell-keys.ts';
 import { HELP_CLOSE_EVENT, HELP_INSERT_EVENT, type FurrowHelp, type HelpInsertDetail } from './help/help-panel.ts';
 import './help/help-panel.ts';
 import { FileDrop } from './drop.ts';
 import './import-offer.ts';
 import type { ImportChoice } from './import-offer.ts';
-import { importedTableCell, importSource, isImportable, namesTaken, type ImportSource } from './table-import.ts';
+import { isImportable, namesTaken, type ImportSource } from './table-import.ts';
 import { FileTooLargeError, fileNameFor, pickFile, saveText } from './files.ts';
 import { DocumentKeeper, type Opening } from './keeper.ts';
 import { DocumentStore } from './store.ts';
@@ -106,13 +105,18 @@ export class FurrowApp extends LitElement {
   private readonly keeper: DocumentKeeper;
   private fileName: string | null = null;
   private fileHandle: FileSystemFileHandle | null = null;
-  private files = new Map<string, string>();
+  /** Data files arriving: attached, dropped, or brought by a document. */
+  private readonly arrivals: ArrivingFiles;
+  private get files(): Map<string, string> {
+    return this.arrivals.files;
+  }
   private saveProblem: string | null = null;
   private samples: ReadonlyMap<string, string> = new Map();
   private readonly visible = new VisibleCells(this, (id) => this.bridge.state(id));
 
   constructor() {
     super();
+    this.arrivals = new ArrivingFiles(this.arrivalsHost());
     this.banner = null;
     this.importing = null;
     this.renaming = null;
@@ -133,9 +137,9 @@ export class FurrowApp extends LitElement {
       },
     });
     new FileDrop(this, {
-      csv: (name, bytes) => this.csvArrived(name, bytes),
-      workbook: (name, bytes) => void this.offerImport(name, bytes),
-      data: (name, bytes) => this.attach(name, bytes),
+      csv: (name, bytes) => this.arrivals.csvArrived(name, bytes),
+      workbook: (name, bytes) => void this.arrivals.offerImport(name, bytes),
+      data: (name, bytes) => this.arrivals.attach(name, bytes),
       document: (name, text) => {
         if (this.openText(text, name)) this.fileHandle = null;
       },
@@ -458,8 +462,7 @@ export class FurrowApp extends LitElement {
     // the document open until now is written to its own slot before this one takes over
     void this.keeper.take(o.key).then(() => this.refreshKept());
     this.fileName = o.fileName;
-    for (const [name, text] of o.files) this.files.set(name, text);
-    this.sendFiles(o.files);
+    this.arrivals.take(o.files);
     this.renaming = null;
     this.store.load(doc);
     const missing = [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
@@ -540,81 +543,36 @@ export class FurrowApp extends LitElement {
     try {
       const f = await pickFile();
       if (f === null) return;
-      if (isImportable(f.name)) return void (await this.offerImport(f.name, f.bytes));
+      if (isImportable(f.name)) return void (await this.arrivals.offerImport(f.name, f.bytes));
       if (this.openText(f.text, f.name)) this.fileHandle = f.handle;
     } catch (err) {
       this.banner = { kind: 'problem', text: err instanceof FileTooLargeError ? err.message : pageMsg.unreadable(err instanceof NotUtf8Error, String(err)) };
     }
   }
 
-  /** Files kept by the page, sent to the worker as the text its tables read (Parquet decoded). */
-  private sendFiles(files: ReadonlyArray<readonly [string, string]>): void {
-    for (const [name, stored] of files) {
-      engineText(name, stored).then(
-        (text) => {
-          if (this.files.get(name) === stored) this.bridge.files([[name, text]]);
-        },
-        (err: unknown) => {
-          this.banner = { kind: 'problem', text: pageMsg.csvUnreadable(`${name}: ${err instanceof Error ? err.message : String(err)}`) };
-        },
-      );
-    }
-  }
-
-  /** A data file for the tables that name it: the worker re-evaluates the cells that read it. */
-  private attach(name: string, bytes: Uint8Array): void {
-    let stored: string;
-    try {
-      stored = storedFile(name, bytes);
-    } catch {
-      this.banner = { kind: 'problem', text: pageMsg.notUtf8(name) };
-      return;
-    }
-    this.files.set(name, stored);
-    this.sendFiles([[name, stored]]);
-    this.keeper.touch();
-    this.banner = { kind: 'info', text: pageMsg.attached(name) };
-  }
-
-  /** A CSV file dropped: for the tables that name it if any do, else offered as a new table. */
-  private csvArrived(name: string, bytes: Uint8Array): void {
-    const named = this.doc.cells.some((c) => CELL_KINDS.filesRead(c).includes(name));
-    if (!named) return void this.offerImport(name, bytes);
-    this.attach(name, bytes);
-  }
-
-  /** Reads a CSV file or a workbook and offers its sheets as a table. */
-  private async offerImport(name: string, bytes: Uint8Array): Promise<void> {
-    try {
-      this.importing = await importSource(name, bytes);
-    } catch (err) {
-      this.importing = null;
-      this.banner = { kind: 'problem', text: err instanceof NotUtf8Error ? pageMsg.notUtf8(name) : pageMsg.csvUnreadable(err instanceof Error ? err.message : String(err)) };
-    }
-  }
-
-  /** The chosen sheet becomes a table cell at the end of the document (one step of undo). */
-  private addImported(choice: ImportChoice): void {
-    const source = this.importing;
-    const sheet = source?.sheets[choice.sheet];
-    if (source === null || sheet === undefined) return;
-    const cell = importedTableCell(this.doc, choice.name, sheet);
-    this.importing = null;
-    this.apply({ type: 'insert', index: this.doc.cells.length, cell });
-    this.banner = { kind: 'info', text: importMsg.added(choice.name, source.fileName) };
-    void this.updateComplete.then(() => {
-      this.renderRoot.querySelector<HTMLElement>(`[data-cell="${cell.id}"]`)?.scrollIntoView({ block: 'nearest' });
-    });
-  }
-
-  private async attachCsv(): Promise<void> {
-    try {
-      const f = await pickFile('.csv,.parquet,text/csv,text/plain');
-      if (f === null) return;
-      this.attach(f.name, f.bytes);
-    } catch (err) {
-      this.banner = { kind: 'problem', text: err instanceof FileTooLargeError ? err.message : pageMsg.csvUnreadable(String(err)) };
-    }
+  /** What the arriving files need of the page. */
+  private arrivalsHost(): ArrivalsHost {
+    const app = this;
+    return {
+      get doc() {
+        return app.doc;
+      },
+      get importing() {
+        return app.importing;
+      },
+      set importing(v) {
+        app.importing = v;
+      },
+      say: (kind, text) => (this.banner = { kind, text }),
+      toWorker: (name, text) => this.bridge.files([[name, text]]),
+      touched: () => this.keeper.touch(),
+      append: (cell) => {
+        this.apply({ type: 'insert', index: this.doc.cells.length, cell });
+        void this.updateComplete.then(() => {
+          this.renderRoot.querySelector<HTMLElement>(`[data-cell="${cell.id}"]`)?.scrollIntoView({ block: 'nearest' });
+        });
+      },
+    };
   }
 
   private async saveFile(): Promise<void> {
@@ -675,7 +633,7 @@ export class FurrowApp extends LitElement {
         <button @click=${() => this.newDocument()} title=${shellWords.newTip}>${shellWords.newDocument}</button>
         <button @click=${() => void this.openFile()} title=${shellWords.openTip}>${shellWords.open}</button>
         <button @click=${() => void this.saveFile()} title=${shellWords.saveTip}>${shellWords.save}</button>
-        <button @click=${() => void this.attachCsv()} title=${shellWords.attachTip}>${shellWords.attachData}</button>
+        <button @click=${() => void this.arrivals.attachPicked()} title=${shellWords.attachTip}>${shellWords.attachData}</button>
         ${this.samples.size > 0
           ? html`<select
               aria-label=${shellWords.samplesLabel}
@@ -721,7 +679,7 @@ export class FurrowApp extends LitElement {
         ? html`<furrow-import-offer
             .source=${this.importing}
             .taken=${namesTaken(this.doc)}
-            @furrow-import-add=${(e: CustomEvent<ImportChoice>) => this.addImported(e.detail)}
+            @furrow-import-add=${(e: CustomEvent<ImportChoice>) => this.arrivals.addImported(e.detail)}
             @furrow-import-cancel=${() => (this.importing = null)}
           ></furrow-import-offer>`
         : nothing}
