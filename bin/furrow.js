@@ -47,5 +47,7 @@ const code = await main(process.argv.slice(2), {
   err: (s) => process.stderr.write(`${s}\n`),
   // `run --json` writes to the stream as it goes, waiting when the pipe is full
   stream: process.stdout,
+  // the build's helper thread for turning long number columns into text (--json)
+  ...(why === null ? { helperScript: join(root, 'build', 'cli', 'column-text-worker.mjs') } : {}),
 });
 process.exitCode = code;

@@ -34,6 +34,18 @@ await build({
   legalComments: 'none',
   logLevel: 'warning',
 });
+// the helper thread of `run --json` (src/cli/column-text-helper.ts): a file of its own, so that
+// it starts without loading the engine
+await build({
+  entryPoints: ['src/cli/column-text-worker.ts'],
+  outfile: join(OUT, 'column-text-worker.mjs'),
+  bundle: true,
+  platform: 'node',
+  format: 'esm',
+  target: 'node20',
+  legalComments: 'none',
+  logLevel: 'warning',
+});
 // convert's unit tables (the unit part of mathjs), beside the bundle and loaded only at a
 // document's first conversion (src/functions/units.ts): most runs convert nothing
 await build({

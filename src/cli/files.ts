@@ -6,6 +6,7 @@
  * a stated size is read (the read itself stops there, so a file that grows cannot get past
  * it).
  */
+import { isAscii } from 'node:buffer';
 import { closeSync, constants, fstatSync, openSync, readSync, realpathSync } from 'node:fs';
 import { dirname, join, relative, isAbsolute, sep } from 'node:path';
 import { NotUtf8Error, decodeUtf8 } from '../doc/utf8.ts';
@@ -73,6 +74,10 @@ export function readBytes(path: string, what: string, limit: number): Uint8Array
 /** Reads a text file as UTF-8, refusing other bytes. */
 export function readText(path: string, what: string, limit: number): string {
   const bytes = readBytes(path, what, limit);
+  // Most data files are plain ASCII, whose UTF-8 text is its Latin-1 text; Node 20 decodes
+  // Latin-1 by copying, some fifty times faster than its UTF-8 decoder (18 MB: 1 ms against
+  // 55 ms, test/bench/csv-run.bench.ts).
+  if (isAscii(bytes)) return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('latin1');
   try {
     return decodeUtf8(bytes);
   } catch (err) {

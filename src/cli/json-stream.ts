@@ -6,14 +6,31 @@
  * a record one member at a time.
  *
  * The text is exactly the canonical JSON of src/lang/json.ts: every piece is made by that
- * module's functions (`toJson`, `columnJson`, `jsonText`), and this file only decides where
- * one piece ends and the next begins. test/cli/json-stream.test.ts holds the two equal, byte
- * for byte, on every sample and on values made to cross the slice boundaries.
+ * module's functions (`toJson`, `columnJson`, `jsonText`, `numbersJsonBytes`), and this file
+ * only decides where one piece ends and the next begins. test/cli/json-stream.test.ts holds
+ * the two equal, byte for byte, on every sample and on values made to cross the slice
+ * boundaries.
+ *
+ * With a {@link ColumnBytes} helper (the command line's), number and boolean columns go out
+ * as ASCII bytes instead of strings, and the second half of a long number column is made by
+ * a helper thread while this one makes the first, so both processor cores turn numbers into
+ * text (src/cli/column-text-helper.ts).
  */
 import { once } from 'node:events';
 import type { CellState } from '../graph/engine.ts';
-import { columnJson, jsonText, toJson } from '../lang/json.ts';
-import { typeOf, type Value } from '../lang/values.ts';
+import { booleansJsonBytes, columnJson, jsonText, numbersJsonBytes, toJson } from '../lang/json.ts';
+import { typeOf, type Column, type Value } from '../lang/values.ts';
+
+/** A piece of the output: text, ASCII bytes, or bytes still being made by a helper thread. */
+export type Piece = string | Uint8Array | Promise<Uint8Array>;
+
+/** Makes a number column's elements `from` to `to` as bytes on another thread (the text of {@link numbersJsonBytes}). */
+export interface ColumnBytes {
+  numbers(values: Float64Array, missing: Uint8Array | null, from: number, to: number): Promise<Uint8Array>;
+}
+
+/** Number columns at least this long have their second half made by the helper. */
+export const HELPED_FROM = 50_000;
 
 /** Elements of a column turned into text at a time. */
 export const COLUMN_SLICE = 8192;
@@ -26,13 +43,19 @@ export const BUFFER_CHARS = 1 << 16;
  * slices of `slice` elements, tables and records member by member, everything else (numbers,
  * texts, claims, errors, chart specifications, which the project keeps small) in one piece.
  */
-export function* valuePieces(v: Value, slice = COLUMN_SLICE): Generator<string> {
+export function valuePieces(v: Value, slice?: number): Generator<string>;
+export function valuePieces(v: Value, slice: number, bytes: ColumnBytes | undefined): Generator<Piece>;
+export function* valuePieces(v: Value, slice = COLUMN_SLICE, bytes?: ColumnBytes): Generator<Piece> {
   if (typeof v !== 'object') {
     yield toJson(v);
     return;
   }
   switch (v.kind) {
     case 'column': {
+      if (bytes !== undefined && v.type !== 'text') {
+        yield* columnBytePieces(v, slice, bytes);
+        return;
+      }
       const n = v.values.length;
       if (n <= slice) {
         yield columnJson(v);
@@ -51,7 +74,7 @@ export function* valuePieces(v: Value, slice = COLUMN_SLICE): Generator<string> 
       yield '{';
       for (let i = 0; i < v.names.length; i++) {
         yield `${i === 0 ? '' : ','}${jsonText(v.names[i]!)}:`;
-        yield* valuePieces(v.columns[i]!, slice);
+        yield* valuePieces(v.columns[i]!, slice, bytes);
       }
       yield '}';
       return;
@@ -60,7 +83,7 @@ export function* valuePieces(v: Value, slice = COLUMN_SLICE): Generator<string> 
       let first = true;
       for (const [k, x] of v.fields) {
         yield `${first ? '' : ','}${jsonText(k)}:`;
-        yield* valuePieces(x, slice);
+        yield* valuePieces(x, slice, bytes);
         first = false;
       }
       yield '}';
@@ -72,11 +95,36 @@ export function* valuePieces(v: Value, slice = COLUMN_SLICE): Generator<string> 
 }
 
 /**
+ * A number or boolean column as bytes, `slice` elements at a time; the second half of a long
+ * number column is asked of the helper first, so that it is made while this thread makes the
+ * first half.
+ */
+function* columnBytePieces(c: Exclude<Column, { type: 'text' }>, slice: number, bytes: ColumnBytes): Generator<Piece> {
+  const n = c.values.length;
+  const helped = c.type === 'number' && n >= HELPED_FROM;
+  const mine = helped ? Math.ceil(n / 2) : n;
+  const rest = helped ? bytes.numbers(c.values as Float64Array, c.missing, mine, n) : null;
+  yield '[';
+  for (let from = 0; from < mine; from += slice) {
+    const to = Math.min(mine, from + slice);
+    if (from > 0) yield ',';
+    yield c.type === 'number' ? numbersJsonBytes(c.values, c.missing, from, to) : booleansJsonBytes(c.values, c.missing, from, to);
+  }
+  if (rest !== null) {
+    yield ',';
+    yield rest;
+  }
+  yield ']';
+}
+
+/**
  * The pieces of `furrow run --json`'s object, one cell after another (without the newline
  * that ends the output): `{"furrow":1,"cells":[` then each cell's fields in the contract's
  * order, cells separated by a comma and a newline.
  */
-export function* reportPieces(states: readonly CellState[], slice = COLUMN_SLICE): Generator<string> {
+export function reportPieces(states: readonly CellState[], slice?: number): Generator<string>;
+export function reportPieces(states: readonly CellState[], slice: number, bytes: ColumnBytes | undefined): Generator<Piece>;
+export function* reportPieces(states: readonly CellState[], slice = COLUMN_SLICE, bytes?: ColumnBytes): Generator<Piece> {
   yield '{"furrow":1,"cells":[';
   for (let i = 0; i < states.length; i++) {
     const s = states[i]!;
@@ -84,7 +132,7 @@ export function* reportPieces(states: readonly CellState[], slice = COLUMN_SLICE
     const isErr = typeof v === 'object' && v.kind === 'error';
     yield `${i === 0 ? '' : ',\n'}{"index":${i},"kind":${JSON.stringify(s.kind)},"name":${s.name === null ? 'null' : JSON.stringify(s.name)},"type":${JSON.stringify(isErr ? 'error' : typeOf(v))},"value":`;
     if (isErr) yield 'null';
-    else yield* valuePieces(v, slice);
+    else yield* valuePieces(v, slice, bytes);
     yield `,"error":${s.error ? toJson(s.error) : 'null'}`;
     if (s.warnings.length > 0) yield `,"warnings":${JSON.stringify(s.warnings)}`;
     yield '}';
@@ -94,23 +142,38 @@ export function* reportPieces(states: readonly CellState[], slice = COLUMN_SLICE
 
 /** What {@link writePieces} needs of a stream: Node's Writable (process.stdout) has it. */
 export interface PieceSink extends NodeJS.EventEmitter {
-  write(chunk: string): boolean;
+  write(chunk: string | Uint8Array): boolean;
 }
 
 /**
- * Writes pieces, then `ending`, to a stream in buffers of about `bufferChars` characters;
- * when the stream says it is full, waits for it to drain before making more text (a stream
- * that fails while we wait rejects the promise with its error).
+ * Writes pieces, then `ending`, to a stream: texts gathered into buffers of about
+ * `bufferChars` characters, bytes as they are (a piece still being made is waited for, in
+ * its place). When the stream says it is full, waits for it to drain before making more (a
+ * stream that fails while we wait rejects the promise with its error).
  */
-export async function writePieces(pieces: Iterable<string>, sink: PieceSink, ending = '', bufferChars = BUFFER_CHARS): Promise<void> {
+export async function writePieces(pieces: Iterable<Piece>, sink: PieceSink, ending = '', bufferChars = BUFFER_CHARS): Promise<void> {
   let buffer = '';
-  for (const piece of pieces) {
-    buffer += piece;
-    if (buffer.length < bufferChars) continue;
-    const room = sink.write(buffer);
-    buffer = '';
+  let room = true;
+  const send = async (chunk: string | Uint8Array): Promise<void> => {
+    room = sink.write(chunk);
     if (!room) await once(sink, 'drain');
+  };
+  for (const piece of pieces) {
+    if (typeof piece === 'string') {
+      buffer += piece;
+      if (buffer.length < bufferChars) continue;
+      const text = buffer;
+      buffer = '';
+      await send(text);
+      continue;
+    }
+    if (buffer !== '') {
+      const text = buffer;
+      buffer = '';
+      await send(text);
+    }
+    await send(piece instanceof Uint8Array ? piece : await piece);
   }
   buffer += ending;
-  if (buffer !== '' && !sink.write(buffer)) await once(sink, 'drain');
+  if (buffer !== '') await send(buffer);
 }

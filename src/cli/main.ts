@@ -9,7 +9,8 @@ import { DocumentError, readDocument } from '../doc/format.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
 import { dataFileText, needsPreload, preloadParquet } from './data-text.ts';
-import { reportPieces, writePieces, type PieceSink } from './json-stream.ts';
+import { COLUMN_SLICE, reportPieces, writePieces, type PieceSink } from './json-stream.ts';
+import { ColumnTextHelper } from './column-text-helper.ts';
 import { DOCUMENT_LIMIT_BYTES, FileProblem, readText } from './files.ts';
 import { sheetCommand } from './sheet.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
@@ -34,6 +35,12 @@ export interface Output {
    * is handed to `out` in one piece.
    */
   stream?: PieceSink;
+  /**
+   * The built helper thread for `run --json` (build/cli/column-text-worker.mjs; bin/furrow.js
+   * passes it when it runs the build): long number columns are then turned into text on two
+   * threads. Without it, on one; the output is the same.
+   */
+  helperScript?: string | URL;
 }
 
 /** Runs a read, turning a file problem into the command's failure. */
@@ -247,7 +254,10 @@ function mainNow(argv: readonly string[], o: Output, kinds: CellKinds): number |
       return warn();
     }
     // the same text and ending newline as `out` would print, written as it is made
-    return writePieces(reportPieces(states), o.stream, '\n').then(warn);
+    const helper = o.helperScript === undefined ? undefined : new ColumnTextHelper(o.helperScript);
+    return writePieces(reportPieces(states, COLUMN_SLICE, helper), o.stream, '\n')
+      .finally(() => helper?.close())
+      .then(warn);
   } catch (err) {
     if (err instanceof CliFailure) {
       o.err(visible(cliMsg.failure(err.message)));

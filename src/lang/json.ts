@@ -41,6 +41,45 @@ export function jsonText(s: string): string {
   return JSON.stringify(s);
 }
 
+/** The longest canonical text of one number ("-2.2250738585072014e-308") and its comma. */
+const MOST_BYTES_PER_NUMBER = 25;
+
+/**
+ * The elements `from` to `to` of a number column's canonical JSON, comma-separated without
+ * the brackets, as ASCII bytes: the same characters as `columnJson(c, from, to)` between its
+ * brackets, each number's text from {@link jsonNumber}. For writing a million numbers, where
+ * joining strings and encoding them afterwards costs as much as making the texts.
+ */
+export function numbersJsonBytes(values: Float64Array, missing: Uint8Array | null, from = 0, to = values.length): Uint8Array {
+  const out = new Uint8Array(Math.max(0, to - from) * MOST_BYTES_PER_NUMBER);
+  let o = 0;
+  for (let i = from; i < to; i++) {
+    if (i > from) out[o++] = 44; // ,
+    if (missing !== null && missing[i] === 1) {
+      out[o++] = 110; // null
+      out[o++] = 117;
+      out[o++] = 108;
+      out[o++] = 108;
+      continue;
+    }
+    const text = jsonNumber(values[i]!);
+    for (let j = 0; j < text.length; j++) out[o++] = text.charCodeAt(j);
+  }
+  return out.subarray(0, o);
+}
+
+/** As {@link numbersJsonBytes}, for a boolean column's elements (1 true, 0 false). */
+export function booleansJsonBytes(values: Uint8Array, missing: Uint8Array | null, from = 0, to = values.length): Uint8Array {
+  const out = new Uint8Array(Math.max(0, to - from) * 6);
+  let o = 0;
+  for (let i = from; i < to; i++) {
+    if (i > from) out[o++] = 44;
+    const text = missing !== null && missing[i] === 1 ? 'null' : values[i] === 1 ? 'true' : 'false';
+    for (let j = 0; j < text.length; j++) out[o++] = text.charCodeAt(j);
+  }
+  return out.subarray(0, o);
+}
+
 /** The canonical JSON of elements `from` (inclusive) to `to` (exclusive) of a column. */
 export function columnJson(c: Column, from = 0, to = c.values.length): string {
   const parts: string[] = new Array<string>(Math.max(0, to - from));

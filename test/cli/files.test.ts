@@ -8,7 +8,7 @@ import { mkdtempSync, symlinkSync, truncateSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, readBytes } from '../../src/cli/files.ts';
+import { CSV_LIMIT_BYTES, DOCUMENT_LIMIT_BYTES, FileProblem, readBytes, readText } from '../../src/cli/files.ts';
 import { cliMsg } from '../../src/messages/cli.ts';
 import { main } from '../../src/cli/main.ts';
 
@@ -116,6 +116,29 @@ describe('files beside a document', () => {
     const r = cli('run', join(dir, 'd.furrow'));
     expect(r.code).toBe(2);
     expect(r.err).toContain(cliMsg.notUtf8(cliMsg.theCsvFile(), join(dir, 'plots.csv')).slice(1));
+  });
+
+  it('reads plain ASCII and UTF-8 text the same as the standard decoder, whichever way it takes', () => {
+    // readText takes a quicker way for ASCII files; both ways must give the decoder's text
+    const dir = folder();
+    const texts = [
+      'y,note\n1.5,plain\r\n2,"quoted, with comma"\n',
+      '\u0000\u0001\u007f~ all ASCII control and edge bytes\n',
+      'y,site\n3.25,Gr\u00fcnfeld \u2013 north\n4,\u6771\n5,\ud83c\udf31\n',
+      '\ufeffy\n1\n', // a byte-order mark is kept as a character, as the decoder keeps it
+      '',
+    ];
+    for (const [i, t] of texts.entries()) {
+      const p = join(dir, `t${i}.csv`);
+      writeFileSync(p, t, 'utf8');
+      const decoded = new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(readBytes(p, 'the file', 1000));
+      expect(readText(p, 'the file', 1000)).toBe(decoded);
+      expect(readText(p, 'the file', 1000)).toBe(t);
+    }
+    // one byte past ASCII in the middle of a long ASCII run: still refused when it is not UTF-8
+    const p = join(dir, 'late.csv');
+    writeFileSync(p, Buffer.concat([Buffer.from('y\n'.concat('1\n'.repeat(50_000))), Buffer.from([0xc3, 0x28, 0x0a])]));
+    expect(() => readText(p, 'the file', 1_000_000)).toThrow(FileProblem);
   });
 });
 

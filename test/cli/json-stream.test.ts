@@ -6,13 +6,14 @@
  */
 import { spawnSync } from 'node:child_process';
 import { EventEmitter } from 'node:events';
-import { readdirSync } from 'node:fs';
+import { mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadDocument } from '../../src/cli/main.ts';
-import { reportPieces, valuePieces, writePieces, type PieceSink } from '../../src/cli/json-stream.ts';
+import { reportPieces, valuePieces, writePieces, type ColumnBytes, type Piece, type PieceSink } from '../../src/cli/json-stream.ts';
 import type { CellState } from '../../src/graph/engine.ts';
-import { toJson } from '../../src/lang/json.ts';
+import { numbersJsonBytes, toJson } from '../../src/lang/json.ts';
 import { MISSING, booleanColumn, numberColumn, record, table, textColumn, typeOf, type Column, type Value } from '../../src/lang/values.ts';
 
 /** The report as `furrow run --json` built it before it streamed: one string, from toJson. */
@@ -46,8 +47,8 @@ class SlowSink extends EventEmitter implements PieceSink {
   constructor(readonly room: number) {
     super();
   }
-  write(chunk: string): boolean {
-    this.chunks.push(chunk);
+  write(chunk: string | Uint8Array): boolean {
+    this.chunks.push(typeof chunk === 'string' ? chunk : new TextDecoder().decode(chunk));
     this.pending += chunk.length;
     return this.pending < this.room;
   }
@@ -58,7 +59,7 @@ class SlowSink extends EventEmitter implements PieceSink {
 }
 
 /** Writes to a SlowSink that drains on the next turn of the event loop; returns the text. */
-async function streamed(pieces: Iterable<string>, bufferChars: number): Promise<string> {
+async function streamed(pieces: Iterable<Piece>, bufferChars: number): Promise<string> {
   const sink = new SlowSink(bufferChars);
   sink.on('newListener', (event) => {
     if (event === 'drain') setImmediate(() => sink.drain());
@@ -87,6 +88,25 @@ describe('furrow run --json, streamed', () => {
       expect(r.status, `${path}\n${r.stderr}`).toBe(0);
       expect(r.stdout, path).toBe(`${wholeReport(loadDocument(path).engine.states())}\n`);
     }
+  });
+
+  it('bin/furrow.js writes those bytes for a long table and fit, made on two threads', () => {
+    // 60,000 rows: past HELPED_FROM, so the build's helper thread makes half of each number column
+    const dir = mkdtempSync(join(tmpdir(), 'furrow-json-long-'));
+    const rows = ['block,setting,y'];
+    let s = 7;
+    for (let b = 1; b <= 3000; b++) {
+      for (let t = 1; t <= 20; t++) {
+        s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+        rows.push(`${b},s${t},${(50 + t / 4 + (s / 4294967296 - 0.5) * 3).toFixed(3)}`);
+      }
+    }
+    writeFileSync(join(dir, 'long.csv'), `${rows.join('\n')}\n`);
+    const path = join(dir, 'long.furrow');
+    writeFileSync(path, 'furrow 1\ntitle: Long\n\n--- table long from long.csv\n\n--- formula\nfit = blocked(long.y, long.setting, long.block)\n');
+    const r = spawnSync(process.execPath, ['bin/furrow.js', 'run', path, '--json'], { encoding: 'utf8', maxBuffer: 1 << 28 });
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout === `${wholeReport(loadDocument(path).engine.states())}\n`).toBe(true);
   });
 
   it('slices long columns exactly at their ends, for every kind of element', () => {
@@ -121,6 +141,45 @@ describe('furrow run --json, streamed', () => {
     expect([...valuePieces(tbl, 2)].join('')).toBe(toJson(tbl));
     expect([...valuePieces(rec, 2)].join('')).toBe(toJson(rec));
     expect([...valuePieces(record([]), 2)].join('')).toBe('{}');
+  });
+
+  it('gives the same bytes with number columns as bytes and a helper making half of each long one', async () => {
+    // a helper that answers late, on a later turn of the event loop, as a thread does
+    const asked: [number, number][] = [];
+    const late: ColumnBytes = {
+      numbers: (values, missing, from, to) => {
+        asked.push([from, to]);
+        return new Promise((resolve) => setTimeout(() => resolve(numbersJsonBytes(values, missing, from, to)), 5));
+      },
+    };
+    for (const path of SAMPLES) {
+      const states = loadDocument(path).engine.states();
+      const whole = wholeReport(states);
+      expect(await streamed(reportPieces(states, 3, late), 100), path).toBe(`${whole}\n`);
+    }
+    // a long number column (the helper's share starts at HELPED_FROM elements), with every special value
+    const n = 120_001;
+    const v = new Float64Array(n);
+    const missing = new Uint8Array(n);
+    for (let i = 0; i < n; i++) {
+      v[i] = i % 7 === 0 ? -0 : i % 11 === 0 ? NaN : i % 13 === 0 ? -Infinity : i % 17 === 0 ? Infinity : (i - 5000) / 3e5;
+      missing[i] = i % 5 === 4 ? 1 : 0;
+    }
+    const long = record([
+      ['y', numberColumn(v, missing)],
+      ['ok', booleanColumn(Uint8Array.from({ length: n }, (_, i) => i % 3 & 1), Uint8Array.from({ length: n }, (_, i) => (i % 9 === 0 ? 1 : 0)))],
+      ['t', table(['a'], [numberColumn(v.slice(0, 60_000))])],
+    ]);
+    asked.length = 0;
+    const pieces = [...valuePieces(long, 8192, late)];
+    expect(pieces.some((p) => p instanceof Promise)).toBe(true);
+    expect(pieces.some((p) => p instanceof Uint8Array)).toBe(true);
+    expect(await streamed(pieces, 1000)).toBe(`${toJson(long)}\n`);
+    // the second half of each long number column, and nothing of the boolean column
+    expect(asked).toEqual([
+      [60_001, 120_001],
+      [30_000, 60_000],
+    ]);
   });
 
   it('waits for the stream to drain before it makes more text', async () => {

@@ -3,7 +3,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { jsonNumber, jsonText, plainJson, toJson } from '../../src/lang/json.ts';
+import { booleansJsonBytes, columnJson, jsonNumber, jsonText, numbersJsonBytes, plainJson, toJson } from '../../src/lang/json.ts';
 import {
   MISSING,
   booleanColumn,
@@ -148,5 +148,42 @@ describe('value shapes (docs/language.md section 9)', () => {
     const loop: { self?: unknown } = {};
     loop.self = loop;
     expect(() => plainJson(loop)).toThrow(/too deeply/);
+  });
+});
+
+describe('number and boolean elements as bytes', () => {
+  // the command line writes long columns as ASCII bytes; they must be columnJson's characters exactly
+  const between = (c: Parameters<typeof columnJson>[0], from: number, to: number): string => columnJson(c, from, to).slice(1, -1);
+
+  it('are the characters of the canonical text, for any doubles and missing marks', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.double(), fc.boolean()), { maxLength: 60 }),
+        fc.nat(60),
+        fc.nat(60),
+        (elements, a, b) => {
+          const values = Float64Array.from(elements.map(([x]) => x));
+          const missing = Uint8Array.from(elements.map(([, m]) => (m ? 1 : 0)));
+          const c = numberColumn(values, missing);
+          const from = Math.min(a, b, values.length);
+          const to = Math.min(Math.max(a, b), values.length);
+          const bytes = numbersJsonBytes(c.values, c.missing, from, to);
+          expect(bytes.every((x) => x < 128)).toBe(true);
+          expect(new TextDecoder().decode(bytes)).toBe(between(c, from, to));
+        },
+      ),
+      { numRuns: 2000 },
+    );
+  });
+
+  it('cover the longest texts a number has, and booleans with missing marks', () => {
+    const extremes = [-Number.MAX_VALUE, -Number.MIN_VALUE, -2.2250738585072014e-308, -1.2345678901234567e-300, -0, NaN, -Infinity, 123456789012345680000];
+    const c = numberColumn(Float64Array.from(extremes));
+    expect(new TextDecoder().decode(numbersJsonBytes(c.values, null))).toBe(between(c, 0, extremes.length));
+    expect(new TextDecoder().decode(numbersJsonBytes(c.values, null))).toContain('-2.2250738585072014e-308,-1.2345678901234568e-300,-0,"NaN","-Infinity"');
+    const b = booleanColumn(Uint8Array.from([1, 0, 1, 0]), Uint8Array.from([0, 0, 1, 0]));
+    expect(new TextDecoder().decode(booleansJsonBytes(b.values, b.missing))).toBe('true,false,null,false');
+    expect(new TextDecoder().decode(booleansJsonBytes(b.values, b.missing, 1, 3))).toBe(between(b, 1, 3));
+    expect(numbersJsonBytes(new Float64Array(0), null).length).toBe(0);
   });
 });
