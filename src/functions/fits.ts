@@ -65,9 +65,17 @@ export function numberOrMissing(x: number): number | typeof MISSING {
 /**
  * A column of the data's full length: values at the rows used, missing elsewhere and where a
  * value does not exist (a studentized residual of a fit with no error).
+ *
+ * `values` is a fit's own array (fitted values, residuals), made fresh for the fit and never
+ * written afterwards, like every column's values: when every row was used the column takes
+ * it as it is. Copying a million of them cost 25 to 30 ms of fresh memory each.
  */
 export function spread(values: Float64Array, rows: Int32Array | null, length: number, name: string): NumberColumn {
-  if (rows === null) return nanAsMissing(values, name);
+  if (rows === null) {
+    let anyNaN = false;
+    for (let i = 0; i < values.length && !anyNaN; i++) anyNaN = Number.isNaN(values[i]!);
+    return anyNaN ? nanAsMissing(values, name) : numberColumn(values, null, name);
+  }
   const out = new Float64Array(length).fill(NaN);
   const miss = new Uint8Array(length).fill(1);
   rows.forEach((r, k) => {
