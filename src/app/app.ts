@@ -462,7 +462,7 @@ export class FurrowApp extends LitElement {
     // the document open until now is written to its own slot before this one takes over
     void this.keeper.take(o.key).then(() => this.refreshKept());
     this.fileName = o.fileName;
-    this.arrivals.take(o.files);
+    this.arrivals.replaceWith(o.files);
     this.renaming = null;
     this.store.load(doc);
     const missing = [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));

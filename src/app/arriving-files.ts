@@ -21,8 +21,8 @@ export interface ArrivalsHost {
   importing: ImportSource | null;
   /** Says something in the page's banner. */
   say(kind: 'info' | 'problem', text: string): void;
-  /** Hands the worker a file's text, for the tables that read it. */
-  toWorker(name: string, text: string): void;
+  /** Hands the worker a file's text, for the tables that read it (undefined: the file is gone). */
+  toWorker(name: string, text: string | undefined): void;
   /** The document's kept state changed (its files are part of it). */
   touched(): void;
   /** Adds a cell at the end of the document, as one step of undo, and shows it. */
@@ -38,8 +38,18 @@ export class ArrivingFiles {
     this.host = host;
   }
 
-  /** Keeps files a document brought with it, and sends them to the worker. */
-  take(files: ReadonlyArray<readonly [string, string]>): void {
+  /**
+   * The files of a document being opened: they replace the files of the document open before
+   * (which were kept with it, in its own slot), so that a table of this document never reads
+   * another trial's file of the same name. Sends the change to the worker.
+   */
+  replaceWith(files: ReadonlyArray<readonly [string, string]>): void {
+    const coming = new Map(files);
+    for (const name of [...this.files.keys()]) {
+      if (coming.has(name)) continue;
+      this.files.delete(name);
+      this.host.toWorker(name, undefined);
+    }
     for (const [name, stored] of files) this.files.set(name, stored);
     this.send(files);
   }

@@ -55,6 +55,31 @@ export function importingTests() {
       },
     },
     {
+      name: "a document opened after another never reads the other's data file of the same name",
+      async run({ context, base }) {
+        const page = await context.newPage();
+        await page.goto(`${base}/?fresh`);
+        await settled(page);
+        const named = (title, total) => `furrow 1\ntitle: ${title}\n\n--- table plots from plots.csv\n\n--- formula\n${total} = sum(plots.y)\n`;
+        await openDocument(page, named('First trial', 'first_total'), 'first.furrow');
+        await page.waitForFunction(() => /First trial/.test(document.querySelector('furrow-app').shadowRoot.querySelector('textarea.title')?.value ?? ''));
+        await dropBytes(page, 'plots.csv', Buffer.from('y\n1.5\n2.5\n').toString('base64'));
+        await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="plots"]')?.dataset.status === 'ok', null, { timeout: 20_000 });
+        await settled(page);
+        check(/\b4\b/.test(await cellText(page, 'first_total')), `the first trial reads its file: ${await cellText(page, 'first_total')}`);
+        // the second trial names a file of the same name but brings none
+        await openDocument(page, named('Second trial', 'second_total'), 'second.furrow');
+        await page.waitForFunction(() => /Second trial/.test(document.querySelector('furrow-app').shadowRoot.querySelector('textarea.title')?.value ?? ''));
+        await settled(page);
+        const status = await statusOf(page, 'plots');
+        check(status === 'error', `the second trial's table has no file to read: ${status}`);
+        const banner = await page.locator('furrow-app .banner').innerText().catch(() => '');
+        check(/plots\.csv/.test(banner), `the page says which file is missing: ${JSON.stringify(banner)}`);
+        check(!/\b4\b/.test(await cellText(page, 'second_total')), `no total from the first trial's file: ${await cellText(page, 'second_total')}`);
+        await page.close();
+      },
+    },
+    {
       name: 'a workbook dropped on the page is offered as a table, its sheet chosen, numbers exact',
       async run({ context, base, out }) {
         const page = await context.newPage();
