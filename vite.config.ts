@@ -18,6 +18,7 @@ export default defineConfig({
     exclude: ['test/e2e/**', 'node_modules/**'],
     environment: 'node',
     globalSetup: ['test/setup/build-cli.ts'],
+    setupFiles: ['test/setup/builtins.ts'],
     testTimeout: 30_000,
     benchmark: {
       include: ['test/bench/**/*.bench.ts'],

@@ -6,7 +6,8 @@
 import { basename } from 'node:path';
 import { documentTitle, headerFields, isSafeFileName, type Document } from '../doc/document.ts';
 import { DocumentError, readDocument } from '../doc/format.ts';
-import { BUILTINS } from '../functions/index.ts';
+import { BuiltinsNeeded, WatchedRegistry, loadBuiltins, loadedBuiltins, mayCall } from './builtins.ts';
+import type { Registry } from '../lang/builtins.ts';
 import { Engine, type CellState } from '../graph/engine.ts';
 import { dataFileText, needsPreload, preloadParquet } from './data-text.ts';
 import { COLUMN_SLICE, reportPieces, writePieces, type PieceSink } from './json-stream.ts';
@@ -53,8 +54,17 @@ function readFile<T>(read: () => T): T {
   }
 }
 
-/** Loads a document and the CSV files its tables name. */
-export function loadDocument(path: string, kinds: CellKinds = CELL_KINDS): { doc: Document; engine: Engine; warnings: string[] } {
+/**
+ * Loads a document and the CSV files its tables name, and evaluates it. The registry is the
+ * built-ins, which must be loaded first (`main` does, src/cli/builtins.ts), or a
+ * {@link WatchedRegistry} for a document that calls none: BuiltinsNeeded is thrown when the
+ * evaluation asked it anything.
+ */
+export function loadDocument(
+  path: string,
+  kinds: CellKinds = CELL_KINDS,
+  registry: Registry = builtinsNow(),
+): { doc: Document; engine: Engine; warnings: string[] } {
   const text = readFile(() => readText(path, cliMsg.theDocument(), DOCUMENT_LIMIT_BYTES));
   let doc: Document;
   const warnings: string[] = [];
@@ -66,7 +76,7 @@ export function loadDocument(path: string, kinds: CellKinds = CELL_KINDS): { doc
     if (err instanceof DocumentError) throw new CliFailure(cliMsg.documentProblem(path, err.message));
     throw err;
   }
-  const engine = new Engine({ registry: BUILTINS, kinds });
+  const engine = new Engine({ registry, kinds });
   for (const cell of doc.cells) {
     for (const file of kinds.filesRead(cell)) {
       // a name that leaves the document's folder is never opened: the cell itself reports it
@@ -83,8 +93,34 @@ export function loadDocument(path: string, kinds: CellKinds = CELL_KINDS): { doc
     }
   }
   engine.update(doc);
+  if (registry instanceof WatchedRegistry && registry.asked) throw new BuiltinsNeeded();
   return { doc, engine, warnings };
 }
+
+/** The loaded built-ins (main loads them before any command that reads a document). */
+function builtinsNow(): Registry {
+  const r = loadedBuiltins();
+  if (r === null) throw new Error('the built-ins are not loaded: main() loads them before a document is read');
+  return r;
+}
+
+/**
+ * For `run`: the registry to evaluate the document at `path` against without loading the
+ * built-ins, when its text shows it calls none; null when it may call one (or cannot be read
+ * now: loading it reports that).
+ */
+function registryWithoutBuiltins(path: string): WatchedRegistry | null {
+  let text: string;
+  try {
+    text = readText(path, cliMsg.theDocument(), QUICK_LOOK_BYTES);
+  } catch {
+    return null;
+  }
+  return mayCall(text) ? null : new WatchedRegistry();
+}
+
+/** Documents up to this size are looked at for calls before the built-ins load. */
+const QUICK_LOOK_BYTES = 1 << 20;
 
 /** Where each cell's body starts in the file (1-based line of the marker). */
 function markerLines(doc: Document): number[] {
@@ -207,11 +243,25 @@ function documentArgument(argv: readonly string[]): string | undefined {
  */
 export function main(argv: readonly string[], o: Output, kinds: CellKinds = CELL_KINDS): number | Promise<number> {
   const path = documentArgument(argv);
-  if (path !== undefined && needsPreload(path, kinds)) return preloadParquet(path, kinds).then(() => mainNow(argv, o, kinds));
-  return mainNow(argv, o, kinds);
+  const preload = path !== undefined && needsPreload(path, kinds);
+  const everything = (): Promise<number> =>
+    Promise.all([loadBuiltins(), preload ? preloadParquet(path, kinds) : null]).then(() => mainNow(argv, o, kinds, loadedBuiltins()!));
+  if (path === undefined) return mainNow(argv, o, kinds, null);
+  const registry = loadedBuiltins();
+  if (registry !== null && !preload) return mainNow(argv, o, kinds, registry);
+  // a document run that calls no built-in is evaluated without loading them (src/cli/builtins.ts)
+  const watched = argv[0] === 'run' && !preload && registry === null ? registryWithoutBuiltins(path) : null;
+  if (watched === null) return everything();
+  try {
+    return mainNow(argv, o, kinds, watched);
+  } catch (err) {
+    if (err instanceof BuiltinsNeeded) return everything();
+    throw err;
+  }
 }
 
-function mainNow(argv: readonly string[], o: Output, kinds: CellKinds): number | Promise<number> {
+/** `registry` is the built-ins, or a watched empty one for `run`; null where no document is read. */
+function mainNow(argv: readonly string[], o: Output, kinds: CellKinds, registry: Registry | null): number | Promise<number> {
   if (argv[0] === 'seal') return guarded(o, () => sealCommand(argv.slice(1), o, USAGE));
   if (argv[0] === 'verify') return guarded(o, () => verifyCommand(argv.slice(1), o, USAGE));
   // the report draws charts: its libraries load only when a report is asked for
@@ -238,7 +288,7 @@ function mainNow(argv: readonly string[], o: Output, kinds: CellKinds): number |
     return 2;
   }
   try {
-    const { doc, engine, warnings } = loadDocument(file, kinds);
+    const { doc, engine, warnings } = loadDocument(file, kinds, registry ?? undefined);
     const states = engine.states();
     const status = states.some((s) => s.status === 'error' || s.status === 'upstream') ? 1 : 0;
     if (!json) {

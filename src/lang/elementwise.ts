@@ -22,7 +22,7 @@ import {
   type TextColumn,
   type Value,
 } from './values.ts';
-import { pow } from '../stats/math/portable.ts';
+import { pow } from '../stats/math/portable-power.ts';
 
 type Scalar = number | string | boolean;
 type Kind = 'number' | 'text' | 'boolean';

@@ -138,7 +138,9 @@ describe('furrow seal', () => {
     const sealModule = resolve('src/cli/seal.ts');
     writeFileSync(
       script,
-      `const { sealFile } = await import(${JSON.stringify(sealModule)});\n` +
+      // the command line loads the built-ins before it reads a document (src/cli/builtins.ts)
+      `await (await import(${JSON.stringify(resolve('src/cli/builtins.ts'))})).loadBuiltins();\n` +
+        `const { sealFile } = await import(${JSON.stringify(sealModule)});\n` +
         `sealFile(${JSON.stringify(path)}, () => process.kill(process.pid, 'SIGKILL'));\nconsole.log('not killed');\n`,
     );
     const r = spawnSync(process.execPath, ['--import', 'tsx', script], { encoding: 'utf8', cwd: resolve('.') });

@@ -21,7 +21,6 @@ import lnFn from '@stdlib/math-base-special-ln';
 import log10Fn from '@stdlib/math-base-special-log10';
 import log1pFn from '@stdlib/math-base-special-log1p';
 import log2Fn from '@stdlib/math-base-special-log2';
-import powFn from '@stdlib/math-base-special-pow';
 import sinFn from '@stdlib/math-base-special-sin';
 
 /** e to the power x. */
@@ -32,8 +31,8 @@ export const log: (x: number) => number = lnFn;
 export const log10: (x: number) => number = log10Fn;
 /** The logarithm to base 2. */
 export const log2: (x: number) => number = log2Fn;
-/** x to the power y (the language's `^`). */
-export const pow: (x: number, y: number) => number = powFn;
+/** x to the power y (the language's `^`), in a module of its own for the evaluator. */
+export { pow } from './portable-power.ts';
 /** exp(x) - 1, accurate near 0. */
 export const expm1: (x: number) => number = expm1Fn;
 /** ln(1 + x), accurate near 0. */
