@@ -1,22 +1,33 @@
 /**
  * Start-up of the command line: `furrow run` on a one-cell document, through bin/furrow.js
- * (the built JavaScript) and through the TypeScript sources (tsx), as separate processes.
+ * (the built JavaScript) and through the TypeScript sources (tsx), as separate processes,
+ * beside Node starting with nothing to do. A document without a call starts without the
+ * built-ins (src/cli/builtins.ts); one with a call loads them first.
  */
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
-import { hostname, tmpdir } from 'node:os';
+import { hostname, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { bench, describe } from 'vitest';
+import { afterAll, bench, describe } from 'vitest';
 
 const dir = mkdtempSync(join(tmpdir(), 'furrow-bench-cli-'));
 const doc = join(dir, 'one.furrow');
 writeFileSync(doc, 'furrow 1\n--- formula\nx = 1 + 1\n');
-console.log(`machine: ${hostname()}`);
+const withCall = join(dir, 'one-call.furrow');
+writeFileSync(withCall, 'furrow 1\n--- formula\nx = sqrt(2)\n');
+console.log(`machine: ${hostname()}, load average ${loadavg().map((x) => x.toFixed(1)).join(', ')}`);
+afterAll(() => console.log(`load average at the end: ${loadavg().map((x) => x.toFixed(1)).join(', ')}`));
 
 describe('furrow run on a one-cell document', () => {
-  bench('built command line (bin/furrow.js)', () => {
+  bench('Node alone (node -e "")', () => {
+    execFileSync(process.execPath, ['-e', '']);
+  }, { iterations: 15, time: 0 });
+  bench('built command line (bin/furrow.js), no call', () => {
     execFileSync(process.execPath, ['bin/furrow.js', 'run', doc]);
-  }, { iterations: 5, time: 0 });
+  }, { iterations: 15, time: 0 });
+  bench('built command line (bin/furrow.js), one call: the built-ins load', () => {
+    execFileSync(process.execPath, ['bin/furrow.js', 'run', withCall]);
+  }, { iterations: 15, time: 0 });
   bench('TypeScript sources through tsx', () => {
     execFileSync(process.execPath, ['--import', 'tsx', '-e', `import('./src/cli/main.ts').then((m) => m.main(['run', ${JSON.stringify(doc)}], { out: () => {}, err: () => {} }))`]);
   }, { iterations: 5, time: 0 });
