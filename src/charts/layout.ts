@@ -24,6 +24,12 @@ export interface LayoutMapInput {
   /** What the layout is ("randomized complete blocks"), and its seed, for the subtitle. */
   readonly design: string;
   readonly seed: number | null;
+  /**
+   * Colours from another key than the label (a split plot: each plot labelled with its
+   * whole-plot and subplot treatments, coloured by the whole-plot one, so that the whole
+   * plots stand out as bands): its title, each plot's key, and the keys in legend order.
+   */
+  readonly colour?: { readonly title: string; readonly of: readonly string[]; readonly domain: readonly string[] };
 }
 
 /** Narrowest plot and height of a plot on the map, in pixels. */
@@ -51,24 +57,25 @@ export function layoutMap(l: LayoutMapInput): ChartResult {
     const p = l.position[i]!;
     rows = Math.max(rows, r);
     positions = Math.max(positions, p);
-    values.push({ r: String(r), p: String(p), t: l.treatment[i]! });
+    values.push(l.colour === undefined ? { r: String(r), p: String(p), t: l.treatment[i]! } : { r: String(r), p: String(p), t: l.treatment[i]!, c: l.colour.of[i]! });
   }
   const rowDomain = Array.from({ length: rows }, (_, i) => String(i + 1));
   const posDomain = Array.from({ length: positions }, (_, i) => String(i + 1));
-  const domain = [...l.treatments];
+  const domain = [...(l.colour?.domain ?? l.treatments)];
+  const colourTitle = l.colour?.title ?? 'treatment';
   if (domain.length > OKABE_ITO.length) {
-    warnings.push(`${count(domain.length)} treatments but ${OKABE_ITO.length} colours that colour-blind readers can tell apart: colours repeat; read the labels on the plots.`);
+    warnings.push(`${count(domain.length)} ${colourTitle === 'treatment' ? 'treatments' : `kinds of ${colourTitle}`} but ${OKABE_ITO.length} colours that colour-blind readers can tell apart: colours repeat; read the labels on the plots.`);
   }
   const x = { field: 'p', type: 'ordinal', sort: posDomain, title: l.positionName, axis: { orient: 'top', labelAngle: 0 } };
   const y = { field: 'r', type: 'ordinal', sort: rowDomain, title: l.rowName, axis: { labelAngle: 0 } };
-  const tooltip = [tip('r', l.rowName, false), tip('p', l.positionName, false), tip('t', 'treatment', false)];
+  const tooltip = [tip('r', l.rowName, false), tip('p', l.positionName, false), tip('t', 'treatment', false), ...(l.colour === undefined ? [] : [tip('c', l.colour.title, false)])];
   const layers: Json[] = [
     {
       mark: { type: 'rect', stroke: '#ffffff', strokeWidth: 2, opacity: 0.5 },
       encoding: {
         x,
         y,
-        color: { field: 't', type: 'nominal', title: 'treatment', scale: { domain, range: [...OKABE_ITO] }, legend: fullLegend(domain.length) },
+        color: { field: l.colour === undefined ? 't' : 'c', type: 'nominal', title: colourTitle, scale: { domain, range: [...OKABE_ITO] }, legend: fullLegend(domain.length) },
         tooltip,
       },
     },
@@ -79,9 +86,10 @@ export function layoutMap(l: LayoutMapInput): ChartResult {
   ];
   const title = `Field map: ${l.design}`;
   const subtitle = l.seed === null ? null : `seed ${l.seed}; ${l.rowName}s top to bottom, ${l.positionName}s left to right`;
-  const caption = `${counted(n, 'plot')} in ${counted(rows, l.rowName)} of ${count(positions)} ${l.positionName}s; ${counted(domain.length, 'treatment')}, each plot labelled with its treatment${l.seed === null ? '' : `; drawn with seed ${l.seed}`}.`;
+  const coloured = l.colour === undefined ? '' : `, coloured by its ${l.colour.title}`;
+  const caption = `${counted(n, 'plot')} in ${counted(rows, l.rowName)} of ${count(positions)} ${l.positionName}s; ${counted(l.treatments.length, 'treatment')}, each plot labelled with its treatment${coloured}${l.seed === null ? '' : `; drawn with seed ${l.seed}`}.`;
   return {
-    spec: assemble(title, subtitle, { data: { values }, layer: layers }, { width: { step: plotWidth(domain) }, height: { step: PLOT_HEIGHT } }),
+    spec: assemble(title, subtitle, { data: { values }, layer: layers }, { width: { step: plotWidth(l.treatments) }, height: { step: PLOT_HEIGHT } }),
     caption,
     warnings,
   };

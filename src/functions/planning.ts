@@ -35,6 +35,7 @@ import {
   drawBlocks,
   drawCompletelyRandom,
   drawLatin,
+  drawSplitPlot,
   replicatesForPower,
   twoGroupCurve,
   twoGroupPower,
@@ -66,9 +67,9 @@ function treatmentNames(c: Column): { names: string[]; numeric: boolean } {
 }
 
 /** The treatment column of a layout, in the type the names came in. */
-function treatmentColumn(names: readonly string[], numeric: boolean, codes: Int32Array): Column {
-  if (numeric) return numberColumn(Float64Array.from(codes, (t) => Number(names[t])), null, 'treatment');
-  return textColumn(Array.from(codes, (t) => names[t]!), null, 'treatment');
+function treatmentColumn(names: readonly string[], numeric: boolean, codes: Int32Array, name = 'treatment'): Column {
+  if (numeric) return numberColumn(Float64Array.from(codes, (t) => Number(names[t])), null, name);
+  return textColumn(Array.from(codes, (t) => names[t]!), null, name);
 }
 
 const whole = (name: string, a: Int32Array): Column => numberColumn(Float64Array.from(a), null, name);
@@ -134,6 +135,19 @@ function layoutShape(t: Table): LayoutShape {
     };
   }
   throw new UsageError(`${m.layoutNoKeys()}.`);
+}
+
+/**
+ * The colours of a split-plot layout's map (columns whole_plot, whole and sub): each plot by
+ * its whole-plot treatment. Undefined for other layouts, coloured by their treatment.
+ */
+function wholePlotColour(t: Table): { title: string; of: string[]; domain: string[] } | undefined {
+  const wc = tableColumn(t, 'whole');
+  if (wc === undefined || tableColumn(t, 'whole_plot') === undefined || tableColumn(t, 'sub') === undefined) return undefined;
+  const of = Array.from({ length: t.rows }, (_, i) => fieldText(wc, i) ?? '');
+  const listed = t.drawn?.fields.get('whole_treatments');
+  const domain = listed !== undefined && typeof listed === 'object' && listed.kind === 'column' ? (listed.values as readonly unknown[]).map(String) : [...new Set(of)];
+  return { title: 'whole-plot treatment', of, domain };
 }
 
 /** A field of a column as the text a plot is matched on (null when empty). */
@@ -268,9 +282,57 @@ export const PLANNING: readonly Builtin[] = [
     },
   },
   {
+    name: 'split_plot_layout',
+    category: 'planning',
+    params: [
+      { name: 'whole', type: 'levels', doc: 'The whole-plot treatments (the factor that is hard to change, applied to whole plots), such as ["dry", "irrigated"]; at least two, each once.' },
+      { name: 'sub', type: 'levels', doc: 'The subplot treatments, randomized anew inside every whole plot; at least two, each once.' },
+      SEED,
+      { name: 'blocks', type: 'number', doc: 'How many complete blocks: each holds one whole plot of every whole-plot treatment.' },
+    ],
+    returns: 'a table: block, whole_plot, plot, whole, sub, treatment',
+    doc: 'Draws a split plot in randomized complete blocks from a seed: in each block the whole-plot treatments are shuffled over the whole plots, and in each whole plot the subplot treatments are shuffled over its subplots, each whole plot with an order of its own. `plot` numbers the subplots along the block (whole plot 1 first), `whole_plot` the whole plots within the block, and `treatment` names each plot’s pair as whole / sub for the map, the run sheet and layout_check. Analyse the measurements with split_plot(y, data.whole, data.sub, data.block). Same generator, algorithm and guarantee as random_layout; at most 1,000,000 plots.',
+    example: 'split_plot_layout(["dry", "irrigated"], ["A", "B", "C"], seed: 7, blocks: 4)',
+    run: (a) => {
+      const wholes = treatmentNames(a.get('whole') as Column);
+      const subs = treatmentNames(a.get('sub') as Column);
+      const seed = guarded(() => checkSeed(num(a, 'seed')));
+      const blocks = num(a, 'blocks');
+      const l = guarded(() => drawSplitPlot(wholes.names, subs.names, blocks, seed));
+      const label = Array.from(l.whole, (w, i) => m.splitPlotLabel(wholes.names[w]!, subs.names[l.sub[i]!]!));
+      const t = table(
+        ['block', 'whole_plot', 'plot', 'whole', 'sub', 'treatment'],
+        [
+          whole('block', l.block),
+          whole('whole_plot', l.wholePlot),
+          whole('plot', l.plot),
+          treatmentColumn(wholes.names, wholes.numeric, l.whole, 'whole'),
+          treatmentColumn(subs.names, subs.numeric, l.sub, 'sub'),
+          textColumn(label, null, 'treatment'),
+        ],
+      );
+      const drawn = record(
+        [
+          ['design', 'split plot in randomized complete blocks'],
+          ['drawn_by', 'split_plot_layout'],
+          ['seed', seed],
+          ['treatments', textColumn(wholes.names.flatMap((w) => subs.names.map((s) => m.splitPlotLabel(w, s))))],
+          ['whole_treatments', textColumn([...wholes.names])],
+          ['sub_treatments', textColumn([...subs.names])],
+          ['blocks', blocks],
+          ['plots', t.rows],
+          ['generator', GENERATOR],
+          ['algorithm', ALGORITHM],
+        ],
+        'layout',
+      );
+      return withDrawn(t, drawn);
+    },
+  },
+  {
     name: 'layout_details',
     category: 'planning',
-    params: [{ name: 'layout', type: 'table', doc: 'A layout made by random_layout or latin_layout.' }],
+    params: [{ name: 'layout', type: 'table', doc: 'A layout made by random_layout, latin_layout or split_plot_layout.' }],
     returns: 'a record: design drawn_by seed treatments blocks (or replicates, size) plots generator algorithm',
     doc: 'How a layout was drawn: its design, the function and seed that drew it, its treatments and size, and the generator and shuffle used, so a reviewer can draw it again. A table that was not drawn by a layout function (or was filtered since) has no such record.',
     example: 'layout_details(plan)',
@@ -309,7 +371,7 @@ export const PLANNING: readonly Builtin[] = [
       const seed = drawn === undefined ? null : (drawn.fields.get('seed') as number);
       const row = Array.from({ length: t.rows }, (_, i) => shape.row(i));
       const position = Array.from({ length: t.rows }, (_, i) => shape.position(i));
-      return chartValue(layoutMap({ rowName: shape.rowName, positionName: shape.positionName, row, position, treatment, treatments, design, seed }), ctx);
+      return chartValue(layoutMap({ rowName: shape.rowName, positionName: shape.positionName, row, position, treatment, treatments, design, seed, colour: wholePlotColour(t) }), ctx);
     },
   },
   {

@@ -44,16 +44,20 @@ export const planningMsg = {
   notSplitPlot: (whole: string, sub: string, unit: readonly string[]) =>
     `Each ${unit.map(q).join(' and ')} holds one plot of every ${sub}, as a whole plot would, but ${q(whole)} changes inside it: if ${whole} was drawn plot by plot rather than for whole plots, these data are not a split plot, whole_error is not the error of anything that was randomized, and split_plot understates the evidence for ${whole}. Check the field plan; for a trial randomized plot by plot, use an analysis of the factorial instead.`,
   layoutNoKeys: () =>
-    `the layout must have columns block and plot, row and column, or plot, with a treatment column (as random_layout and latin_layout make)`,
+    `the layout must have columns block and plot, row and column, or plot, with a treatment column (as random_layout, latin_layout and split_plot_layout make)`,
   dataLacks: (column: string) => `the data have no column ${q(column)} to match the layout on`,
   repeatedKey: (inData: boolean, plot: string, firstRow: number, row: number) =>
     `${inData ? 'the data hold' : 'the layout holds'} ${plot} more than once (rows ${firstRow} and ${row}), so it cannot be matched plot for plot; ${inData ? 'a plot is measured once: correct or remove the repeated row' : 'a layout has each plot once'}`,
+  /** A problem with one factor's treatments of a split plot (`which`: "whole-plot", "subplot"). */
+  ofFactor: (which: string, problem: string) => `the ${which} treatments: ${problem}`,
+  /** The label of a split-plot plot: its whole-plot and subplot treatments. */
+  splitPlotLabel: (whole: string, sub: string) => `${whole} / ${sub}`,
   bothCounts: () => 'give either blocks (a randomized complete block plan) or replicates (a completely randomized plan), not both',
   noCount: () => 'give blocks: for a randomized complete block plan, or replicates: for a completely randomized plan',
   notAPowerRecord: () => 'plan must be the result of power_two_sample, replicates_for_power, power_blocked or blocks_for_power',
   mapTooLarge: (plots: number, limit: number, part: string) =>
     `a map of ${plots} plots is too large to read; the limit is ${limit}. Draw it in parts, for example layout_chart(${part})`,
-  notALayout: () => `this table was not drawn by random_layout or latin_layout, so there is no record of how it was drawn`,
+  notALayout: () => `this table was not drawn by random_layout, latin_layout or split_plot_layout, so there is no record of how it was drawn`,
   // run sheets
   measurementUnnamed: () => 'a measurement column needs a name.',
   measurementTaken: (name: string) => `the layout already has a column ${q(name)}; name the measurement column differently.`,

@@ -51,6 +51,10 @@ describe('layouts are pinned byte for byte: a change that would re-draw old plan
     ],
     ['random_layout([0, 60, 120], seed: 4294967295, replicates: 3)', 'plot,treatment\n1,0\n2,60\n3,0\n4,0\n5,60\n6,120\n7,120\n8,60\n9,120\n'],
     [
+      'split_plot_layout(["dry", "wet"], ["A", "B", "C"], seed: 2026, blocks: 2)',
+      'block,whole_plot,plot,whole,sub,treatment\n1,1,1,wet,B,wet / B\n1,1,2,wet,A,wet / A\n1,1,3,wet,C,wet / C\n1,2,4,dry,C,dry / C\n1,2,5,dry,A,dry / A\n1,2,6,dry,B,dry / B\n2,1,1,wet,C,wet / C\n2,1,2,wet,B,wet / B\n2,1,3,wet,A,wet / A\n2,2,4,dry,A,dry / A\n2,2,5,dry,B,dry / B\n2,2,6,dry,C,dry / C\n',
+    ],
+    [
       'random_layout(["N1", "N2", "N3", "N4", "N5", "N6"], seed: 0, blocks: 2)',
       'block,plot,treatment\n1,1,N5\n1,2,N6\n1,3,N2\n1,4,N4\n1,5,N3\n1,6,N1\n2,1,N3\n2,2,N6\n2,3,N2\n2,4,N1\n2,5,N4\n2,6,N5\n',
     ],
@@ -77,7 +81,7 @@ describe('a layout is a table, and says how it was drawn', () => {
   });
 
   it('a table typed by hand has no such record, and says so', () => {
-    expect(errorText(evalFormula('layout_details(t)', '--- table t', 'block,plot,treatment', '1,1,a'))).toMatch(/was not drawn by random_layout or latin_layout/);
+    expect(errorText(evalFormula('layout_details(t)', '--- table t', 'block,plot,treatment', '1,1,a'))).toContain(m.notALayout());
   });
 
   it('a changed seed gives a changed value even where the plots come out the same', () => {
@@ -366,5 +370,74 @@ describe('the charts', () => {
     expect(v.caption).toBe('Power from 2 to 48 blocks; the plan marked has 24 blocks and power 0.817; the dashed line is the power asked for (80%).');
     const r = await renderSvg(v.spec);
     expect(r.warnings).toEqual([]);
+  });
+});
+
+describe('a split-plot layout through a document', () => {
+  const PLAN = 'plan = split_plot_layout(["dry", "irrigated", "mulched"], ["A", "B", "C", "D"], seed: 7, blocks: 4)';
+
+  it('says how it was drawn, with both factors', () => {
+    const d = rec(evalFormula('layout_details(split_plot_layout(["dry", "wet"], [30, 60, 90], seed: 5, blocks: 3))'));
+    expect(d.fields.get('design')).toBe('split plot in randomized complete blocks');
+    expect(d.fields.get('drawn_by')).toBe('split_plot_layout');
+    expect(d.fields.get('seed')).toBe(5);
+    expect(d.fields.get('blocks')).toBe(3);
+    expect(d.fields.get('plots')).toBe(18);
+    expect(toJson(d.fields.get('whole_treatments')!)).toBe('["dry","wet"]');
+    expect(toJson(d.fields.get('sub_treatments')!)).toBe('["30","60","90"]');
+    // numbers given as numbers stay numbers in the layout's column
+    const t = tab(evalFormula('split_plot_layout(["dry", "wet"], [30, 60, 90], seed: 5, blocks: 3)'));
+    const sub = t.columns[t.names.indexOf('sub')]!;
+    expect(sub.type).toBe('number');
+  });
+
+  it('maps each plot labelled with both treatments and coloured by its whole plot', async () => {
+    const v = evalFormula(`layout_chart(${PLAN.slice('plan = '.length)})`) as Chart;
+    const spec = v.spec as { layer: { encoding: { color?: { field: string; title: string; scale: { domain: string[] } } } }[]; data: { values: { t: string; c: string }[] } };
+    expect(spec.data.values.length).toBe(48);
+    expect(spec.layer[0]!.encoding.color!.field).toBe('c');
+    expect(spec.layer[0]!.encoding.color!.title).toBe('whole-plot treatment');
+    expect(spec.layer[0]!.encoding.color!.scale.domain).toEqual(['dry', 'irrigated', 'mulched']);
+    expect(spec.data.values.every((p) => p.t.startsWith(`${p.c} / `))).toBe(true);
+    const r = await renderSvg(v.spec);
+    expect(r.warnings).toEqual([]);
+    expect([...r.svg.matchAll(/<text[^>]*>(dry|irrigated|mulched) \/ [ABCD]<\/text>/g)].length).toBe(48);
+    expect(v.caption).toBe('48 plots in 4 blocks of 12 plots; 12 treatments, each plot labelled with its treatment, coloured by its whole-plot treatment; drawn with seed 7.');
+  });
+
+  it('goes to a run sheet, comes back as data that pass layout_check, and is analysed by split_plot', () => {
+    const { engine } = run(doc('--- formula', PLAN));
+    const sheet = runSheet(tab(valueOf(engine, 'plan')), ['yield']);
+    expect(sheet.split('\n')[0]).toBe('block,whole_plot,plot,whole,sub,treatment,yield');
+    // invented yields: block, whole-plot and subplot effects and a small deterministic scatter
+    const rows = sheet.trimEnd().split('\n').slice(1).map((l) => l.split(','));
+    const effect = (r: string[], i: number): string =>
+      (50 + Number(r[0]) + { dry: -4, irrigated: 3, mulched: 1 }[r[3]!]! + { A: 0, B: 2, C: -1, D: 1.5 }[r[4]!]! + (((i * 37) % 17) - 8) / 10).toFixed(1);
+    const filled = ['block,whole_plot,plot,whole,sub,treatment,yield', ...rows.map((r, i) => [...r.slice(0, 6), effect(r, i)].join(','))].join('\n');
+    const { engine: e2, states } = run(
+      doc('--- formula', PLAN, '--- table harvest', filled, '', '--- formula', 'check = layout_check(harvest, plan)', '--- formula', 'fit = split_plot(harvest.yield, harvest.whole, harvest.sub, harvest.block)'),
+    );
+    expect(rec(valueOf(e2, 'check')).fields.get('holds')).toBe(true);
+    const fit = rec(valueOf(e2, 'fit'));
+    const table = tab(fit.fields.get('table')!);
+    const df = table.columns[table.names.indexOf('df')]!.values as Float64Array;
+    const source = table.columns[table.names.indexOf('source')]!.values as string[];
+    // degrees of freedom of a split plot in b = 4 blocks, w = 3 whole-plot and s = 4 subplot
+    // treatments (the standard partition, from memory): whole_error (b - 1)(w - 1) = 6, the
+    // split-plot error w (b - 1)(s - 1) = 27; with blocks 3, whole 2, sub 3 and their
+    // interaction 6 they add up to the 47 of 48 plots
+    const dfOf = (name: string): number => df[source.indexOf(name)]!;
+    expect(dfOf('whole_error')).toBe(6);
+    expect(dfOf('error')).toBe(27);
+    expect(source.filter((x) => x !== 'total').reduce((a, x) => a + dfOf(x), 0)).toBe(47);
+    // no warning that the data are not a split plot: the layout's whole plots are whole plots
+    expect(states.flatMap((s) => s.warnings)).toEqual([]);
+  });
+
+  it('refuses bad input on its cell, naming the factor', () => {
+    expect(errorText(evalFormula('split_plot_layout(["dry"], ["A", "B"], seed: 1, blocks: 2)'))).toContain(m.ofFactor('whole-plot', m.fewTreatments(1)));
+    expect(errorText(evalFormula('split_plot_layout(["dry", "wet"], ["A", "A"], seed: 1, blocks: 2)'))).toContain(m.ofFactor('subplot', m.duplicateTreatment('A')));
+    expect(errorText(evalFormula('split_plot_layout(["dry", "wet"], ["A", "B"], seed: -1, blocks: 2)'))).toContain(m.seedNotWhole(-1));
+    expect(errorText(evalFormula('split_plot_layout(["dry", "wet"], ["A", "B"], seed: 1, blocks: 0)'))).toContain(m.countNotWhole('blocks', 0, 1));
   });
 });

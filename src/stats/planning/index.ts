@@ -12,7 +12,9 @@ export {
   drawBlocks,
   drawCompletelyRandom,
   drawLatin,
+  drawSplitPlot,
   type BlockLayout,
+  type SplitLayout,
   type PlainLayout,
   type SquareLayout,
 } from './layouts.ts';

@@ -7,6 +7,11 @@
  * - blocks: one shuffle of the treatments per block, block 1 first;
  * - completely randomized: one shuffle of all plots (treatment 1 repeated r times, then
  *   treatment 2, ...);
+ * - split plot: block by block, block 1 first: one shuffle of the whole-plot treatments over
+ *   the block's whole plots, then, whole plot by whole plot in their order in the block, one
+ *   shuffle of the subplot treatments over its subplots (the two-stage randomization of a
+ *   split plot in randomized complete blocks: whole-plot levels at random within each block,
+ *   subplot levels at random within each whole plot, independently);
  * - Latin square: the cyclic standard square L(i, j) = (i + j) mod k; then a shuffle of its
  *   rows, then of its columns, then of the symbols (Fisher and Yates 1938, the randomization
  *   of a standard square: for k <= 3 this reaches every Latin square of that size; for
@@ -88,6 +93,61 @@ export function drawCompletelyRandom(treatments: readonly string[], replicates: 
   for (let t = 0; t < k; t++) for (let r = 0; r < replicates; r++) all.push(t);
   shuffle(all, draws);
   return { plot: Int32Array.from(all, (_, i) => i + 1), treatment: Int32Array.from(all) };
+}
+
+/**
+ * A split-plot layout, plot by plot along each block: its block, its plot within the block
+ * (1 to wholes x subs, along the block), its whole plot within the block, and the indices of
+ * its whole-plot and subplot treatments.
+ */
+export interface SplitLayout {
+  readonly block: Int32Array;
+  readonly plot: Int32Array;
+  readonly wholePlot: Int32Array;
+  readonly whole: Int32Array;
+  readonly sub: Int32Array;
+}
+
+/**
+ * A split plot in `blocks` randomized complete blocks: each block holds one whole plot of
+ * every whole-plot treatment, in a random order, and each whole plot one subplot of every
+ * subplot treatment, in a random order of its own.
+ */
+export function drawSplitPlot(wholes: readonly string[], subs: readonly string[], blocks: number, seed: number): SplitLayout {
+  for (const [which, names] of [['whole-plot', wholes], ['subplot', subs]] as const) {
+    try {
+      checkTreatments(names);
+    } catch (err) {
+      if (err instanceof PlanningError) throw new PlanningError(m.ofFactor(which, err.message));
+      throw err;
+    }
+  }
+  checkCount('blocks', blocks);
+  const w = wholes.length;
+  const k = subs.length;
+  checkPlots(w * k * blocks);
+  const draws = new Draws(seed);
+  const n = w * k * blocks;
+  const block = new Int32Array(n);
+  const plot = new Int32Array(n);
+  const wholePlot = new Int32Array(n);
+  const whole = new Int32Array(n);
+  const sub = new Int32Array(n);
+  for (let b = 0; b < blocks; b++) {
+    const wholeOrder = permutation(w, draws);
+    for (let wp = 0; wp < w; wp++) {
+      const subOrder = permutation(k, draws);
+      for (let s = 0; s < k; s++) {
+        const i = (b * w + wp) * k + s;
+        block[i] = b + 1;
+        plot[i] = wp * k + s + 1;
+        wholePlot[i] = wp + 1;
+        whole[i] = wholeOrder[wp]!;
+        sub[i] = subOrder[s]!;
+      }
+    }
+  }
+  return { block, plot, wholePlot, whole, sub };
 }
 
 /** A Latin square layout: for plot i, its row and column (1-based, row by row) and treatment index. */
