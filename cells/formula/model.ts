@@ -56,6 +56,41 @@ export function emptyFormula(text: string): EmptyFormula | null {
   return null;
 }
 
+/** A change of a formula's text that the page offers as one click. */
+export interface FormulaFix {
+  /** The name the fixed formula defines. */
+  readonly name: string;
+  /** Replace the text from `from` to `to` with `insert`. */
+  readonly from: number;
+  readonly to: number;
+  readonly insert: string;
+}
+
+/**
+ * `value1 = yield_mean = mean(...)`: a name typed after the name a new cell offered. The
+ * fix keeps the name typed and drops the offered one (`yield_mean = mean(...)`); null for
+ * any other text. The page offers it, and changes nothing on its own.
+ */
+export function secondNameFix(text: string): FormulaFix | null {
+  const words: { text: string; type: string; from: number; to: number }[] = [];
+  let pos = 0;
+  while (pos < text.length && words.length < 4) {
+    const s = scanToken(text, pos);
+    if (s.kind === 'error') return null;
+    if (s.kind !== 'token') {
+      pos = s.to;
+      continue;
+    }
+    if (s.token.type === 'end') break;
+    words.push({ text: s.token.text, type: s.token.type, from: s.token.from, to: s.token.to });
+    pos = s.token.to;
+  }
+  if (words.length < 4) return null;
+  const [a, eq1, b, eq2] = words as [(typeof words)[0], (typeof words)[0], (typeof words)[0], (typeof words)[0]];
+  if (a.type !== 'name' || eq1.text !== '=' || b.type !== 'name' || eq2.text !== '=' || !isPlainName(a.text) || !isPlainName(b.text)) return null;
+  return { name: b.text, from: a.from, to: b.from, insert: '' };
+}
+
 /** What a formula defines and reads, and how it evaluates. */
 export function analyseFormula(cell: Cell): CellAnalysis {
   const empty = emptyFormula(cell.body);

@@ -19,7 +19,7 @@ import { FLUSH_EVENT, emitEdit, type CellViewState, type NameCatalogue } from '.
 import { builtinNames, staticTokenCss } from './editor-language.ts';
 import { editorHost, formulaExtensions, formulaSetup, fromDocument, type FormulaEditorHost } from './editor-setup.ts';
 import type { BuiltinInfo } from '../view-api.ts';
-import { emptyFormula } from './model.ts';
+import { emptyFormula, secondNameFix, type FormulaFix } from './model.ts';
 import { startMsg } from '../../src/messages/page.ts';
 import { formulaProblems, parseVisible, type FormulaProblem } from './view-problems.ts';
 import { staticPieces } from './view-static.ts';
@@ -34,8 +34,18 @@ export const REDO_EVENT = 'furrow-redo';
 
 const EMPTY_CATALOGUE: NameCatalogue = { builtins: [], cells: [] };
 
-function toDiagnostic(p: FormulaProblem): Diagnostic {
-  return { from: p.from, to: p.to, severity: p.source === 'upstream' ? 'warning' : 'error', message: p.message };
+function toDiagnostic(p: FormulaProblem, fix: FormulaFix | null): Diagnostic {
+  const d: Diagnostic = { from: p.from, to: p.to, severity: p.source === 'upstream' ? 'warning' : 'error', message: p.message };
+  if (fix === null) return d;
+  return { ...d, actions: [{ name: startMsg.secondNameFix(fix.name), apply: (view) => view.dom.dispatchEvent(new CustomEvent(FIX_EVENT, { detail: fix, bubbles: true, composed: true })) }] };
+}
+
+/** Sent from the editor's own problem tooltip to the cell, which applies the fix as the button does. */
+const FIX_EVENT = 'furrow-formula-fix';
+
+/** The fix the page offers for a formula's problem: only for a parse problem it solves. */
+function fixFor(text: string, p: FormulaProblem | null): FormulaFix | null {
+  return p !== null && p.source === 'parse' ? secondNameFix(text) : null;
 }
 
 /** A formula cell: editor, problems, value. */
@@ -78,6 +88,11 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
     this.catalogue = EMPTY_CATALOGUE;
     this.text = '';
     this.hasEditor = false;
+    // the fix chosen in the editor's own problem tooltip
+    this.addEventListener(FIX_EVENT, (e) => {
+      e.stopPropagation();
+      this.applyFix((e as CustomEvent<FormulaFix>).detail);
+    });
   }
 
   static override styles = [
@@ -138,6 +153,11 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
       }
       .problem.upstream {
         color: var(--upstream);
+      }
+      .problem button.fix {
+        margin-left: 0.5rem;
+        font: inherit;
+        font-size: 0.82rem;
       }
       .status {
         display: flex;
@@ -369,7 +389,7 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
     const key = JSON.stringify(problems);
     if (key === this.shownDiagnostics) return;
     this.shownDiagnostics = key;
-    view.dispatch(setDiagnostics(view.state, problems.map(toDiagnostic)));
+    view.dispatch(setDiagnostics(view.state, problems.map((p) => toDiagnostic(p, fixFor(text, p)))));
   }
 
   private async activate(e: MouseEvent | FocusEvent): Promise<void> {
@@ -408,7 +428,7 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
       ${this.hasEditor ? nothing : this.renderStatic(first)}
       ${first === null
         ? nothing
-        : html`<p class="problem ${first.source === 'upstream' ? 'upstream' : ''}" role="status" aria-live="polite">${first.message}</p>`}
+        : html`<p class="problem ${first.source === 'upstream' ? 'upstream' : ''}" role="status" aria-live="polite">${first.message}${this.renderFix(fixFor(this.text, first))}</p>`}
       ${pending || progress !== null
         ? html`<div class="status" aria-live="polite">
             <span>${pending ? 'updating…' : 'working…'}</span>
@@ -428,6 +448,28 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
           </div>`
         : nothing}
     `;
+  }
+
+  private renderFix(fix: FormulaFix | null) {
+    if (fix === null) return nothing;
+    const offered = this.text.slice(fix.from, fix.to).split('=')[0]!.trim();
+    return html` <button type="button" class="fix" title=${startMsg.secondNameFixTip(fix.name, offered)} @click=${() => this.applyFix(fix)}>${startMsg.secondNameFix(fix.name)}</button>`;
+  }
+
+  /**
+   * Applies a fix as an edit of its own (one undo step that takes back the fix and nothing
+   * typed before it): the typing waiting to be sent goes first, then the fixed text, which
+   * comes back from the shell into the editor like an undo would.
+   */
+  private applyFix(fix: FormulaFix): void {
+    this.flush();
+    const text = this.view?.state.doc.toString() ?? this.text;
+    // the text may have changed since the fix was drawn: offer it again on the text there is
+    const now = secondNameFix(text);
+    if (now === null || now.name !== fix.name) return;
+    const fixed = text.slice(0, now.from) + now.insert + text.slice(now.to);
+    emitEdit(this, { type: 'body', id: this.cell.id, body: freshBody(fixed) });
+    this.view?.focus();
   }
 
   private renderStatic(problem: FormulaProblem | null) {

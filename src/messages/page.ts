@@ -77,6 +77,9 @@ export const startMsg = {
   morePlaceholders: (n: number) => `and ${plural(n, 'other placeholder')}`,
   undo: () => 'Undo',
   formulaEmpty: () => 'empty: write an expression after "=" (cells that read this name see a missing value)',
+  /** The one-click fix of `value1 = my_name = …` (a name typed after the offered one). */
+  secondNameFix: (name: string) => `Name the cell ${name}`,
+  secondNameFixTip: (name: string, offered: string) => `Keep the name you typed, ${name}, and drop the offered name ${offered}`,
 
   // ---- the help panel -----------------------------------------------------------------
   helpButton: () => 'Help',

@@ -109,6 +109,38 @@ export const firstHourTests = [
     },
   },
   {
+    name: 'first hour: a name typed after the offered one gets a one-click fix that keeps the typed name',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      await builtinsArrived(page);
+      await page.locator('furrow-app main > .add button', { hasText: '+ formula' }).click();
+      await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="value1"]') !== null);
+      await settled(page);
+      // a user who names the cell themselves types the name after the offered one
+      await page.keyboard.type('my_total = 2 + 3');
+      await page.waitForTimeout(400);
+      await settled(page);
+      const fix = page.locator('section[data-name="value1"] furrow-formula-cell .problem button.fix');
+      await fix.waitFor({ timeout: 10_000 });
+      check((await fix.innerText()) === 'Name the cell my_total', `the fix says what it does: ${await fix.innerText()}`);
+      // nothing changed on its own: the text is as typed until the fix is chosen
+      check((await formulaText(page, 'value1')) === 'value1 = my_total = 2 + 3', `the text as typed: ${JSON.stringify(await formulaText(page, 'value1'))}`);
+      await fix.click();
+      await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="my_total"]') !== null, null, { timeout: 10_000 });
+      await settled(page);
+      check((await formulaText(page, 'my_total')) === 'my_total = 2 + 3', `the fixed text: ${JSON.stringify(await formulaText(page, 'my_total'))}`);
+      check((await valueText(page, 'my_total')) === '5', `the cell evaluates: ${await valueText(page, 'my_total')}`);
+      check((await page.locator('section[data-name="my_total"] furrow-formula-cell .problem').count()) === 0, 'no problem is left');
+      // one undo step takes the fix back
+      await page.keyboard.press('Control+z');
+      await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="value1"]') !== null, null, { timeout: 10_000 });
+      check((await formulaText(page, 'value1')) === 'value1 = my_total = 2 + 3', `undo brings the typed text back: ${JSON.stringify(await formulaText(page, 'value1'))}`);
+      await page.close();
+    },
+  },
+  {
     name: 'first hour: a cell reading an empty formula sees a missing value, not an error',
     async run({ context, base }) {
       const page = await context.newPage();
