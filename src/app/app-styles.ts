@@ -252,6 +252,11 @@ export const appStyles = css`
     padding-top: 0.6rem;
     border-top: 1px solid var(--rule);
   }
+  .judgement {
+    margin: 1.2rem 0 0 8rem;
+    font-size: 0.8rem;
+    color: var(--muted);
+  }
   .add span {
     color: var(--muted);
     font-size: 0.8rem;
@@ -260,7 +265,8 @@ export const appStyles = css`
   }
   @media (max-width: 720px) {
     header,
-    .add {
+    .add,
+    .judgement {
       margin-left: 0;
     }
     .cell {

@@ -712,6 +712,7 @@ export class FurrowApp extends LitElement {
           <span>Add</span>
           ${ADDABLE.map((k) => html`<button @click=${() => this.addCell(k, this.doc.cells.length)}>+ ${k.label}</button>`)}
         </div>
+        <p class="judgement" role="note">${shellWords.judgement}</p>
       </main>
       ${this.helpOpen ? html`<aside class="help" aria-label=${startMsg.helpHeading()}><furrow-help .catalogue=${catalogue}></furrow-help></aside>` : nothing}
     `;

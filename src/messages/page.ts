@@ -3,7 +3,7 @@
  * cell, opening, saving and keeping documents. Views and tests build them here, so wording
  * changes in one place.
  */
-import { plural } from './words.ts';
+import { JUDGEMENT, plural } from './words.ts';
 
 /** How a cell stands, as its margin says it (empty: nothing to say). */
 export const STATUS_WORDS: ReadonlyMap<string, string> = new Map([
@@ -109,6 +109,8 @@ export const shellWords = {
   loading: 'Loading…',
   samples: 'Samples…',
   caution: 'Caution',
+  /** Under the last cell of every document: the general caution, as the report's footer says it. */
+  judgement: JUDGEMENT,
   newDocument: 'New',
   open: 'Open…',
   save: 'Save',

@@ -2,6 +2,7 @@
  * The words of the HTML report (`furrow report`, and Report in the page): its headings, its
  * verdict, its claims and the captions of what it prints.
  */
+import { JUDGEMENT } from './words.ts';
 
 export const reportMsg = {
   headerWords: [
@@ -28,7 +29,7 @@ export const reportMsg = {
   claimsHeading: () => 'Claims',
   trialHeading: () => 'The trial',
   footer: (engine: string, file: string) =>
-    `Computed by ${engine} from ${file}. This file carries the document itself; open it in Furrow to get the document back. A statistical result supports, and does not replace, the judgement of qualified people and the rules that govern the work.`,
+    `Computed by ${engine} from ${file}. This file carries the document itself; open it in Furrow to get the document back. ${JUDGEMENT}`,
   doubtNote: (claims: readonly string[]) => `Marked numbers are read by a claim that does not hold: ${claims.map((c) => `“${c}”`).join('; ')}.`,
   anovaCaption: () => 'Analysis of variance',
   anovaHeads: () => ['source', 'df', 'sum of squares', 'mean square', 'F', 'p'] as const,

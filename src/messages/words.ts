@@ -20,3 +20,9 @@ export function listWords(words: readonly string[], conj = 'and'): string {
 export function plural(n: number, one: string, many = `${one}s`): string {
   return `${countText(n)} ${n === 1 ? one : many}`;
 }
+
+/**
+ * Said under every trial, in the page and in the report: the one sentence, kept in one place
+ * so the two never drift apart.
+ */
+export const JUDGEMENT = 'A statistical result supports, and does not replace, the judgement of qualified people and the rules that govern the work.';

@@ -141,6 +141,20 @@ export const firstHourTests = [
     },
   },
   {
+    name: 'under every document, caution declared or not, the page says that a statistical result does not replace qualified judgement',
+    async run({ context, base }) {
+      const page = await context.newPage();
+      await page.goto(`${base}/?fresh`);
+      await settled(page);
+      await openDocument(page, 'furrow 1\ntitle: No caution declared\n\n--- formula\nx = 1\n', 'plain.furrow');
+      await page.waitForFunction(() => /No caution declared/.test(document.querySelector('furrow-app').shadowRoot.querySelector('textarea.title')?.value ?? ''));
+      const line = await page.locator('furrow-app main p.judgement').innerText();
+      check(/supports, and does not replace, the judgement of qualified people/.test(line), `the line under the document: ${JSON.stringify(line)}`);
+      check((await page.locator('furrow-app header .caution').count()) === 0, 'no caution box without a caution header');
+      await page.close();
+    },
+  },
+  {
     name: 'first hour: a cell reading an empty formula sees a missing value, not an error',
     async run({ context, base }) {
       const page = await context.newPage();
