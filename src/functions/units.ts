@@ -13,8 +13,12 @@
  *    binary arithmetic gives 1004.9999999999999 and 211.99999999999997. A column that kept
  *    its typed texts keeps the converted texts, so the exact decimal shift of the sums of
  *    squares (docs/language.md section 5) still applies after a conversion.
- * 3. Any other scale (lb/acre to kg/ha, psi to Pa) multiplies in floating point, one
- *    rounding; degF to degC, whose scale is 5/9, is converted by mathjs value by value.
+ * 3. From degF to degC or K the scale is 5/9: nine times the scale and nine times the offset
+ *    are short decimals (5 and -160; 5 and 2298.35), so each value is (x * 5 + offset) / 9
+ *    on its decimal digits, rounded once: 212 degF is 373.15 K and 95.9 degF 35.5 degC,
+ *    where binary arithmetic gives 373.15000000000003 and 35.50000000000001.
+ * 4. Any other scale (lb/acre to kg/ha, psi to Pa) multiplies in floating point, one
+ *    rounding.
  *
  * mathjs is loaded at the first conversion, never at start (see `unitMath`).
  */
@@ -23,7 +27,7 @@ import { UsageError } from '../lang/errors.ts';
 import { msg } from '../messages/language.ts';
 import type { Builtin } from '../lang/builtins.ts';
 import { MISSING, decimalAt, isMissing, numberColumn, type NumberColumn, type Value } from '../lang/values.ts';
-import { readDecimal, roundScaledInteger, type ExactDecimal } from '../stats/decimal/index.ts';
+import { readDecimal, roundQuotient, roundScaledInteger, type ExactDecimal } from '../stats/decimal/index.ts';
 
 /** What convert needs of mathjs: its factory functions for the unit system. */
 export interface UnitLibrary {
@@ -119,6 +123,12 @@ export interface UnitConversion {
    * otherwise.
    */
   readonly exact: { readonly scale: ExactDecimal; readonly offset: ExactDecimal } | null;
+  /**
+   * When the scale and offset are not short decimals but nine times each is (degF to degC:
+   * 5 and -160; degF to K: 5 and 2298.35): each value is then converted as
+   * (x * scale9 + offset9) / 9 on its decimal digits, rounded once. Null otherwise.
+   */
+  readonly ninths: { readonly scale9: ExactDecimal; readonly offset9: ExactDecimal } | null;
 }
 
 /** Significant digits up to which a factor counts as a short decimal. */
@@ -160,12 +170,15 @@ export function unitConversion(from: string, to: string): UnitConversion {
   const exactScale = shortDecimal(scale);
   const exactOffset = shortDecimal(offset);
   const exact = exactScale !== null && exactOffset !== null ? { scale: exactScale, offset: exactOffset } : null;
+  const scale9 = exact === null ? shortDecimal(scale * 9) : null;
+  const offset9 = exact === null ? shortDecimal(offset * 9) : null;
   return {
     from,
     to,
     scale: exact === null ? scale : roundScaledInteger(exact.scale.significand, exact.scale.scale),
     offset: exact === null ? offset : roundScaledInteger(exact.offset.significand, exact.offset.scale),
     exact,
+    ninths: scale9 !== null && offset9 !== null ? { scale9, offset9 } : null,
   };
 }
 
@@ -186,14 +199,28 @@ function decimalText(significand: bigint, scale: number): string {
 function exactlyConverted(text: string, c: { scale: ExactDecimal; offset: ExactDecimal }): { value: number; text: string } {
   const d = readDecimal(text);
   if (d === null) return { value: NaN, text: '' };
-  let significand = d.significand * c.scale.significand;
-  let scale = d.scale + c.scale.scale;
-  if (c.offset.significand !== 0n) {
-    const low = Math.min(scale, c.offset.scale);
-    significand = significand * 10n ** BigInt(scale - low) + c.offset.significand * 10n ** BigInt(c.offset.scale - low);
-    scale = low;
+  const r = scaledAndOffset(d, c.scale, c.offset);
+  return { value: roundScaledInteger(r.significand, r.scale), text: decimalText(r.significand, r.scale) };
+}
+
+/** `significand * 10^scale`, the exact decimal `text * scale + offset`, as BigInt and power of ten. */
+function scaledAndOffset(d: ExactDecimal, scale: ExactDecimal, offset: ExactDecimal): { significand: bigint; scale: number } {
+  let significand = d.significand * scale.significand;
+  let power = d.scale + scale.scale;
+  if (offset.significand !== 0n) {
+    const low = Math.min(power, offset.scale);
+    significand = significand * 10n ** BigInt(power - low) + offset.significand * 10n ** BigInt(offset.scale - low);
+    power = low;
   }
-  return { value: roundScaledInteger(significand, scale), text: decimalText(significand, scale) };
+  return { significand, scale: power };
+}
+
+/** `(text * scale9 + offset9) / 9`, exactly, as the nearest double. */
+function ninthsConverted(text: string, c: { scale9: ExactDecimal; offset9: ExactDecimal }): number {
+  const d = readDecimal(text);
+  if (d === null) return NaN;
+  const r = scaledAndOffset(d, c.scale9, c.offset9);
+  return r.scale >= 0 ? roundQuotient(r.significand * 10n ** BigInt(r.scale), 9n) : roundQuotient(r.significand, 9n * 10n ** BigInt(-r.scale));
 }
 
 /** Converts one number. */
@@ -201,6 +228,7 @@ function convertNumber(x: number, c: UnitConversion): number {
   // infinities, NaN and zeros (whose sign a decimal text drops) need no digits
   const plain = !Number.isFinite(x) || (x === 0 && c.offset === 0);
   if (!plain && c.exact !== null) return exactlyConverted(String(x), c.exact).value;
+  if (!plain && c.ninths !== null) return ninthsConverted(String(x), c.ninths);
   if (c.offset === 0) return x * c.scale;
   // between temperature scales of different degree sizes, as mathjs converts them
   return unitMath().unit(x, c.from.trim()).toNumber(c.to.trim());
@@ -270,7 +298,7 @@ export const UNITS: readonly Builtin[] = [
     returns: 'a number, or a column of the same length',
     doc:
       'Converts values from one unit to another with the unit system of mathjs: SI units with their prefixes, written as in the SI (kg, t, ha, m^2, MPa, N/mm^2, degC, K) and joined by / * and ^, and common non-SI units (lb, acre, psi, degF). t is the tonne (1000 kg); ton is the short ton of 2000 lb. ' +
-      'Units of different quantities are an error. When the factor is a short decimal (t/ha to kg/ha, MPa to Pa, lb to kg, degC to K or degF) each value is converted exactly on its decimal digits as it reads, and a table column keeps its typed digits through it; other factors (lb/acre to kg/ha, psi to Pa) multiply in floating point. ' +
+      'Units of different quantities are an error. When the factor is a short decimal (t/ha to kg/ha, MPa to Pa, lb to kg, degC to K or degF) each value is converted exactly on its decimal digits as it reads, and a table column keeps its typed digits through it; from degF to degC or K (a factor of 5/9) each value is converted exactly as ninths of its digits and rounded once; other factors (lb/acre to kg/ha, psi to Pa) multiply in floating point. ' +
       'A column whose header ends with its unit in parentheses needs only the unit to convert to, and the result is named with the new unit.',
     example: 'convert(trees["yield (t/ha)"], to: "kg/ha")',
     run: (args) => {

@@ -117,9 +117,28 @@ describe('convert: units outside the SI', () => {
     expect(num('100', 'degC', 'degF')).toBe(212);
     expect(num('-40', 'degC', 'degF')).toBe(-40);
     expect(num('37', 'degC', 'degF')).toBe(98.6);
-    // the other way the factor is 5/9, which no decimal holds: mathjs converts it in binary
-    relClose(num('212', 'degF', 'degC'), 100, 1e-15);
-    relClose(num('32', 'degF', 'K'), 273.15, 1e-15);
+    // the other way the factor is 5/9, which no decimal holds: converted as (x * 5 - 160) / 9
+    // on the decimal digits, rounded once, the same definition read backwards
+    expect(num('212', 'degF', 'degC')).toBe(100);
+    expect(num('32', 'degF', 'K')).toBe(273.15);
+  });
+
+  it('from degrees Fahrenheit: each value the correctly rounded double of the exact ninths', () => {
+    // definition: t/degC = (t/degF - 32) / 1.8 and T/K = (t/degF + 459.67) / 1.8 (NIST SP 811
+    // Appendix B.9, from memory). Expected values: Python 3's fractions module, the exact
+    // rational of each definition turned into the nearest double by float() (correctly
+    // rounded). Binary arithmetic missed several by a unit in the last place: 95.9 degF
+    // came out 35.50000000000001 degC and 212 degF 373.15000000000003 K.
+    const xs = ['50', '68', '77', '86', '104', '212', '-40', '0', '451', '59', '41', '95.9', '37.4', '98.6', '-459.67', '0.1', '1e3', '123.456', '-17.5', '350', '1.005'];
+    const celsius = [10.0, 20.0, 25.0, 30.0, 40.0, 100.0, -40.0, -17.77777777777778, 232.77777777777777, 15.0, 5.0, 35.5, 3.0, 37.0, -273.15, -17.72222222222222, 537.7777777777778, 50.80888888888889, -27.5, 176.66666666666666, -17.219444444444445];
+    const kelvin = [283.15, 293.15, 298.15, 303.15, 313.15, 373.15, 233.15, 255.37222222222223, 505.9277777777778, 288.15, 278.15, 308.65, 276.15, 310.15, 0.0, 255.42777777777778, 810.9277777777778, 323.9588888888889, 245.65, 449.81666666666666, 255.93055555555554];
+    xs.forEach((x, i) => {
+      expect(num(x, 'degF', 'degC'), `${x} degF in degC`).toBe(celsius[i]);
+      expect(num(x, 'degF', 'K'), `${x} degF in K`).toBe(kelvin[i]);
+    });
+    // a column converts element by element the same way
+    const col = evalFormula(`convert([${xs.join(', ')}], "degF", "K")`) as NumberColumn;
+    expect(Array.from(col.values)).toEqual(kelvin);
   });
 });
 

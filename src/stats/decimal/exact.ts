@@ -75,9 +75,19 @@ function bitLength(n: bigint): number {
 export function roundScaledInteger(integer: bigint, scale: number): number {
   if (integer === 0n) return 0;
   if (scale >= 0) return Number(integer * 10n ** BigInt(scale));
-  const negative = integer < 0n;
-  const num = negative ? -integer : integer;
-  const den = 10n ** BigInt(-scale);
+  return roundQuotient(integer, 10n ** BigInt(-scale));
+}
+
+/**
+ * The correctly rounded double (round to nearest, ties to even) of the rational
+ * `numerator / denominator` (denominator positive), on BigInt with a sticky bit.
+ */
+export function roundQuotient(numerator: bigint, denominator: bigint): number {
+  if (denominator <= 0n) throw new RangeError('roundQuotient: the denominator must be positive');
+  if (numerator === 0n) return 0;
+  const negative = numerator < 0n;
+  const num = negative ? -numerator : numerator;
+  const den = denominator;
   // Enough quotient bits (>= 55) that a sticky bit sits below the rounding position.
   const shift = Math.max(0, 56 + bitLength(den) - bitLength(num));
   const scaled = num << BigInt(shift);

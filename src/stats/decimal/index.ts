@@ -4,7 +4,7 @@
  */
 export { shiftDecimals, shiftReading, readDecimals, readDecimalsAgain, DecimalTextError, type DecimalReading } from './shift.ts';
 export type { DecimalShift } from './shift.ts';
-export { decimalOfDouble, exactDecimalText, roundScaledInteger } from './exact.ts';
+export { decimalOfDouble, exactDecimalText, roundQuotient, roundScaledInteger } from './exact.ts';
 export type { DecimalOfDouble } from './exact.ts';
 export { readDecimal, scanDecimal, scanDecimalIn, newDecimalScan } from './scan.ts';
 export type { DecimalScan, ExactDecimal, TextRanges } from './scan.ts';
