@@ -46,10 +46,15 @@ export class ColumnTextHelper implements ColumnBytes {
     });
   }
 
-  /** Ends the helper thread (the process can end without it). */
+  /**
+   * Ends the helper thread (the process can end without it). Called once the output is
+   * written, or has failed: answers still owed are dropped, not made here instead.
+   */
   close(): void {
     const w = this.worker;
     this.worker = null;
+    this.started = true;
+    this.jobs.clear();
     if (w !== null) void w.terminate();
   }
 

@@ -41,8 +41,13 @@ export function jsonText(s: string): string {
   return JSON.stringify(s);
 }
 
-/** The longest canonical text of one number ("-2.2250738585072014e-308") and its comma. */
-const MOST_BYTES_PER_NUMBER = 25;
+/**
+ * Room for one number's canonical text and its comma, enough for every double: the longest
+ * texts are 25 characters, a 17-digit negative number between 1e-6 and 1e-5
+ * ("-0.0000012345678901234567"); exponent forms take at most 24 ("-2.2250738585072014e-308").
+ * The writer checks the room anyway and grows its buffer, so a miscount can never cut a text.
+ */
+const MOST_BYTES_PER_NUMBER = 26;
 
 /**
  * The elements `from` to `to` of a number column's canonical JSON, comma-separated without
@@ -51,18 +56,16 @@ const MOST_BYTES_PER_NUMBER = 25;
  * joining strings and encoding them afterwards costs as much as making the texts.
  */
 export function numbersJsonBytes(values: Float64Array, missing: Uint8Array | null, from = 0, to = values.length): Uint8Array {
-  const out = new Uint8Array(Math.max(0, to - from) * MOST_BYTES_PER_NUMBER);
+  let out = new Uint8Array(Math.max(0, to - from) * MOST_BYTES_PER_NUMBER);
   let o = 0;
   for (let i = from; i < to; i++) {
-    if (i > from) out[o++] = 44; // ,
-    if (missing !== null && missing[i] === 1) {
-      out[o++] = 110; // null
-      out[o++] = 117;
-      out[o++] = 108;
-      out[o++] = 108;
-      continue;
+    const text = missing !== null && missing[i] === 1 ? 'null' : jsonNumber(values[i]!);
+    if (o + text.length + 1 > out.length) {
+      const bigger = new Uint8Array(out.length * 2 + text.length + 1);
+      bigger.set(out.subarray(0, o));
+      out = bigger;
     }
-    const text = jsonNumber(values[i]!);
+    if (i > from) out[o++] = 44; // ,
     for (let j = 0; j < text.length; j++) out[o++] = text.charCodeAt(j);
   }
   return out.subarray(0, o);

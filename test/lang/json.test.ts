@@ -177,7 +177,8 @@ describe('number and boolean elements as bytes', () => {
   });
 
   it('cover the longest texts a number has, and booleans with missing marks', () => {
-    const extremes = [-Number.MAX_VALUE, -Number.MIN_VALUE, -2.2250738585072014e-308, -1.2345678901234567e-300, -0, NaN, -Infinity, 123456789012345680000];
+    // the longest texts of all: 17 digits after "-0.00000" (25 characters), then exponent forms
+    const extremes = [-0.0000012345678901234567, -9.999999999999999e-6, -Number.MAX_VALUE, -Number.MIN_VALUE, -2.2250738585072014e-308, -1.2345678901234567e-300, -0, NaN, -Infinity, 123456789012345680000];
     const c = numberColumn(Float64Array.from(extremes));
     expect(new TextDecoder().decode(numbersJsonBytes(c.values, null))).toBe(between(c, 0, extremes.length));
     expect(new TextDecoder().decode(numbersJsonBytes(c.values, null))).toContain('-2.2250738585072014e-308,-1.2345678901234568e-300,-0,"NaN","-Infinity"');
@@ -185,5 +186,21 @@ describe('number and boolean elements as bytes', () => {
     expect(new TextDecoder().decode(booleansJsonBytes(b.values, b.missing))).toBe('true,false,null,false');
     expect(new TextDecoder().decode(booleansJsonBytes(b.values, b.missing, 1, 3))).toBe(between(b, 1, 3));
     expect(numbersJsonBytes(new Float64Array(0), null).length).toBe(0);
+  });
+
+  it('lose no digit in a column where every text is as long as a number can be', () => {
+    // 20,000 negative numbers between 1e-6 and 1e-5 that need 17 digits: 25 characters each
+    const n = 20_000;
+    const values = Float64Array.from({ length: n }, (_, i) => -(1.2345678901234567e-6 + i * 3.3e-16));
+    expect(values.every((x) => jsonNumber(x).length === 25)).toBe(true);
+    const c = numberColumn(values);
+    expect(new TextDecoder().decode(numbersJsonBytes(c.values, null))).toBe(between(c, 0, n));
+    fc.assert(
+      fc.property(fc.array(fc.double({ min: -1e-5, max: -1e-6, noNaN: true }), { maxLength: 40 }), (xs) => {
+        const col = numberColumn(Float64Array.from(xs));
+        expect(new TextDecoder().decode(numbersJsonBytes(col.values, null))).toBe(between(col, 0, xs.length));
+      }),
+      { numRuns: 500 },
+    );
   });
 });
