@@ -465,7 +465,7 @@ export class FurrowApp extends LitElement {
     this.arrivals.replaceWith(o.files);
     this.renaming = null;
     this.store.load(doc);
-    const missing = [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
+    const missing = this.missingFiles(doc);
     this.banner =
       o.original !== undefined
         ? { kind: 'info', text: o.notice ?? '', actions: [{ label: pageMsg.openOriginal(), run: () => void this.openOriginal(o.original!.name, o.original!.text) }] }
@@ -477,6 +477,17 @@ export class FurrowApp extends LitElement {
     return true;
   }
 
+  /** The data files a document's tables name that the page does not have. */
+  private missingFiles(doc: Document): string[] {
+    return [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
+  }
+
+  /** After files were taken back: the banner says which are still missing, or that the document opened. */
+  private sayMissingFiles(fileName: string): void {
+    const missing = this.missingFiles(this.doc);
+    this.banner = missing.length > 0 ? { kind: 'info', text: pageMsg.openedMissingFiles(fileName, missing) } : { kind: 'info', text: pageMsg.opened(fileName) };
+  }
+
   /** Opens a document's text read from a file (or dropped): its slot is the file's name. */
   openText(text: string, fileName: string): boolean {
     // a report made by Furrow carries its document and CSV files: it opens as that document
@@ -486,9 +497,11 @@ export class FurrowApp extends LitElement {
     const opened = this.open({ key, text, fileName, files: report?.files ?? [] });
     if (!opened) return false;
     if (this.banner === null) this.banner = { kind: 'info', text: pageMsg.opened(fileName) };
-    // a kept state of the same file with other text (edits never saved to it) is kept aside
+    // a kept state of the same file with other text (edits never saved to it) is kept aside;
+    // with the same text, the data files attached to it are taken back
     void loadSaved(key).then(async (kept) => {
       if (kept !== null && kept.text !== text) await this.keeper.keepAside(kept);
+      else if (kept !== null && this.keeper.key === key && this.arrivals.restore(kept.files).length > 0) this.sayMissingFiles(fileName);
       this.keeper.touch();
       await this.refreshKept();
     });

@@ -41,17 +41,34 @@ export class ArrivingFiles {
   /**
    * The files of a document being opened: they replace the files of the document open before
    * (which were kept with it, in its own slot), so that a table of this document never reads
-   * another trial's file of the same name. Sends the change to the worker.
+   * another trial's file of the same name. The worker forgets every file that goes or changes
+   * at once, before the document is sent to it; the new texts follow (a Parquet file once it
+   * is decoded), and the tables that read them evaluate again.
    */
   replaceWith(files: ReadonlyArray<readonly [string, string]>): void {
     const coming = new Map(files);
-    for (const name of [...this.files.keys()]) {
-      if (coming.has(name)) continue;
+    for (const [name, stored] of [...this.files]) {
+      if (coming.get(name) === stored) continue;
       this.files.delete(name);
       this.host.toWorker(name, undefined);
     }
-    for (const [name, stored] of files) this.files.set(name, stored);
-    this.send(files);
+    const changed = files.filter(([name, stored]) => this.files.get(name) !== stored);
+    for (const [name, stored] of changed) this.files.set(name, stored);
+    this.send(changed);
+  }
+
+  /**
+   * Files kept in the browser with the very text of the document just opened (it was opened
+   * again from a file or the samples, which do not carry them): taken back, so that they are
+   * not lost at the next save. A file of the same name the opening brought stays.
+   */
+  restore(files: ReadonlyArray<readonly [string, string]>): string[] {
+    const taken = files.filter(([name]) => !this.files.has(name));
+    if (taken.length === 0) return [];
+    for (const [name, stored] of taken) this.files.set(name, stored);
+    this.send(taken);
+    this.host.touched();
+    return taken.map(([name]) => name);
   }
 
   /** Files kept by the page, sent to the worker as the text its tables read (Parquet decoded). */

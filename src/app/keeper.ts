@@ -106,7 +106,8 @@ export class DocumentKeeper {
     if (kept !== null && kept.text !== original) {
       return { key: kept.key, text: kept.text, fileName: name, files: kept.files, notice: pageMsg.editedSampleOpen(name), original: { name, text: original } };
     }
-    return { key: sampleKey(name), text: original, fileName: name, files: [] };
+    // the sample as it came, with any data files attached to it since
+    return { key: sampleKey(name), text: original, fileName: name, files: kept?.files ?? [] };
   }
 
   /**

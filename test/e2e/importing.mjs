@@ -76,6 +76,16 @@ export function importingTests() {
         const banner = await page.locator('furrow-app .banner').innerText().catch(() => '');
         check(/plots\.csv/.test(banner), `the page says which file is missing: ${JSON.stringify(banner)}`);
         check(!/\b4\b/.test(await cellText(page, 'second_total')), `no total from the first trial's file: ${await cellText(page, 'second_total')}`);
+        // the first trial opened again from its file, which carries no data: the file attached
+        // to it is taken back from the browser's keeping, not lost
+        await openDocument(page, named('First trial', 'first_total'), 'first.furrow');
+        await page.waitForFunction(() => /First trial/.test(document.querySelector('furrow-app').shadowRoot.querySelector('textarea.title')?.value ?? ''));
+        await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="plots"]')?.dataset.status === 'ok', null, { timeout: 20_000 });
+        await settled(page);
+        check(/\b4\b/.test(await cellText(page, 'first_total')), `the first trial reads its own file again: ${await cellText(page, 'first_total')}`);
+        await page.evaluate(() => document.querySelector('furrow-app').keeper.flush());
+        const keptFiles = await page.evaluate(() => document.querySelector('furrow-app').files.get('plots.csv') ?? null);
+        check(keptFiles === 'y\n1.5\n2.5\n', `the page holds the file again: ${JSON.stringify(keptFiles)}`);
         await page.close();
       },
     },
