@@ -293,12 +293,16 @@ export const PLANNING: readonly Builtin[] = [
     returns: 'a table: block, whole_plot, plot, whole, sub, treatment',
     doc: 'Draws a split plot in randomized complete blocks from a seed: in each block the whole-plot treatments are shuffled over the whole plots, and in each whole plot the subplot treatments are shuffled over its subplots, each whole plot with an order of its own. `plot` numbers the subplots along the block (whole plot 1 first), `whole_plot` the whole plots within the block, and `treatment` names each plot’s pair as whole / sub for the map, the run sheet and layout_check. Analyse the measurements with split_plot(y, data.whole, data.sub, data.block). Same generator, algorithm and guarantee as random_layout; at most 1,000,000 plots.',
     example: 'split_plot_layout(["dry", "irrigated"], ["A", "B", "C"], seed: 7, blocks: 4)',
-    run: (a) => {
+    run: (a, ctx) => {
       const wholes = treatmentNames(a.get('whole') as Column);
       const subs = treatmentNames(a.get('sub') as Column);
       const seed = guarded(() => checkSeed(num(a, 'seed')));
       const blocks = num(a, 'blocks');
       const l = guarded(() => drawSplitPlot(wholes.names, subs.names, blocks, seed));
+      const pairs = wholes.names.flatMap((w) => subs.names.map((s) => m.splitPlotLabel(w, s)));
+      const clash = pairs.find((p, i) => pairs.indexOf(p) !== i);
+      if (clash !== undefined) throw new UsageError(`${m.splitLabelsClash(clash)}.`);
+      if (blocks === 1) ctx.warn(`${m.splitOneBlock()}.`);
       const label = Array.from(l.whole, (w, i) => m.splitPlotLabel(wholes.names[w]!, subs.names[l.sub[i]!]!));
       const t = table(
         ['block', 'whole_plot', 'plot', 'whole', 'sub', 'treatment'],
@@ -316,7 +320,7 @@ export const PLANNING: readonly Builtin[] = [
           ['design', 'split plot in randomized complete blocks'],
           ['drawn_by', 'split_plot_layout'],
           ['seed', seed],
-          ['treatments', textColumn(wholes.names.flatMap((w) => subs.names.map((s) => m.splitPlotLabel(w, s))))],
+          ['treatments', textColumn(pairs)],
           ['whole_treatments', textColumn([...wholes.names])],
           ['sub_treatments', textColumn([...subs.names])],
           ['blocks', blocks],
@@ -333,7 +337,7 @@ export const PLANNING: readonly Builtin[] = [
     name: 'layout_details',
     category: 'planning',
     params: [{ name: 'layout', type: 'table', doc: 'A layout made by random_layout, latin_layout or split_plot_layout.' }],
-    returns: 'a record: design drawn_by seed treatments blocks (or replicates, size) plots generator algorithm',
+    returns: 'a record: design drawn_by seed treatments blocks (or replicates, size) plots generator algorithm; for a split plot also whole_treatments sub_treatments',
     doc: 'How a layout was drawn: its design, the function and seed that drew it, its treatments and size, and the generator and shuffle used, so a reviewer can draw it again. A table that was not drawn by a layout function (or was filtered since) has no such record.',
     example: 'layout_details(plan)',
     run: (a) => {

@@ -50,6 +50,12 @@ export const planningMsg = {
     `${inData ? 'the data hold' : 'the layout holds'} ${plot} more than once (rows ${firstRow} and ${row}), so it cannot be matched plot for plot; ${inData ? 'a plot is measured once: correct or remove the repeated row' : 'a layout has each plot once'}`,
   /** A problem with one factor's treatments of a split plot (`which`: "whole-plot", "subplot"). */
   ofFactor: (which: string, problem: string) => `the ${which} treatments: ${problem}`,
+  /** A split plot drawn in one block: nothing to test the whole-plot treatments against. */
+  splitOneBlock: () =>
+    'with one block the whole-plot treatments have no replicate: split_plot will have no whole_error to test them against (no F, no p). Draw at least two blocks',
+  /** Two pairs of a split plot would share a label (a name holds the separator). */
+  splitLabelsClash: (label: string) =>
+    `two pairs of treatments would both be labelled ${q(label)}, so the map and layout_check could not tell them apart; rename a treatment so that it does not hold " / "`,
   /** The label of a split-plot plot: its whole-plot and subplot treatments. */
   splitPlotLabel: (whole: string, sub: string) => `${whole} / ${sub}`,
   bothCounts: () => 'give either blocks (a randomized complete block plan) or replicates (a completely randomized plan), not both',

@@ -20,8 +20,10 @@ describe('the fix for a second name', () => {
     expect(secondNameFix(text)?.name).toBe('yield_mean');
     expect(fixed(text)).toBe('yield_mean = mean(plots.y)');
     expect(parseFormula(fixed(text)!).error).toBeNull();
-    // spacing, line breaks and a comment before the name are kept as typed
+    // spacing before the offered name, and everything from the typed name on, are kept as typed
     expect(fixed('  value2 =\n  total=sum(x) # all plots')).toBe('  total=sum(x) # all plots');
+    // what lies between the offered name and the typed one goes with the offered name
+    expect(fixed('value1 = # why\ntotal = 1')).toBe('total = 1');
     expect(fixed('value1 = gain = ')).toBe('gain = ');
   });
 

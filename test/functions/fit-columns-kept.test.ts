@@ -1,9 +1,9 @@
 /**
  * A fit's fitted values, residuals and studentized residuals are columns that share the
  * fit's own arrays (src/functions/fits.ts `spread`, to spare a million-row fit three copies).
- * That is safe only while nothing writes those arrays afterwards: this runs every built-in
- * that reads a fit's residuals (checks, charts, comparisons) and holds the fit's columns to
- * the values they had before, bit for bit.
+ * That is safe only while nothing writes those arrays afterwards: this runs the built-ins
+ * that read a fit's residuals and fitted values (checks, charts, summaries), and a comparison,
+ * and holds the fit's columns to the values they had before, bit for bit.
  */
 import { describe, expect, it } from 'vitest';
 import type { NumberColumn, RecordValue, Value } from '../../src/lang/values.ts';
@@ -25,7 +25,7 @@ function column(v: Value | undefined, field: string): NumberColumn {
 }
 
 describe("a fit's own columns", () => {
-  it('are not written by the built-ins that read them', () => {
+  it('are not written by the built-ins that read its residuals', () => {
     const rows = GRAFT.flatMap((ys, p) => ys.map((y, b) => `${8500 + 200 * p},${b + 1},${y}`));
     // first the fit alone, then the same fit followed by every reader of its residuals
     const fitOnly = doc('--- table graft', 'pressure,batch,yield_pct', ...rows, '', '--- formula', 'fit = blocked(graft.yield_pct, graft.pressure, graft.batch)');

@@ -439,5 +439,17 @@ describe('a split-plot layout through a document', () => {
     expect(errorText(evalFormula('split_plot_layout(["dry", "wet"], ["A", "A"], seed: 1, blocks: 2)'))).toContain(m.ofFactor('subplot', m.duplicateTreatment('A')));
     expect(errorText(evalFormula('split_plot_layout(["dry", "wet"], ["A", "B"], seed: -1, blocks: 2)'))).toContain(m.seedNotWhole(-1));
     expect(errorText(evalFormula('split_plot_layout(["dry", "wet"], ["A", "B"], seed: 1, blocks: 0)'))).toContain(m.countNotWhole('blocks', 0, 1));
+    // two pairs that would share a label cannot be told apart on the map or by layout_check
+    expect(errorText(evalFormula('split_plot_layout(["a / b", "a"], ["c", "b / c"], seed: 1, blocks: 2)'))).toContain(m.splitLabelsClash('a / b / c'));
+    // a name that holds the separator is fine while every label stays its own
+    expect(isTable(evalFormula('split_plot_layout(["N / P", "none"], ["early", "late"], seed: 1, blocks: 2)'))).toBe(true);
+  });
+
+  it('drawn in one block, says that the whole-plot treatments will have nothing to be tested against', () => {
+    const { states } = run(doc('--- formula', 'plan = split_plot_layout(["dry", "wet"], ["A", "B", "C"], seed: 3, blocks: 1)'));
+    expect(states[0]!.error).toBeNull();
+    expect(states[0]!.warnings).toEqual([`${m.splitOneBlock()}.`]);
+    const { states: two } = run(doc('--- formula', 'plan = split_plot_layout(["dry", "wet"], ["A", "B", "C"], seed: 3, blocks: 2)'));
+    expect(two[0]!.warnings).toEqual([]);
   });
 });
