@@ -7,7 +7,7 @@ import { UsageError } from '../lang/errors.ts';
 import { msg } from '../messages/language.ts';
 import { plural } from '../messages/words.ts';
 import { pickDecimals, type Column, type NumberColumn, type Value } from '../lang/values.ts';
-import { readDecimals, readDecimalsAgain, shiftDecimals, shiftReading, type DecimalReading } from '../stats/decimal/index.ts';
+import { readDecimals, readDecimalsAgainInPlace, shiftDecimals, shiftReading, type DecimalReading } from '../stats/decimal/index.ts';
 import { columnChangeOf } from '../lang/column-changes.ts';
 import type { CallContext } from '../lang/builtins.ts';
 import { fnMsg } from '../messages/functions.ts';
@@ -140,6 +140,11 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
  * The decimal texts of whole columns, read once: analyses of one column (or a column an
  * edit changed in a few rows, read again in those rows only) do not read its texts again.
  * Null when a text is not plain decimal.
+ *
+ * The readings are this cache's alone (responseOf copies what it shifts), so a column made
+ * from another by an edit takes over the other's reading and writes its changed rows into
+ * it; the other's entry is dropped first, and should that column be analysed again its
+ * texts, which never change, are read afresh.
  */
 const readings = new WeakMap<NumberColumn, DecimalReading | null>();
 
@@ -149,8 +154,12 @@ function readingOf(c: NumberColumn): DecimalReading | null {
   let r: DecimalReading | null = null;
   try {
     const change = columnChangeOf(c);
-    const base = change === undefined ? undefined : readings.get(change.base as NumberColumn);
-    r = base ? readDecimalsAgain(base, c.decimals!, change!.rows) : readDecimals(c.decimals!);
+    const baseColumn = change?.base as NumberColumn | undefined;
+    const base = baseColumn === undefined ? undefined : readings.get(baseColumn);
+    if (base) {
+      readings.delete(baseColumn!);
+      r = readDecimalsAgainInPlace(base, c.decimals!, change!.rows);
+    } else r = readDecimals(c.decimals!);
   } catch {
     r = null;
   }
