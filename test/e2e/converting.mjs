@@ -27,7 +27,7 @@ export const convertingTests = [
         '',
         '--- formula',
         // the values Node gives (test/functions/units.test.ts runs there): a sealed document verifies in both
-        'drift = abs(convert(1, "psi", "Pa") - 6894.757293168362) + abs(convert(1, "lb/acre", "kg/ha") - 1.1208511561944559) + abs(convert(3.7, "psi", "kPa") - 25.51060198472294) + abs(convert(1, "MPa", "psi") - 145.03773773020922) + abs(convert(98.6, "degF", "K") - 310.15000000000003)',
+        'drift = abs(convert(1, "psi", "Pa") - 6894.757293168362) + abs(convert(1, "lb/acre", "kg/ha") - 1.1208511561944559) + abs(convert(3.7, "psi", "kPa") - 25.51060198472294) + abs(convert(1, "MPa", "psi") - 145.03773773020922) + abs(convert(98.6, "degF", "K") - 310.15)',
         '',
         '--- note',
         'Drift against Node: {drift}.',
