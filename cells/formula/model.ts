@@ -68,8 +68,9 @@ export interface FormulaFix {
 
 /**
  * `value1 = yield_mean = mean(...)`: a name typed after the name a new cell offered. The
- * fix keeps the name typed and drops the offered one (`yield_mean = mean(...)`); null for
- * any other text. The page offers it, and changes nothing on its own.
+ * fix keeps the name typed and drops the offered one with its `=` (`yield_mean = mean(...)`),
+ * and keeps anything typed between them; null for any other text. The page offers it, and
+ * changes nothing on its own.
  */
 export function secondNameFix(text: string): FormulaFix | null {
   const words: { text: string; type: string; from: number; to: number }[] = [];
@@ -88,7 +89,11 @@ export function secondNameFix(text: string): FormulaFix | null {
   if (words.length < 4) return null;
   const [a, eq1, b, eq2] = words as [(typeof words)[0], (typeof words)[0], (typeof words)[0], (typeof words)[0]];
   if (a.type !== 'name' || eq1.text !== '=' || b.type !== 'name' || eq2.text !== '=' || !isPlainName(a.text) || !isPlainName(b.text)) return null;
-  return { name: b.text, from: a.from, to: b.from, insert: '' };
+  // the offered name, its = and the blanks after it go; a comment or line break typed
+  // before the new name stays
+  let to = eq1.to;
+  while (to < b.from && (text.charCodeAt(to) === 32 || text.charCodeAt(to) === 9)) to++;
+  return { name: b.text, from: a.from, to, insert: '' };
 }
 
 /** What a formula defines and reads, and how it evaluates. */

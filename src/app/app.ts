@@ -482,10 +482,26 @@ export class FurrowApp extends LitElement {
     return [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
   }
 
-  /** After files were taken back: the banner says which are still missing, or that the document opened. */
-  private sayMissingFiles(fileName: string): void {
-    const missing = this.missingFiles(this.doc);
-    this.banner = missing.length > 0 ? { kind: 'info', text: pageMsg.openedMissingFiles(fileName, missing) } : { kind: 'info', text: pageMsg.opened(fileName) };
+  /**
+   * After files were taken back from the browser's keeping: the banner names them, with one
+   * click to leave them out, and any file still missing. A banner put up since `said` (the
+   * one shown when the document opened) is left as it is.
+   */
+  private sayRestored(fileName: string, taken: readonly string[], said: Banner | null): void {
+    if (this.banner !== said) return;
+    this.banner = {
+      kind: 'info',
+      text: pageMsg.restoredFiles(fileName, taken, this.missingFiles(this.doc)),
+      actions: [
+        {
+          label: pageMsg.leaveOutFiles(),
+          run: () => {
+            this.arrivals.drop(taken);
+            this.banner = { kind: 'info', text: pageMsg.openedMissingFiles(fileName, this.missingFiles(this.doc)) };
+          },
+        },
+      ],
+    };
   }
 
   /** Opens a document's text read from a file (or dropped): its slot is the file's name. */
@@ -497,11 +513,15 @@ export class FurrowApp extends LitElement {
     const opened = this.open({ key, text, fileName, files: report?.files ?? [] });
     if (!opened) return false;
     if (this.banner === null) this.banner = { kind: 'info', text: pageMsg.opened(fileName) };
+    const said = this.banner;
     // a kept state of the same file with other text (edits never saved to it) is kept aside;
-    // with the same text, the data files attached to it are taken back
+    // with the same text, the data files attached to it are taken back, and the page says so
     void loadSaved(key).then(async (kept) => {
       if (kept !== null && kept.text !== text) await this.keeper.keepAside(kept);
-      else if (kept !== null && this.keeper.key === key && this.arrivals.restore(kept.files).length > 0) this.sayMissingFiles(fileName);
+      else if (kept !== null && this.keeper.key === key) {
+        const taken = this.arrivals.restore(kept.files);
+        if (taken.length > 0) this.sayRestored(fileName, taken, said);
+      }
       this.keeper.touch();
       await this.refreshKept();
     });

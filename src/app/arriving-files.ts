@@ -71,6 +71,17 @@ export class ArrivingFiles {
     return taken.map(([name]) => name);
   }
 
+  /** Leaves files out of the open document: the tables that read them say they are missing. */
+  drop(names: readonly string[]): void {
+    let changed = false;
+    for (const name of names) {
+      if (!this.files.delete(name)) continue;
+      this.host.toWorker(name, undefined);
+      changed = true;
+    }
+    if (changed) this.host.touched();
+  }
+
   /** Files kept by the page, sent to the worker as the text its tables read (Parquet decoded). */
   private send(files: ReadonlyArray<readonly [string, string]>): void {
     for (const [name, stored] of files) {

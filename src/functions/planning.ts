@@ -298,10 +298,17 @@ export const PLANNING: readonly Builtin[] = [
       const subs = treatmentNames(a.get('sub') as Column);
       const seed = guarded(() => checkSeed(num(a, 'seed')));
       const blocks = num(a, 'blocks');
-      const l = guarded(() => drawSplitPlot(wholes.names, subs.names, blocks, seed));
       const pairs = wholes.names.flatMap((w) => subs.names.map((s) => m.splitPlotLabel(w, s)));
-      const clash = pairs.find((p, i) => pairs.indexOf(p) !== i);
-      if (clash !== undefined) throw new UsageError(`${m.splitLabelsClash(clash)}.`);
+      // before drawing; a name given twice is said as such by the draw's own checks
+      const distinct = (xs: readonly string[]): boolean => new Set(xs).size === xs.length;
+      if (distinct(wholes.names) && distinct(subs.names)) {
+        const seen = new Set<string>();
+        for (const p of pairs) {
+          if (seen.has(p)) throw new UsageError(`${m.splitLabelsClash(p)}.`);
+          seen.add(p);
+        }
+      }
+      const l = guarded(() => drawSplitPlot(wholes.names, subs.names, blocks, seed));
       if (blocks === 1) ctx.warn(`${m.splitOneBlock()}.`);
       const label = Array.from(l.whole, (w, i) => m.splitPlotLabel(wholes.names[w]!, subs.names[l.sub[i]!]!));
       const t = table(

@@ -13,10 +13,11 @@
  *    binary arithmetic gives 1004.9999999999999 and 211.99999999999997. A column that kept
  *    its typed texts keeps the converted texts, so the exact decimal shift of the sums of
  *    squares (docs/language.md section 5) still applies after a conversion.
- * 3. From degF to degC or K the scale is 5/9: nine times the scale and nine times the offset
- *    are short decimals (5 and -160; 5 and 2298.35), so each value is (x * 5 + offset) / 9
- *    on its decimal digits, rounded once: 212 degF is 373.15 K and 95.9 degF 35.5 degC,
- *    where binary arithmetic gives 373.15000000000003 and 35.50000000000001.
+ * 3. When the scale and offset are not short decimals but nine times each is (degF to degC:
+ *    5/9 and -160/9; degF to K: 5/9 and 2298.35/9; also in to ft, 0.75/9, deg to grad, 10/9,
+ *    min to h and the like), each value is (x * scale9 + offset9) / 9 on its decimal digits,
+ *    rounded once: 212 degF is 373.15 K and 95.9 degF 35.5 degC, where binary arithmetic
+ *    gives 373.15000000000003 and 35.50000000000001.
  * 4. Any other scale (lb/acre to kg/ha, psi to Pa) multiplies in floating point, one
  *    rounding.
  *
@@ -298,7 +299,7 @@ export const UNITS: readonly Builtin[] = [
     returns: 'a number, or a column of the same length',
     doc:
       'Converts values from one unit to another with the unit system of mathjs: SI units with their prefixes, written as in the SI (kg, t, ha, m^2, MPa, N/mm^2, degC, K) and joined by / * and ^, and common non-SI units (lb, acre, psi, degF). t is the tonne (1000 kg); ton is the short ton of 2000 lb. ' +
-      'Units of different quantities are an error. When the factor is a short decimal (t/ha to kg/ha, MPa to Pa, lb to kg, degC to K or degF) each value is converted exactly on its decimal digits as it reads, and a table column keeps its typed digits through it; from degF to degC or K (a factor of 5/9) each value is converted exactly as ninths of its digits and rounded once; other factors (lb/acre to kg/ha, psi to Pa) multiply in floating point. ' +
+      'Units of different quantities are an error. When the factor is a short decimal (t/ha to kg/ha, MPa to Pa, lb to kg, degC to K or degF) each value is converted exactly on its decimal digits as it reads, and a table column keeps its typed digits through it; where the factor is a short decimal in ninths (degF to degC or K, 5/9; in to ft; deg to grad) each value is converted exactly as ninths of its digits and rounded once; other factors (lb/acre to kg/ha, psi to Pa) multiply in floating point. ' +
       'A column whose header ends with its unit in parentheses needs only the unit to convert to, and the result is named with the new unit.',
     example: 'convert(trees["yield (t/ha)"], to: "kg/ha")',
     run: (args) => {

@@ -39,6 +39,10 @@ export const pageMsg = {
   opened: (name: string | null) => `Opened ${name ?? 'the document'}.`,
   openedMissingFiles: (name: string | null, missing: readonly string[]) =>
     `Opened ${name ?? 'the document'}. Its tables read ${missing.join(', ')}: attach ${missing.length === 1 ? 'that file' : 'those files'} with "Attach data".`,
+  /** Data files kept in this browser with the same text, taken back when a document is opened again. */
+  restoredFiles: (name: string, files: readonly string[], missing: readonly string[]) =>
+    `Opened ${name} with ${files.join(', ')} as ${files.length === 1 ? 'it was' : 'they were'} kept in this browser with the same text. If ${files.length === 1 ? 'it belongs' : 'they belong'} to another copy of this document, leave ${files.length === 1 ? 'it' : 'them'} out and attach the right ${files.length === 1 ? 'file' : 'files'}.${missing.length > 0 ? ` Its tables also read ${missing.join(', ')}: attach ${missing.length === 1 ? 'that file' : 'those files'} with "Attach data".` : ''}`,
+  leaveOutFiles: () => 'Leave them out',
   notOpened: (name: string | null, why: string) => `${name ?? 'That file'} was not opened: ${why} Nothing on the page was changed.`,
   notUtf8: (name: string) => `${name} was not opened: it is not UTF-8 text, so it is not a Furrow document. Nothing on the page was changed.`,
   unreadable: (notText: boolean, detail: string) =>

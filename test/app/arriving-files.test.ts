@@ -76,5 +76,11 @@ describe('files of the documents opened in the page', () => {
     expect(h.touches).toBe(1);
     expect(files.restore([['plots.csv', 'y\n1\n']])).toEqual([]);
     expect(h.touches).toBe(1);
+    // left out again at the user's word: the worker forgets them, the document is saved without
+    h.sent.length = 0;
+    files.drop(['plots.csv', 'never-there.csv']);
+    expect(files.files.has('plots.csv')).toBe(false);
+    expect(h.sent).toEqual([['plots.csv', undefined]]);
+    expect(h.touches).toBe(2);
   });
 });

@@ -20,10 +20,13 @@ describe('the fix for a second name', () => {
     expect(secondNameFix(text)?.name).toBe('yield_mean');
     expect(fixed(text)).toBe('yield_mean = mean(plots.y)');
     expect(parseFormula(fixed(text)!).error).toBeNull();
-    // spacing before the offered name, and everything from the typed name on, are kept as typed
-    expect(fixed('  value2 =\n  total=sum(x) # all plots')).toBe('  total=sum(x) # all plots');
-    // what lies between the offered name and the typed one goes with the offered name
-    expect(fixed('value1 = # why\ntotal = 1')).toBe('total = 1');
+    // blanks before the offered name, a line break after its =, and everything from the typed
+    // name on are kept as typed
+    expect(fixed('  value2 =\n  total=sum(x) # all plots')).toBe('  \n  total=sum(x) # all plots');
+    // a comment or line break typed between the offered name and the new one is kept
+    expect(fixed('value1 = # why\ntotal = 1')).toBe('# why\ntotal = 1');
+    expect(parseFormula(fixed('value1 = # why\ntotal = 1')!).error).toBeNull();
+    expect(fixed('value1 =\n  total = 1')).toBe('\n  total = 1');
     expect(fixed('value1 = gain = ')).toBe('gain = ');
   });
 

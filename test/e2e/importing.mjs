@@ -83,9 +83,17 @@ export function importingTests() {
         await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="plots"]')?.dataset.status === 'ok', null, { timeout: 20_000 });
         await settled(page);
         check(/\b4\b/.test(await cellText(page, 'first_total')), `the first trial reads its own file again: ${await cellText(page, 'first_total')}`);
+        // the page says where the file came from, with one click to leave it out
+        const said = await page.locator('furrow-app .banner').innerText();
+        check(/plots\.csv as it was kept in this browser/.test(said), `the banner names the file taken back: ${JSON.stringify(said)}`);
+        check((await page.locator('furrow-app .banner button.action', { hasText: 'Leave them out' }).count()) === 1, 'one click leaves it out');
         await page.evaluate(() => document.querySelector('furrow-app').keeper.flush());
         const keptFiles = await page.evaluate(() => document.querySelector('furrow-app').files.get('plots.csv') ?? null);
         check(keptFiles === 'y\n1.5\n2.5\n', `the page holds the file again: ${JSON.stringify(keptFiles)}`);
+        // the user says the file belongs to another copy: it is left out, and the table says it is missing
+        await page.locator('furrow-app .banner button.action', { hasText: 'Leave them out' }).click();
+        await page.waitForFunction(() => document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="plots"]')?.dataset.status === 'error', null, { timeout: 20_000 });
+        check((await page.evaluate(() => document.querySelector('furrow-app').files.has('plots.csv'))) === false, 'the file is left out');
         await page.close();
       },
     },

@@ -140,6 +140,18 @@ describe('convert: units outside the SI', () => {
     const col = evalFormula(`convert([${xs.join(', ')}], "degF", "K")`) as NumberColumn;
     expect(Array.from(col.values)).toEqual(kelvin);
   });
+
+  it('any factor that is a short decimal in ninths converts the same way: inches to feet, degrees to gradians', () => {
+    // in to ft is 1/12 (9 x scale = 0.75), deg to grad 10/9: expected values from Python 3's
+    // fractions module, float(Fraction(x) / 12) and float(Fraction(x) * 10 / 9), correctly rounded
+    const xs = ['1', '7', '30', '100', '2.5', '0.1', '-45', '359.9'];
+    const feet = [0.08333333333333333, 0.5833333333333334, 2.5, 8.333333333333334, 0.20833333333333334, 0.008333333333333333, -3.75, 29.991666666666667];
+    const grad = [1.1111111111111112, 7.777777777777778, 33.333333333333336, 111.11111111111111, 2.7777777777777777, 0.1111111111111111, -50, 399.8888888888889];
+    xs.forEach((x, i) => {
+      expect(num(x, 'in', 'ft'), `${x} in`).toBe(feet[i]);
+      expect(num(x, 'deg', 'grad'), `${x} deg`).toBe(grad[i]);
+    });
+  });
 });
 
 describe('convert: exact on the decimal digits where the factor is a short decimal', () => {

@@ -102,8 +102,9 @@ export function roundQuotient(numerator: bigint, denominator: bigint): number {
     out *= powerOfTwo(-step);
     remaining -= step;
   }
-  if (out !== 0 && Math.abs(out) < 2.2250738585072014e-308) {
-    // Subnormal: the two-step rounding above could be off by one unit; redo it directly.
+  if (Math.abs(out) < 2.2250738585072014e-308) {
+    // Subnormal (or rounded to zero): the two-step rounding above could be off by one unit,
+    // or give zero for a value just above half the smallest subnormal; redo it directly.
     out = subnormalRound(num, den);
   }
   return negative ? -out : out;
