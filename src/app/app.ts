@@ -551,6 +551,9 @@ export class FurrowApp extends LitElement {
   private async openSampleNow(name: string): Promise<void> {
     const text = this.samples.get(name);
     if (text === undefined) return;
+    // typing not yet written goes to its slot first: opening the sample that is open then
+    // finds the edited copy and keeps it, instead of the text from before the typing
+    await this.keeper.flush();
     const o = await DocumentKeeper.sample(name, text);
     this.fileHandle = null;
     this.open(o);
@@ -562,6 +565,7 @@ export class FurrowApp extends LitElement {
   }
 
   private async reopenKeptNow(key: string): Promise<void> {
+    await this.keeper.flush();
     const kept = await loadSaved(key);
     if (kept === null) return;
     this.fileHandle = null;

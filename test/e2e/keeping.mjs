@@ -59,6 +59,32 @@ export function keepingTests() {
       },
     },
     {
+      name: 'typing in a sample, then choosing that sample again at once, opens the edited copy: the typing is kept',
+      async run({ context, base }) {
+        const page = await context.newPage();
+        await page.goto(`${base}/?sample=${ADHESIVE}`);
+        await settled(page);
+        const formula = () =>
+          page.evaluate(() => {
+            const el = document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="gain"] furrow-formula-cell');
+            return el?.editorView ? el.editorView.state.doc.toString() : (el?.shadowRoot.querySelector('pre.static')?.textContent ?? null);
+          });
+        const before = await formula();
+        // typing in a formula becomes an edit after a short pause, and is written to the
+        // browser's keeping 400 ms after that; the sample is chosen again in between
+        await page.locator('section[data-name="gain"] furrow-formula-cell pre.static, section[data-name="gain"] furrow-formula-cell .cm-content').first().click();
+        await page.keyboard.press('Control+End');
+        await page.keyboard.type(' # checked');
+        await page.waitForTimeout(250);
+        await page.locator('furrow-app select[aria-label="Open a sample"]').selectOption(ADHESIVE);
+        await settled(page);
+        const offer = await bannerText(page);
+        check(/edited copy is open/.test(offer), `the edited copy opens, with the original one click away: ${offer}`);
+        const after = await formula();
+        check(after === `${before} # checked`, `the typing is kept: ${JSON.stringify(after)}`);
+      },
+    },
+    {
       name: 'an edited sample reopens as the edited copy, with the original one click away and the copy kept',
       async run({ context, base }) {
         const page = await context.newPage();
