@@ -24,7 +24,7 @@ import { LitElement, html, nothing, type PropertyValues, type TemplateResult } f
 import { shared } from '../../src/views/theme.ts';
 import { CsvError } from '../../src/doc/csv.ts';
 import type { Cell } from '../../src/doc/document.ts';
-import type { Edit } from '../../src/doc/edits.ts';
+import { spliceOf, type Edit } from '../../src/doc/edits.ts';
 import { isTable, type Table } from '../../src/lang/values.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { tableMarker } from './model.ts';
@@ -76,6 +76,12 @@ export class TableCellView extends LitElement implements TextHost {
   gridError: CsvError | null = null;
   /** The body text that `grid` or `gridError` came from. */
   readBody: string | null = null;
+  /**
+   * The last splice this view sent, the document body it was cut into and the body the view
+   * made of it: the cell that comes back made by exactly that splice of exactly that body
+   * holds that text, so it is taken without comparing two long texts character by character.
+   */
+  private sentSplice: { readonly edit: Edit; readonly base: string } | null = null;
   private cellId: string | null = null;
   private sourceCache: { key: BodyGrid | Table; source: Shown['source']; widths: number[] } | null = null;
 
@@ -172,6 +178,16 @@ export class TableCellView extends LitElement implements TextHost {
     // body this view sent comes back as the one it shows; any other body (undo, another
     // view) is read afresh.
     const body = cell.body;
+    const sent = this.sentSplice;
+    this.sentSplice = null;
+    const made = sent === null ? undefined : spliceOf(cell);
+    // `made.base === sent.base`: one string, the document's, in the usual case (a pointer test)
+    if (sent !== null && made !== undefined && made.edit === sent.edit && made.base === sent.base && this.readBody !== null) {
+      // the body is the text this view spliced itself (the store cut the same text the same
+      // way): keep the document's own string for the next comparisons
+      this.readBody = body;
+      return;
+    }
     if (body === this.readBody) {
       // the same text: keep the document's own string, so that later checks against the
       // document's body compare one string with itself, not a long text character by character
@@ -202,10 +218,13 @@ export class TableCellView extends LitElement implements TextHost {
     if (next === before || (c?.of !== before && next.text === this.readBody)) return;
     // a change of some rows of the body the document holds travels as that change alone
     const spliced = c !== undefined && before !== null && c.of === before && this.readBody === this.cell.body;
+    const base = this.cell.body;
     this.grid = next;
     this.gridError = null;
     this.readBody = next.text;
-    this.send(spliced ? { type: 'splice', id: this.cell.id, from: c.from, to: c.to, text: c.text } : { type: 'body', id: this.cell.id, body: next.text }, mergeKey);
+    const edit: Edit = spliced ? { type: 'splice', id: this.cell.id, from: c.from, to: c.to, text: c.text } : { type: 'body', id: this.cell.id, body: next.text };
+    this.sentSplice = spliced ? { edit, base } : null;
+    this.send(edit, mergeKey);
     this.requestUpdate();
   }
 

@@ -36,6 +36,18 @@ function indexOf(doc: Document, id: string): number {
   return i;
 }
 
+/**
+ * For a cell made by a splice: the splice and the body it was applied to. A view that sent
+ * the splice can tell from it, without comparing two long texts, that the body coming back
+ * is the one it computed itself (the same text spliced the same way).
+ */
+const spliced = new WeakMap<Cell, { readonly edit: Edit; readonly base: string }>();
+
+/** The splice that made this cell's body, and the body it was applied to; undefined for any other cell. */
+export function spliceOf(cell: Cell): { readonly edit: Edit; readonly base: string } | undefined {
+  return spliced.get(cell);
+}
+
 /** Applies an edit; returns the new document and the edit that reverses it. */
 export function applyEdit(doc: Document, edit: Edit): { document: Document; inverse: Edit } {
   switch (edit.type) {
@@ -54,7 +66,9 @@ export function applyEdit(doc: Document, edit: Edit): { document: Document; inve
         throw new EditError(editMsg.spliceOutside(from, to, old.body.length));
       }
       const cells = doc.cells.slice();
-      cells[i] = { ...old, body: old.body.slice(0, from) + edit.text + old.body.slice(to) };
+      const next: Cell = { ...old, body: old.body.slice(0, from) + edit.text + old.body.slice(to) };
+      spliced.set(next, { edit, base: old.body });
+      cells[i] = next;
       return {
         document: { ...doc, cells },
         inverse: { type: 'splice', id: edit.id, from, to: from + edit.text.length, text: old.body.slice(from, to) },
