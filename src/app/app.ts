@@ -465,7 +465,7 @@ export class FurrowApp extends LitElement {
     this.arrivals.replaceWith(o.files);
     this.renaming = null;
     this.store.load(doc);
-    const missing = this.missingFiles(doc);
+    const missing = this.arrivals.missing(doc);
     this.banner =
       o.original !== undefined
         ? { kind: 'info', text: o.notice ?? '', actions: [{ label: pageMsg.openOriginal(), run: () => void this.openOriginal(o.original!.name, o.original!.text) }] }
@@ -477,11 +477,6 @@ export class FurrowApp extends LitElement {
     return true;
   }
 
-  /** The data files a document's tables name that the page does not have. */
-  private missingFiles(doc: Document): string[] {
-    return [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
-  }
-
   /**
    * After files were taken back from the browser's keeping: the banner names them, with one
    * click to leave them out, and any file still missing. A banner put up since `said` (the
@@ -491,13 +486,13 @@ export class FurrowApp extends LitElement {
     if (this.banner !== said) return;
     this.banner = {
       kind: 'info',
-      text: pageMsg.restoredFiles(fileName, taken, this.missingFiles(this.doc)),
+      text: pageMsg.restoredFiles(fileName, taken, this.arrivals.missing(this.doc)),
       actions: [
         {
           label: pageMsg.leaveOutFiles(),
           run: () => {
             this.arrivals.drop(taken);
-            this.banner = { kind: 'info', text: pageMsg.openedMissingFiles(fileName, this.missingFiles(this.doc)) };
+            this.banner = { kind: 'info', text: pageMsg.openedMissingFiles(fileName, this.arrivals.missing(this.doc)) };
           },
         },
       ],
@@ -534,8 +529,7 @@ export class FurrowApp extends LitElement {
   }
 
   private async openOriginalNow(name: string, text: string): Promise<void> {
-    await this.keeper.flush();
-    const kept = await loadSaved(this.keeper.key);
+    const kept = await this.keeper.readKept(this.keeper.key);
     const title = kept !== null ? await this.keeper.keepAside(kept) : documentTitle(this.doc);
     await forget(sampleKey(name));
     this.fileHandle = null;
@@ -551,10 +545,9 @@ export class FurrowApp extends LitElement {
   private async openSampleNow(name: string): Promise<void> {
     const text = this.samples.get(name);
     if (text === undefined) return;
-    // typing not yet written goes to its slot first: opening the sample that is open then
-    // finds the edited copy and keeps it, instead of the text from before the typing
-    await this.keeper.flush();
-    const o = await DocumentKeeper.sample(name, text);
+    // read after typing not yet written is: the sample that is open then opens as the
+    // edited copy, instead of the text from before the typing
+    const o = await DocumentKeeper.sample(name, text, (key) => this.keeper.readKept(key));
     this.fileHandle = null;
     this.open(o);
   }
@@ -565,8 +558,7 @@ export class FurrowApp extends LitElement {
   }
 
   private async reopenKeptNow(key: string): Promise<void> {
-    await this.keeper.flush();
-    const kept = await loadSaved(key);
+    const kept = await this.keeper.readKept(key);
     if (kept === null) return;
     this.fileHandle = null;
     this.open({ key: kept.key, text: kept.text, fileName: kept.fileName, files: kept.files });

@@ -71,6 +71,11 @@ export class ArrivingFiles {
     return taken.map(([name]) => name);
   }
 
+  /** The data files a document's tables name that the page does not have. */
+  missing(doc: Document): string[] {
+    return [...new Set(doc.cells.flatMap((c) => CELL_KINDS.filesRead(c)))].filter((f) => !this.files.has(f));
+  }
+
   /** Leaves files out of the open document: the tables that read them say they are missing. */
   drop(names: readonly string[]): void {
     let changed = false;

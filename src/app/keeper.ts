@@ -93,6 +93,15 @@ export class DocumentKeeper {
     this.autosaver.leave();
   }
 
+  /**
+   * A slot's kept state, read after what waits to be written is written: typing not yet saved
+   * is in it, so an opening that reads the slot never misses it.
+   */
+  async readKept(key: string): Promise<SavedState | null> {
+    await this.flush();
+    return loadSaved(key);
+  }
+
   /** Moves a kept state to a slot of its own (a new document); returns its title. */
   async keepAside(state: SavedState): Promise<string> {
     const copy: SavedState = { ...state, key: newKey(), savedAt: Date.now() };
@@ -101,8 +110,8 @@ export class DocumentKeeper {
   }
 
   /** What a sample opens as: the edited copy kept (with the original offered), or the original. */
-  static async sample(name: string, original: string): Promise<Opening> {
-    const kept = await loadSaved(sampleKey(name));
+  static async sample(name: string, original: string, read: (key: string) => Promise<SavedState | null> = loadSaved): Promise<Opening> {
+    const kept = await read(sampleKey(name));
     if (kept !== null && kept.text !== original) {
       return { key: kept.key, text: kept.text, fileName: name, files: kept.files, notice: pageMsg.editedSampleOpen(name), original: { name, text: original } };
     }

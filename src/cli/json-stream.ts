@@ -153,27 +153,23 @@ export interface PieceSink extends NodeJS.EventEmitter {
  */
 export async function writePieces(pieces: Iterable<Piece>, sink: PieceSink, ending = '', bufferChars = BUFFER_CHARS): Promise<void> {
   let buffer = '';
-  let room = true;
   const send = async (chunk: string | Uint8Array): Promise<void> => {
-    room = sink.write(chunk);
-    if (!room) await once(sink, 'drain');
+    if (!sink.write(chunk)) await once(sink, 'drain');
+  };
+  const sendBuffer = async (): Promise<void> => {
+    const text = buffer;
+    buffer = '';
+    await send(text);
   };
   for (const piece of pieces) {
     if (typeof piece === 'string') {
       buffer += piece;
-      if (buffer.length < bufferChars) continue;
-      const text = buffer;
-      buffer = '';
-      await send(text);
+      if (buffer.length >= bufferChars) await sendBuffer();
       continue;
     }
-    if (buffer !== '') {
-      const text = buffer;
-      buffer = '';
-      await send(text);
-    }
+    if (buffer !== '') await sendBuffer();
     await send(piece instanceof Uint8Array ? piece : await piece);
   }
   buffer += ending;
-  if (buffer !== '') await send(buffer);
+  if (buffer !== '') await sendBuffer();
 }

@@ -250,7 +250,7 @@ export function main(argv: readonly string[], o: Output, kinds: CellKinds = CELL
   const registry = loadedBuiltins();
   if (registry !== null && !preload) return mainNow(argv, o, kinds, registry);
   // a document run that calls no built-in is evaluated without loading them (src/cli/builtins.ts)
-  const watched = argv[0] === 'run' && !preload && registry === null ? registryWithoutBuiltins(path) : null;
+  const watched = argv[0] === 'run' && !preload ? registryWithoutBuiltins(path) : null;
   if (watched === null) return everything();
   try {
     return mainNow(argv, o, kinds, watched);

@@ -75,7 +75,7 @@ function treatmentColumn(names: readonly string[], numeric: boolean, codes: Int3
 const whole = (name: string, a: Int32Array): Column => numberColumn(Float64Array.from(a), null, name);
 
 /** How a layout was drawn, as its `drawn` record. */
-function drawnRecord(fn: string, design: string, seed: number, names: readonly string[], size: readonly [string, number][], plots: number): RecordValue {
+function drawnRecord(fn: string, design: string, seed: number, names: readonly string[], size: readonly [string, Value][], plots: number): RecordValue {
   return record(
     [
       ['design', design],
@@ -322,22 +322,12 @@ export const PLANNING: readonly Builtin[] = [
           textColumn(label, null, 'treatment'),
         ],
       );
-      const drawn = record(
-        [
-          ['design', 'split plot in randomized complete blocks'],
-          ['drawn_by', 'split_plot_layout'],
-          ['seed', seed],
-          ['treatments', textColumn(pairs)],
-          ['whole_treatments', textColumn([...wholes.names])],
-          ['sub_treatments', textColumn([...subs.names])],
-          ['blocks', blocks],
-          ['plots', t.rows],
-          ['generator', GENERATOR],
-          ['algorithm', ALGORITHM],
-        ],
-        'layout',
-      );
-      return withDrawn(t, drawn);
+      const sizes: [string, Value][] = [
+        ['whole_treatments', textColumn([...wholes.names])],
+        ['sub_treatments', textColumn([...subs.names])],
+        ['blocks', blocks],
+      ];
+      return withDrawn(t, drawnRecord('split_plot_layout', 'split plot in randomized complete blocks', seed, pairs, sizes, t.rows));
     },
   },
   {
