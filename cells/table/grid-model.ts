@@ -8,6 +8,7 @@
  * the whole table with `csvLine`, which writes exactly what writeCsv writes.
  */
 import { parseCsv } from '../../src/doc/csv.ts';
+import { csvField } from '../../src/doc/csv-write.ts';
 import { decimalAt, type Column, type Table } from '../../src/lang/values.ts';
 import { columnNameProblem, copyCounts, countField, countRows, emptyCounts, freshColumnName, type ColumnCounts } from './grid-checks.ts';
 import { HEADER_ROW, type Rect } from './grid-keys.ts';
@@ -45,12 +46,6 @@ export interface Refusal {
 /** True for a refusal. */
 export function isRefusal(x: unknown): x is Refusal {
   return typeof x === 'object' && x !== null && 'refused' in x;
-}
-
-/** One CSV field, quoted exactly when writeCsv (papaparse's unparse) would quote it. */
-function csvField(f: string): string {
-  const needs = /[\r\n",\ufeff]/.test(f) || f.startsWith(' ') || f.endsWith(' ');
-  return needs ? `"${f.replace(/"/g, '""')}"` : f;
 }
 
 /** One row of CSV, as writeCsv writes it (an empty field alone on its line is written ""). */

@@ -4,7 +4,7 @@
  * the switch between the grid and the CSV text.
  */
 import { html, nothing, type TemplateResult } from 'lit';
-import { CsvError } from '../../src/doc/csv.ts';
+import { CsvError } from '../../src/doc/csv-error.ts';
 import { tableCsv } from '../../src/doc/table-csv.ts';
 import { decodeUtf8 } from '../../src/doc/utf8.ts';
 import type { Table } from '../../src/lang/values.ts';

@@ -5,7 +5,7 @@
  * decimal text of each number is kept for exact work (docs/language.md section 5).
  */
 import { isSafeFileName, type Cell, type Marker } from '../../src/doc/document.ts';
-import { CsvError, type CsvGrid } from '../../src/doc/csv.ts';
+import { CsvError, type CsvGrid } from '../../src/doc/csv-error.ts';
 import { tableOfGrid } from '../../src/doc/csv-columns.ts';
 import { readFieldGrid, type FieldGrid } from '../../src/doc/csv-fields.ts';
 import type { AnalyseEnv, CellAnalysis } from '../../src/graph/cell-kind.ts';

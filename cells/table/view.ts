@@ -22,7 +22,7 @@
  */
 import { LitElement, html, nothing, type PropertyValues, type TemplateResult } from 'lit';
 import { shared } from '../../src/views/theme.ts';
-import { CsvError } from '../../src/doc/csv.ts';
+import { CsvError } from '../../src/doc/csv-error.ts';
 import type { Cell } from '../../src/doc/document.ts';
 import { spliceOf, type Edit } from '../../src/doc/edits.ts';
 import { isTable, type Table } from '../../src/lang/values.ts';

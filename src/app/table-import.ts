@@ -9,7 +9,8 @@
  * The workbook reader is loaded only when a workbook is opened.
  */
 import { CELL_KINDS } from '../../cells/kinds.ts';
-import { parseCsv, writeCsv } from '../doc/csv.ts';
+import { parseCsv } from '../doc/csv.ts';
+import { writeCsv } from '../doc/csv-write.ts';
 import { freshBody, type Cell, type Document } from '../doc/document.ts';
 import { freshCellId } from '../doc/edits.ts';
 import { isoDateText, shortestNumberText } from '../doc/field-text.ts';

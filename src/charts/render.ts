@@ -9,10 +9,12 @@
  * The same locks as the page: the spec is copied as plain JSON without `usermeta`, the
  * loader refuses every load, expressions run in vega's interpreter rather than as generated
  * functions, and whatever vega-lite or vega warns about is returned, not printed.
+ *
+ * The drawing libraries load at the first chart drawn: they are modules of their own (the
+ * command line, built as CommonJS, keeps them as such and never loads them for a run).
  */
-import * as vega from 'vega';
-import { expressionInterpreter } from 'vega-interpreter';
-import { compile, type TopLevelSpec } from 'vega-lite';
+import type * as Vega from 'vega';
+import type { TopLevelSpec } from 'vega-lite';
 import { cleanSpec, collectingLogger, lockedLoader } from './safety.ts';
 
 /** What {@link renderSvg} returns. */
@@ -31,12 +33,13 @@ export interface Rendered {
 export async function renderSvg(spec: unknown): Promise<Rendered> {
   const clean = cleanSpec(spec);
   if (clean === null) throw new Error('a chart must be a plain JSON object');
+  const [vega, { expressionInterpreter }, { compile }] = await Promise.all([import('vega'), import('vega-interpreter'), import('vega-lite')]);
   const logger = collectingLogger();
-  const vg = compile(clean as unknown as TopLevelSpec, { logger: logger as unknown as vega.LoggerInterface }).spec;
+  const vg = compile(clean as unknown as TopLevelSpec, { logger: logger as unknown as Vega.LoggerInterface }).spec;
   const view = new vega.View(vega.parse(vg, undefined, { ast: true }), {
     renderer: 'none',
     loader: lockedLoader(vega.loader()),
-    logger: logger as unknown as vega.LoggerInterface,
+    logger: logger as unknown as Vega.LoggerInterface,
     expr: expressionInterpreter,
   });
   try {

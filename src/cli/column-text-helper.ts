@@ -7,7 +7,7 @@
  * The helper never changes the output: it runs the same `numbersJsonBytes` as the main
  * thread, and when it cannot start or fails, the main thread makes the text itself.
  */
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import { numbersJsonBytes } from '../lang/json.ts';
 import type { ColumnBytes } from './json-stream.ts';
 import type { ColumnTextAnswer, ColumnTextRequest } from './column-text-worker.ts';
@@ -21,6 +21,8 @@ interface Job {
 export class ColumnTextHelper implements ColumnBytes {
   private worker: Worker | null = null;
   private started = false;
+  /** Node's threads module, loaded with the first long column: most runs never need it. */
+  private threads: Promise<typeof import('node:worker_threads') | null> | null = null;
   private nextId = 0;
   private readonly jobs = new Map<number, Job>();
 
@@ -31,19 +33,23 @@ export class ColumnTextHelper implements ColumnBytes {
     // copies: the column stays the engine's, the copies move to the helper and are gone
     const part = values.slice(from, to);
     const marks = missing === null ? null : missing.slice(from, to);
-    return new Promise((resolve) => {
-      const worker = this.ensureWorker();
-      if (worker === null) {
-        resolve(numbersJsonBytes(part, marks));
-        return;
-      }
-      const id = this.nextId++;
-      this.jobs.set(id, { values: part, missing: marks, resolve });
-      // while an answer is awaited the thread keeps the process alive, and only then
-      worker.ref();
-      const request: ColumnTextRequest = { id, values: part, missing: marks };
-      worker.postMessage(request);
-    });
+    this.threads ??= import('node:worker_threads').catch(() => null);
+    return this.threads.then(
+      (threads) =>
+        new Promise((resolve) => {
+          const worker = this.ensureWorker(threads);
+          if (worker === null) {
+            resolve(numbersJsonBytes(part, marks));
+            return;
+          }
+          const id = this.nextId++;
+          this.jobs.set(id, { values: part, missing: marks, resolve });
+          // while an answer is awaited the thread keeps the process alive, and only then
+          worker.ref();
+          const request: ColumnTextRequest = { id, values: part, missing: marks };
+          worker.postMessage(request);
+        }),
+    );
   }
 
   /**
@@ -58,11 +64,12 @@ export class ColumnTextHelper implements ColumnBytes {
     if (w !== null) void w.terminate();
   }
 
-  private ensureWorker(): Worker | null {
+  private ensureWorker(threads: typeof import('node:worker_threads') | null): Worker | null {
     if (this.started) return this.worker;
     this.started = true;
+    if (threads === null) return null;
     try {
-      const w = new Worker(this.script);
+      const w = new threads.Worker(this.script);
       w.on('message', (a: ColumnTextAnswer) => {
         const job = this.jobs.get(a.id);
         this.jobs.delete(a.id);

@@ -13,12 +13,10 @@ import { dataFileText, needsPreload, preloadParquet } from './data-text.ts';
 import { COLUMN_SLICE, reportPieces, writePieces, type PieceSink } from './json-stream.ts';
 import { ColumnTextHelper } from './column-text-helper.ts';
 import { DOCUMENT_LIMIT_BYTES, FileProblem, readText } from './files.ts';
-import { sheetCommand } from './sheet.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import type { CellKinds } from '../graph/kinds.ts';
 import { valueText, visible } from './text.ts';
-import { sealCommand } from './seal.ts';
-import { verifyCommand } from './verify.ts';
+import { loadCommands, loadedCommands } from './lazy-commands.ts';
 import { cliMsg } from '../messages/cli.ts';
 
 const USAGE = cliMsg.usage();
@@ -262,11 +260,16 @@ export function main(argv: readonly string[], o: Output, kinds: CellKinds = CELL
 
 /** `registry` is the built-ins, or a watched empty one for `run`; null where no document is read. */
 function mainNow(argv: readonly string[], o: Output, kinds: CellKinds, registry: Registry | null): number | Promise<number> {
-  if (argv[0] === 'seal') return guarded(o, () => sealCommand(argv.slice(1), o, USAGE));
-  if (argv[0] === 'verify') return guarded(o, () => verifyCommand(argv.slice(1), o, USAGE));
+  if (argv[0] === 'seal' || argv[0] === 'verify' || argv[0] === 'sheet') {
+    // loaded when asked for: `run` never needs them (src/cli/lazy-commands.ts)
+    const commands = loadedCommands();
+    if (commands === null) return loadCommands().then(() => mainNow(argv, o, kinds, registry));
+    if (argv[0] === 'seal') return guarded(o, () => commands.sealCommand(argv.slice(1), o, USAGE));
+    if (argv[0] === 'verify') return guarded(o, () => commands.verifyCommand(argv.slice(1), o, USAGE));
+    return commands.sheetCommand(argv.slice(1), o);
+  }
   // the report draws charts: its libraries load only when a report is asked for
   if (argv[0] === 'report') return guarded(o, async () => (await import('./report.ts')).reportCommand(argv.slice(1), o, USAGE));
-  if (argv[0] === 'sheet') return sheetCommand(argv.slice(1), o);
   const args = argv.filter((a) => a !== '--json');
   const json = argv.includes('--json');
   if (args.length === 0 || args[0] === 'help' || args[0] === '--help' || args[0] === '-h') {

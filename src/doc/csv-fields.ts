@@ -21,7 +21,7 @@
  * - the first row read is the header; every other row must have one field per header name.
  */
 import { msg } from '../messages/language.ts';
-import { CsvError } from './csv.ts';
+import { CsvError } from './csv-error.ts';
 
 /** What papaparse calls a malformed closing quote; our message quotes its words. */
 const MALFORMED_QUOTE = 'Trailing quote on quoted field is malformed';

@@ -1,6 +1,8 @@
 /**
  * CSV (RFC 4180) for table bodies, through papaparse, with the character range of every
- * row so that an error can point at the row in the cell's text.
+ * row so that an error can point at the row in the cell's text: the page's grid and pasted
+ * text read through it. Documents and data files are read by the columnar reader
+ * (csv-fields.ts, held to this one field for field); tables are written by csv-write.ts.
  *
  * Rules of our own on top of RFC 4180 (documented in DEVELOPERS.md): the delimiter is always
  * a comma; lines that are entirely empty are skipped (they separate cells in a document), so
@@ -8,27 +10,7 @@
  */
 import Papa from 'papaparse';
 import { msg } from '../messages/language.ts';
-
-/** A CSV text read into a header and rows of fields. */
-export interface CsvGrid {
-  readonly header: readonly string[];
-  /** Rows of fields, header excluded; every row has header.length fields. */
-  readonly rows: readonly (readonly string[])[];
-  /** Character range [from, to) of each data row in the text. */
-  readonly rowRanges: readonly (readonly [number, number])[];
-}
-
-/** A CSV text that cannot be read as a table, with the range at fault. */
-export class CsvError extends Error {
-  readonly from: number;
-  readonly to: number;
-  constructor(message: string, from: number, to: number) {
-    super(message);
-    this.name = 'CsvError';
-    this.from = from;
-    this.to = to;
-  }
-}
+import { CsvError, type CsvGrid } from './csv-error.ts';
 
 /** Reads CSV text into a grid. Throws CsvError for ragged rows, repeated or empty header names. */
 export function parseCsv(text: string): CsvGrid {
@@ -86,19 +68,4 @@ function trimEnd(text: string, from: number, to: number): number {
   let e = to;
   while (e > from && (text[e - 1] === '\n' || text[e - 1] === '\r')) e--;
   return e;
-}
-
-/** Writes a header and rows as CSV with "\n" line ends and a final newline. */
-export function writeCsv(header: readonly string[], rows: readonly (readonly string[])[]): string {
-  const oneColumn = header.length === 1;
-  const data = [header, ...rows].map((r) => r.map((f) => f));
-  let text = Papa.unparse(data as string[][], { newline: '\n', quotes: false, delimiter: ',' });
-  if (oneColumn) {
-    // an empty field alone on its line would read as a separator: quote it
-    text = text
-      .split('\n')
-      .map((l) => (l === '' ? '""' : l))
-      .join('\n');
-  }
-  return `${text}\n`;
 }

@@ -14,7 +14,7 @@
  */
 import { parquetMetadata, parquetReadObjects, parquetSchema } from 'hyparquet';
 import { importMsg } from '../messages/import.ts';
-import { writeCsv } from './csv.ts';
+import { writeCsv } from './csv-write.ts';
 import { isoDateText, shortestDoubleText, shortestFloat32Text } from './field-text.ts';
 
 /** A Parquet file that cannot become a table, with what is wrong. */

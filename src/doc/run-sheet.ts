@@ -7,7 +7,7 @@
  * run as a formula gets a leading apostrophe).
  */
 import type { Table } from '../lang/values.ts';
-import { writeCsv } from './csv.ts';
+import { writeCsv } from './csv-write.ts';
 import { csvRows } from './table-csv.ts';
 import { planningMsg } from '../messages/planning.ts';
 

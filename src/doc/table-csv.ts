@@ -9,7 +9,7 @@
  * the usual guard (common practice, no source); numbers are written as they are.
  */
 import { decimalAt, isMissingAt, type Column, type Table } from '../lang/values.ts';
-import { writeCsv } from './csv.ts';
+import { writeCsv } from './csv-write.ts';
 
 const FORMULA_START = /^[=+\-@\t\r]/;
 

@@ -5,7 +5,8 @@
  * beside their own tests and in the attack table.
  */
 import { describe, expect, it } from 'vitest';
-import { CsvError, parseCsv } from '../../src/doc/csv.ts';
+import { parseCsv } from '../../src/doc/csv.ts';
+import { CsvError } from '../../src/doc/csv-error.ts';
 import { DocumentError, readDocument } from '../../src/doc/format.ts';
 import { headerFields } from '../../src/doc/document.ts';
 import { LangError } from '../../src/lang/errors.ts';

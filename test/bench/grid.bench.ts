@@ -5,7 +5,8 @@
  */
 import { cpus } from 'node:os';
 import { afterAll, bench, describe } from 'vitest';
-import { parseCsv, writeCsv } from '../../src/doc/csv.ts';
+import { parseCsv } from '../../src/doc/csv.ts';
+import { writeCsv } from '../../src/doc/csv-write.ts';
 import { fieldsIn, isRefusal, pasteBlock, readBodyGrid, setField, sourceOfBody, type BodyGrid } from '../../cells/table/grid-model.ts';
 import { blockToTsv, readBlock } from '../../cells/table/grid-paste.ts';
 

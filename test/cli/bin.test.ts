@@ -4,10 +4,11 @@
  * sources instead, with a note on stderr.
  */
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, cpSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, symlinkSync, writeFileSync } from 'node:fs';
+import { copyFileSync, cpSync, mkdirSync, mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { dirname, join, resolve } from 'node:path';
+import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { builtLoads } from './support.ts';
 
 const ONE_CELL = 'furrow 1\n--- formula\nx = 1 + 1\n';
 
@@ -21,27 +22,26 @@ describe('bin/furrow.js', () => {
     expect(JSON.parse(r.stdout).cells[0].value).toBe(2);
   }, 60_000);
 
-  it('a run loads none of the drawing libraries: they are imported only by the report chunk', () => {
-    // the modules a run loads: main.mjs and the chunks it imports statically, transitively
-    const seen = new Set<string>();
-    const visit = (file: string): void => {
-      if (seen.has(file)) return;
-      seen.add(file);
-      const text = readFileSync(file, 'utf8');
-      for (const m of text.matchAll(/^import\s[^;]*?from\s*"([^"]+)"/gm)) {
-        const target = m[1]!;
-        if (target.startsWith('.')) visit(resolve(dirname(file), target));
-        else expect(target, `${file} imports ${target} at start`).not.toMatch(/^(vega|vega-lite|vega-interpreter|vega-embed|lit|dompurify)$/);
-      }
-    };
-    visit(resolve('build/cli/main.mjs'));
-    expect(seen.size).toBeGreaterThan(1);
-    // and the report still has them, in a chunk of its own loaded on demand
-    const chunks = readdirSync(resolve('build/cli/chunks')).filter((f) => f.endsWith('.mjs'));
-    const drawing = chunks.filter((f) => /from\s*"vega-lite"/.test(readFileSync(resolve('build/cli/chunks', f), 'utf8')));
-    expect(drawing.length).toBe(1);
-    expect(seen.has(resolve('build/cli/chunks', drawing[0]!))).toBe(false);
-  });
+  it('a run loads only what it needs: no drawing libraries, built-ins, other commands, papaparse or threads', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'furrow-bin-'));
+    writeFileSync(join(dir, 'one.furrow'), ONE_CELL);
+    const r = builtLoads('run', join(dir, 'one.furrow'));
+    expect(r.status).toBe(0);
+    expect(r.out).toContain('1 cells, all evaluated.');
+    // the build's start: main.cjs and the chunks it requires, all from build/cli
+    const ours = r.required.filter((m) => m.startsWith('.') || m.startsWith('/'));
+    expect(ours.some((m) => m.endsWith('main.cjs'))).toBe(true);
+    expect(ours.length).toBeGreaterThan(1);
+    for (const m of ours) expect(m, m).not.toMatch(/functions-|document-commands-|verify-|report-|parquet-|planning-|unit-library/);
+    for (const m of r.required) expect(m, m).not.toMatch(/^(vega|vega-lite|vega-interpreter|vega-embed|lit|dompurify|papaparse|mathjs|tsx)/);
+    expect(r.nodeModules.some((m) => m.includes('worker_threads'))).toBe(false);
+    // the same with a call loads the built-ins' chunk, and still nothing to draw with
+    writeFileSync(join(dir, 'call.furrow'), 'furrow 1\n--- formula\nx = sqrt(4)\n');
+    const c = builtLoads('run', join(dir, 'call.furrow'));
+    expect(c.status).toBe(0);
+    expect(c.required.some((m) => /functions-/.test(m))).toBe(true);
+    for (const m of c.required) expect(m, m).not.toMatch(/^(vega|vega-lite|vega-interpreter|lit|dompurify)$|report-/);
+  }, 60_000);
 
   it('falls back to the sources, and says so, when the build is older than they are', () => {
     // a checkout of its own: the real sources and libraries, a build stamped as old
@@ -50,6 +50,7 @@ describe('bin/furrow.js', () => {
     for (const d of ['src', 'cells', 'scripts', 'node_modules']) symlinkSync(join(repo, d), join(dir, d));
     mkdirSync(join(dir, 'bin'));
     copyFileSync(join(repo, 'bin', 'furrow.js'), join(dir, 'bin', 'furrow.js'));
+    copyFileSync(join(repo, 'bin', 'package.json'), join(dir, 'bin', 'package.json'));
     writeFileSync(join(dir, 'package.json'), '{"type": "module"}\n');
     mkdirSync(join(dir, '.git'));
     mkdirSync(join(dir, 'build', 'cli'), { recursive: true });

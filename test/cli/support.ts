@@ -1,7 +1,8 @@
 /**
  * Helpers of the command line's tests: run a command in process, make scratch folders.
  */
-import { copyFileSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { main } from '../../src/cli/main.ts';
@@ -31,3 +32,25 @@ export function sampleCopies(): string[] {
     });
 }
 
+
+/**
+ * Runs the built command line (bin/furrow.js) and lists what it loaded: every module it
+ * required (Node's `Module._load`, watched by a preloaded script) and Node's own modules.
+ */
+export function builtLoads(...args: string[]): { status: number | null; out: string; err: string; required: string[]; nodeModules: string[] } {
+  const dir = mkdtempSync(join(tmpdir(), 'furrow-loads-'));
+  const hook = join(dir, 'watch.cjs');
+  const list = join(dir, 'loads.json');
+  writeFileSync(
+    hook,
+    `const Module = require('node:module');
+const load = Module._load;
+const required = [];
+Module._load = function (request) { required.push(request); return load.apply(this, arguments); };
+process.on('exit', () => require('node:fs').writeFileSync(${JSON.stringify(list)}, JSON.stringify({ required, nodeModules: process.moduleLoadList })));
+`,
+  );
+  const r = spawnSync(process.execPath, ['-r', hook, 'bin/furrow.js', ...args], { encoding: 'utf8' });
+  const loads = JSON.parse(readFileSync(list, 'utf8')) as { required: string[]; nodeModules: string[] };
+  return { status: r.status, out: r.stdout, err: r.stderr, ...loads };
+}

@@ -10,7 +10,8 @@
  * Seeded with the project's generator, so a failure names an input that can be replayed.
  */
 import { describe, expect, it } from 'vitest';
-import { CsvError, parseCsv, type CsvGrid } from '../../src/doc/csv.ts';
+import { parseCsv } from '../../src/doc/csv.ts';
+import { CsvError, type CsvGrid } from '../../src/doc/csv-error.ts';
 import { fieldText, readFieldGrid, rowRange, type FieldGrid } from '../../src/doc/csv-fields.ts';
 import { tableOfGrid } from '../../src/doc/csv-columns.ts';
 import { tableFromGrid } from '../../cells/table/model.ts';

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { CsvError, parseCsv, writeCsv } from '../../src/doc/csv.ts';
+import { parseCsv } from '../../src/doc/csv.ts';
+import { CsvError } from '../../src/doc/csv-error.ts';
+import { writeCsv } from '../../src/doc/csv-write.ts';
 import { columnFromFields } from '../../cells/table/model.ts';
 import { toJson } from '../../src/lang/json.ts';
 import { msg } from '../../src/messages/language.ts';

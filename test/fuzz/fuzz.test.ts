@@ -8,7 +8,8 @@
  */
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
-import { parseCsv, CsvError } from '../../src/doc/csv.ts';
+import { parseCsv } from '../../src/doc/csv.ts';
+import { CsvError } from '../../src/doc/csv-error.ts';
 import { DocumentError, readDocument, writeDocument } from '../../src/doc/format.ts';
 import type { Document } from '../../src/doc/document.ts';
 import { BUILTINS } from '../../src/functions/index.ts';

@@ -1,12 +1,14 @@
 // The newest modification time of the command line's TypeScript sources: the build records
 // it, and bin/furrow.js compares it to tell a stale build in a development checkout.
-import { readdirSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+// CommonJS, so that bin/furrow.js requires it without starting Node's ES module loader.
+'use strict';
+const { readdirSync, statSync } = require('node:fs');
+const { join } = require('node:path');
 
 const SOURCES = ['src', 'cells'];
 
 /** The newest modification time of the .ts files under src/ and cells/, in milliseconds. */
-export function newestSource(root) {
+exports.newestSource = function newestSource(root) {
   let newest = 0;
   const walk = (dir) => {
     for (const e of readdirSync(dir, { withFileTypes: true })) {
@@ -17,4 +19,4 @@ export function newestSource(root) {
   };
   for (const s of SOURCES) walk(join(root, s));
   return newest;
-}
+};
