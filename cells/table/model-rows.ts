@@ -81,17 +81,26 @@ function sameText(a: string, af: number, at: number, b: string, bf: number, bt: 
   return true;
 }
 
+/** Where a body differs from the kept one, when known: characters [from, to) of the kept body were replaced. */
+export interface BodyChange {
+  readonly from: number;
+  readonly to: number;
+}
+
 /**
  * The table of `body`, read from what was kept of an earlier body; null when the change
- * must be read in full.
+ * must be read in full. `change` says where the bodies differ when the edit that made
+ * `body` is known (a splice of the kept body, src/doc/edits.ts spliceOf); otherwise the two
+ * texts are compared.
  */
-export function rereadTable(kept: KeptTable, body: string): { grid: FieldGrid; value: Table } | null {
+export function rereadTable(kept: KeptTable, body: string, change?: BodyChange): { grid: FieldGrid; value: Table } | null {
   const old = kept.body;
   // the full reader guesses the line break from the text; with carriage returns about,
   // splitting at line feeds might not agree with it (the new body has one only if the
   // kept one had, or the changed lines bring one: checked below)
   if (kept.hasReturn) return null;
-  const { head, tail } = sameEnds(old, body);
+  // the same before `head` and after the last `tail` characters (not always the longest such stretches)
+  const { head, tail } = change === undefined ? sameEnds(old, body) : { head: change.from, tail: old.length - change.to };
   // Whole lines around the change: from the line start before it (in the common head) to
   // the first line break after it (in the common tail), in the old text and the new.
   const lineStart = old.lastIndexOf('\n', head - 1) + 1;

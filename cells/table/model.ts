@@ -5,6 +5,7 @@
  * decimal text of each number is kept for exact work (docs/language.md section 5).
  */
 import { isSafeFileName, type Cell, type Marker } from '../../src/doc/document.ts';
+import { spliceOf } from '../../src/doc/edits.ts';
 import { CsvError, type CsvGrid } from '../../src/doc/csv-error.ts';
 import { tableOfGrid } from '../../src/doc/csv-columns.ts';
 import { readFieldGrid, type FieldGrid } from '../../src/doc/csv-fields.ts';
@@ -149,7 +150,10 @@ export function readTable(cell: Cell, env: AnalyseEnv): TableRead {
   // a body edited since the last reading: read only the lines the edit changed
   const kept = env.previous?.kept;
   if (m.file === null && kept instanceof KeptTable) {
-    const again = rereadTable(kept, text);
+    // a splice of the kept body (a field typed over in the grid) says where it changed
+    const made = spliceOf(cell);
+    const change = made !== undefined && made.edit.type === 'splice' && made.base === kept.body ? made.edit : undefined;
+    const again = rereadTable(kept, text, change);
     if (again !== null) {
       if (again.grid.rows > MAX_TABLE_ROWS) return fail(errorValue(msg.tooManyRows(again.grid.rows, MAX_TABLE_ROWS), 0, 0));
       if (again.grid.header.length > MAX_TABLE_COLUMNS) return fail(errorValue(msg.tooManyColumns(again.grid.header.length, MAX_TABLE_COLUMNS), 0, 0));
