@@ -35,7 +35,11 @@ function staleBuild() {
 
 /** The command line's `main`: the build's, or the sources' through tsx. */
 async function commandLine(why) {
-  if (why === null) return require(built).main;
+  if (why === null) {
+    // the build's chunks compiled from V8's code cache, made when it was built (bin/code-cache.js)
+    require('./code-cache.js').useCodeCache(join(root, 'build', 'cli'));
+    return require(built).main;
+  }
   process.stderr.write(`furrow: running from the TypeScript sources: ${why}.\n`);
   const { register } = await import('tsx/esm/api');
   register();

@@ -21,35 +21,34 @@ interface Job {
 export class ColumnTextHelper implements ColumnBytes {
   private worker: Worker | null = null;
   private started = false;
-  /** Node's threads module, loaded with the first long column: most runs never need it. */
-  private threads: Promise<typeof import('node:worker_threads') | null> | null = null;
   private nextId = 0;
   private readonly jobs = new Map<number, Job>();
 
   /** `script` is the built worker (build/cli/column-text-worker.mjs). */
   constructor(private readonly script: string | URL) {}
 
+  /** Whether a thread of its own makes the text (false before the first request, and after it failed or closed). */
+  get threaded(): boolean {
+    return this.worker !== null;
+  }
+
   numbers(values: Float64Array, missing: Uint8Array | null, from: number, to: number): Promise<Uint8Array> {
     // copies: the column stays the engine's, the copies move to the helper and are gone
     const part = values.slice(from, to);
     const marks = missing === null ? null : missing.slice(from, to);
-    this.threads ??= import('node:worker_threads').catch(() => null);
-    return this.threads.then(
-      (threads) =>
-        new Promise((resolve) => {
-          const worker = this.ensureWorker(threads);
-          if (worker === null) {
-            resolve(numbersJsonBytes(part, marks));
-            return;
-          }
-          const id = this.nextId++;
-          this.jobs.set(id, { values: part, missing: marks, resolve });
-          // while an answer is awaited the thread keeps the process alive, and only then
-          worker.ref();
-          const request: ColumnTextRequest = { id, values: part, missing: marks };
-          worker.postMessage(request);
-        }),
-    );
+    return new Promise((resolve) => {
+      const worker = this.ensureWorker();
+      if (worker === null) {
+        resolve(numbersJsonBytes(part, marks));
+        return;
+      }
+      const id = this.nextId++;
+      this.jobs.set(id, { values: part, missing: marks, resolve });
+      // while an answer is awaited the thread keeps the process alive, and only then
+      worker.ref();
+      const request: ColumnTextRequest = { id, values: part, missing: marks };
+      worker.postMessage(request);
+    });
   }
 
   /**
@@ -64,9 +63,10 @@ export class ColumnTextHelper implements ColumnBytes {
     if (w !== null) void w.terminate();
   }
 
-  private ensureWorker(threads: typeof import('node:worker_threads') | null): Worker | null {
+  private ensureWorker(): Worker | null {
     if (this.started) return this.worker;
     this.started = true;
+    const threads = threadsModule();
     if (threads === null) return null;
     try {
       const w = new threads.Worker(this.script);
@@ -92,4 +92,15 @@ export class ColumnTextHelper implements ColumnBytes {
     }
     return this.worker;
   }
+}
+
+/**
+ * Node's threads module, taken when the first long column comes: most runs never need it.
+ * `process.getBuiltinModule` (Node 20.16 and later) gives it without a module loader, and
+ * keeps the command line's build free of `import()` (bin/code-cache.js compiles only such
+ * chunks from V8's code cache). Null elsewhere: the main thread then makes all the text.
+ */
+function threadsModule(): typeof import('node:worker_threads') | null {
+  const proc = (globalThis as { process?: { getBuiltinModule?: (id: string) => unknown } }).process;
+  return (proc?.getBuiltinModule?.('node:worker_threads') as typeof import('node:worker_threads') | undefined) ?? null;
 }

@@ -4,7 +4,7 @@
  * sources instead, with a note on stderr.
  */
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, cpSync, mkdirSync, mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
+import { copyFileSync, cpSync, mkdirSync, mkdtempSync, readdirSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -43,6 +43,34 @@ describe('bin/furrow.js', () => {
     for (const m of c.required) expect(m, m).not.toMatch(/^(vega|vega-lite|vega-interpreter|lit|dompurify)$|report-/);
   }, 60_000);
 
+  it('compiles the build from the code cache made with it, and from the source when a cache is refused', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'furrow-cache-'));
+    writeFileSync(join(dir, 'call.furrow'), 'furrow 1\n--- table t\nx,y\n1,2.5\n2,3.5\n3,4\n\n--- formula\nm = mean(t.y)\n');
+    // a run in a process of its own, reporting which chunks came from the cache
+    const runWith = (build: string): { out: string; seen: { used: string[]; refused: string[] } } => {
+      const script = `const seen = require(${JSON.stringify(resolve('bin/code-cache.js'))}).useCodeCache(${JSON.stringify(build)});
+const out = [];
+Promise.resolve(require(${JSON.stringify(join(build, 'main.cjs'))}).main(['run', ${JSON.stringify(join(dir, 'call.furrow'))}, '--json'], { out: (s) => out.push(s), err: (s) => out.push(s) }))
+  .then(() => process.stdout.write(JSON.stringify({ out: out.join('\\n'), seen })));`;
+      const r = spawnSync(process.execPath, ['-e', script], { encoding: 'utf8' });
+      expect(r.stderr).toBe('');
+      return JSON.parse(r.stdout) as { out: string; seen: { used: string[]; refused: string[] } };
+    };
+    const good = runWith(resolve('build/cli'));
+    expect(good.seen.refused).toEqual([]);
+    expect(good.seen.used).toContain('main.cjs');
+    expect(good.seen.used.some((f) => f.startsWith('functions-'))).toBe(true);
+    expect(JSON.parse(good.out).cells[1].value).toBe(10 / 3);
+    // the same build with every cache damaged: V8 refuses them all, and the output is the same
+    const copy = join(dir, 'build');
+    cpSync(resolve('build/cli'), copy, { recursive: true });
+    for (const f of readdirSync(join(copy, 'cache'))) writeFileSync(join(copy, 'cache', f), Buffer.alloc(4096, 7));
+    const damaged = runWith(copy);
+    expect(damaged.seen.used).toEqual([]);
+    expect(damaged.seen.refused.sort()).toEqual(good.seen.used.sort());
+    expect(damaged.out).toBe(good.out);
+  }, 60_000);
+
   it('falls back to the sources, and says so, when the build is older than they are', () => {
     // a checkout of its own: the real sources and libraries, a build stamped as old
     const repo = resolve('.');
@@ -51,6 +79,7 @@ describe('bin/furrow.js', () => {
     mkdirSync(join(dir, 'bin'));
     copyFileSync(join(repo, 'bin', 'furrow.js'), join(dir, 'bin', 'furrow.js'));
     copyFileSync(join(repo, 'bin', 'package.json'), join(dir, 'bin', 'package.json'));
+    copyFileSync(join(repo, 'bin', 'code-cache.js'), join(dir, 'bin', 'code-cache.js'));
     writeFileSync(join(dir, 'package.json'), '{"type": "module"}\n');
     mkdirSync(join(dir, '.git'));
     mkdirSync(join(dir, 'build', 'cli'), { recursive: true });

@@ -44,6 +44,8 @@ describe('the helper thread', () => {
       });
       expect(text(answers[0]!)).toContain('"NaN"');
       expect(text(answers[0]!)).toContain('null');
+      // made on a thread of its own, not by the main thread standing in
+      expect(helper.threaded).toBe(true);
     } finally {
       helper.close();
     }
