@@ -195,23 +195,38 @@ export function patchNumberColumn(
   if (old.source !== baseText) return null;
   const src = g.source;
   const width = g.header.length;
-  const values = base.values.slice();
-  const from = old.from.slice();
-  const to = old.to.slice();
-  const missing = base.missing === null ? new Uint8Array(g.rows) : base.missing.slice();
-  if (shift !== 0) {
-    for (let r = last; r < g.rows; r++) {
-      from[r] = from[r]! + shift;
-      to[r] = to[r]! + shift;
+  // the trimmed ranges of the rows read again
+  const count = last - first;
+  const changedFrom = new Int32Array(count);
+  const changedTo = new Int32Array(count);
+  for (let r = first; r < last; r++) trimmedInto(g, r * width + j, changedFrom, changedTo, r - first);
+  // Fields retyped with as many characters leave every range where it was: the base's
+  // ranges serve as they are (ranges are never written once made). In a table of 100,000
+  // rows that spares 800 kB of fresh memory at each such edit.
+  let sameRanges = shift === 0;
+  for (let i = 0; i < count && sameRanges; i++) sameRanges = changedFrom[i] === old.from[first + i] && changedTo[i] === old.to[first + i];
+  const from = sameRanges ? old.from : old.from.slice();
+  const to = sameRanges ? old.to : old.to.slice();
+  if (!sameRanges) {
+    if (shift !== 0) {
+      for (let r = last; r < g.rows; r++) {
+        from[r] = from[r]! + shift;
+        to[r] = to[r]! + shift;
+      }
     }
+    from.set(changedFrom, first);
+    to.set(changedTo, first);
   }
+  const values = base.values.slice();
+  // no mask until a row is missing
+  let missing = base.missing === null ? null : base.missing.slice();
   const scan = newDecimalScan();
   for (let r = first; r < last; r++) {
     const k = r * width + j;
-    trimmedInto(g, k, from, to, r);
     const a = from[r]!;
     const b = to[r]!;
     if (a === b) {
+      missing ??= new Uint8Array(g.rows);
       missing[r] = 1;
       values[r] = NaN;
       continue;
@@ -219,7 +234,7 @@ export function patchNumberColumn(
     if (g.escaped !== null && g.escaped[k] === 1) return null;
     const v = numberIn(src, a, b, scan);
     if (v === null) return null;
-    missing[r] = 0;
+    if (missing !== null) missing[r] = 0;
     values[r] = v;
   }
   return numberColumn(values, missing, name, { source: src, from, to });
