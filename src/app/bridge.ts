@@ -174,10 +174,7 @@ export class EvaluationBridge {
         const changed = new Set<string>();
         let decoded: { value: Value; parts: Value[] | null }[];
         try {
-          decoded = m.results.map((r) => ({
-            value: this.columns.decode(r.id, r.value),
-            parts: r.parts === null ? null : r.parts.map((p) => this.columns.decode(r.id, p)),
-          }));
+          decoded = this.columns.decodeAll(m.results, m.gone);
         } catch {
           // the column ledgers fell out of step (they should not): start both afresh, and
           // have the worker send the document's values again, whole
@@ -199,7 +196,6 @@ export class EvaluationBridge {
           }
           changed.add(r.id);
         }
-        this.columns.settle(m.gone);
         this.step = null;
         // kept as it was when the names, types and members are the same (most updates)
         if (!sameCellNames(this.cellNames, m.cells)) this.cellNames = m.cells;

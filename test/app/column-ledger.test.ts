@@ -71,12 +71,8 @@ function deliver(sender: ColumnSender, receiver: ColumnReceiver, ran: ReadonlyMa
   if (!posted) return { bytes, decoded };
   const arrived = structuredClone(wire);
   batch.commit(gone);
-  for (const r of arrived) {
-    const value = receiver.decode(r.id, r.value);
-    const parts = r.parts === null ? [] : r.parts.map((p: WireValue) => receiver.decode(r.id, p));
-    decoded.set(r.id, [value, ...parts]);
-  }
-  receiver.settle(gone);
+  const values = receiver.decodeAll(arrived, gone);
+  arrived.forEach((r, i) => decoded.set(r.id, [values[i]!.value, ...(values[i]!.parts ?? [])]));
   return { bytes, decoded };
 }
 
@@ -98,6 +94,9 @@ describe('the column ledgers of the worker and the page', () => {
         const sender = new ColumnSender();
         const receiver = new ColumnReceiver();
         const held = new Map<string, Value>();
+        // what the page shows for each cell, and as what it was decoded: a column patched in
+        // place must never be one that another cell still shows
+        const shown = new Map<string, { values: Value[]; when: unknown }>();
         for (const message of messages) {
           const ran = new Map<string, CellValues>();
           const gone: string[] = [];
@@ -163,8 +162,13 @@ describe('the column ledgers of the worker and the page', () => {
             const got = decoded.get(cell)!;
             expect(plain(got[0]!)).toEqual(plain(v.value));
             if (v.parts !== null) expect(plain(got[1]!)).toEqual(plain(v.parts[0]!));
+            shown.set(cell, { values: got, when: got.map(plain) });
           }
-          for (const cell of gone) held.delete(cell);
+          for (const cell of gone) {
+            held.delete(cell);
+            shown.delete(cell);
+          }
+          for (const [cell, { values, when }] of shown) expect(values.map(plain), `${cell} as the page shows it`).toEqual(when);
           expect(receiver.heldCount).toBe(sender.heldCount);
         }
       }),
@@ -189,6 +193,18 @@ describe('the column ledgers of the worker and the page', () => {
     expect(plain(second.decoded.get('big')![0]!)).toEqual(plain(table(['k', 'y'], [k, y1])));
     expect(receiver.heldCount).toBe(2);
     expect(sender.heldCount).toBe(2);
+    // no other cell shows the old column: the new one took over its arrays
+    const yShown = (d: Map<string, Value[]>): Column => (d.get('big')![0] as Table).columns[1]!;
+    expect(yShown(second.decoded).values).toBe(yShown(first.decoded).values);
+    // with another cell showing it, the old column stays as it was and the new one is a copy
+    const z = deliver(sender, receiver, new Map([['view', { value: table(['y'], [y1]), parts: null }]]), []);
+    texts[1] = '30';
+    const y2 = numbers(texts, 'y');
+    const third = deliver(sender, receiver, new Map([['big', { value: table(['k', 'y'], [k, y2]), parts: null }]]), []);
+    expect(third.bytes).toBeLessThan(1_000);
+    expect(yShown(third.decoded).values).not.toBe(yShown(second.decoded).values);
+    expect((z.decoded.get('view')![0] as Table).columns[0]!.values[1]).toBe(2);
+    expect(yShown(third.decoded).values[1]).toBe(30);
   });
 
   it('finds the rows where two columns differ, and declines columns of another kind or too many changes', () => {
