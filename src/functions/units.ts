@@ -57,8 +57,9 @@ interface NodeModuleApi {
 
 /**
  * In Node, loads mathjs's unit part synchronously at the first conversion: the command
- * line's build has it bundled beside itself (build/cli/unit-library.cjs); from the sources
- * (tests, a development checkout) it is the mathjs package. Null outside Node.
+ * line's build has it bundled beside the chunk that holds this code
+ * (build/cli/chunks/unit-library.cjs); from the sources (tests, a development checkout) it
+ * is the mathjs package. Null outside Node.
  */
 function nodeUnitLibrary(): UnitLibrary | null {
   // process.getBuiltinModule is Node's (20.16 and later); a browser or worker has no process

@@ -33,7 +33,7 @@ if (process.env.FURROW_BEFORE !== undefined) programs.set(`FURROW_BEFORE (${proc
 const runs = new Map<string, Run[]>();
 
 console.log(`machine: ${hostname()}, ${cpus()[0]?.model ?? 'unknown CPU'}, ${cpus().length} cores, Node ${process.version}`);
-if (!existsSync('build/cli/main.mjs')) console.log('note: no build/cli: bin/furrow.js runs the sources through tsx (npm run build:cli first)');
+if (!existsSync('build/cli/main.cjs')) console.log('note: no build/cli: bin/furrow.js runs the sources through tsx (npm run build:cli first)');
 
 /** A figure from /usr/bin/time -v's report. */
 function figure(report: string, label: string): number {
