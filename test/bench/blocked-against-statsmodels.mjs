@@ -10,9 +10,9 @@
 // invented: a coating trial of 20 recipes, each block one batch of panels, from a fixed
 // linear congruential sequence, so every run of the script writes the same bytes.
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { cpus, hostname, tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 
 const treatments = Number(process.argv[2] ?? 20);
 const blocks = Number(process.argv[3] ?? 500);
@@ -56,7 +56,14 @@ try {
     return { seconds, out: r.stdout };
   };
 
+  // an installed copy too (what npm puts in place, without the sources): it does not check
+  // sources against the build, as this checkout does at every start
+  const installed = join(dir, 'installed');
+  for (const part of ['bin', 'build', 'package.json']) cpSync(resolve(part), join(installed, part), { recursive: true });
+  symlinkSync(resolve('node_modules'), join(installed, 'node_modules'));
+
   const furrowTimes = [];
+  const installedTimes = [];
   const pythonTimes = [];
   let ours;
   let theirs;
@@ -64,6 +71,9 @@ try {
     const f = timed(process.execPath, ['bin/furrow.js', 'run', doc, '--json']);
     furrowTimes.push(f.seconds);
     ours = JSON.parse(f.out).cells.find((c) => c.name === 'fit').value.table;
+    const g = timed(process.execPath, [join(installed, 'bin', 'furrow.js'), 'run', doc, '--json']);
+    installedTimes.push(g.seconds);
+    if (g.out !== f.out) throw new Error('the installed copy printed something else');
     const p = timed(PYTHON, ['test/bench/blocked-against-statsmodels.py', csv, 'gloss', 'recipe', 'batch']);
     pythonTimes.push(p.seconds);
     theirs = JSON.parse(p.out);
@@ -86,9 +96,9 @@ try {
   }
   const show = (ts) => ts.map((t) => t.toFixed(2)).join(', ');
   const best = (ts) => Math.min(...ts);
-  console.log(`furrow run --json, end to end (s): ${show(furrowTimes)}`);
+  console.log(`furrow run --json, end to end (s): ${show(furrowTimes)}; from an installed copy: ${show(installedTimes)}`);
   console.log(`python + pandas + statsmodels ols + anova_lm type 1, end to end (s): ${show(pythonTimes)} (of the last: import ${theirs.import_seconds.toFixed(2)}, read and fit ${theirs.fit_seconds.toFixed(2)})`);
-  console.log(`best against best: furrow ${(best(pythonTimes) / best(furrowTimes)).toFixed(1)} x faster`);
+  console.log(`best against best: furrow ${(best(pythonTimes) / best(furrowTimes)).toFixed(1)} x faster (installed copy: ${(best(pythonTimes) / best(installedTimes)).toFixed(1)} x)`);
   if (!same) process.exitCode = 1;
 } finally {
   rmSync(dir, { recursive: true, force: true });
