@@ -18,8 +18,8 @@
  */
 import { once } from 'node:events';
 import type { CellState } from '../graph/engine.ts';
-import { booleansJsonBytes, columnJson, jsonText, numbersJsonBytes, toJson } from '../lang/json.ts';
-import { typeOf, type Column, type Value } from '../lang/values.ts';
+import { booleansJsonBytes, columnJson, jsonText, numbersJsonBytes, toJson, typedCanonical } from '../lang/json.ts';
+import { isTextRanges, typeOf, type Column, type TextRanges, type Value } from '../lang/values.ts';
 
 /** A piece of the output: text, ASCII bytes, or bytes still being made by a helper thread. */
 export type Piece = string | Uint8Array | Promise<Uint8Array>;
@@ -97,24 +97,36 @@ export function* valuePieces(v: Value, slice = COLUMN_SLICE, bytes?: ColumnBytes
 /**
  * A number or boolean column as bytes, `slice` elements at a time; the second half of a long
  * number column is asked of the helper first, so that it is made while this thread makes the
- * first half.
+ * first half. A column of typed numbers whose texts are mostly their canonical texts is
+ * written by this thread alone: those texts are copied as typed (numbersJsonBytes), three
+ * times as fast as made from the doubles, and the helper, which gets the doubles only, has
+ * the computed columns' halves to make.
  */
 function* columnBytePieces(c: Exclude<Column, { type: 'text' }>, slice: number, bytes: ColumnBytes): Generator<Piece> {
   const n = c.values.length;
-  const helped = c.type === 'number' && n >= HELPED_FROM;
+  const typed = c.type === 'number' && c.decimals !== null && isTextRanges(c.decimals) ? c.decimals : null;
+  const helped = c.type === 'number' && n >= HELPED_FROM && !(typed !== null && mostlyAsTyped(c.values, typed));
   const mine = helped ? Math.ceil(n / 2) : n;
   const rest = helped ? bytes.numbers(c.values as Float64Array, c.missing, mine, n) : null;
   yield '[';
   for (let from = 0; from < mine; from += slice) {
     const to = Math.min(mine, from + slice);
     if (from > 0) yield ',';
-    yield c.type === 'number' ? numbersJsonBytes(c.values, c.missing, from, to) : booleansJsonBytes(c.values, c.missing, from, to);
+    yield c.type === 'number' ? numbersJsonBytes(c.values, c.missing, from, to, typed) : booleansJsonBytes(c.values, c.missing, from, to);
   }
   if (rest !== null) {
     yield ',';
     yield rest;
   }
   yield ']';
+}
+
+/** True when nine in ten of the first texts of a typed column are their numbers' canonical texts (a column typed as 2.50, 3.00 is not). */
+function mostlyAsTyped(values: Float64Array, typed: TextRanges): boolean {
+  const k = Math.min(values.length, 100);
+  let copied = 0;
+  for (let i = 0; i < k; i++) if (typedCanonical(typed.source, typed.from[i]!, typed.to[i]!, values[i]!)) copied++;
+  return copied >= 0.9 * k;
 }
 
 /**

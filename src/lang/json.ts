@@ -25,7 +25,7 @@
  * Written by hand rather than through JSON.stringify of intermediate objects, so that names
  * chosen by a document (a column called "__proto__") are only ever keys of text.
  */
-import { elementAt, type Column, type Value } from './values.ts';
+import { elementAt, type Column, type TextRanges, type Value } from './values.ts';
 
 /** A number in the canonical JSON: shortest round-trip form, non-finite as text. */
 export function jsonNumber(x: number): string {
@@ -54,21 +54,97 @@ const MOST_BYTES_PER_NUMBER = 26;
  * the brackets, as ASCII bytes: the same characters as `columnJson(c, from, to)` between its
  * brackets, each number's text from {@link jsonNumber}. For writing a million numbers, where
  * joining strings and encoding them afterwards costs as much as making the texts.
+ *
+ * `typed` is the column's decimal texts, when it was read from them: a typed text that is
+ * already its number's canonical text (see {@link typedCanonical}) is copied, which costs a
+ * tenth of making the text from the double.
  */
-export function numbersJsonBytes(values: Float64Array, missing: Uint8Array | null, from = 0, to = values.length): Uint8Array {
+export function numbersJsonBytes(values: Float64Array, missing: Uint8Array | null, from = 0, to = values.length, typed: TextRanges | null = null): Uint8Array {
   let out = new Uint8Array(Math.max(0, to - from) * MOST_BYTES_PER_NUMBER);
   let o = 0;
   for (let i = from; i < to; i++) {
+    if (i > from) out[o++] = 44; // ,
+    if (missing === null || missing[i] !== 1) {
+      if (typed !== null) {
+        const a = typed.from[i]!;
+        const b = typed.to[i]!;
+        // room: a canonical typed text is at most 23 characters ("-0.00000" and 15 digits)
+        if (typedCanonical(typed.source, a, b, values[i]!)) {
+          for (let j = a; j < b; j++) out[o++] = typed.source.charCodeAt(j);
+          continue;
+        }
+      }
+    }
     const text = missing !== null && missing[i] === 1 ? 'null' : jsonNumber(values[i]!);
     if (o + text.length + 1 > out.length) {
       const bigger = new Uint8Array(out.length * 2 + text.length + 1);
       bigger.set(out.subarray(0, o));
       out = bigger;
     }
-    if (i > from) out[o++] = 44; // ,
     for (let j = 0; j < text.length; j++) out[o++] = text.charCodeAt(j);
   }
   return out.subarray(0, o);
+}
+
+/** Exact powers of ten as doubles, 10^0 to 10^22. */
+const EXACT_TENS = Array.from({ length: 23 }, (_, k) => 10 ** k);
+
+/**
+ * True when source[a, b) is exactly the canonical JSON text of `x` (jsonNumber(x)), decided
+ * from the text without making that text. That holds for a plain decimal: an optional minus,
+ * an integer part of 0 or without leading zeros, an optional fraction whose last digit is
+ * not 0, at most 15 significant digits, and (below 1) at most five zeros after the point;
+ * and x must be the double the text reads as. At most 15 digits, no two such decimals read
+ * as one double (2^53 > 10^15), so the shortest text that reads back as x has exactly these
+ * digits; between 1e-6 and 1e21 ECMAScript writes it without an exponent, as typed. Anything
+ * else (an exponent, a plus, "5.", ".5", "2.50", "007", 16 digits) is made from the double.
+ */
+export function typedCanonical(source: string, a: number, b: number, x: number): boolean {
+  let i = a;
+  const negative = i < b && source.charCodeAt(i) === 45; // -
+  if (negative) i++;
+  if (i >= b) return false;
+  let significand = 0;
+  let digits = 0;
+  let fraction = 0;
+  const first = source.charCodeAt(i);
+  if (first === 48) {
+    // 0 alone, or 0.xxx
+    i++;
+    if (i === b) return x === 0 && Object.is(x, negative ? -0 : 0);
+    if (source.charCodeAt(i) !== 46) return false;
+  } else {
+    while (i < b) {
+      const d = source.charCodeAt(i) - 48;
+      if (d < 0 || d > 9) break;
+      significand = significand * 10 + d;
+      digits++;
+      i++;
+    }
+    if (digits === 0 || digits > 15) return false;
+    if (i === b) return Object.is(x, negative ? -significand : significand);
+    if (source.charCodeAt(i) !== 46) return false;
+  }
+  // the fraction, after the point
+  i++;
+  let zeros = 0;
+  let last = -1;
+  while (i < b) {
+    const d = source.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return false;
+    fraction++;
+    if (digits === 0 && d === 0) zeros++;
+    else {
+      significand = significand * 10 + d;
+      digits++;
+    }
+    last = d;
+    i++;
+  }
+  if (fraction === 0 || last === 0 || digits > 15 || (first === 48 && zeros > 5)) return false;
+  // one correctly rounded division by an exact power: the double the text reads as
+  const v = significand / EXACT_TENS[fraction]!;
+  return Object.is(x, negative ? -v : v);
 }
 
 /** As {@link numbersJsonBytes}, for a boolean column's elements (1 true, 0 false). */

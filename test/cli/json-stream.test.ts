@@ -180,6 +180,28 @@ describe('furrow run --json, streamed', () => {
       [60_001, 120_001],
       [30_000, 60_000],
     ]);
+
+    // typed columns: one typed as its canonical texts is written here alone, its texts
+    // copied; one typed with trailing zeros (2.50) is shared with the helper as before
+    const typedColumn = (n: number, text: (i: number) => string): Column => {
+      const texts = Array.from({ length: n }, (_, i) => text(i));
+      const from = new Int32Array(n);
+      const to = new Int32Array(n);
+      let at = 0;
+      texts.forEach((t, i) => {
+        from[i] = at;
+        to[i] = at + t.length;
+        at += t.length + 1;
+      });
+      return numberColumn(Float64Array.from(texts, Number), null, null, { source: texts.join(','), from, to });
+    };
+    const typed = record([
+      ['as typed', typedColumn(70_000, (i) => (i % 50 === 0 ? '1e3' : `${(i % 997) - 400}.${(i % 9) + 1}`))],
+      ['zeros', typedColumn(60_000, (i) => `${i % 1000}.${i % 10}0`)],
+    ]);
+    asked.length = 0;
+    expect(await streamed([...valuePieces(typed, 8192, late)], 1000)).toBe(`${toJson(typed)}\n`);
+    expect(asked).toEqual([[30_000, 60_000]]);
   });
 
   it('waits for the stream to drain before it makes more text', async () => {

@@ -3,7 +3,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { booleansJsonBytes, columnJson, jsonNumber, jsonText, numbersJsonBytes, plainJson, toJson } from '../../src/lang/json.ts';
+import { booleansJsonBytes, columnJson, jsonNumber, jsonText, numbersJsonBytes, plainJson, toJson, typedCanonical } from '../../src/lang/json.ts';
 import {
   MISSING,
   booleanColumn,
@@ -174,6 +174,47 @@ describe('number and boolean elements as bytes', () => {
       ),
       { numRuns: 2000 },
     );
+  });
+
+  it('copy a typed text only where it is the canonical text of its number, for any decimal texts', () => {
+    // decimal texts as people type them: signs, leading and trailing zeros, points at either
+    // end, exponents, up to 18 digits, below 1e-6; the values read from them as the readers do
+    const digits = fc.stringMatching(/^[0-9]{1,18}$/);
+    const typedText = fc.oneof(
+      fc.tuple(fc.constantFrom('', '-', '+'), digits, fc.constantFrom('', '.'), fc.stringMatching(/^[0-9]{0,18}$/), fc.constantFrom('', 'e3', 'E-2')).map((p) => p.join('')),
+      fc.constantFrom('0', '-0', '0.0', '0.000001', '-0.000001', '0.0000001', '0.0000012345', '1e-7', '.5', '5.', '007', '2.50', '123456789012345', '1234567890123456', '999999999999999.9', '0.1', '0.30000000000000004', '9007199254740993'),
+    );
+    fc.assert(
+      fc.property(fc.array(fc.tuple(typedText, fc.boolean()), { minLength: 1, maxLength: 40 }), fc.boolean(), (elements, offByOne) => {
+        const source = elements.map(([t]) => t).join(' ');
+        const from = new Int32Array(elements.length);
+        const to = new Int32Array(elements.length);
+        let at = 0;
+        elements.forEach(([t], i) => {
+          from[i] = at;
+          to[i] = at + t.length;
+          at += t.length + 1;
+        });
+        const values = Float64Array.from(elements, ([t]) => Number(t));
+        // now and then a value that is not the one its text reads as: never copied then
+        if (offByOne) values[0] = values[0]! + 1;
+        const missing = Uint8Array.from(elements, ([, m]) => (m ? 1 : 0));
+        const c = numberColumn(values, missing);
+        const typed = numbersJsonBytes(values, missing, 0, values.length, { source, from, to });
+        expect(new TextDecoder().decode(typed)).toBe(between(c, 0, values.length));
+      }),
+      { numRuns: 3000, seed: 20261202 },
+    );
+    // and the text is copied where it may be (a text made from the double would also match,
+    // so this is the shortcut's own check: a value the text does not read as is refused)
+    expect(typedCanonical('81.23', 0, 5, 81.23)).toBe(true);
+    expect(typedCanonical('-0.000001', 0, 9, -0.000001)).toBe(true);
+    expect(typedCanonical('-0', 0, 2, -0)).toBe(true);
+    expect(typedCanonical('-0', 0, 2, 0)).toBe(false);
+    expect(typedCanonical('81.23', 0, 5, 81.24)).toBe(false);
+    expect(typedCanonical('81.230', 0, 6, 81.23)).toBe(false);
+    expect(typedCanonical('0.0000001', 0, 9, 1e-7)).toBe(false);
+    expect(typedCanonical('1234567890123456', 0, 16, 1234567890123456)).toBe(false);
   });
 
   it('cover the longest texts a number has, and booleans with missing marks', () => {
