@@ -68,6 +68,12 @@ await build({
 // V8's code cache of the chunks a run compiles (bin/code-cache.js), made by running the
 // build over the samples in a process of its own; without it the command line works as well,
 // only starts a little slower
-execFileSync(process.execPath, ['scripts/make-code-cache.cjs'], { stdio: ['ignore', 'ignore', 'inherit'] });
+try {
+  execFileSync(process.execPath, ['scripts/make-code-cache.cjs'], { stdio: ['ignore', 'ignore', 'inherit'] });
+} catch {
+  // whatever stopped it, the build stands without a cache (or with part of one: a cache is
+  // used only for the very text it was made from)
+  console.warn('the command line\'s code cache was not made: it starts a little slower without it');
+}
 writeFileSync(join(OUT, 'stamp.json'), `${JSON.stringify({ newestSource: newest, builtAt: Date.now() })}\n`);
 console.log(`built the command line into ${OUT}/main.cjs in ${Date.now() - started} ms`);

@@ -161,6 +161,17 @@ function patchOf(id: number, baseId: number, next: Column, rows: Int32Array): Pa
   return { kind: 'column-patched', id, base: baseId, name: next.name, order: next.order, rows, values, missing, decimals };
 }
 
+/** The arrays a column holds its elements, marks and decimal texts in. */
+function arraysOf(c: Column): unknown[] {
+  const out: unknown[] = [c.values];
+  if (c.missing !== null) out.push(c.missing);
+  if (c.type === 'number' && c.decimals !== null) {
+    if (isTextRanges(c.decimals)) out.push(c.decimals.from, c.decimals.to);
+    else out.push(c.decimals);
+  }
+  return out;
+}
+
 /**
  * A patch applied to the column it was made from (the page's side). `inPlace` when nothing
  * else will read the base again (ColumnReceiver decides): its arrays are written and become
@@ -386,11 +397,24 @@ export class ColumnReceiver {
       walk(r.id, r.value);
       for (const p of r.parts ?? []) walk(r.id, p);
     }
+    // Two columns may share arrays under two numbers (a column with its levels put in order
+    // is the same values under another name, and a message carries them as one): such
+    // arrays are never taken over, whichever cell holds them.
+    const shared = new Set<unknown>();
+    const once = new Set<unknown>();
+    for (const c of this.byId.values()) {
+      for (const a of arraysOf(c)) {
+        if (once.has(a)) shared.add(a);
+        once.add(a);
+      }
+    }
     const sole = new Set<number>();
     for (const [base, { cell, times }] of patched) {
       if (times !== 1 || named.has(base)) continue;
       let elsewhere = false;
       for (const [other, ids] of this.byCell) if (other !== cell && ids.includes(base)) elsewhere = true;
+      const column = this.byId.get(base);
+      if (column !== undefined && arraysOf(column).some((a) => shared.has(a))) elsewhere = true;
       if (!elsewhere) sole.add(base);
     }
     return sole;

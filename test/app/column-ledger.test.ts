@@ -83,7 +83,7 @@ describe('the column ledgers of the worker and the page', () => {
     // one step: which cell runs and what becomes of its value
     const step = fc.record({
       cell: fc.constantFrom('a', 'b', 'c', 'd'),
-      what: fc.constantFrom('new', 'patch', 'share', 'record', 'number', 'gone', 'unsent'),
+      what: fc.constantFrom('new', 'patch', 'share', 'alias', 'record', 'number', 'gone', 'unsent'),
       length: fc.constantFrom(3, LEDGER_MIN_LENGTH, 700),
       seed: fc.nat(),
       texts: fc.array(text, { minLength: 1, maxLength: 8 }),
@@ -143,6 +143,13 @@ describe('the column ledgers of the worker and the page', () => {
               // a column another cell holds, in a table of this one (as `y = big.y` does)
               const other = [...held.values()].find((v) => typeof v === 'object' && v.kind === 'table') as Table | undefined;
               value = table(['x'], [other === undefined ? fresh('x') : other.columns[0]!]);
+            } else if (s.what === 'alias') {
+              // another column with the same arrays as a column of this message or an earlier
+              // one (a column with its levels put in order is one): on the page the two share
+              // them when one message carries both
+              const tables = [...[...ran.values()].map((v) => v.value), ...held.values()].filter((v): v is Table => typeof v === 'object' && v.kind === 'table');
+              const other = tables[s.seed % Math.max(1, tables.length)];
+              value = table(['x'], [other === undefined ? fresh('x') : ({ ...other.columns[0]!, name: 'alias' } as Column)]);
             } else if (s.what === 'record') {
               value = record([
                 ['column', fresh('r')],

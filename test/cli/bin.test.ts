@@ -4,7 +4,7 @@
  * sources instead, with a note on stderr.
  */
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, cpSync, mkdirSync, mkdtempSync, readdirSync, symlinkSync, writeFileSync } from 'node:fs';
+import { copyFileSync, cpSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -61,14 +61,43 @@ Promise.resolve(require(${JSON.stringify(join(build, 'main.cjs'))}).main(['run',
     expect(good.seen.used).toContain('main.cjs');
     expect(good.seen.used.some((f) => f.startsWith('functions-'))).toBe(true);
     expect(JSON.parse(good.out).cells[1].value).toBe(10 / 3);
-    // the same build with every cache damaged: V8 refuses them all, and the output is the same
+    // the same build with every cache damaged, in its header or past it: V8 refuses them
+    // all (it checks each cache's checksum), and the output is the same
     const copy = join(dir, 'build');
     cpSync(resolve('build/cli'), copy, { recursive: true });
-    for (const f of readdirSync(join(copy, 'cache'))) writeFileSync(join(copy, 'cache', f), Buffer.alloc(4096, 7));
+    const caches = readdirSync(join(copy, 'cache'), { recursive: true, withFileTypes: true }).filter((e) => e.isFile());
+    expect(caches.length).toBe(good.seen.used.length);
+    caches.forEach((e, k) => {
+      const file = join(e.parentPath, e.name);
+      const bytes = readFileSync(file);
+      if (k % 2 === 0) bytes.fill(7, 0, 64);
+      else for (let i = 200; i < Math.min(bytes.length, 400); i++) bytes[i]! ^= 0x5a;
+      writeFileSync(file, bytes);
+    });
     const damaged = runWith(copy);
     expect(damaged.seen.used).toEqual([]);
     expect(damaged.seen.refused.sort()).toEqual(good.seen.used.sort());
     expect(damaged.out).toBe(good.out);
+    // a chunk changed after its cache was made (as long as before, as V8's own check sees it)
+    // finds no cache and runs as it now is
+    const again = join(dir, 'build-changed');
+    cpSync(resolve('build/cli'), again, { recursive: true });
+    const chunk = readdirSync(join(again, 'chunks')).find((f) => f.startsWith('main-') && f.endsWith('.cjs'))!;
+    const text = readFileSync(join(again, 'chunks', chunk), 'utf8');
+    expect(text).toContain('all evaluated.');
+    writeFileSync(join(again, 'chunks', chunk), text.replace('all evaluated.', 'ALL EVALUATED'));
+    const changed = runWith(again);
+    expect(changed.seen.used).not.toContain(chunk);
+    expect(changed.seen.refused).toEqual([]);
+    // with source maps asked for, Node's own loader compiles, so stacks name the sources
+    const loadWith = (flags: string[]): { used: string[]; refused: string[] } => {
+      const script = `const seen = require(${JSON.stringify(resolve('bin/code-cache.js'))}).useCodeCache(${JSON.stringify(resolve('build/cli'))});
+require(${JSON.stringify(resolve('build/cli/main.cjs'))});
+process.stdout.write(JSON.stringify(seen));`;
+      return JSON.parse(spawnSync(process.execPath, [...flags, '-e', script], { encoding: 'utf8' }).stdout) as { used: string[]; refused: string[] };
+    };
+    expect(loadWith([]).used).toContain('main.cjs');
+    expect(loadWith(['--enable-source-maps'])).toEqual({ used: [], refused: [] });
   }, 60_000);
 
   it('falls back to the sources, and says so, when the build is older than they are', () => {
