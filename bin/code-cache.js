@@ -9,9 +9,11 @@
 // What keeps a cache from doing harm:
 // - a cache is found by the hash of its chunk's text, so a chunk that changed in any way
 //   has no cache (V8 itself checks only the text's length);
-// - V8 checks every cache's own checksum (--verify-snapshot-checksum, set here for making
-//   and for reading alike: a damaged cache made Node stop without it), its version and its
-//   flags, and compiles from the source when one does not fit;
+// - V8 checks every cache's own checksum (--verify-snapshot-checksum: a damaged cache made
+//   Node stop without it), its version and its flags, and compiles from the source when one
+//   does not fit. The flag is on only while a cache is made or read: on for good, it made
+//   V8 refuse Node's own caches for every module loaded after, and in every thread started
+//   after (the --json helper started 35 ms later);
 // - the caches of one Node version are kept apart from another's;
 // - with source maps asked for (node --enable-source-maps), Node's own loader compiles,
 //   so that stacks name the sources;
@@ -27,11 +29,21 @@ const { basename, dirname, join } = require('node:path');
 
 const MAIN = require.main;
 
+/** Runs `work` with V8 checking the checksums of code caches, and only then (see above). */
+function checkingCaches(work) {
+  v8.setFlagsFromString('--verify-snapshot-checksum');
+  try {
+    return work();
+  } finally {
+    v8.setFlagsFromString('--no-verify-snapshot-checksum');
+  }
+}
+
 /** Compiles `content` as Node's CommonJS loader would, from `cachedData` when given; returns the script. */
 function compileChunk(module, content, filename, cachedData) {
   const wrapper = Module.wrapper[0];
   // positions in the file as Node's own loader gives them (the wrapper shares the first line)
-  const script = new vm.Script(wrapper + content + Module.wrapper[1], { filename, cachedData, columnOffset: -wrapper.length });
+  const script = checkingCaches(() => new vm.Script(wrapper + content + Module.wrapper[1], { filename, cachedData, columnOffset: -wrapper.length }));
   const run = script.runInThisContext({ displayErrors: true });
   const require = (id) => module.require(id);
   require.resolve = (request, options) => Module._resolveFilename(request, module, false, options);
@@ -67,7 +79,6 @@ function useCodeCache(buildDir) {
   const seen = { used: [], refused: [] };
   const cacheDir = cacheDirOf(buildDir);
   if (process.sourceMapsEnabled || !existsSync(cacheDir)) return seen;
-  v8.setFlagsFromString('--verify-snapshot-checksum');
   const compile = Module.prototype._compile;
   Module.prototype._compile = function compileFromCache(content, filename) {
     const cacheFile = inBuild(buildDir, filename) ? cacheFileOf(cacheDir, filename, content) : null;
@@ -87,7 +98,6 @@ function useCodeCache(buildDir) {
 function makeCodeCache(buildDir) {
   const cacheDir = cacheDirOf(buildDir);
   const scripts = new Map();
-  v8.setFlagsFromString('--verify-snapshot-checksum');
   const compile = Module.prototype._compile;
   Module.prototype._compile = function compileForCache(content, filename) {
     if (!inBuild(buildDir, filename) || content.includes('import(')) return compile.call(this, content, filename);
@@ -96,7 +106,8 @@ function makeCodeCache(buildDir) {
   };
   return () => {
     mkdirSync(cacheDir, { recursive: true });
-    for (const [file, script] of scripts) writeFileSync(file, script.createCachedData());
+    // made as it will be read: V8 keeps the flags of its making in a cache
+    for (const [file, script] of scripts) writeFileSync(file, checkingCaches(() => script.createCachedData()));
     return [...scripts.keys()];
   };
 }

@@ -9,16 +9,9 @@
  * list of distinct values and a code per row, so a column of 50 varieties over a million rows
  * makes 50 strings.
  */
-import { newDecimalScan, scanDecimalIn, type DecimalScan, type TextRanges } from '../stats/decimal/scan.ts';
+import { EXACT_POWERS, newDecimalScan, scanDecimalIn, type DecimalScan, type TextRanges } from '../stats/decimal/scan.ts';
 import { booleanColumn, numberColumn, table, textColumn, type Column, type NumberColumn, type Table } from '../lang/values.ts';
 import { isTrimmed, type FieldGrid } from './csv-fields.ts';
-
-/** Powers of ten that are exact doubles (10^0 .. 10^22). */
-const EXACT_POWERS: readonly number[] = Array.from({ length: 23 }, (_, k) => {
-  let p = 1;
-  for (let i = 0; i < k; i++) p *= 10;
-  return p;
-});
 
 const MINUS = 45;
 

@@ -25,6 +25,7 @@
  * Written by hand rather than through JSON.stringify of intermediate objects, so that names
  * chosen by a document (a column called "__proto__") are only ever keys of text.
  */
+import { EXACT_POWERS } from '../stats/decimal/scan.ts';
 import { elementAt, type Column, type TextRanges, type Value } from './values.ts';
 
 /** A number in the canonical JSON: shortest round-trip form, non-finite as text. */
@@ -45,7 +46,9 @@ export function jsonText(s: string): string {
  * Room for one number's canonical text and its comma, enough for every double: the longest
  * texts are 25 characters, a 17-digit negative number between 1e-6 and 1e-5
  * ("-0.0000012345678901234567"); exponent forms take at most 24 ("-2.2250738585072014e-308").
- * The writer checks the room anyway and grows its buffer, so a miscount can never cut a text.
+ * The writer checks the room anyway and grows its buffer before a text made from a double, so
+ * a miscount can never cut one; a typed text it copies is at most 23 characters
+ * ("-0.00000" and 15 digits, typedCanonical), so it and its comma always fit within the 26.
  */
 const MOST_BYTES_PER_NUMBER = 26;
 
@@ -85,9 +88,6 @@ export function numbersJsonBytes(values: Float64Array, missing: Uint8Array | nul
   }
   return out.subarray(0, o);
 }
-
-/** Exact powers of ten as doubles, 10^0 to 10^22. */
-const EXACT_TENS = Array.from({ length: 23 }, (_, k) => 10 ** k);
 
 /**
  * True when source[a, b) is exactly the canonical JSON text of `x` (jsonNumber(x)), decided
@@ -143,7 +143,7 @@ export function typedCanonical(source: string, a: number, b: number, x: number):
   }
   if (fraction === 0 || last === 0 || digits > 15 || (first === 48 && zeros > 5)) return false;
   // one correctly rounded division by an exact power: the double the text reads as
-  const v = significand / EXACT_TENS[fraction]!;
+  const v = significand / EXACT_POWERS[fraction]!;
   return Object.is(x, negative ? -v : v);
 }
 

@@ -98,6 +98,16 @@ process.stdout.write(JSON.stringify(seen));`;
     };
     expect(loadWith([]).used).toContain('main.cjs');
     expect(loadWith(['--enable-source-maps'])).toEqual({ used: [], refused: [] });
+    // V8 checks caches' checksums only while it reads ours: Node's own modules loaded after
+    // (here the threads module, as the --json helper needs) keep their caches
+    const after = spawnSync(
+      process.execPath,
+      ['-e', `require(${JSON.stringify(resolve('bin/code-cache.js'))}).useCodeCache(${JSON.stringify(resolve('build/cli'))}); require(${JSON.stringify(resolve('build/cli/main.cjs'))}); require('node:worker_threads'); require('node:readline');`],
+      { encoding: 'utf8', env: { ...process.env, NODE_DEBUG_NATIVE: 'CODE_CACHE' } },
+    );
+    expect(after.status).toBe(0);
+    expect(after.stderr).toContain('Code cache of');
+    expect(after.stderr).not.toMatch(/is rejected/);
   }, 60_000);
 
   it('falls back to the sources, and says so, when the build is older than they are', () => {

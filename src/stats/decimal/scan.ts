@@ -13,6 +13,16 @@
 /** 2^53: every integer of smaller magnitude is an exact double. */
 export const EXACT_INTEGER_LIMIT = 9007199254740992;
 
+/**
+ * Powers of ten that are exact doubles (10^0 .. 10^22), built by multiplication, each step
+ * exact (10^22 = 2^22 * 5^22 and 5^22 < 2^53), with no call to pow.
+ */
+export const EXACT_POWERS: readonly number[] = Array.from({ length: 23 }, (_, k) => {
+  let p = 1;
+  for (let i = 0; i < k; i++) p *= 10;
+  return p;
+});
+
 /** Exponents beyond this are refused before they can overflow an integer. */
 const EXPONENT_CAP = 100000;
 

@@ -19,7 +19,7 @@
  * that (more than about 15 significant digits, extreme exponents, very fine offsets) take an
  * exact BigInt path, text by text.
  */
-import { EXACT_INTEGER_LIMIT, newDecimalScan, readDecimal, scanDecimal, scanDecimalIn, type TextRanges } from './scan.ts';
+import { EXACT_INTEGER_LIMIT, EXACT_POWERS, newDecimalScan, readDecimal, scanDecimal, scanDecimalIn, type TextRanges } from './scan.ts';
 import { decimalOfDouble, roundScaledInteger } from './exact.ts';
 import * as pm from '../math/portable.ts';
 
@@ -44,14 +44,6 @@ export class DecimalTextError extends Error {
     this.text = text;
   }
 }
-
-/** Powers of ten that are exact doubles (10^0 .. 10^22). */
-// built by multiplication, each step exact (10^22 = 2^22 * 5^22 and 5^22 < 2^53), with no call to pow
-const EXACT_POWERS: readonly number[] = Array.from({ length: 23 }, (_, k) => {
-  let p = 1;
-  for (let i = 0; i < k; i++) p *= 10;
-  return p;
-});
 
 /**
  * How one scale of text (texts whose value is `significand * 10^scale`) is shifted on the
