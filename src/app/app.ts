@@ -334,35 +334,21 @@ export class FurrowApp extends LitElement {
 
   /** What opening and saving documents need of the page. */
   private openDocumentHost(): OpenDocumentHost {
-    const app = this;
     return {
-      get doc() {
-        return app.doc;
+      doc: () => this.doc,
+      banner: () => this.banner,
+      say: (banner) => {
+        this.banner = banner;
       },
-      get banner() {
-        return app.banner;
+      listKept: (kept) => {
+        this.kept = kept;
       },
-      set banner(v) {
-        app.banner = v;
-      },
-      get kept() {
-        return app.kept;
-      },
-      set kept(v) {
-        app.kept = v;
-      },
-      get store() {
-        return app.store;
-      },
-      get keeper() {
-        return app.keeper;
-      },
-      get arrivals() {
-        return app.arrivals;
-      },
-      replaced: () => {
+      load: (doc) => {
         this.renaming = null;
+        this.store.load(doc);
       },
+      keeper: this.keeper,
+      arrivals: this.arrivals,
     };
   }
 

@@ -16,20 +16,20 @@ import type { Banner } from './banner.ts';
 import { FileTooLargeError, fileNameFor, pickFile, saveText } from './files.ts';
 import { documentFromReport } from './handoff/report-open.ts';
 import { DocumentKeeper, type Opening } from './keeper.ts';
-import type { DocumentStore } from './store.ts';
 import { isImportable } from './table-import.ts';
 
 /** What opening and saving need of the page. */
 export interface OpenDocumentHost {
-  readonly doc: Document;
-  banner: Banner | null;
-  /** Other documents kept in this browser, newest first (the toolbar lists them). */
-  kept: readonly SavedState[];
-  readonly store: DocumentStore;
+  doc(): Document;
+  /** The banner shown now. */
+  banner(): Banner | null;
+  say(banner: Banner | null): void;
+  /** The other documents kept in this browser, newest first, for the toolbar to list. */
+  listKept(kept: readonly SavedState[]): void;
+  /** Shows a document read: it takes over the page (what was under way, a rename, ends). */
+  load(doc: Document): void;
   readonly keeper: DocumentKeeper;
   readonly arrivals: ArrivingFiles;
-  /** Another document takes over: what was under way for the one before (a rename) ends. */
-  replaced(): void;
 }
 
 export class OpenDocument {
@@ -70,7 +70,7 @@ export class OpenDocument {
       doc = readDocument(o.text, { kinds: CELL_KINDS }).document;
     } catch (err) {
       if (err instanceof DocumentError) {
-        host.banner = { kind: 'problem', text: pageMsg.notOpened(o.fileName, err.message) };
+        host.say({ kind: 'problem', text: pageMsg.notOpened(o.fileName, err.message) });
         return false;
       }
       throw err;
@@ -79,17 +79,17 @@ export class OpenDocument {
     void host.keeper.take(o.key).then(() => this.refreshKept());
     this.fileName = o.fileName;
     host.arrivals.replaceWith(o.files);
-    host.replaced();
-    host.store.load(doc);
+    host.load(doc);
     const missing = host.arrivals.missing(doc);
-    host.banner =
+    host.say(
       o.original !== undefined
         ? { kind: 'info', text: o.notice ?? '', actions: [{ label: pageMsg.openOriginal(), run: () => void this.openOriginal(o.original!.name, o.original!.text) }] }
         : o.notice !== undefined
           ? { kind: 'info', text: o.notice }
           : missing.length > 0
             ? { kind: 'info', text: pageMsg.openedMissingFiles(o.fileName, missing) }
-            : null;
+            : null,
+    );
     return true;
   }
 
@@ -100,20 +100,20 @@ export class OpenDocument {
    */
   private sayRestored(fileName: string, taken: readonly string[], said: Banner | null): void {
     const host = this.host;
-    if (host.banner !== said) return;
-    host.banner = {
+    if (host.banner() !== said) return;
+    host.say({
       kind: 'info',
-      text: pageMsg.restoredFiles(fileName, taken, host.arrivals.missing(host.doc)),
+      text: pageMsg.restoredFiles(fileName, taken, host.arrivals.missing(host.doc())),
       actions: [
         {
           label: pageMsg.leaveOutFiles(),
           run: () => {
             host.arrivals.drop(taken);
-            host.banner = { kind: 'info', text: pageMsg.openedMissingFiles(fileName, host.arrivals.missing(host.doc)) };
+            host.say({ kind: 'info', text: pageMsg.openedMissingFiles(fileName, host.arrivals.missing(host.doc())) });
           },
         },
       ],
-    };
+    });
   }
 
   /** Opens a document's text read from a file (or dropped): its slot is the file's name. */
@@ -125,8 +125,8 @@ export class OpenDocument {
     const key = fileKey(fileName);
     const opened = this.open({ key, text, fileName, files: report?.files ?? [] });
     if (!opened) return false;
-    if (host.banner === null) host.banner = { kind: 'info', text: pageMsg.opened(fileName) };
-    const said = host.banner;
+    if (host.banner() === null) host.say({ kind: 'info', text: pageMsg.opened(fileName) });
+    const said = host.banner();
     // a kept state of the same file with other text (edits never saved to it) is kept aside;
     // with the same text, the data files attached to it are taken back, and the page says so
     void loadSaved(key).then(async (kept) => {
@@ -154,11 +154,11 @@ export class OpenDocument {
   private async openOriginalNow(name: string, text: string): Promise<void> {
     const host = this.host;
     const kept = await host.keeper.readKept(host.keeper.key);
-    const title = kept !== null ? await host.keeper.keepAside(kept) : documentTitle(host.doc);
+    const title = kept !== null ? await host.keeper.keepAside(kept) : documentTitle(host.doc());
     await forget(sampleKey(name));
     this.fileHandle = null;
     if (this.open({ key: sampleKey(name), text, fileName: name, files: [] })) {
-      host.banner = { kind: 'info', text: pageMsg.originalOpen(name, title) };
+      host.say({ kind: 'info', text: pageMsg.originalOpen(name, title) });
     }
   }
 
@@ -190,7 +190,7 @@ export class OpenDocument {
 
   async refreshKept(): Promise<void> {
     const host = this.host;
-    host.kept = (await listSaved()).filter((s) => s.key !== host.keeper.key);
+    host.listKept((await listSaved()).filter((s) => s.key !== host.keeper.key));
   }
 
   async openFile(): Promise<void> {
@@ -200,15 +200,15 @@ export class OpenDocument {
       if (isImportable(f.name)) return void (await this.host.arrivals.offerImport(f.name, f.bytes));
       if (this.openText(f.text, f.name)) this.fileHandle = f.handle;
     } catch (err) {
-      this.host.banner = { kind: 'problem', text: err instanceof FileTooLargeError ? err.message : pageMsg.unreadable(err instanceof NotUtf8Error, String(err)) };
+      this.host.say({ kind: 'problem', text: err instanceof FileTooLargeError ? err.message : pageMsg.unreadable(err instanceof NotUtf8Error, String(err)) });
     }
   }
 
   async saveFile(): Promise<void> {
     const host = this.host;
     try {
-      const name = this.fileName ?? fileNameFor(documentTitle(host.doc));
-      this.fileHandle = await saveText(writeDocument(host.doc), name, this.fileHandle);
+      const name = this.fileName ?? fileNameFor(documentTitle(host.doc()));
+      this.fileHandle = await saveText(writeDocument(host.doc()), name, this.fileHandle);
       this.fileName = this.fileHandle?.name ?? name;
       // from now on the document is kept under its file's name; a new document's slot empties
       const before = host.keeper.key;
@@ -216,9 +216,9 @@ export class OpenDocument {
       host.keeper.touch();
       if (before.startsWith('new:')) await forget(before);
       void this.refreshKept();
-      host.banner = { kind: 'info', text: pageMsg.savedAs(this.fileName) };
+      host.say({ kind: 'info', text: pageMsg.savedAs(this.fileName) });
     } catch (err) {
-      host.banner = { kind: 'problem', text: pageMsg.saveFailed(String(err)) };
+      host.say({ kind: 'problem', text: pageMsg.saveFailed(String(err)) });
     }
   }
 
