@@ -8,7 +8,6 @@
 // A stamp beside the bundle records the newest source it was built from, so bin/furrow.js
 // can tell a stale build in a development checkout.
 import { build as bundle } from 'rolldown';
-import { build } from 'esbuild';
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -39,32 +38,16 @@ await bundle({
     minify: true,
   },
 });
+/** One file of its own, bundled with the libraries it needs. */
+const oneFile = (input, file, format) =>
+  bundle({ input, platform: 'node', logLevel: 'warn', output: { file, format, comments: false, minify: true, codeSplitting: false } });
 // the helper thread of `run --json` (src/cli/column-text-helper.ts): a file of its own, so that
 // it starts without loading the engine
-await build({
-  entryPoints: ['src/cli/column-text-worker.ts'],
-  outfile: join(OUT, 'column-text-worker.mjs'),
-  bundle: true,
-  platform: 'node',
-  format: 'esm',
-  target: 'node20',
-  legalComments: 'none',
-  logLevel: 'warning',
-});
+await oneFile('src/cli/column-text-worker.ts', join(OUT, 'column-text-worker.mjs'), 'esm');
 // convert's unit tables (the unit part of mathjs), beside the chunk that requires them and
 // loaded only at a document's first conversion (src/functions/units.ts): most runs convert
 // nothing
-await build({
-  entryPoints: ['src/functions/unit-library.ts'],
-  outfile: join(CHUNKS, 'unit-library.cjs'),
-  bundle: true,
-  platform: 'node',
-  format: 'cjs',
-  target: 'node20',
-  minify: true,
-  legalComments: 'none',
-  logLevel: 'warning',
-});
+await oneFile('src/functions/unit-library.ts', join(CHUNKS, 'unit-library.cjs'), 'cjs');
 // V8's code cache of the chunks a run compiles (bin/code-cache.js), made by running the
 // build over the samples in a process of its own; without it the command line works as well,
 // only starts a little slower

@@ -5,10 +5,10 @@
  * A change of some rows splices only those rows' text into the body (parseCsv gives the
  * range of every row), so one field edit in 100,000 rows does not write the table again and
  * the rest of the body keeps its bytes (quoting, line ends). A change of the columns writes
- * the whole table with `csvLine`, which writes exactly what writeCsv writes.
+ * the whole table with `csvLine`, which writeCsv writes with (src/doc/csv-write.ts).
  */
 import { parseCsv } from '../../src/doc/csv.ts';
-import { csvField } from '../../src/doc/csv-write.ts';
+import { csvLine } from '../../src/doc/csv-write.ts';
 import { decimalAt, type Column, type Table } from '../../src/lang/values.ts';
 import { columnNameProblem, copyCounts, countField, countRows, emptyCounts, freshColumnName, type ColumnCounts } from './grid-checks.ts';
 import { HEADER_ROW, type Rect } from './grid-keys.ts';
@@ -46,14 +46,6 @@ export interface Refusal {
 /** True for a refusal. */
 export function isRefusal(x: unknown): x is Refusal {
   return typeof x === 'object' && x !== null && 'refused' in x;
-}
-
-/** One row of CSV, as writeCsv writes it (an empty field alone on its line is written ""). */
-export function csvLine(fields: readonly string[]): string {
-  if (fields.length === 1 && fields[0] === '') return '""';
-  let s = '';
-  for (let i = 0; i < fields.length; i++) s += (i === 0 ? '' : ',') + csvField(fields[i]!);
-  return s;
 }
 
 function lineEndOf(text: string): '\n' | '\r\n' {

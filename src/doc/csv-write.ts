@@ -14,18 +14,18 @@ export function csvField(field: string): string {
   return NEEDS_QUOTES.test(field) ? `"${field.replaceAll('"', '""')}"` : field;
 }
 
+/** One row of CSV (an empty field alone on its line is written "", as it would read as a separator between cells). */
+export function csvLine(fields: readonly string[]): string {
+  if (fields.length === 1 && fields[0] === '') return '""';
+  let s = '';
+  for (let i = 0; i < fields.length; i++) s += (i === 0 ? '' : ',') + csvField(fields[i]!);
+  return s;
+}
+
 /** Writes a header and rows as CSV with "\n" line ends and a final newline. */
 export function writeCsv(header: readonly string[], rows: readonly (readonly string[])[]): string {
-  // an empty field alone on its line would read as a separator between cells: quote it
-  const line =
-    header.length === 1
-      ? (r: readonly string[]): string => {
-          const field = r[0] ?? '';
-          return field === '' ? '""' : csvField(field);
-        }
-      : (r: readonly string[]): string => r.map(csvField).join(',');
   const lines = new Array<string>(rows.length + 1);
-  lines[0] = line(header);
-  for (let i = 0; i < rows.length; i++) lines[i + 1] = line(rows[i]!);
+  lines[0] = csvLine(header);
+  for (let i = 0; i < rows.length; i++) lines[i + 1] = csvLine(rows[i]!);
   return `${lines.join('\n')}\n`;
 }

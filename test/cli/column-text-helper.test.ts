@@ -7,7 +7,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { build } from 'esbuild';
+import { build } from 'rolldown';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { ColumnTextHelper } from '../../src/cli/column-text-helper.ts';
 import { numbersJsonBytes } from '../../src/lang/json.ts';
@@ -16,7 +16,7 @@ const dir = mkdtempSync(join(tmpdir(), 'furrow-helper-'));
 const script = join(dir, 'column-text-worker.mjs');
 
 beforeAll(async () => {
-  await build({ entryPoints: ['src/cli/column-text-worker.ts'], outfile: script, bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'error' });
+  await build({ input: 'src/cli/column-text-worker.ts', platform: 'node', logLevel: 'silent', output: { file: script, format: 'esm' } });
 });
 
 function column(n: number, seed: number): { values: Float64Array; missing: Uint8Array } {
@@ -72,23 +72,17 @@ describe('the helper thread', () => {
   it('keeps the process alive while an answer is awaited, and lets it end afterwards', async () => {
     // a process whose only pending work is the helper's answer: it must wait for it, then end
     const runner = join(dir, 'runner.mjs');
-    await build({
-      stdin: {
-        contents: [
-          `import { ColumnTextHelper } from './src/cli/column-text-helper.ts';`,
-          `const helper = new ColumnTextHelper(${JSON.stringify(script)});`,
-          `const values = new Float64Array(200000).map((_, i) => i / 7);`,
-          `helper.numbers(values, null, 0, values.length).then((b) => process.stdout.write(String(b.length)));`,
-        ].join('\n'),
-        resolveDir: process.cwd(),
-        loader: 'ts',
-      },
-      outfile: runner,
-      bundle: true,
-      platform: 'node',
-      format: 'esm',
-      logLevel: 'error',
-    });
+    const entry = join(dir, 'runner-entry.ts');
+    writeFileSync(
+      entry,
+      [
+        `import { ColumnTextHelper } from ${JSON.stringify(join(process.cwd(), 'src/cli/column-text-helper.ts'))};`,
+        `const helper = new ColumnTextHelper(${JSON.stringify(script)});`,
+        `const values = new Float64Array(200000).map((_, i) => i / 7);`,
+        `helper.numbers(values, null, 0, values.length).then((b) => process.stdout.write(String(b.length)));`,
+      ].join('\n'),
+    );
+    await build({ input: entry, platform: 'node', logLevel: 'silent', output: { file: runner, format: 'esm' } });
     const r = spawnSync(process.execPath, [runner], { encoding: 'utf8', timeout: 20_000 });
     expect(r.status, r.stderr).toBe(0);
     expect(Number(r.stdout)).toBe(numbersJsonBytes(new Float64Array(200000).map((_, i) => i / 7), null).length);

@@ -1,12 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { parseCsv } from '../../../src/doc/csv.ts';
-import { writeCsv } from '../../../src/doc/csv-write.ts';
+import { csvLine, writeCsv } from '../../../src/doc/csv-write.ts';
 import { countRows } from '../../../cells/table/grid-checks.ts';
 import { HEADER_ROW } from '../../../cells/table/grid-keys.ts';
 import {
   clearRect,
-  csvLine,
   deleteColumns,
   deleteRows,
   fieldsIn,
