@@ -58,13 +58,17 @@ export interface EditEventDetail {
    * (typing in an editor), e.g. `body:<cell id>`.
    */
   readonly mergeKey?: string;
+  /**
+   * The view would have its change drawn together with the worker's answer to it (a field
+   * entered in a grid): the page holds drawing for a moment (src/views/draw-gate.ts).
+   */
+  readonly drawWithAnswer?: boolean;
 }
 
 /** Dispatches an edit from a view; it crosses shadow roots to reach the shell. */
-export function emitEdit(from: EventTarget, edit: Edit, mergeKey?: string): void {
-  from.dispatchEvent(
-    new CustomEvent<EditEventDetail>(EDIT_EVENT, { detail: mergeKey === undefined ? { edit } : { edit, mergeKey }, bubbles: true, composed: true }),
-  );
+export function emitEdit(from: EventTarget, edit: Edit, mergeKey?: string, drawWithAnswer = false): void {
+  const detail: EditEventDetail = { edit, ...(mergeKey === undefined ? {} : { mergeKey }), ...(drawWithAnswer ? { drawWithAnswer } : {}) };
+  from.dispatchEvent(new CustomEvent<EditEventDetail>(EDIT_EVENT, { detail, bubbles: true, composed: true }));
 }
 
 /** Properties every cell view takes. */

@@ -6,11 +6,12 @@
  */
 import { html, nothing, type PropertyValues, type ReactiveController, type TemplateResult } from 'lit';
 import { FLUSH_EVENT } from '../view-api.ts';
+import { releaseDrawing } from '../../src/views/draw-gate.ts';
 import type { EditorState, GridHost } from './grid-host.ts';
 import { HEADER_ROW, at, editorCommandForKey, enterMove, moveSelection, tabMove, type EditMode } from './grid-keys.ts';
 import { ROW_HEIGHT } from './grid-layout.ts';
 import { gridMsg } from '../../src/messages/grid.ts';
-import { isRefusal, renameColumn, setField } from './grid-model.ts';
+import { isRefusal, renameColumn, setFieldUsingUp } from './grid-model.ts';
 import { keyInput } from './grid-key-input.ts';
 import type { GridRows } from './grid-rows.ts';
 
@@ -90,11 +91,19 @@ export class GridEditor implements ReactiveController {
   };
 
   private readonly onKey = (e: KeyboardEvent): void => {
-    // the grid's own keys must not see what is typed here
-    e.stopPropagation();
     const host = this.host;
     const ed = host.editor;
-    if (ed === null) return;
+    // Closed but still drawn: a field was entered and the page holds drawing for the
+    // worker's answer (src/views/draw-gate.ts), so this field still has the focus. The
+    // hold ends and the grid is drawn now, focus included; the key goes on to the grid,
+    // which takes it as it would have anyway (a character opens the next field's editor).
+    if (ed === null) {
+      releaseDrawing();
+      host.drawNow();
+      return;
+    }
+    // the grid's own keys must not see what is typed here
+    e.stopPropagation();
     const cmd = editorCommandForKey(keyInput(e), ed.mode);
     if (cmd === null) return;
     const ta = e.currentTarget as HTMLTextAreaElement;
@@ -153,7 +162,9 @@ export class GridEditor implements ReactiveController {
       return true;
     }
     host.editor = null;
-    if (r < g.rows.length && c < g.header.length) host.commit(setField(g, r, c, value), `field:${host.cell.id}:${r}:${c}`);
+    // the grid shown is replaced by the one made here at once (commit), so it is used up
+    // a field entered by a key is drawn with the worker's answer to it (draw-gate.ts)
+    if (r < g.rows.length && c < g.header.length) host.commit(setFieldUsingUp(g, r, c, value), `field:${host.cell.id}:${r}:${c}`, !leaving);
     return true;
   }
 

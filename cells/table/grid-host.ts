@@ -57,8 +57,11 @@ export interface GridHost extends ReactiveControllerHost {
   readonly shown: Shown | null;
   readonly extent: { rows: number; cols: number };
 
-  /** Sends a body edit for a grid the view made, and shows that grid at once. */
-  commit(next: BodyGrid, mergeKey?: string): void;
+  /**
+   * Sends a body edit for a grid the view made, and shows that grid at once (or, with
+   * `withAnswer`, together with the worker's answer to it: src/views/draw-gate.ts).
+   */
+  commit(next: BodyGrid, mergeKey?: string, withAnswer?: boolean): void;
   /** Sends an edit of the cell (the view never changes the document itself). */
   send(edit: Edit, mergeKey?: string): void;
   say(kind: StatusLine['kind'], text: string): void;

@@ -117,7 +117,7 @@ export function writeBodyGrid(header: readonly string[], rows: readonly (readonl
  * Replaces data rows [ra, rb) by `fresh` (any number of rows, each of the header's width),
  * splicing their text into the body. Everything else in the body keeps its bytes.
  */
-export function replaceRows(g: BodyGrid, ra: number, rb: number, fresh: readonly (readonly string[])[]): BodyGrid {
+export function replaceRows(g: BodyGrid, ra: number, rb: number, fresh: readonly (readonly string[])[], usedUp = false): BodyGrid {
   const n = g.rows.length;
   const k = fresh.length;
   if (ra < 0 || rb < ra || rb > n) throw new RangeError(`rows ${ra} to ${rb} are outside a grid of ${n} rows`);
@@ -173,19 +173,23 @@ export function replaceRows(g: BodyGrid, ra: number, rb: number, fresh: readonly
       ends[i - rb + ra + k] = g.ends[i]! + delta;
     }
   }
-  const rows = spliceRows(g.rows, ra, rb, fresh);
+  // counts first: the rows replaced are read here, and a grid used up loses them below
   const counts = copyCounts(g.counts);
   const cols = g.header.length;
   for (let i = ra; i < rb; i++) for (let c = 0; c < cols; c++) countField(counts, c, g.rows[i]![c]!, -1);
   for (const row of fresh) for (let c = 0; c < cols; c++) countField(counts, c, row[c]!, 1);
+  const rows = spliceRows(g.rows, ra, rb, fresh, usedUp);
   const text = g.text.slice(0, from) + insert + g.text.slice(to);
   return { ...g, text, rows, starts, ends, counts, change: { of: g, from, to, text: insert } };
 }
 
-/** rows with [ra, rb) replaced by `fresh`: rows typed over (as many as before) in one copy, not three. */
-function spliceRows<T>(rows: readonly T[], ra: number, rb: number, fresh: readonly T[]): T[] {
+/**
+ * rows with [ra, rb) replaced by `fresh`: rows typed over (as many as before) in one copy,
+ * not three, or in `rows` itself when the grid that holds them is used up.
+ */
+function spliceRows<T>(rows: readonly T[], ra: number, rb: number, fresh: readonly T[], usedUp: boolean): T[] {
   if (fresh.length !== rb - ra) return rows.slice(0, ra).concat(fresh, rows.slice(rb));
-  const out = rows.slice();
+  const out = usedUp ? (rows as T[]) : rows.slice();
   for (let i = 0; i < fresh.length; i++) out[ra + i] = fresh[i]!;
   return out;
 }
@@ -206,12 +210,26 @@ function replaceHeader(g: BodyGrid, header: readonly string[]): BodyGrid {
 
 /** Sets one field; the same grid back when the field already holds the text. */
 export function setField(g: BodyGrid, r: number, c: number, value: string): BodyGrid {
+  return setFieldOf(g, r, c, value, false);
+}
+
+/**
+ * {@link setField} for a grid that is used up by it: `g` must never be read again once
+ * this returns a new grid (the field editor's grid, which the new one replaces at once).
+ * Its list of rows becomes the new grid's, with the one row replaced in it: copying a list
+ * of 100,000 rows cost more than the rest of a keystroke in the grid.
+ */
+export function setFieldUsingUp(g: BodyGrid, r: number, c: number, value: string): BodyGrid {
+  return setFieldOf(g, r, c, value, true);
+}
+
+function setFieldOf(g: BodyGrid, r: number, c: number, value: string, usedUp: boolean): BodyGrid {
   const row = g.rows[r];
   if (row === undefined || c < 0 || c >= g.header.length) throw new RangeError(`no field at row ${r}, column ${c}`);
   if (row[c] === value) return g;
   const next = row.slice();
   next[c] = value;
-  return replaceRows(g, r, r + 1, [next]);
+  return replaceRows(g, r, r + 1, [next], usedUp);
 }
 
 /** Renames column c, or says why it cannot. */

@@ -25,6 +25,8 @@ import { shared } from '../../src/views/theme.ts';
 import { CsvError } from '../../src/doc/csv-error.ts';
 import type { Cell } from '../../src/doc/document.ts';
 import { spliceOf, type Edit } from '../../src/doc/edits.ts';
+import { settleText } from '../../src/doc/settle-text.ts';
+import { afterHeldDrawing, drawingHeld } from '../../src/views/draw-gate.ts';
 import { isTable, type Table } from '../../src/lang/values.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
 import { tableMarker } from './model.ts';
@@ -213,7 +215,7 @@ export class TableCellView extends LitElement implements TextHost {
     }
   }
 
-  commit(next: BodyGrid, mergeKey?: string): void {
+  commit(next: BodyGrid, mergeKey?: string, withAnswer = false): void {
     const before = this.grid;
     const c = next.change;
     // a change made from the grid shown changes its text (setField gives the same grid back
@@ -227,12 +229,17 @@ export class TableCellView extends LitElement implements TextHost {
     this.readBody = next.text;
     const edit: Edit = spliced ? { type: 'splice', id: this.cell.id, from: c.from, to: c.to, text: c.text } : { type: 'body', id: this.cell.id, body: next.text };
     this.sentSplice = spliced ? { edit, base } : null;
-    this.send(edit, mergeKey);
+    emitEdit(this, edit, mergeKey, withAnswer);
     this.requestUpdate();
   }
 
   send(edit: Edit, mergeKey?: string): void {
     emitEdit(this, edit, mergeKey);
+  }
+
+  /** Draws when the page's drawing is free (src/views/draw-gate.ts). */
+  protected override scheduleUpdate(): void | Promise<unknown> {
+    return afterHeldDrawing(() => super.scheduleUpdate());
   }
 
   say(kind: StatusLine['kind'], text: string): void {
@@ -245,8 +252,19 @@ export class TableCellView extends LitElement implements TextHost {
   }
 
   focusGrid(): void {
+    // While drawing is held the grid takes the focus once drawn: moving it now is a change
+    // of the page that the browser would draw before the worker's answer could join it.
+    // A key that comes meanwhile ends the hold (grid-editor.ts).
+    if (drawingHeld() !== null) {
+      this.focusOnDraw = true;
+      this.requestUpdate();
+      return;
+    }
     this.renderRoot.querySelector<HTMLElement>('.scroller')?.focus({ preventScroll: true });
   }
+
+  /** The grid takes the focus after the next draw (focusGrid while drawing is held). */
+  private focusOnDraw = false;
 
   drawNow(): void {
     this.performUpdate();
@@ -341,7 +359,24 @@ export class TableCellView extends LitElement implements TextHost {
     super.updated(changed);
     this.fieldEditor.afterUpdate(changed);
     this.text.afterUpdate();
+    if (this.focusOnDraw) {
+      this.focusOnDraw = false;
+      // unless a key typed meanwhile opened the editor again, which has the focus now
+      if (this.editor === null) this.renderRoot.querySelector<HTMLElement>('.scroller')?.focus({ preventScroll: true });
+    }
+    // An edit's result is drawn: once that frame is painted, the body the edit spliced is
+    // made whole, so that the next keystroke does not pay for it (src/doc/settle-text.ts).
+    // (The grid is the token, not its text: `!==` between two long texts compares their
+    // characters, and would itself make the new one whole.)
+    const grid = this.grid;
+    if (changed.has('state') && grid !== null && grid !== this.settledGrid) {
+      this.settledGrid = grid;
+      requestAnimationFrame(() => setTimeout(() => settleText(grid.text), 0));
+    }
   }
+
+  /** The grid whose text was last made whole. */
+  private settledGrid: BodyGrid | null = null;
 }
 
 if (!customElements.get('furrow-table-cell')) customElements.define('furrow-table-cell', TableCellView);

@@ -48,6 +48,7 @@ import './handoff/hand-off.ts';
 import { titleBlock } from './title-block.ts';
 import { statusLine, toolbar } from './toolbar.ts';
 import { VisibleCells } from './visible-cells.ts';
+import { afterHeldDrawing, holdDrawing } from '../views/draw-gate.ts';
 
 /** The page. */
 export class FurrowApp extends LitElement {
@@ -221,7 +222,14 @@ export class FurrowApp extends LitElement {
   private readonly onEdit = (e: CustomEvent<EditEventDetail>): void => {
     e.stopPropagation();
     this.apply(e.detail.edit, e.detail.mergeKey ?? null);
+    // the edit is sent: drawing waits a moment for the worker's answer (draw-gate.ts)
+    if (e.detail.drawWithAnswer === true) holdDrawing(this.bridge.settled());
   };
+
+  /** Draws when the page's drawing is free (src/views/draw-gate.ts). */
+  protected override scheduleUpdate(): void | Promise<unknown> {
+    return afterHeldDrawing(() => super.scheduleUpdate());
+  }
 
   private apply(edit: Edit, mergeKey: string | null = null): void {
     try {

@@ -113,6 +113,9 @@ function sameDecimal(a: DecimalTexts, b: DecimalTexts, i: number): boolean {
  */
 export function changedRows(base: Column, next: Column, limit: number): Int32Array | null {
   if (base.type !== next.type || base.values.length !== next.values.length || base.name !== next.name || !sameOrder(base.order, next.order)) return null;
+  // one array of values, written by the edit that made `next` (cells/table/model-rows.ts):
+  // what `base` held is gone, so its rows cannot be compared
+  if (base !== next && base.values === next.values) return null;
   const n = next.values.length;
   const rows: number[] = [];
   if (base.type === 'number' && next.type === 'number') {
@@ -150,7 +153,9 @@ function patchOf(id: number, baseId: number, next: Column, rows: Int32Array): Pa
     for (let j = 0; j < k; j++) v[j] = next.values[rows[j]!]!;
     values = v;
     const d = next.decimals;
-    if (d !== null) decimals = Array.from(rows, (r) => decimalAt(d, r) ?? '');
+    // the maker's own reading of the changed texts, when it noted one (a short text)
+    const noted = columnChangeOf(next)?.texts;
+    if (d !== null) decimals = noted !== undefined && noted.from.length === k && columnChangeOf(next)!.rows === rows ? Array.from(rows, (_, j) => noted.source.slice(noted.from[j]!, noted.to[j]!)) : Array.from(rows, (r) => decimalAt(d, r) ?? '');
   } else if (next.type === 'boolean') {
     const v = new Uint8Array(k);
     for (let j = 0; j < k; j++) v[j] = next.values[rows[j]!]!;

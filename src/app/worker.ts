@@ -7,6 +7,7 @@
 /// <reference lib="webworker" />
 import type { Document } from '../doc/document.ts';
 import { applyEdit, cellsTouched } from '../doc/edits.ts';
+import { settleText } from '../doc/settle-text.ts';
 import { BUILTINS } from '../functions/index.ts';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import { Engine } from '../graph/engine.ts';
@@ -57,6 +58,10 @@ function typeName(v: Value): string {
 }
 
 let doc: Document | null = null;
+
+function settleBodies(): void {
+  if (doc !== null) for (const c of doc.cells) settleText(c.body);
+}
 /** The long columns the page holds, so that results send only what it lacks. */
 let ledger = new ColumnSender();
 
@@ -105,6 +110,8 @@ scope.onmessage = (e: MessageEvent<ToWorker>) => {
     });
     post({ type: 'result', seq: m.seq, results, gone, cells, millis: performance.now() - t0, postedAt: performance.timeOrigin + performance.now() });
     batch.commit(gone);
+    // the bodies an edit spliced are made whole now that the result is out (settle-text.ts)
+    if (m.type === 'edit') setTimeout(settleBodies, 10);
   } catch (err) {
     post({ type: 'failure', seq: m.seq, message: err instanceof Error ? err.message : String(err), outOfStep: false });
   }

@@ -7,7 +7,7 @@ import { UsageError } from '../lang/errors.ts';
 import { msg } from '../messages/language.ts';
 import { plural } from '../messages/words.ts';
 import { pickDecimals, type Column, type NumberColumn, type Value } from '../lang/values.ts';
-import { readDecimals, readDecimalsAgainInPlace, shiftDecimals, shiftReading, type DecimalReading } from '../stats/decimal/index.ts';
+import { readDecimals, readDecimalsAgainInPlace, shiftDecimals, shiftReading, shiftReadingBorrowed, type DecimalReading } from '../stats/decimal/index.ts';
 import { columnChangeOf } from '../lang/column-changes.ts';
 import type { CallContext } from '../lang/builtins.ts';
 import { fnMsg } from '../messages/functions.ts';
@@ -141,7 +141,8 @@ export function factorOf(c: Column, rows: Int32Array | null, fallbackName: strin
  * edit changed in a few rows, read again in those rows only) do not read its texts again.
  * Null when a text is not plain decimal.
  *
- * The readings are this cache's alone (responseOf copies what it shifts), so a column made
+ * The readings are this cache's alone (responseOf copies what it shifts, or lends it to a
+ * caller that lets go of it before asking again), so a column made
  * from another by an edit takes over the other's reading and writes its changed rows into
  * it; the other's entry is dropped first, and should that column be analysed again its
  * texts, which never change, are read afresh.
@@ -158,7 +159,7 @@ function readingOf(c: NumberColumn): DecimalReading | null {
     const base = baseColumn === undefined ? undefined : readings.get(baseColumn);
     if (base) {
       readings.delete(baseColumn!);
-      r = readDecimalsAgainInPlace(base, c.decimals!, change!.rows);
+      r = readDecimalsAgainInPlace(base, c.decimals!, change!.rows, change!.texts);
     } else r = readDecimals(c.decimals!);
   } catch {
     r = null;
@@ -167,14 +168,34 @@ function readingOf(c: NumberColumn): DecimalReading | null {
   return r;
 }
 
-/** The values of a number column at the rows kept, shifted exactly when their text is kept. */
-export function responseOf(c: NumberColumn, rows: Int32Array | null): Response {
+/**
+ * Where a borrowed shift of a reading is written when its offset is not 0, by the reading's
+ * values array (which a reading read again in place keeps).
+ */
+const scratches = new WeakMap<Float64Array, Float64Array>();
+
+function scratchFor(r: DecimalReading): Float64Array {
+  let s = scratches.get(r.values);
+  if (s === undefined) {
+    s = new Float64Array(r.values.length);
+    scratches.set(r.values, s);
+  }
+  return s;
+}
+
+/**
+ * The values of a number column at the rows kept, shifted exactly when their text is kept.
+ * `borrow`: the caller only reads `y`, and only until it next asks for a response, so `y`
+ * may be an array this cache keeps and writes again (a sum or a variance of a long column
+ * at every keystroke then copies nothing).
+ */
+export function responseOf(c: NumberColumn, rows: Int32Array | null, borrow = false): Response {
   const n = rows === null ? c.values.length : rows.length;
   if (c.decimals !== null) {
     if (rows === null) {
       const r = readingOf(c);
       if (r !== null) {
-        const s = shiftReading(r);
+        const s = borrow ? shiftReadingBorrowed(r, scratchFor(r)) : shiftReading(r);
         return { y: s.shifted, offset: s.offset };
       }
     } else {
@@ -191,10 +212,13 @@ export function responseOf(c: NumberColumn, rows: Int32Array | null): Response {
   return { y, offset: 0 };
 }
 
-/** The complete values of a number column (missing ones left out and counted in a warning). */
-export function completeValues(c: NumberColumn, ctx: CallContext): Response & { kept: Int32Array | null } {
+/**
+ * The complete values of a number column (missing ones left out and counted in a warning).
+ * `borrow` as for {@link responseOf}.
+ */
+export function completeValues(c: NumberColumn, ctx: CallContext, borrow = false): Response & { kept: Int32Array | null } {
   const rows = completeRows([c], ctx);
-  return { ...responseOf(c, rows), kept: rows };
+  return { ...responseOf(c, rows, borrow), kept: rows };
 }
 
 /** A response shifted back to plain values. */

@@ -32,11 +32,12 @@ export const SUMMARIES: readonly Builtin[] = [
     },
   },
   summary('sum', 'The sum of the values (compensated summation, so long columns keep their digits).', 'sum(plots.yield)', (x, ctx) => {
-    const r = completeValues(x, ctx);
+    // borrowed: read here and let go (completeValues)
+    const r = completeValues(x, ctx, true);
     return S.sum(r.y) + r.offset * r.y.length;
   }),
   summary('mean', 'The arithmetic mean of the values.', 'mean(plots.yield)', (x, ctx) => {
-    const r = completeValues(x, ctx);
+    const r = completeValues(x, ctx, true);
     return r.offset + S.mean(r.y);
   }),
   summary('median', 'The median: the middle value, or the mean of the two middle values.', 'median(plots.yield)', (x, ctx) => {
@@ -47,9 +48,9 @@ export const SUMMARIES: readonly Builtin[] = [
     'variance',
     'The sample variance, with divisor n - 1, from deviations about the mean (two passes), so data with many constant leading digits keep their precision. NaN for fewer than two values.',
     'variance(plots.yield)',
-    (x, ctx) => S.variance(completeValues(x, ctx).y),
+    (x, ctx) => S.variance(completeValues(x, ctx, true).y),
   ),
-  summary('sd', 'The sample standard deviation: the square root of the sample variance (divisor n - 1).', 'sd(plots.yield)', (x, ctx) => S.sd(completeValues(x, ctx).y)),
+  summary('sd', 'The sample standard deviation: the square root of the sample variance (divisor n - 1).', 'sd(plots.yield)', (x, ctx) => S.sd(completeValues(x, ctx, true).y)),
   summary('min', 'The smallest value that is not missing.', 'min(plots.yield)', (x, ctx) => {
     const r = completeValues(x, ctx);
     return r.y.length === 0 ? NaN : S.min(plainValues(r));

@@ -4,19 +4,25 @@
  * the page those rows rather than compare the two columns element by element. Kept beside
  * the columns, not in them: a column stays a plain value.
  */
-import type { Column } from './values.ts';
+import type { Column, TextRanges } from './values.ts';
 
 /** A column made from `base` by changing the elements at `rows` (and nothing else). */
 export interface ColumnChange {
   readonly base: Column;
   readonly rows: Int32Array;
+  /**
+   * The new decimal texts at `rows`, in that order, when the maker read them from a short
+   * text of its own: reading them there spares reading the column's source, a long text
+   * that may not yet be one piece of memory (cells/table/model-rows.ts).
+   */
+  readonly texts?: TextRanges;
 }
 
 const changes = new WeakMap<Column, ColumnChange>();
 
 /** Notes that `next` is `base` with the elements at `rows` changed. */
-export function noteColumnChange(next: Column, base: Column, rows: Int32Array): void {
-  changes.set(next, { base, rows });
+export function noteColumnChange(next: Column, base: Column, rows: Int32Array, texts?: TextRanges): void {
+  changes.set(next, texts === undefined ? { base, rows } : { base, rows, texts });
 }
 
 /** How `next` was made from another column, if that was noted. */

@@ -373,6 +373,10 @@ export function sameValue(a: Value, b: Value): boolean {
       if (a.type === 'number') {
         const x = a.values;
         const y = (c as NumberColumn).values;
+        // Two columns that share one array of values may be a column and the column an edit
+        // made of it by writing that array (cells/table/model-rows.ts): what the older one
+        // held is gone, so they are not known to be the same.
+        if (x === y) return false;
         for (let i = 0; i < x.length; i++) if (!Object.is(x[i], y[i])) return false;
         return sameDecimals(a.decimals, (c as NumberColumn).decimals);
       }
@@ -434,13 +438,14 @@ function sameDecimals(a: DecimalTexts | null, b: DecimalTexts | null): boolean {
   const n = decimalsLength(a);
   if (n !== decimalsLength(b)) return false;
   if (isTextRanges(a) && isTextRanges(b)) {
-    // compare in place, no strings made
+    // compare in place, no strings made; two long sources are compared once, not per text
+    const oneSource = a.source === b.source;
     for (let i = 0; i < n; i++) {
       const fa = a.from[i]!;
       const fb = b.from[i]!;
       const len = a.to[i]! - fa;
       if (len !== b.to[i]! - fb) return false;
-      if (a.source === b.source && fa === fb) continue;
+      if (oneSource && fa === fb) continue;
       for (let k = 0; k < len; k++) if (a.source.charCodeAt(fa + k) !== b.source.charCodeAt(fb + k)) return false;
     }
     return true;

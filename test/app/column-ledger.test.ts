@@ -223,4 +223,12 @@ describe('the column ledgers of the worker and the page', () => {
     expect(changedRows(a, textColumn(['1', '2', '3.0', ''], null, 'y'), 4)).toBeNull();
     expect(changedRows(a, numbers(['1', '2', '3.0']), 4)).toBeNull();
   });
+
+  it('declines to compare two columns that share one array of values (one was written in place)', () => {
+    const values = Float64Array.of(1, 2, 3);
+    const a = numberColumn(values, null, 'y');
+    const b = numberColumn(values, null, 'y');
+    expect(changedRows(a, b, 10)).toBeNull();
+    expect(changedRows(a, a, 10)).toEqual(new Int32Array(0));
+  });
 });

@@ -2,7 +2,9 @@
  * What the evaluation worker does for one field typed into a 100,000-row table whose column
  * a formula sums: apply the edit (a splice of the body), update the engine (the table read
  * again in the changed row, the sum), and encode the results against the page's column
- * ledger. Prints the time and the size of the message that goes back to the page; never
+ * ledger. Edits follow each other with no pause, so each one also pays for making the
+ * body the last one spliced whole, which the worker does while idle (src/doc/settle-text.ts).
+ * Prints the time and the size of the message that goes back to the page; never
  * fails a build, but checks the sum and that the table crossed as a patch.
  */
 import { cpus } from 'node:os';

@@ -108,6 +108,75 @@ export async function watchEdits(page) {
   });
 }
 
+/**
+ * Arms a clock for the next Enter: from the key's own time stamp to the frame that draws the
+ * formula cell `name` showing `expected` (digits compared). The clock watches the page
+ * without asking for frames itself: asking for an animation frame from the key's handler
+ * changes how Chromium orders the key's work and the worker's answer. Mutation observers
+ * note when the text changes (`dom`); an animation frame asked for at that moment gives the
+ * frame that draws it (`ms`). Await {@link readEditClock} after pressing Enter.
+ */
+export function armEditClock(page, name, expected) {
+  return page.evaluate(
+    ([name, expected]) => {
+      const app = document.querySelector('furrow-app').shadowRoot;
+      const section = app.querySelector(`section[data-name="${name}"]`);
+      const read = () => section?.querySelector('furrow-formula-cell')?.shadowRoot?.querySelector('furrow-value')?.shadowRoot?.textContent ?? '';
+      window.__editClock = new Promise((resolve) => {
+        let t0 = null;
+        let done = false;
+        const observers = [];
+        const check = () => {
+          if (done || t0 === null || read().replace(/[^0-9]/g, '') !== expected) return;
+          done = true;
+          const dom = performance.now() - t0;
+          for (const o of observers) o.disconnect();
+          requestAnimationFrame(() => resolve({ ms: performance.now() - t0, dom }));
+        };
+        // the value's own text, and the elements around it (which a redraw may replace)
+        const watch = () => {
+          for (const o of observers) o.disconnect();
+          observers.length = 0;
+          const cell = section?.querySelector('furrow-formula-cell');
+          const value = cell?.shadowRoot?.querySelector('furrow-value');
+          for (const root of [section, cell?.shadowRoot, value?.shadowRoot]) {
+            if (!root) continue;
+            const o = new MutationObserver(() => {
+              check();
+              if (!done) watch();
+            });
+            o.observe(root, { subtree: true, childList: true, characterData: true });
+            observers.push(o);
+          }
+        };
+        watch();
+        window.addEventListener(
+          'keydown',
+          (e) => {
+            if (e.key !== 'Enter') return;
+            t0 = e.timeStamp;
+            // for editParts, which times the edit's parts from the same key
+            window.__t0 = t0;
+          },
+          { capture: true, once: true },
+        );
+      });
+    },
+    [name, expected],
+  );
+}
+
+/** What the armed clock found (see {@link armEditClock}). */
+export function readEditClock(page) {
+  return page.evaluate(() => window.__editClock);
+}
+
+/** When the new value was in the page, and when it was drawn, edit by edit. */
+export function clockLine(clocks) {
+  const mid = (xs) => [...xs].sort((p, q) => p - q)[Math.floor(xs.length / 2)].toFixed(1);
+  return `the new value in the page after ${mid(clocks.map((c) => c.dom))} ms, drawn after ${mid(clocks.map((c) => c.ms))} ms (medians)`;
+}
+
 /** Where the last edit's time went: Enter to the edit posted, the worker's own time, Enter to the result back. */
 export function editParts(page) {
   return page.evaluate(() => {

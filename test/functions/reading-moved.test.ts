@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { responseOf } from '../../src/functions/columns.ts';
 import { noteColumnChange } from '../../src/lang/column-changes.ts';
 import { numberColumn } from '../../src/lang/values.ts';
-import { readDecimals, readDecimalsAgainInPlace, shiftDecimals } from '../../src/stats/decimal/index.ts';
+import { readDecimals, readDecimalsAgainInPlace, shiftDecimals, shiftReading, shiftReadingBorrowed } from '../../src/stats/decimal/index.ts';
 
 const text = fc.oneof(
   fc.constantFrom('0', '-0', '1.5', '1000000000000.4', '1e-7', ' 42 ', '12345678901234567890123', '40.10', '40.1'),
@@ -33,6 +33,56 @@ describe('a reading taken over by the edited column', () => {
       }),
       { numRuns: 300, seed: 20261202 },
     );
+  });
+
+  it('reads the changed texts from where the edit gives them, when it gives them apart', () => {
+    fc.assert(
+      fc.property(fc.array(text, { minLength: 1, maxLength: 30 }), fc.array(fc.tuple(fc.nat(), text), { maxLength: 4 }), (texts, changes) => {
+        const next = texts.slice();
+        const rows = changes.map(([at, t]) => {
+          next[at % texts.length] = t;
+          return at % texts.length;
+        });
+        // the changed texts as ranges of a short text of their own, in the order of rows
+        let source = '#';
+        const from: number[] = [];
+        const to: number[] = [];
+        for (const r of rows) {
+          from.push(source.length);
+          source += next[r]!;
+          to.push(source.length);
+          source += '|';
+        }
+        const changed = { source, from: Int32Array.from(from), to: Int32Array.from(to) };
+        // the column's own texts are never read for the changed rows: spoil them there
+        const spoiled = next.map((t, i) => (rows.includes(i) ? 'not read' : t));
+        const moved = readDecimalsAgainInPlace(readDecimals(texts), spoiled, rows, changed);
+        const full = readDecimals(next);
+        expect(Array.from(moved.values)).toEqual(Array.from(full.values));
+        expect(Array.from(moved.significand)).toEqual(Array.from(full.significand));
+        expect(Array.from(moved.scale)).toEqual(Array.from(full.scale));
+      }),
+      { numRuns: 300, seed: 20261203 },
+    );
+  });
+
+  it('lends a sum its reading without copying it, and gives the same values as a copy', () => {
+    fc.assert(
+      fc.property(fc.array(text, { minLength: 1, maxLength: 30 }), (texts) => {
+        const reading = readDecimals(texts);
+        const scratch = new Float64Array(texts.length);
+        const lent = shiftReadingBorrowed(reading, scratch);
+        const copied = shiftReading(reading);
+        expect(lent.offset).toBe(copied.offset);
+        expect(Array.from(lent.shifted)).toEqual(Array.from(copied.shifted));
+        // nothing new: the reading's own values, or the scratch array when shifted
+        expect(lent.shifted).toBe(lent.offset === 0 ? reading.values : scratch);
+        // and the reading is left as it was
+        expect(Array.from(reading.values)).toEqual(Array.from(readDecimals(texts).values));
+      }),
+      { numRuns: 300, seed: 11 },
+    );
+    expect(() => shiftReadingBorrowed(readDecimals(['1', '2']), new Float64Array(3))).toThrow(RangeError);
   });
 
   it('leaves the column it came from giving its own values when analysed again', () => {

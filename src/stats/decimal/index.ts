@@ -2,7 +2,7 @@
  * Exact decimal shift of numeric columns (docs/language.md section 5): choose an exactly
  * representable offset from a column's decimal texts and subtract it on the digits.
  */
-export { shiftDecimals, shiftReading, readDecimals, readDecimalsAgain, readDecimalsAgainInPlace, DecimalTextError, type DecimalReading } from './shift.ts';
+export { shiftDecimals, shiftReading, shiftReadingBorrowed, readDecimals, readDecimalsAgain, readDecimalsAgainInPlace, DecimalTextError, type DecimalReading } from './shift.ts';
 export type { DecimalShift } from './shift.ts';
 export { decimalOfDouble, exactDecimalText, roundQuotient, roundScaledInteger } from './exact.ts';
 export type { DecimalOfDouble } from './exact.ts';

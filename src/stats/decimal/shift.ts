@@ -160,12 +160,12 @@ export interface DecimalReading {
  * (Clinger's fast path when the significand and the power of ten are both exact, the exact
  * path otherwise).
  */
-function readOne(texts: DecimalTexts, i: number, scan: ReturnType<typeof newDecimalScan>, significand: Float64Array, scale: Int32Array): number {
+function readOne(texts: DecimalTexts, i: number, scan: ReturnType<typeof newDecimalScan>, significand: Float64Array, scale: Int32Array, into: number = i): number {
   const read = isRanges(texts) ? scanDecimalIn(texts.source, texts.from[i]!, texts.to[i]!, scan) : scanDecimal(texts[i] ?? '', scan);
-  if (!read) throw new DecimalTextError(i, textAt(texts, i), 'is not a decimal number');
+  if (!read) throw new DecimalTextError(into, textAt(texts, i), 'is not a decimal number');
   const s = scan.scale;
-  significand[i] = scan.fits ? scan.significand : NaN;
-  scale[i] = s;
+  significand[into] = scan.fits ? scan.significand : NaN;
+  scale[into] = s;
   let v: number;
   if (scan.fits && s >= -22 && s <= 22) {
     v = s >= 0 ? scan.significand * (EXACT_POWERS[s] ?? NaN) : scan.significand / (EXACT_POWERS[-s] ?? NaN);
@@ -179,7 +179,7 @@ function readOne(texts: DecimalTexts, i: number, scan: ReturnType<typeof newDeci
       v = exactShift(text, 0n, 0, 0);
     }
   }
-  if (!Number.isFinite(v)) throw new DecimalTextError(i, textAt(texts, i), 'is too large to hold as a number');
+  if (!Number.isFinite(v)) throw new DecimalTextError(into, textAt(texts, i), 'is too large to hold as a number');
   return v;
 }
 
@@ -213,19 +213,24 @@ export function readDecimalsAgain(base: DecimalReading, texts: DecimalTexts, row
  * it first). Copying three arrays of a 100,000-row column at every keystroke cost more than
  * the rest of the reading; on a failure the base is left half written.
  */
-export function readDecimalsAgainInPlace(base: DecimalReading, texts: DecimalTexts, rows: ArrayLike<number>): DecimalReading {
-  return readAgainInto(base, texts, rows, true);
+export function readDecimalsAgainInPlace(base: DecimalReading, texts: DecimalTexts, rows: ArrayLike<number>, changed?: DecimalTexts): DecimalReading {
+  return readAgainInto(base, texts, rows, true, changed);
 }
 
-function readAgainInto(base: DecimalReading, texts: DecimalTexts, rows: ArrayLike<number>, inPlace: boolean): DecimalReading {
+/**
+ * `changed`, when given, holds the texts at `rows` in that order (the same texts as
+ * `texts` holds there) and is read instead of `texts`.
+ */
+function readAgainInto(base: DecimalReading, texts: DecimalTexts, rows: ArrayLike<number>, inPlace: boolean, changed?: DecimalTexts): DecimalReading {
   if (countOf(texts) !== base.values.length) throw new RangeError('a reading read again must keep its count of texts');
+  if (changed !== undefined && countOf(changed) !== rows.length) throw new RangeError('the changed texts must be as many as the rows');
   const values = inPlace ? base.values : base.values.slice();
   const significand = inPlace ? base.significand : base.significand.slice();
   const scale = inPlace ? base.scale : base.scale.slice();
   const scan = newDecimalScan();
   for (let k = 0; k < rows.length; k++) {
     const i = rows[k]!;
-    values[i] = readOne(texts, i, scan, significand, scale);
+    values[i] = changed === undefined ? readOne(texts, i, scan, significand, scale) : readOne(changed, k, scan, significand, scale, i);
   }
   return { texts, values, significand, scale };
 }
@@ -275,10 +280,24 @@ export function shiftReading(reading: DecimalReading): DecimalShift {
   return shiftRead(reading, true);
 }
 
-function shiftRead(reading: DecimalReading, keep: boolean): DecimalShift {
+/**
+ * {@link shiftReading} for a caller that only reads the shifted values, and only until it
+ * next reads this reading or writes it: `shifted` is the reading's own values when the
+ * offset is 0, otherwise `scratch` (as long as the reading) written over. A sum of a
+ * 100,000-row column at each keystroke then writes no fresh memory.
+ */
+export function shiftReadingBorrowed(reading: DecimalReading, scratch: Float64Array): DecimalShift {
+  if (scratch.length !== reading.values.length) throw new RangeError('the scratch array must be as long as the reading');
+  const offset = chooseOffset(reading.values);
+  if (offset === 0) return { offset: 0, shifted: reading.values };
+  scratch.set(reading.values);
+  return shiftRead(reading, false, scratch);
+}
+
+function shiftRead(reading: DecimalReading, keep: boolean, into?: Float64Array): DecimalShift {
   const { texts, significand, scale } = reading;
   const n = reading.values.length;
-  const values = keep ? reading.values.slice() : reading.values;
+  const values = into ?? (keep ? reading.values.slice() : reading.values);
   const offset = chooseOffset(values);
   if (offset === 0) return { offset: 0, shifted: values };
 

@@ -16,6 +16,7 @@ import {
   readBodyGrid,
   renameColumn,
   setField,
+  setFieldUsingUp,
   sourceOfBody,
   sourceOfTable,
   bodyOfText,
@@ -87,6 +88,26 @@ describe('a body read as a grid', () => {
     expect(g.rows[1]).toEqual(['1', 'spindle', '12,5']);
     // the same text gives the same grid back: nothing to send
     expect(setField(g, 1, 2, '12,5')).toBe(g);
+  });
+  it('a field set in a grid that is used up gives the grid setField gives, counts included, in the same list of rows', () => {
+    const field = fc.constantFrom('', '1', '22', 'x', 'true', '4.5', 'a,b');
+    fc.assert(
+      fc.property(fc.array(fc.tuple(fc.nat(), fc.nat(), field), { minLength: 1, maxLength: 8 }), (steps) => {
+        let kept = readBodyGrid('a,b,c\n1,22,333\n4,x,666\n7,88,true\n\n');
+        let used = readBodyGrid(kept.text);
+        for (const [r, c, f] of steps) {
+          const rows = used.rows;
+          kept = setField(kept, r % 3, c % 3, f);
+          const next = setFieldUsingUp(used, r % 3, c % 3, f);
+          expect(next.rows).toBe(rows);
+          expect(next.text).toBe(kept.text);
+          expect(next.rows).toEqual(kept.rows);
+          expectConsistent(next);
+          used = next;
+        }
+      }),
+      { seed: 20261203, numRuns: 200 },
+    );
   });
   it('after any run of field edits, row insertions and deletions, says what reading its text again says', () => {
     // ranges shared with the grid before when a field is retyped with as many characters

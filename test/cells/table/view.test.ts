@@ -3,6 +3,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { EDIT_EVENT, type CellViewState, type EditEventDetail } from '../../../cells/view-api.ts';
 import { TableCellView } from '../../../cells/table/view.ts';
 import { gridMsg } from '../../../src/messages/grid.ts';
+import { drawingHeld, holdDrawing, releaseDrawing } from '../../../src/views/draw-gate.ts';
 import { tableFromGrid } from '../../../cells/table/model.ts';
 import { parseCsv } from '../../../src/doc/csv.ts';
 import type { Cell } from '../../../src/doc/document.ts';
@@ -61,6 +62,7 @@ function fieldText(root: ShadowRoot, r: number, c: number): string | null {
 }
 
 afterEach(() => {
+  releaseDrawing();
   document.body.innerHTML = '';
 });
 
@@ -104,6 +106,62 @@ describe('<furrow-table-cell>', () => {
     expect(m.edits).toHaveLength(1);
     // Enter moved the selection down
     expect(m.root.querySelector('.at')!.id).toBe('f-2-2');
+  });
+
+  it('while the page holds drawing for the answer, a field entered is sent at once, and a key typed meanwhile ends the hold and opens the next field', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    // the shell holds drawing when an edit asks for it (src/app/app.ts); the test stands in
+    m.el.addEventListener(EDIT_EVENT, (e) => {
+      if ((e as CustomEvent<EditEventDetail>).detail.drawWithAnswer === true) holdDrawing(new Promise(() => {}), 10_000);
+    });
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowRight');
+    key(grid, 'ArrowRight');
+    await m.el.updateComplete;
+    key(grid, '4');
+    await m.el.updateComplete;
+    const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+    ta.value = '44.5';
+    key(ta, 'Enter');
+    // sent at once, asking to be drawn with the answer
+    expect(m.edits).toHaveLength(1);
+    expect(m.edits[0]!.drawWithAnswer).toBe(true);
+    expect(bodyAfter(m, 0)).toBe('row,method,yield_kg\n1,open,44.5\n1,spindle,38.9\n2,open,40.1\n\n');
+    expect(drawingHeld()).not.toBeNull();
+    await new Promise((r) => setTimeout(r, 20));
+    // nothing drawn meanwhile: the field editor is still where it was
+    expect(m.root.querySelector('textarea.editor')).toBe(ta);
+    expect(fieldText(m.root, 0, 2)).toBe('41.2');
+    // a key typed into it now is the grid's: the hold ends and the next field opens with it
+    key(ta, '7');
+    expect(drawingHeld()).toBeNull();
+    await m.el.updateComplete;
+    const next = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+    expect(next.value).toBe('7');
+    expect(m.el.editor?.pos).toEqual({ r: 1, c: 2 });
+    expect(fieldText(m.root, 0, 2)).toBe('44.5');
+    expect(m.edits).toHaveLength(1);
+  });
+
+  it('while drawing is held, the grid is drawn and takes the focus once the hold ends', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    m.el.addEventListener(EDIT_EVENT, () => holdDrawing(new Promise(() => {}), 15));
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowRight');
+    await m.el.updateComplete;
+    key(grid, 'F2');
+    await m.el.updateComplete;
+    const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+    ta.value = 'closed';
+    key(ta, 'Enter');
+    expect(m.root.querySelector('textarea.editor')).toBe(ta);
+    await new Promise((r) => setTimeout(r, 40));
+    await m.el.updateComplete;
+    expect(m.root.querySelector('textarea.editor')).toBeNull();
+    expect(fieldText(m.root, 0, 1)).toBe('closed');
+    expect(m.root.activeElement).toBe(grid);
   });
 
   it('a field with a comma is quoted on write; a decimal comma is marked with its reason', async () => {
