@@ -6,7 +6,7 @@
  * instead (so its error, if any, is the full reader's).
  */
 import { columnOfGrid, patchNumberColumn } from '../../src/doc/csv-columns.ts';
-import { noteColumnChange } from '../../src/lang/column-changes.ts';
+import { noteColumnChange, noteWrittenOver } from '../../src/lang/column-changes.ts';
 import type { FieldGrid } from '../../src/doc/csv-fields.ts';
 import { table, type Table } from '../../src/lang/values.ts';
 
@@ -114,7 +114,8 @@ export function rereadTable(kept: KeptTable, body: string, change?: BodyChange):
   const newLineEnd = oldLineEnd + (body.length - old.length);
   const oldLines = old.slice(lineStart, oldLineEnd);
   // The new lines are cut from the kept body and the splice's text when it is known, and
-  // everything below reads them, never `body`. The new body is a join of three pieces, and
+  // everything below reads them, never `body` (except to build afresh a column whose ranges
+  // point into an older body). The new body is a join of three pieces, and
   // the first character read from such a string copies it whole into one (1.2 MB in a
   // table of 100,000 rows, several milliseconds of fresh memory at every keystroke); the
   // kept body was made whole while the thread was idle (settleText).
@@ -219,11 +220,12 @@ export function rereadTable(kept: KeptTable, body: string, change?: BodyChange):
     tableWork.columnsBuilt++;
     // a number column whose changed fields are still numbers: only those rows are read
     if (sameCount) {
-      // in place: the kept reading is never read again (KeptTable), and a column made by
-      // an edit is told apart from its base by the engine and the page's ledger although
-      // the two share their arrays (sameValue, changedRows)
+      // in place: the kept reading is never read again (KeptTable); the base is marked as
+      // written over, so that nothing takes it and its successor, which share their arrays,
+      // for the same (sameValue, changedRows)
       const patched = patchNumberColumn(next, j, name, oldColumn, old, first, last, shift, { text: newLines, at: lineStart }, true);
       if (patched !== null) {
+        if (patched.column.values === oldColumn.values) noteWrittenOver(oldColumn);
         noteColumnChange(patched.column, oldColumn, Int32Array.from({ length: last - first }, (_, i) => first + i), patched.texts);
         return patched.column;
       }

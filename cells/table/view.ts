@@ -361,8 +361,9 @@ export class TableCellView extends LitElement implements TextHost {
     this.text.afterUpdate();
     if (this.focusOnDraw) {
       this.focusOnDraw = false;
-      // unless a key typed meanwhile opened the editor again, which has the focus now
-      if (this.editor === null) this.renderRoot.querySelector<HTMLElement>('.scroller')?.focus({ preventScroll: true });
+      // unless a key typed meanwhile opened the editor again, which has the focus now, or
+      // the user put the focus somewhere else on the page meanwhile
+      if (this.editor === null && focusIsNowhereOrIn(this)) this.renderRoot.querySelector<HTMLElement>('.scroller')?.focus({ preventScroll: true });
     }
     // An edit's result is drawn: once that frame is painted, the body the edit spliced is
     // made whole, so that the next keystroke does not pay for it (src/doc/settle-text.ts).
@@ -377,6 +378,16 @@ export class TableCellView extends LitElement implements TextHost {
 
   /** The grid whose text was last made whole. */
   private settledGrid: BodyGrid | null = null;
+}
+
+/**
+ * True when the page's focus is on nothing (the body: the field editor that had it was taken
+ * away) or inside `view`, looking through shadow roots.
+ */
+function focusIsNowhereOrIn(view: HTMLElement): boolean {
+  let active: Element | null = document.activeElement;
+  while (active !== null && active !== view && active.shadowRoot?.activeElement) active = active.shadowRoot.activeElement;
+  return active === null || active === document.body || active === view || view.shadowRoot?.contains(active) === true;
 }
 
 if (!customElements.get('furrow-table-cell')) customElements.define('furrow-table-cell', TableCellView);

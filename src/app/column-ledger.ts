@@ -25,7 +25,7 @@ import {
   type TextRanges,
   type Value,
 } from '../lang/values.ts';
-import { columnChangeOf } from '../lang/column-changes.ts';
+import { columnChangeOf, isWrittenOver } from '../lang/column-changes.ts';
 
 /** Columns shorter than this are sent whole every time: they cost less than keeping them. */
 export const LEDGER_MIN_LENGTH = 256;
@@ -113,9 +113,9 @@ function sameDecimal(a: DecimalTexts, b: DecimalTexts, i: number): boolean {
  */
 export function changedRows(base: Column, next: Column, limit: number): Int32Array | null {
   if (base.type !== next.type || base.values.length !== next.values.length || base.name !== next.name || !sameOrder(base.order, next.order)) return null;
-  // one array of values, written by the edit that made `next` (cells/table/model-rows.ts):
-  // what `base` held is gone, so its rows cannot be compared
-  if (base !== next && base.values === next.values) return null;
+  // an array an edit wrote in place for `next` (cells/table/model-rows.ts): what `base`
+  // held is gone, so its rows cannot be compared
+  if (base !== next && base.values === next.values && (isWrittenOver(base) || isWrittenOver(next))) return null;
   const n = next.values.length;
   const rows: number[] = [];
   if (base.type === 'number' && next.type === 'number') {

@@ -29,3 +29,21 @@ export function noteColumnChange(next: Column, base: Column, rows: Int32Array, t
 export function columnChangeOf(next: Column): ColumnChange | undefined {
   return changes.get(next);
 }
+
+/**
+ * Columns whose arrays an edit wrote in place for the column that replaced it
+ * (cells/table/model-rows.ts): what they held is gone, and they share their arrays with
+ * their successor. Only these are marked: other columns share arrays legitimately (a column
+ * with its levels put in order is the same values under another order).
+ */
+const writtenOver = new WeakSet<Column>();
+
+/** Notes that `base`'s arrays were written in place for the column made from it. */
+export function noteWrittenOver(base: Column): void {
+  writtenOver.add(base);
+}
+
+/** Whether `c`'s arrays were written in place for another column (noteWrittenOver). */
+export function isWrittenOver(c: Column): boolean {
+  return writtenOver.has(c);
+}

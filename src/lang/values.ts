@@ -10,6 +10,7 @@
  * and the same object may be shared by many cells.
  */
 import type { TextRanges } from '../stats/decimal/scan.ts';
+import { isWrittenOver } from './column-changes.ts';
 
 export type { TextRanges };
 
@@ -373,10 +374,11 @@ export function sameValue(a: Value, b: Value): boolean {
       if (a.type === 'number') {
         const x = a.values;
         const y = (c as NumberColumn).values;
-        // Two columns that share one array of values may be a column and the column an edit
-        // made of it by writing that array (cells/table/model-rows.ts): what the older one
-        // held is gone, so they are not known to be the same.
-        if (x === y) return false;
+        // A column whose array an edit wrote in place for the column made from it
+        // (cells/table/model-rows.ts) shares that array with its successor, and what it held
+        // is gone: the two are not the same. (Their decimal texts, never written in place,
+        // differ too; this says so without reading them.)
+        if (x === y && (isWrittenOver(a) || isWrittenOver(c))) return false;
         for (let i = 0; i < x.length; i++) if (!Object.is(x[i], y[i])) return false;
         return sameDecimals(a.decimals, (c as NumberColumn).decimals);
       }

@@ -2,10 +2,12 @@
  * A field typed over in a table is read into the arrays of the column it replaces
  * (cells/table/model-rows.ts, src/doc/csv-columns.ts `patchNumberColumn` in place), and
  * sums and variances borrow the column's cached reading instead of copying it
- * (src/functions/columns.ts). The old column's values are then gone, so nothing may
- * compare the new column with it element by element: not the engine, which stops
- * re-evaluating at a value that did not change (sameValue), and not the page's ledger,
- * which sends only the rows that changed (changedRows).
+ * (src/functions/columns.ts). The old column's values are then gone: the engine, which
+ * stops re-evaluating at a value that did not change (sameValue), and the page's ledger,
+ * which sends only the rows that changed (changedRows), must still tell the new column from
+ * it. (They do so by a mark on the column written over, and the decimal texts, never
+ * written in place, would tell them apart too; so this checks the outcome, edit after
+ * edit, not one of those two ways alone.)
  *
  * Checked as the evaluation worker runs: splice edits of fields, one after another, each
  * followed by an update of the engine that kept everything from before and by the message

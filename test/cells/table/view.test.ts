@@ -164,6 +164,28 @@ describe('<furrow-table-cell>', () => {
     expect(m.root.activeElement).toBe(grid);
   });
 
+  it('while drawing is held, focus the user puts elsewhere on the page stays there', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    const other = document.createElement('input');
+    document.body.append(other);
+    m.el.addEventListener(EDIT_EVENT, () => holdDrawing(new Promise(() => {}), 15));
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowRight');
+    await m.el.updateComplete;
+    key(grid, 'F2');
+    await m.el.updateComplete;
+    const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
+    ta.value = 'closed';
+    key(ta, 'Enter');
+    // a click into another field of the page before the drawing
+    other.focus();
+    await new Promise((r) => setTimeout(r, 40));
+    await m.el.updateComplete;
+    expect(fieldText(m.root, 0, 1)).toBe('closed');
+    expect(document.activeElement).toBe(other);
+  });
+
   it('a field with a comma is quoted on write; a decimal comma is marked with its reason', async () => {
     const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
     const m = await mount(cell);
