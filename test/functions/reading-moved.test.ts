@@ -9,27 +9,36 @@ import { describe, expect, it } from 'vitest';
 import { responseOf } from '../../src/functions/columns.ts';
 import { noteColumnChange } from '../../src/lang/column-changes.ts';
 import { numberColumn } from '../../src/lang/values.ts';
-import { readDecimals, readDecimalsAgainInPlace, shiftDecimals, shiftReading, shiftReadingBorrowed } from '../../src/stats/decimal/index.ts';
+import { readDecimals, readDecimalsAgainInPlace, shiftDecimals, shiftReading, shiftReadingBorrowed, type DecimalReading } from '../../src/stats/decimal/index.ts';
 
 const text = fc.oneof(
   fc.constantFrom('0', '-0', '1.5', '1000000000000.4', '1e-7', ' 42 ', '12345678901234567890123', '40.10', '40.1'),
   fc.integer({ min: -10_000_000, max: 10_000_000 }).map((k) => (k / 1000).toString()),
 );
 
+/** The texts with the changes made, and the rows changed, in the order of the changes. */
+function edited(texts: readonly string[], changes: readonly (readonly [number, string])[]): { next: string[]; rows: number[] } {
+  const next = texts.slice();
+  const rows = changes.map(([at, t]) => {
+    next[at % texts.length] = t;
+    return at % texts.length;
+  });
+  return { next, rows };
+}
+
+/** Expects a reading read again to be the reading of the texts read afresh. */
+function expectSameReading(moved: DecimalReading, full: DecimalReading): void {
+  expect(Array.from(moved.values)).toEqual(Array.from(full.values));
+  expect(Array.from(moved.significand)).toEqual(Array.from(full.significand));
+  expect(Array.from(moved.scale)).toEqual(Array.from(full.scale));
+}
+
 describe('a reading taken over by the edited column', () => {
   it('reads the edited column as a fresh reading would', () => {
     fc.assert(
       fc.property(fc.array(text, { minLength: 1, maxLength: 30 }), fc.array(fc.tuple(fc.nat(), text), { maxLength: 4 }), (texts, changes) => {
-        const next = texts.slice();
-        const rows = changes.map(([at, t]) => {
-          next[at % texts.length] = t;
-          return at % texts.length;
-        });
-        const moved = readDecimalsAgainInPlace(readDecimals(texts), next, rows);
-        const full = readDecimals(next);
-        expect(Array.from(moved.values)).toEqual(Array.from(full.values));
-        expect(Array.from(moved.significand)).toEqual(Array.from(full.significand));
-        expect(Array.from(moved.scale)).toEqual(Array.from(full.scale));
+        const { next, rows } = edited(texts, changes);
+        expectSameReading(readDecimalsAgainInPlace(readDecimals(texts), next, rows), readDecimals(next));
       }),
       { numRuns: 300, seed: 20261202 },
     );
@@ -38,11 +47,7 @@ describe('a reading taken over by the edited column', () => {
   it('reads the changed texts from where the edit gives them, when it gives them apart', () => {
     fc.assert(
       fc.property(fc.array(text, { minLength: 1, maxLength: 30 }), fc.array(fc.tuple(fc.nat(), text), { maxLength: 4 }), (texts, changes) => {
-        const next = texts.slice();
-        const rows = changes.map(([at, t]) => {
-          next[at % texts.length] = t;
-          return at % texts.length;
-        });
+        const { next, rows } = edited(texts, changes);
         // the changed texts as ranges of a short text of their own, in the order of rows
         let source = '#';
         const from: number[] = [];
@@ -56,11 +61,7 @@ describe('a reading taken over by the edited column', () => {
         const changed = { source, from: Int32Array.from(from), to: Int32Array.from(to) };
         // the column's own texts are never read for the changed rows: spoil them there
         const spoiled = next.map((t, i) => (rows.includes(i) ? 'not read' : t));
-        const moved = readDecimalsAgainInPlace(readDecimals(texts), spoiled, rows, changed);
-        const full = readDecimals(next);
-        expect(Array.from(moved.values)).toEqual(Array.from(full.values));
-        expect(Array.from(moved.significand)).toEqual(Array.from(full.significand));
-        expect(Array.from(moved.scale)).toEqual(Array.from(full.scale));
+        expectSameReading(readDecimalsAgainInPlace(readDecimals(texts), spoiled, rows, changed), readDecimals(next));
       }),
       { numRuns: 300, seed: 20261203 },
     );

@@ -144,9 +144,9 @@ describe('<furrow-table-cell>', () => {
     expect(m.edits).toHaveLength(1);
   });
 
-  it('while drawing is held, the grid is drawn and takes the focus once the hold ends', async () => {
-    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
-    const m = await mount(cell);
+  /** Mounts the trees table, has the shell hold drawing for 15 ms after each edit, and enters `text` in row 1's method. */
+  async function enteredWhileHeld(text: string): Promise<{ m: Mounted; grid: HTMLElement; ta: HTMLTextAreaElement }> {
+    const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: TREES });
     m.el.addEventListener(EDIT_EVENT, () => holdDrawing(new Promise(() => {}), 15));
     const grid = m.root.querySelector<HTMLElement>('.scroller')!;
     key(grid, 'ArrowRight');
@@ -154,8 +154,13 @@ describe('<furrow-table-cell>', () => {
     key(grid, 'F2');
     await m.el.updateComplete;
     const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
-    ta.value = 'closed';
+    ta.value = text;
     key(ta, 'Enter');
+    return { m, grid, ta };
+  }
+
+  it('while drawing is held, the grid is drawn and takes the focus once the hold ends', async () => {
+    const { m, grid, ta } = await enteredWhileHeld('closed');
     expect(m.root.querySelector('textarea.editor')).toBe(ta);
     await new Promise((r) => setTimeout(r, 40));
     await m.el.updateComplete;
@@ -165,19 +170,9 @@ describe('<furrow-table-cell>', () => {
   });
 
   it('while drawing is held, focus the user puts elsewhere on the page stays there', async () => {
-    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
-    const m = await mount(cell);
     const other = document.createElement('input');
     document.body.append(other);
-    m.el.addEventListener(EDIT_EVENT, () => holdDrawing(new Promise(() => {}), 15));
-    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
-    key(grid, 'ArrowRight');
-    await m.el.updateComplete;
-    key(grid, 'F2');
-    await m.el.updateComplete;
-    const ta = m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!;
-    ta.value = 'closed';
-    key(ta, 'Enter');
+    const { m } = await enteredWhileHeld('closed');
     // a click into another field of the page before the drawing
     other.focus();
     await new Promise((r) => setTimeout(r, 40));
