@@ -7,8 +7,8 @@
  */
 import { columnOfGrid, patchNumberColumn } from '../../src/doc/csv-columns.ts';
 import { noteColumnChange, noteWrittenOver } from '../../src/lang/column-changes.ts';
-import type { FieldGrid } from '../../src/doc/csv-fields.ts';
-import { table, type Table } from '../../src/lang/values.ts';
+import { isTrimmed, type FieldGrid } from '../../src/doc/csv-fields.ts';
+import { table, type Column, type Table } from '../../src/lang/values.ts';
 
 /**
  * What a table keeps of its last reading of a body. It is read again at most once: reading
@@ -82,6 +82,40 @@ function sameText(a: string, af: number, at: number, b: string, bf: number, bt: 
 }
 
 /**
+ * A number column that an edit left alone, read from ranges of the kept body `old`: its
+ * ranges move to the new body (the changed rows' from the grid, `lines` being the new text
+ * from `lineStart`; the rows after them by `shift`) and its source becomes the new body, in
+ * place. Its texts read the same, for its fields did not change, so the column is the same
+ * value; and when a later edit changes it (typing along a row), it is read again in the
+ * changed rows rather than built afresh from the whole body. A column still read from an
+ * older body is left as it is.
+ */
+function followBody(c: Column, old: string, body: string, next: FieldGrid, j: number, first: number, last: number, shift: number, lines: string, lineStart: number): void {
+  if (c.type !== 'number' || c.decimals === null || Array.isArray(c.decimals)) return;
+  // written in place: whoever shares this object (a column with its levels put in order)
+  // reads the same texts through it before and after
+  const r = c.decimals as { source: string; readonly from: Int32Array; readonly to: Int32Array };
+  if (r.source !== old || r.from.length !== next.rows) return;
+  const width = next.header.length;
+  for (let row = first; row < last; row++) {
+    const k = row * width + j;
+    let a = next.from[k]! - lineStart;
+    let b = next.to[k]! - lineStart;
+    while (a < b && isTrimmed(lines.charCodeAt(a))) a++;
+    while (b > a && isTrimmed(lines.charCodeAt(b - 1))) b--;
+    r.from[row] = a + lineStart;
+    r.to[row] = b + lineStart;
+  }
+  if (shift !== 0) {
+    for (let i = last; i < r.from.length; i++) {
+      r.from[i] = r.from[i]! + shift;
+      r.to[i] = r.to[i]! + shift;
+    }
+  }
+  r.source = body;
+}
+
+/**
  * Where a body differs from the kept one, when known: characters [from, to) of the kept
  * body were replaced, by `text` when it is given.
  */
@@ -114,8 +148,8 @@ export function rereadTable(kept: KeptTable, body: string, change?: BodyChange):
   const newLineEnd = oldLineEnd + (body.length - old.length);
   const oldLines = old.slice(lineStart, oldLineEnd);
   // The new lines are cut from the kept body and the splice's text when it is known, and
-  // everything below reads them, never `body` (except to build afresh a column whose ranges
-  // point into an older body). The new body is a join of three pieces, and
+  // everything below reads them, never `body` (except to build a column afresh, when the
+  // edit is not a field typed over). The new body is a join of three pieces, and
   // the first character read from such a string copies it whole into one (1.2 MB in a
   // table of 100,000 rows, several milliseconds of fresh memory at every keystroke); the
   // kept body was made whole while the thread was idle (settleText).
@@ -215,7 +249,10 @@ export function rereadTable(kept: KeptTable, body: string, change?: BodyChange):
         const o = (r - first) * width + j;
         same = sameText(old, oldFrom[o]!, oldTo[o]!, newLines, from[k]! - lineStart, to[k]! - lineStart);
       }
-      if (same) return oldColumn;
+      if (same) {
+        followBody(oldColumn, old, body, next, j, first, last, shift, newLines, lineStart);
+        return oldColumn;
+      }
     }
     tableWork.columnsBuilt++;
     // a number column whose changed fields are still numbers: only those rows are read

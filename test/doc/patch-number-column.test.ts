@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFieldGrid } from '../../src/doc/csv-fields.ts';
 import { columnOfGrid, patchNumberColumn } from '../../src/doc/csv-columns.ts';
-import { decimalAt, type NumberColumn } from '../../src/lang/values.ts';
+import { decimalAt, type NumberColumn, type TextRanges } from '../../src/lang/values.ts';
 
 const OLD = 'k,y\n1,2.5\n2,3\n3,4.25\n';
 
@@ -31,12 +31,15 @@ describe('a number column read again in a few rows', () => {
   it('reads the changed rows from the part, in place, as a full reading would', () => {
     const { base, grid, part, shift } = typedOver('30.75');
     const values = base.values;
+    const ranges = base.decimals as TextRanges;
     const patched = patchNumberColumn(grid, 1, 'y', base, OLD, 1, 2, shift, part, true)!;
     const full = columnOfGrid(grid, 1, 'y') as NumberColumn;
     expect(Array.from(patched.column.values)).toEqual(Array.from(full.values));
     expect(texts(patched.column)).toEqual(texts(full));
-    // in place: the base's array is the new column's
+    // in place: the base's arrays are the new column's, its ranges moved for the longer text
     expect(patched.column.values).toBe(values);
+    expect((patched.column.decimals as TextRanges).from).toBe(ranges.from);
+    expect((patched.column.decimals as TextRanges).to).toBe(ranges.to);
     // the changed texts, as ranges of the part
     expect(patched.texts.source.slice(patched.texts.from[0], patched.texts.to[0])).toBe('30.75');
   });

@@ -24,7 +24,7 @@ import { readDocument } from '../../src/doc/format.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
 import { Engine } from '../../src/graph/engine.ts';
 import { toJson } from '../../src/lang/json.ts';
-import { decimalAt, isNumberColumn, type Value } from '../../src/lang/values.ts';
+import { decimalAt, isNumberColumn, type Table, type Value } from '../../src/lang/values.ts';
 
 /** A value as JSON, with the decimal texts of number columns (JSON does not show them). */
 function shown(v: Value | undefined): string {
@@ -127,6 +127,38 @@ describe('fields typed over in place', () => {
       }),
       { numRuns: Number(process.env.RUNS ?? 60), seed: process.env.SEED === undefined ? 20261203 : Number(process.env.SEED) },
     );
+  });
+
+  it('typing along a row reads each column again in its changed row, in place, whatever the lengths typed', () => {
+    let doc = readDocument(startText(), { kinds: CELL_KINDS }).document;
+    const engine = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
+    engine.update(doc);
+    const arrays = () => {
+      const t = engine.valueOf('t') as Table;
+      return [t.columns[1]!.values, t.columns[2]!.values];
+    };
+    const before = arrays();
+    // a, then b, then a again... in one row and the next, typed longer and shorter
+    const steps: [number, number, string][] = [
+      [3, 1, '12.25'],
+      [3, 2, '7'],
+      [4, 1, '3'],
+      [4, 2, '1000000.123'],
+      [5, 1, ''],
+      [5, 2, '2.5'],
+    ];
+    for (const [row, col, text] of steps) {
+      const edit = typeOver(doc, row, col, text);
+      doc = applyEdit(doc, edit).document;
+      engine.update(doc, { touched: cellsTouched(edit) });
+      const fresh = new Engine({ registry: BUILTINS, kinds: CELL_KINDS });
+      fresh.update(doc);
+      for (const name of ['t', 's', 'v', 'w']) expect(shown(engine.valueOf(name)), `${name} after ${text}`).toBe(shown(fresh.valueOf(name)));
+    }
+    // never built afresh: each column's values are still the arrays it was first read into
+    const after = arrays();
+    expect(after[0]).toBe(before[0]);
+    expect(after[1]).toBe(before[1]);
   });
 
   it('an edit that gives a field its old value back still reaches the cells that read the column', () => {
