@@ -18,27 +18,13 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import { ColumnReceiver, ColumnSender } from '../../src/app/column-ledger.ts';
-import type { Document } from '../../src/doc/document.ts';
-import { applyEdit, cellsTouched, type Edit } from '../../src/doc/edits.ts';
+import { applyEdit, cellsTouched } from '../../src/doc/edits.ts';
 import { readDocument } from '../../src/doc/format.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
 import { Engine } from '../../src/graph/engine.ts';
-import { toJson } from '../../src/lang/json.ts';
-import { decimalAt, isNumberColumn, type Table, type Value } from '../../src/lang/values.ts';
+import { type Table, type Value } from '../../src/lang/values.ts';
+import { shown, typeOver } from './typed-over.ts';
 
-/** A value as JSON, with the decimal texts of number columns (JSON does not show them). */
-function shown(v: Value | undefined): string {
-  if (v === undefined) return 'undefined';
-  const texts: unknown[] = [];
-  const walk = (x: Value): void => {
-    if (typeof x !== 'object') return;
-    if (x.kind === 'column' && isNumberColumn(x)) texts.push(x.decimals === null ? null : Array.from({ length: x.values.length }, (_, i) => decimalAt(x.decimals!, i)));
-    if (x.kind === 'table') x.columns.forEach(walk);
-    if (x.kind === 'record') for (const f of x.fields.values()) walk(f);
-  };
-  walk(v);
-  return `${toJson(v)} ${JSON.stringify(texts)}`;
-}
 
 // long enough for the page's ledger to keep the columns (LEDGER_MIN_LENGTH)
 const ROWS = 300;
@@ -77,18 +63,6 @@ function startText(): string {
   ].join('\n');
 }
 
-/** The splice that types `text` over field `col` of data row `row` of the table's body. */
-function typeOver(doc: Document, row: number, col: number, text: string): Edit {
-  const cell = doc.cells[0]!;
-  const body = cell.body;
-  let at = body.indexOf('\n') + 1;
-  for (let r = 0; r < row; r++) at = body.indexOf('\n', at) + 1;
-  const end = body.indexOf('\n', at);
-  const fields = body.slice(at, end).split(',');
-  let from = at;
-  for (let c = 0; c < col; c++) from += fields[c]!.length + 1;
-  return { type: 'splice', id: cell.id, from, to: from + fields[col]!.length, text };
-}
 
 const numberText = fc.oneof(
   fc.constantFrom('', ' ', '0', '-0', '2.5', '1e3', '1000000.3', '7', '7.0', '12345678901234567890'),

@@ -9,12 +9,12 @@
 import { describe, expect, it } from 'vitest';
 import { CELL_KINDS } from '../../cells/kinds.ts';
 import { ColumnSender } from '../../src/app/column-ledger.ts';
-import type { Document } from '../../src/doc/document.ts';
-import { applyEdit, cellsTouched, type Edit } from '../../src/doc/edits.ts';
+import { applyEdit, cellsTouched } from '../../src/doc/edits.ts';
 import { readDocument } from '../../src/doc/format.ts';
 import { BUILTINS } from '../../src/functions/index.ts';
 import { Engine } from '../../src/graph/engine.ts';
 import type { Value } from '../../src/lang/values.ts';
+import { typeOver } from './typed-over.ts';
 
 // long enough for the page's ledger to keep the columns (LEDGER_MIN_LENGTH)
 const ROWS = 2000;
@@ -22,15 +22,6 @@ function startText(): string {
   const lines = ['plot,dose,yield'];
   for (let i = 0; i < ROWS; i++) lines.push(`${i + 1},${[0, 10, 20][i % 3]},${(i % 7) + 1}.5`);
   return ['furrow 1', 'title: t', '', '--- table t', lines.join('\n'), '', '--- formula', 'd = level_order(t.dose, [0, 10, 20])', '', '--- formula', 'k = levels(d)', '', '--- formula', 's = sum(t.yield)', ''].join('\n');
-}
-function typeOver(doc: Document, row: number, col: number, text: string): Edit {
-  const b = doc.cells[0]!.body;
-  let at = b.indexOf('\n') + 1;
-  for (let r = 0; r < row; r++) at = b.indexOf('\n', at) + 1;
-  const fields = b.slice(at, b.indexOf('\n', at)).split(',');
-  let from = at;
-  for (let c = 0; c < col; c++) from += fields[c]!.length + 1;
-  return { type: 'splice', id: doc.cells[0]!.id, from, to: from + fields[col]!.length, text };
 }
 
 describe('a column sharing the table column\'s values, unchanged by an edit', () => {
