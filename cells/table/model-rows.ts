@@ -5,9 +5,9 @@
  * header, a quoted field, or gives a row the wrong number of fields is read in full
  * instead (so its error, if any, is the full reader's).
  */
-import { columnOfGrid, patchNumberColumn } from '../../src/doc/csv-columns.ts';
+import { columnOfGrid, patchNumberColumn, trimFieldInto } from '../../src/doc/csv-columns.ts';
 import { noteColumnChange, noteWrittenOver } from '../../src/lang/column-changes.ts';
-import { isTrimmed, type FieldGrid } from '../../src/doc/csv-fields.ts';
+import type { FieldGrid } from '../../src/doc/csv-fields.ts';
 import { table, type Column, type Table } from '../../src/lang/values.ts';
 
 /**
@@ -99,12 +99,7 @@ function followBody(c: Column, old: string, body: string, next: FieldGrid, j: nu
   const width = next.header.length;
   for (let row = first; row < last; row++) {
     const k = row * width + j;
-    let a = next.from[k]! - lineStart;
-    let b = next.to[k]! - lineStart;
-    while (a < b && isTrimmed(lines.charCodeAt(a))) a++;
-    while (b > a && isTrimmed(lines.charCodeAt(b - 1))) b--;
-    r.from[row] = a + lineStart;
-    r.to[row] = b + lineStart;
+    trimFieldInto(lines, next.from[k]! - lineStart, next.to[k]! - lineStart, r.from, r.to, row, lineStart);
   }
   if (shift !== 0) {
     for (let i = last; i < r.from.length; i++) {

@@ -105,13 +105,18 @@ function firstFieldIsText(g: FieldGrid, j: number): boolean {
 
 /** Writes the range of field k, spaces trimmed, into from[r] and to[r]. */
 function trimmedInto(g: FieldGrid, k: number, from: Int32Array, to: Int32Array, r: number): void {
-  const src = g.source;
-  let a = g.from[k]!;
-  let b = g.to[k]!;
-  while (a < b && isTrimmed(src.charCodeAt(a))) a++;
-  while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
-  from[r] = a;
-  to[r] = b;
+  trimFieldInto(g.source, g.from[k]!, g.to[k]!, from, to, r);
+}
+
+/**
+ * Writes the range text[a, b), spaces trimmed, into from[r] and to[r], each plus `at` (for a
+ * text that is a part of a longer one starting at `at`).
+ */
+export function trimFieldInto(text: string, a: number, b: number, from: Int32Array, to: Int32Array, r: number, at = 0): void {
+  while (a < b && isTrimmed(text.charCodeAt(a))) a++;
+  while (b > a && isTrimmed(text.charCodeAt(b - 1))) b--;
+  from[r] = a + at;
+  to[r] = b + at;
 }
 
 /** Builds column j of a field grid. */
@@ -217,12 +222,9 @@ export function patchNumberColumn(
   const scan = newDecimalScan();
   for (let r = first; r < last; r++) {
     const k = r * width + j;
-    let a = g.from[k]! - at;
-    let b = g.to[k]! - at;
-    while (a < b && isTrimmed(src.charCodeAt(a))) a++;
-    while (b > a && isTrimmed(src.charCodeAt(b - 1))) b--;
-    changedFrom[r - first] = a;
-    changedTo[r - first] = b;
+    trimFieldInto(src, g.from[k]! - at, g.to[k]! - at, changedFrom, changedTo, r - first);
+    const a = changedFrom[r - first]!;
+    const b = changedTo[r - first]!;
     if (a === b) {
       changedValues[r - first] = NaN;
       continue;
