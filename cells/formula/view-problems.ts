@@ -23,9 +23,16 @@ export interface ParsedFormula {
   readonly text: string;
   readonly name: string | null;
   readonly problem: FormulaProblem | null;
+  /** A cell still being written: nothing yet, or `name =` and nothing after (model.ts, emptyFormula). */
+  readonly empty: boolean;
 }
 
-let lastParsed: ParsedFormula | null = null;
+/**
+ * Texts parsed, oldest first, up to KEEP_PARSED: each formula cell asks about its own text
+ * at every draw, and an edit draws every cell that depends on it.
+ */
+const parsed = new Map<string, ParsedFormula>();
+const KEEP_PARSED = 1000;
 
 function clampRange(from: number, to: number, length: number): { from: number; to: number } {
   const f = Math.max(0, Math.min(length, Number.isFinite(from) ? Math.floor(from) : 0));
@@ -34,15 +41,20 @@ function clampRange(from: number, to: number, length: number): { from: number; t
 }
 
 /**
- * Parses a formula's visible text. The last result is kept: the editor's underline and the
- * message below it ask about the same text after every keystroke.
+ * Parses a formula's visible text. Results are kept (see `parsed`): the editor's underline
+ * and the message below it ask about the same text after every keystroke, and every
+ * dependent cell asks about its own at every edit.
  */
 export function parseVisible(text: string): ParsedFormula {
-  if (lastParsed !== null && lastParsed.text === text) return lastParsed;
+  const kept = parsed.get(text);
+  if (kept !== undefined) return kept;
   const { statement, error } = parseFormula(text);
   const problem = error === null ? null : { ...clampRange(error.from, error.to, text.length), message: error.message, source: 'parse' as const };
-  lastParsed = { text, name: statement?.name ?? emptyFormula(text)?.name?.text ?? null, problem };
-  return lastParsed;
+  const empty = emptyFormula(text);
+  const result = { text, name: statement?.name ?? empty?.name?.text ?? null, problem, empty: empty !== null };
+  if (parsed.size >= KEEP_PARSED) parsed.delete(parsed.keys().next().value!);
+  parsed.set(text, result);
+  return result;
 }
 
 /**
@@ -54,8 +66,8 @@ export function parseVisible(text: string): ParsedFormula {
  */
 export function formulaProblems(text: string, state: CellViewState | null, evaluated: string | null): FormulaProblem[] {
   // a cell still being written (nothing yet, or `name =` and nothing after) is not an error yet
-  if (emptyFormula(text) !== null) return [];
   const parsed = parseVisible(text);
+  if (parsed.empty) return [];
   if (parsed.problem !== null) return [parsed.problem];
   if (state === null || evaluated !== text) return [];
   const e: ErrorValue | null = state.error;

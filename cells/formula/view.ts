@@ -12,6 +12,7 @@ import { setDiagnostics, type Diagnostic } from '@codemirror/lint';
 import { EditorState } from '@codemirror/state';
 import { EditorView } from '@codemirror/view';
 import { css, html, LitElement, nothing, unsafeCSS, type PropertyValues } from 'lit';
+import { guard } from 'lit/directives/guard.js';
 import { shared } from '../../src/views/theme.ts';
 import '../../src/views/values/value.ts';
 import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
@@ -19,7 +20,7 @@ import { FLUSH_EVENT, emitEdit, type CellViewState, type NameCatalogue } from '.
 import { builtinNames, staticTokenCss } from './editor-language.ts';
 import { editorHost, formulaExtensions, formulaSetup, fromDocument, type FormulaEditorHost } from './editor-setup.ts';
 import type { BuiltinInfo } from '../view-api.ts';
-import { emptyFormula, secondNameFix, type FormulaFix } from './model.ts';
+import { secondNameFix, type FormulaFix } from './model.ts';
 import { startMsg } from '../../src/messages/page.ts';
 import { formulaProblems, parseVisible, type FormulaProblem } from './view-problems.ts';
 import { staticPieces } from './view-static.ts';
@@ -422,10 +423,15 @@ export class FurrowFormulaCell extends LitElement implements FormulaEditorHost {
     const showValue = value !== null && !(typeof value === 'object' && value.kind === 'error');
     const failedUpstream = state !== null && state.status === 'upstream';
     // a new cell, or one whose expression was deleted: nothing to show yet, and no error
-    const empty = emptyFormula(this.text) !== null;
+    const empty = parseVisible(this.text).empty;
     return html`
       <div class="editor" ?hidden=${!this.hasEditor}></div>
-      ${this.hasEditor ? nothing : this.renderStatic(first)}
+      ${this.hasEditor
+        ? nothing
+        : // drawn again only when the text, the built-ins or the problem changes: each edit
+          // gives every dependent a new state, and lexing 200 formulas again is a frame's
+          // worth of work for nothing
+          guard([this.text, this.catalogue.builtins, first?.from, first?.to, first?.source], () => this.renderStatic(first))}
       ${first === null
         ? nothing
         : html`<p class="problem ${first.source === 'upstream' ? 'upstream' : ''}" role="status" aria-live="polite">${first.message}${this.renderFix(fixFor(this.text, first))}</p>`}

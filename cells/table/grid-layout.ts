@@ -40,8 +40,26 @@ export function columnWidths(src: FieldSource): number[] {
     // figures the ch unit measures (measured at 800 px: "compound" was cut at 1.0)
     let w = Math.ceil(name.length * HEADER_CH_PER_LETTER) + 1;
     for (const r of picks) w = Math.max(w, oneLine(src.field(r, c)).length);
-    return Math.max(MIN_COLUMN_CH, Math.min(MAX_COLUMN_CH, w + 2));
+    return fieldsToWidth(w);
   });
+}
+
+/**
+ * Widths `widths` widened, where need be, to fit rows [from, to) of `src`: what an edit of
+ * those rows asks of widths that never narrow while the columns stay (the table view), in
+ * the time of the rows edited rather than of a sample of the table.
+ */
+export function widenForRows(widths: readonly number[], src: FieldSource, from: number, to: number): number[] {
+  return widths.map((w, c) => {
+    let most = 0;
+    for (let r = from; r < to; r++) most = Math.max(most, oneLine(src.field(r, c)).length);
+    return Math.max(w, fieldsToWidth(most));
+  });
+}
+
+/** A column's width for its widest field (or name), in characters. */
+function fieldsToWidth(chars: number): number {
+  return Math.max(MIN_COLUMN_CH, Math.min(MAX_COLUMN_CH, chars + 2));
 }
 
 /** Width of the row-number column, in characters. */

@@ -35,7 +35,14 @@ export interface BodyGrid {
    * rather than the whole body. Functions that spread a grid may carry it along; it holds
    * only for `of`, which the view checks by identity.
    */
-  readonly change?: { readonly of: BodyGrid; readonly from: number; readonly to: number; readonly text: string };
+  readonly change?: {
+    readonly of: BodyGrid;
+    readonly from: number;
+    readonly to: number;
+    readonly text: string;
+    /** Data rows [from, to) of `of` replaced by `count` rows: this grid's [from, from + count). */
+    readonly rows: { readonly from: number; readonly to: number; readonly count: number };
+  };
 }
 
 /** A change the grid could not make, with the reason to show. */
@@ -180,7 +187,7 @@ export function replaceRows(g: BodyGrid, ra: number, rb: number, fresh: readonly
   for (const row of fresh) for (let c = 0; c < cols; c++) countField(counts, c, row[c]!, 1);
   const rows = spliceRows(g.rows, ra, rb, fresh, usedUp);
   const text = g.text.slice(0, from) + insert + g.text.slice(to);
-  return { ...g, text, rows, starts, ends, counts, change: { of: g, from, to, text: insert } };
+  return { ...g, text, rows, starts, ends, counts, change: { of: g, from, to, text: insert, rows: { from: ra, to: rb, count: k } } };
 }
 
 /**

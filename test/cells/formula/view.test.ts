@@ -68,6 +68,28 @@ describe('<furrow-formula-cell>', () => {
     expect(shadow(el).querySelector('pre.static')).toBeNull();
   });
 
+  it('draws its static text again when the text or its problem changes', async () => {
+    const { el } = await mount('y = mean(plots.yield)\n\n', ok(3));
+    if (el.editorView !== null) return;
+    const pre = () => shadow(el).querySelector('pre.static')!;
+    const first = pre().querySelector('.tok-builtin');
+    // a new value, same text: the coloured text is left as it was drawn
+    el.state = ok(4);
+    await el.updateComplete;
+    expect(pre().querySelector('.tok-builtin')).toBe(first);
+    expect(pre().querySelector('.marked')).toBeNull();
+    // the evaluation fails on `plots.yield`: those characters are underlined
+    el.state = { status: 'error', value: null, parts: null, warnings: [], error: errorValue('no such column', 9, 20), progress: null };
+    await el.updateComplete;
+    expect([...pre().querySelectorAll('.marked')].map((m) => m.textContent).join('')).toBe('plots.yield');
+    // a new text is drawn
+    el.cell = { id: 'c7', marker: 'formula', eol: '\n', body: 'z = 2\n\n' };
+    el.state = ok(2);
+    await el.updateComplete;
+    expect(pre().textContent).toBe('z = 2');
+    expect(pre().querySelector('.marked')).toBeNull();
+  });
+
   it('sends a burst of typing as one body edit with the merge key', async () => {
     const { el, edits } = await mount('x = 1\n\n');
     await el.ensureEditor();

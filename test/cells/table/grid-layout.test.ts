@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { readBodyGrid, sourceOfBody } from '../../../cells/table/grid-model.ts';
-import { MAX_COLUMN_CH, MIN_COLUMN_CH, columnWidths, oneLine } from '../../../cells/table/grid-layout.ts';
+import { readBodyGrid, setField, sourceOfBody } from '../../../cells/table/grid-model.ts';
+import { MAX_COLUMN_CH, MIN_COLUMN_CH, columnWidths, oneLine, widenForRows } from '../../../cells/table/grid-layout.ts';
 
 describe('column widths', () => {
   it('follow the names and fields within bounds', () => {
@@ -16,6 +16,19 @@ describe('column widths', () => {
     const w = columnWidths({ header: ['plot', 'y'], rowCount: 1_000_000, field: (r, c) => (c === 0 ? String(r + 1) : '1'), counts });
     // "1000000" is 7 characters, with 2 of room
     expect(w[0]).toBe(9);
+  });
+  it('widen for rows typed over as a new sample would, and never narrow', () => {
+    const g = readBodyGrid('plot,variety\n1,short\n2,tall\n');
+    const before = columnWidths(sourceOfBody(g));
+    // a longer variety typed into row 2: the same widths as measuring the new grid afresh
+    const longer = setField(g, 1, 1, 'a much longer variety name');
+    expect(longer.change?.rows).toEqual({ from: 1, to: 2, count: 1 });
+    expect(widenForRows(before, sourceOfBody(longer), 1, 2)).toEqual(columnWidths(sourceOfBody(longer)));
+    // a shorter one keeps the width the column had
+    const shorter = setField(longer, 1, 1, 'x');
+    const wide = columnWidths(sourceOfBody(longer));
+    expect(widenForRows(wide, sourceOfBody(shorter), 1, 2)).toEqual(wide);
+    expect(columnWidths(sourceOfBody(shorter))[1]).toBeLessThan(wide[1]!);
   });
   it('shows a line break as a mark', () => {
     expect(oneLine('a\r\nb')).toBe('a ↵ b');
