@@ -28,11 +28,15 @@ export interface ParsedFormula {
 }
 
 /**
- * Texts parsed, oldest first, up to KEEP_PARSED: each formula cell asks about its own text
- * at every draw, and an edit draws every cell that depends on it.
+ * Texts parsed, oldest first, up to KEEP_PARSED of them and KEEP_CHARACTERS in all: each
+ * formula cell asks about its own text at every draw, and an edit draws every cell that
+ * depends on it. The characters are bounded too: every version of a long formula being
+ * typed into is a text of its own.
  */
 const parsed = new Map<string, ParsedFormula>();
 const KEEP_PARSED = 1000;
+const KEEP_CHARACTERS = 1_000_000;
+let parsedCharacters = 0;
 
 function clampRange(from: number, to: number, length: number): { from: number; to: number } {
   const f = Math.max(0, Math.min(length, Number.isFinite(from) ? Math.floor(from) : 0));
@@ -52,8 +56,13 @@ export function parseVisible(text: string): ParsedFormula {
   const problem = error === null ? null : { ...clampRange(error.from, error.to, text.length), message: error.message, source: 'parse' as const };
   const empty = emptyFormula(text);
   const result = { text, name: statement?.name ?? empty?.name?.text ?? null, problem, empty: empty !== null };
-  if (parsed.size >= KEEP_PARSED) parsed.delete(parsed.keys().next().value!);
   parsed.set(text, result);
+  parsedCharacters += text.length;
+  while (parsed.size > 1 && (parsed.size > KEEP_PARSED || parsedCharacters > KEEP_CHARACTERS)) {
+    const oldest = parsed.keys().next().value!;
+    parsed.delete(oldest);
+    parsedCharacters -= oldest.length;
+  }
   return result;
 }
 

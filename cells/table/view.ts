@@ -196,7 +196,12 @@ export class TableCellView extends LitElement implements TextHost {
       // text, so that the next edit makes one string of the body (its own and the
       // document's were two equal 1 MB texts in a 100,000-row table, each built afresh)
       this.readBody = body;
-      if (this.grid !== null && this.grid.text.length === body.length) this.grid = { ...this.grid, text: body };
+      if (this.grid !== null && this.grid.text.length === body.length) {
+        const same = { ...this.grid, text: body };
+        // the same rows: the fields shown and their widths stay the old grid's
+        if (this.sourceCache?.key === this.grid) this.sourceCache = { ...this.sourceCache, key: same };
+        this.grid = same;
+      }
       return;
     }
     if (body === this.readBody) {
@@ -293,11 +298,21 @@ export class TableCellView extends LitElement implements TextHost {
 
   // ---- rendering ----------------------------------------------------------------------------
 
+  /** The CSV text is drawn in place of the grid (the body does not read, or the user asked). */
+  private showsText(): boolean {
+    return this.file === null && (this.gridError !== null || this.textPinned);
+  }
+
+  /** The next draw draws the grid. */
+  private drawsGrid(): boolean {
+    return !this.showsText() && this.shown !== null;
+  }
+
   override render(): TemplateResult | typeof nothing {
     if (!this.cell) return nothing;
     const file = this.file;
     const shown = this.shown;
-    const showText = file === null && (this.gridError !== null || this.textPinned);
+    const showText = this.showsText();
     return html`
       ${this.toolbar.render(shown?.source ?? null, showText)}
       ${this.nameProblem !== null ? html`<p class="line problem" role="alert">${this.nameProblem}</p>` : nothing}
@@ -365,8 +380,8 @@ export class TableCellView extends LitElement implements TextHost {
     // The grid takes the focus before the draw takes the field editor away: a focused
     // element taken out of the page costs the browser a layout of its own (measured in the
     // 200-cell document of the browser tests: 1.2 ms for focus, removal and layout in this
-    // order, 2.1 ms the other way round).
-    this.takeFocusOnDraw();
+    // order, 2.1 ms the other way round). Only when this draw keeps the grid that is there.
+    if (this.focusOnDraw && this.drawsGrid() && this.renderRoot.querySelector('.scroller') !== null) this.takeFocusOnDraw();
     super.update(changed);
   }
 
@@ -374,8 +389,7 @@ export class TableCellView extends LitElement implements TextHost {
     super.updated(changed);
     this.fieldEditor.afterUpdate(changed);
     this.text.afterUpdate();
-    // the grid first drawn in this update
-    this.takeFocusOnDraw();
+    if (this.focusOnDraw) this.takeFocusOnDraw();
     // An edit's result is drawn: once that frame is painted, the body the edit spliced is
     // made whole, so that the next keystroke does not pay for it (src/doc/settle-text.ts).
     // (The grid is the token, not its text: `!==` between two long texts compares their
@@ -392,13 +406,10 @@ export class TableCellView extends LitElement implements TextHost {
 
   /** The focus asked for while drawing was held (focusGrid) moves to the grid, if it is drawn. */
   private takeFocusOnDraw(): void {
-    if (!this.focusOnDraw) return;
-    const scroller = this.renderRoot.querySelector<HTMLElement>('.scroller');
-    if (scroller === null) return;
     this.focusOnDraw = false;
     // unless a key typed meanwhile opened the editor again, which has the focus now, or
     // the user put the focus somewhere else on the page meanwhile
-    if (this.editor === null && focusIsNowhereOrIn(this)) scroller.focus({ preventScroll: true });
+    if (this.editor === null && focusIsNowhereOrIn(this)) this.renderRoot.querySelector<HTMLElement>('.scroller')?.focus({ preventScroll: true });
   }
 }
 

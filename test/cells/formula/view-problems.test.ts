@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
 import { formulaProblems, parseVisible } from '../../../cells/formula/view-problems.ts';
 import { staticPieces } from '../../../cells/formula/view-static.ts';
 import { textChange } from '../../../cells/formula/view-sync.ts';
@@ -100,3 +102,28 @@ describe('textChange', () => {
     }
   });
 });
+
+describe('parsed formula texts kept', () => {
+  it('do not keep every version of a long formula being typed into', () => {
+    // a formula of about 40,000 characters, typed at its end 200 times: each version is a
+    // text of its own, and keeping them all held about 20 MB
+    const base = `x = c(${Array.from({ length: 13_000 }, (_, i) => String(i % 97)).join(', ')}`;
+    expect(base.length).toBeGreaterThan(40_000);
+    const before = heapAfterCollection();
+    for (let k = 0; k < 200; k++) parseVisible(`${base}, ${'1'.repeat(k % 7)}${k})`);
+    const grownMb = (heapAfterCollection() - before) / 1e6;
+    expect(grownMb).toBeLessThan(5);
+    // and what is kept is still found
+    const text = `${base}, 199)`;
+    expect(parseVisible(text)).toBe(parseVisible(text));
+  });
+});
+
+/** The heap in use after a full collection (V8's own, reached through its flags). */
+function heapAfterCollection(): number {
+  setFlagsFromString('--expose_gc');
+  const gc = runInNewContext('gc') as () => void;
+  gc();
+  gc();
+  return process.memoryUsage().heapUsed;
+}

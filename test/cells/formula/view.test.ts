@@ -70,7 +70,8 @@ describe('<furrow-formula-cell>', () => {
 
   it('draws its static text again when the text or its problem changes', async () => {
     const { el } = await mount('y = mean(plots.yield)\n\n', ok(3));
-    if (el.editorView !== null) return;
+    // the static text is what a cell shows before its editor exists
+    expect(el.editorView).toBeNull();
     const pre = () => shadow(el).querySelector('pre.static')!;
     const first = pre().querySelector('.tok-builtin');
     // a new value, same text: the coloured text is left as it was drawn

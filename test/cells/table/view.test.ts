@@ -7,7 +7,7 @@ import { drawingHeld, holdDrawing, releaseDrawing } from '../../../src/views/dra
 import { tableFromGrid } from '../../../cells/table/model.ts';
 import { parseCsv } from '../../../src/doc/csv.ts';
 import type { Cell } from '../../../src/doc/document.ts';
-import type { Edit } from '../../../src/doc/edits.ts';
+import { applyEdit, type Edit } from '../../../src/doc/edits.ts';
 import { msg } from '../../../src/messages/language.ts';
 
 const TREES = 'row,method,yield_kg\n1,open,41.2\n1,spindle,38.9\n2,open,40.1\n\n';
@@ -179,6 +179,40 @@ describe('<furrow-table-cell>', () => {
     await m.el.updateComplete;
     expect(fieldText(m.root, 0, 1)).toBe('closed');
     expect(document.activeElement).toBe(other);
+  });
+
+  it('while drawing is held, a button that takes the grid away keeps the focus it was given', async () => {
+    const { m } = await enteredWhileHeld('closed');
+    // the user asks for the CSV text before the drawing: the grid goes, the button keeps the focus
+    const toggle = [...m.root.querySelectorAll<HTMLButtonElement>('button')].find((b) => b.textContent?.trim() === 'CSV text')!;
+    toggle.focus();
+    toggle.click();
+    await new Promise((r) => setTimeout(r, 40));
+    await m.el.updateComplete;
+    expect(m.el.textPinned).toBe(true);
+    expect(m.root.querySelector('.scroller')).toBeNull();
+    expect(m.root.activeElement).toBe(toggle);
+  });
+
+  it('keeps the column widths when the shell hands back the body a field edit made', async () => {
+    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
+    const m = await mount(cell);
+    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
+    key(grid, 'ArrowRight');
+    await m.el.updateComplete;
+    key(grid, 'F2');
+    await m.el.updateComplete;
+    m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!.value = 'a much wider method name';
+    key(m.root.querySelector('textarea.editor')!, 'Enter');
+    await m.el.updateComplete;
+    const widths = m.el.shown!.widths;
+    // as the shell does: the store applies the splice, and the cell comes back made by it
+    const doc = applyEdit({ bom: false, firstLine: 'furrow 1', firstEol: '\n', header: '', cells: [cell] }, m.edits[0]!.edit).document;
+    m.el.cell = doc.cells[0]!;
+    await m.el.updateComplete;
+    // the same rows: the widths are not measured again from a sample of the table
+    expect(m.el.shown!.widths).toBe(widths);
+    expect(widths[1]).toBeGreaterThan(m.el.shown!.widths[0]!);
   });
 
   it('a field with a comma is quoted on write; a decimal comma is marked with its reason', async () => {
