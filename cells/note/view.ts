@@ -15,7 +15,7 @@ import { freshBody, visibleBody, type Cell } from '../../src/doc/document.ts';
 import { isError, type Value } from '../../src/lang/values.ts';
 import { shared } from '../../src/views/theme.ts';
 import { emitEdit, type CellViewState, type NameCatalogue } from '../view-api.ts';
-import { startMsg } from '../../src/messages/page.ts';
+import { sheetWords, startMsg } from '../../src/messages/page.ts';
 import { MAX_NOTE_PLACEHOLDERS, groupNoteProblems, listedPlaceholders, placeholderCount, placeholderText, splitNote } from './model.ts';
 import { msg } from '../../src/messages/language.ts';
 import { ATTRIBUTE_SLOT, MARKDOWN_ELEMENTS, PRIVATE_MARKS, SLOT, SLOT_OPEN, notePiecesHtml, type Placeholder } from './markdown.ts';
@@ -289,7 +289,7 @@ export class NoteCellView extends LitElement {
     const text = visibleBody(this.cell);
     if (this.editing) {
       return html`<textarea
-          aria-label="Note text (Markdown; {expression} shows a live value)"
+          aria-label=${sheetWords.noteEditorLabel()}
           placeholder=${startMsg.notePrompt()}
           @input=${this.onInput}
           @keydown=${this.onKeydown}
@@ -313,7 +313,7 @@ export class NoteCellView extends LitElement {
         class="prose"
         tabindex="0"
         role="document"
-        aria-label="Note; double-click or press Enter to edit"
+        aria-label=${sheetWords.noteLabel()}
         @dblclick=${() => this.startEditing()}
         @keydown=${(e: KeyboardEvent) => {
           if (e.key === 'Enter' && e.target === e.currentTarget) {

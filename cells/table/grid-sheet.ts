@@ -63,7 +63,7 @@ export function renderSheet(p: SheetInput, on: SheetHandlers): TemplateResult {
       class="scroller ${p.readOnly ? 'read-only' : ''}"
       tabindex="0"
       role="grid"
-      aria-label="Fields of ${name}"
+      aria-label=${gridMsg.fieldsLabel(name)}
       aria-rowcount=${n + 1}
       aria-colcount=${cols + 1}
       aria-readonly=${p.readOnly ? 'true' : 'false'}
@@ -80,7 +80,7 @@ export function renderSheet(p: SheetInput, on: SheetHandlers): TemplateResult {
     >
       <div class="sheet" style="--cols: ${template}">
         <div class="row head" role="row" aria-rowindex="1">
-          <div class="corner" role="columnheader" data-r="-1" data-c="-1" title="Select the whole table"></div>
+          <div class="corner" role="columnheader" data-r="-1" data-c="-1" title=${gridMsg.wholeTableTitle()}></div>
           ${src.header.map((h, c) => renderName(src, p.tableName, h, c, rect, focus, numeric[c]!))}
           ${p.nameEditor ?? nothing}
         </div>

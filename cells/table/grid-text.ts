@@ -48,7 +48,7 @@ export class GridText {
         spellcheck="false"
         autocomplete="off"
         rows=${Math.min(24, Math.max(4, lines + 1))}
-        aria-label="CSV text of table ${host.tableName ?? ''}"
+        aria-label=${gridMsg.textLabel(host.tableName ?? '')}
         aria-invalid=${err !== null ? 'true' : 'false'}
         @input=${this.onInput}
         @keydown=${this.onKey}

@@ -52,7 +52,7 @@ export class GridToolbar {
     return html`<div class="top">
       <input
         class="table-name"
-        aria-label="Table name"
+        aria-label=${gridMsg.tableNameLabel()}
         spellcheck="false"
         autocomplete="off"
         .value=${name}
@@ -66,18 +66,18 @@ export class GridToolbar {
       ${src !== null && !showText ? html`<span class="counts num">${gridMsg.counts(src.rowCount, src.header.length)}</span>` : nothing}
       ${this.savable() === null
         ? nothing
-        : html`<button class="save-csv" title="Save the table as it reads now as a CSV file" @click=${() => this.saveCsv()}>Save CSV</button>`}
-      ${ro ? nothing : html`<span class="tools" role="toolbar" aria-label="Table tools">
-        <button ?disabled=${noGrid} title="Add a row below the selection (${SHAPE_KEYS.rowBelow}; ${SHAPE_KEYS.rowAbove} adds one above)" @click=${() => host.run({ kind: 'insert-row', below: true })}>Add row</button>
-        <button ?disabled=${noGrid} title="Add a column right of the selection (${SHAPE_KEYS.columnRight}; ${SHAPE_KEYS.columnLeft} adds one left)" @click=${() => host.run({ kind: 'insert-column', right: true })}>Add column</button>
-        <button ?disabled=${noGrid} title="Delete the rows the selection covers (${SHAPE_KEYS.deleteRows})" @click=${() => host.run({ kind: 'delete-rows' })}>Delete rows</button>
-        <button ?disabled=${noGrid} title="Delete the columns the selection covers (${SHAPE_KEYS.deleteColumns})" @click=${() => host.run({ kind: 'delete-columns' })}>Delete columns</button>
-        <button title="Replace the table with the rows of a CSV file (header row first)" @click=${this.chooseFile}>Import CSV…</button>
+        : html`<button class="save-csv" title=${gridMsg.saveCsvTitle()} @click=${() => this.saveCsv()}>${gridMsg.saveCsv()}</button>`}
+      ${ro ? nothing : html`<span class="tools" role="toolbar" aria-label=${gridMsg.toolsLabel()}>
+        <button ?disabled=${noGrid} title=${gridMsg.addRowTitle(SHAPE_KEYS.rowBelow, SHAPE_KEYS.rowAbove)} @click=${() => host.run({ kind: 'insert-row', below: true })}>${gridMsg.addRow()}</button>
+        <button ?disabled=${noGrid} title=${gridMsg.addColumnTitle(SHAPE_KEYS.columnRight, SHAPE_KEYS.columnLeft)} @click=${() => host.run({ kind: 'insert-column', right: true })}>${gridMsg.addColumn()}</button>
+        <button ?disabled=${noGrid} title=${gridMsg.deleteRowsTitle(SHAPE_KEYS.deleteRows)} @click=${() => host.run({ kind: 'delete-rows' })}>${gridMsg.deleteRows()}</button>
+        <button ?disabled=${noGrid} title=${gridMsg.deleteColumnsTitle(SHAPE_KEYS.deleteColumns)} @click=${() => host.run({ kind: 'delete-columns' })}>${gridMsg.deleteColumns()}</button>
+        <button title=${gridMsg.importCsvTitle()} @click=${this.chooseFile}>${gridMsg.importCsv()}</button>
         <button
-          title=${showText ? 'Show the table as a grid' : 'Show and edit the table as CSV text'}
+          title=${showText ? gridMsg.showGridTitle() : gridMsg.showTextTitle()}
           ?disabled=${showText && host.gridError !== null}
           @click=${this.toggleText}
-        >${showText ? 'Grid' : 'CSV text'}</button>
+        >${showText ? gridMsg.showGrid() : gridMsg.showText()}</button>
       </span>
       <input class="file-input" type="file" accept=".csv,text/csv,text/plain" tabindex="-1" aria-hidden="true" @change=${this.onFileChosen} />`}
     </div>`;

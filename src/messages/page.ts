@@ -148,6 +148,22 @@ export const shellWords = {
   categories: 'Categories',
 } as const;
 
+/** The buttons and labels of values, charts and notes on the sheet. */
+export const sheetWords = {
+  saveCsv: () => 'Save CSV',
+  saveCsvTitle: () => 'Save this table as a CSV file',
+  saveAnalysisTable: () => 'Save the analysis table (CSV)',
+  saveMeans: () => 'Save the means (CSV)',
+  savePairs: () => 'Save the pairs (CSV)',
+  saveRunSheet: () => 'Save run sheet (CSV)',
+  saveSvg: () => 'Save SVG',
+  saveSvgTitle: () => 'Save the chart as an SVG file (drawn as vectors: sharp at any size)',
+  savePng: () => 'Save PNG',
+  savePngTitle: () => "Save the chart as a PNG picture (twice the screen's resolution)",
+  noteEditorLabel: () => 'Note text (Markdown; {expression} shows a live value)',
+  noteLabel: () => 'Note; double-click or press Enter to edit',
+};
+
 /** Why an edit cannot apply to the document (shown in the banner; an edit the page built wrong). */
 export const editMsg = {
   noCell: (id: string) => `no cell with id ${id}`,

@@ -5,6 +5,7 @@
 import { JUDGEMENT } from './words.ts';
 
 export const reportMsg = {
+  liveInDoubt: () => 'A claim that reads this number does not hold.',
   headerWords: [
     ['author', 'Author'],
     ['date', 'Date'],

@@ -88,7 +88,7 @@ export function noteHtml(body: string, parts: readonly Value[] | null, doubt: No
     if (v === undefined) return `<span class="live failed">${e(sources[i] ?? '')}</span>`;
     if (isError(v)) return `<span class="live failed" title="${e(v.message)}">${e(sources[i] ?? '')}</span>`;
     const inDoubt = doubt?.slots.has(i) === true;
-    return `<span class="live${inDoubt ? ' doubt' : ''}"${inDoubt ? ' title="A claim that reads this number does not hold."' : ''}>${e(placeholderText(sources[i] ?? '', v))}</span>`;
+    return `<span class="live${inDoubt ? ' doubt' : ''}"${inDoubt ? ` title="${e(reportMsg.liveInDoubt())}"` : ''}>${e(placeholderText(sources[i] ?? '', v))}</span>`;
   });
   const warning =
     doubt === undefined ? '' : `<p class="doubt-note">${e(reportMsg.doubtNote(doubt.claims))}</p>`;

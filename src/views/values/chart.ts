@@ -8,6 +8,7 @@ import type { Chart } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
 import { cleanSpec, collectingLogger, lockedLoader, safeEmbedOptions, type SpecObject } from './chart-safety.ts';
 import { downloadBlob, downloadUrl, fileNameFor } from '../download.ts';
+import { sheetWords } from '../../messages/page.ts';
 
 type Phase = 'idle' | 'loading' | 'drawn' | 'failed';
 
@@ -204,8 +205,8 @@ export class FurrowChart extends LitElement {
         ${this.phase !== 'drawn'
           ? nothing
           : html`<p class="saves">
-              <button type="button" title="Save the chart as an SVG file (drawn as vectors: sharp at any size)" @click=${() => void this.save('svg')}>Save SVG</button>
-              <button type="button" title="Save the chart as a PNG picture (twice the screen's resolution)" @click=${() => void this.save('png')}>Save PNG</button>
+              <button type="button" title=${sheetWords.saveSvgTitle()} @click=${() => void this.save('svg')}>${sheetWords.saveSvg()}</button>
+              <button type="button" title=${sheetWords.savePngTitle()} @click=${() => void this.save('png')}>${sheetWords.savePng()}</button>
             </p>`}
         ${this.messages.length === 0 ? nothing : html`<ul class="warnings">${this.messages.map((m) => html`<li>${m}</li>`)}</ul>`}
       </figure>

@@ -9,6 +9,7 @@ import { runSheet } from '../../doc/run-sheet.ts';
 import type { Table } from '../../lang/values.ts';
 import { shared } from '../theme.ts';
 import { downloadCsv } from '../download.ts';
+import { sheetWords } from '../../messages/page.ts';
 
 /** The file name of a run sheet for a layout named `name`. */
 export function runSheetFileName(name: string | null): string {
@@ -67,7 +68,7 @@ export class FurrowRunSheet extends LitElement {
     if (this.layout === null) return nothing;
     const line = drawnLine(this.layout);
     return html`${line === null ? nothing : html`<p class="drawn">${line}</p>`}
-      <button type="button" class="run-sheet" @click=${() => this.save()}>Save run sheet (CSV)</button>`;
+      <button type="button" class="run-sheet" @click=${() => this.save()}>${sheetWords.saveRunSheet()}</button>`;
   }
 }
 

@@ -17,6 +17,7 @@ import { recordSummary, type RecordSummary } from './record-summary.ts';
 import { tableStyles } from './styles.ts';
 import { tableCsv } from '../../doc/table-csv.ts';
 import { downloadCsv, fileNameFor } from '../download.ts';
+import { sheetWords } from '../../messages/page.ts';
 
 /** A one-line description of a column's size ("24 numbers, 2 missing"). */
 export function columnSummary(c: Column): string {
@@ -320,11 +321,11 @@ export class FurrowValue extends LitElement {
   private saveCsv(t: Value | undefined, part: string | null, label: string): TemplateResult | typeof nothing {
     if (t === undefined || typeof t !== 'object' || t.kind !== 'table') return nothing;
     const name = part === null ? this.name : `${this.name ?? 'value'}-${part}`;
-    return html`<button type="button" class="save-csv" title="Save this table as a CSV file" @click=${() => downloadCsv(fileNameFor(name, 'csv'), tableCsv(t))}>${label}</button>`;
+    return html`<button type="button" class="save-csv" title=${sheetWords.saveCsvTitle()} @click=${() => downloadCsv(fileNameFor(name, 'csv'), tableCsv(t))}>${label}</button>`;
   }
 
   private renderTable(t: Table): TemplateResult {
-    return html`<p class="summary">${tableSummary(t)} ${this.saveCsv(t, null, 'Save CSV')}</p>
+    return html`<p class="summary">${tableSummary(t)} ${this.saveCsv(t, null, sheetWords.saveCsv())}</p>
       <furrow-grid .columns=${t.columns} .names=${t.names} label=${this.name ?? 'table'}></furrow-grid>
       ${t.drawn === undefined ? nothing : html`<furrow-run-sheet .layout=${t} name=${this.name ?? 'layout'}></furrow-run-sheet>`}`;
   }
@@ -435,7 +436,7 @@ export class FurrowValue extends LitElement {
               </tbody>
             </table>
           </div>`}
-      <p class="exports">${this.saveCsv(r.fields.get('table'), 'analysis', 'Save the analysis table (CSV)')} ${this.saveCsv(r.fields.get('means'), 'means', 'Save the means (CSV)')}</p>
+      <p class="exports">${this.saveCsv(r.fields.get('table'), 'analysis', sheetWords.saveAnalysisTable())} ${this.saveCsv(r.fields.get('means'), 'means', sheetWords.saveMeans())}</p>
       ${this.renderScalars(f.scalars)}
       ${f.notes.length === 0 ? nothing : html`<ul class="notes">${f.notes.map((n) => html`<li>${n}</li>`)}</ul>`}
       ${f.others.map((o) => this.renderPart(o))} ${f.folded.map((o) => this.renderFolded(o))}
@@ -479,7 +480,7 @@ export class FurrowValue extends LitElement {
               </tbody>
             </table>
           </div>`}
-      <p class="exports">${this.saveCsv(r.fields.get('table'), 'pairs', 'Save the pairs (CSV)')}</p>
+      <p class="exports">${this.saveCsv(r.fields.get('table'), 'pairs', sheetWords.savePairs())}</p>
       ${this.renderScalars(p.scalars)} ${p.others.map((o) => this.renderPart(o))}
     </section>`;
   }

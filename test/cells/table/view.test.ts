@@ -184,7 +184,7 @@ describe('<furrow-table-cell>', () => {
   it('while drawing is held, a button that takes the grid away keeps the focus it was given', async () => {
     const { m } = await enteredWhileHeld('closed');
     // the user asks for the CSV text before the drawing: the grid goes, the button keeps the focus
-    const toggle = [...m.root.querySelectorAll<HTMLButtonElement>('button')].find((b) => b.textContent?.trim() === 'CSV text')!;
+    const toggle = [...m.root.querySelectorAll<HTMLButtonElement>('button')].find((b) => b.textContent?.trim() === gridMsg.showText())!;
     toggle.focus();
     toggle.click();
     await new Promise((r) => setTimeout(r, 40));
