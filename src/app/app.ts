@@ -86,7 +86,11 @@ export class FurrowApp extends LitElement {
     return this.arrivals.files;
   }
   private saveProblem: string | null = null;
-  private readonly visible = new VisibleCells(this, (id) => this.bridge.state(id));
+  private readonly visible = new VisibleCells(
+    this,
+    (id) => this.bridge.state(id),
+    () => (this.doc ? this.doc.cells.map((c) => c.id) : null),
+  );
 
   constructor() {
     super();

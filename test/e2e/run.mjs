@@ -412,6 +412,14 @@ const tests = [
       measured.editToVisibleDependentRushedMs = series.rushed.times.map((t) => Math.round(t * 10) / 10);
       editLines('200 cells', series);
       check(await cellText(page, 'f5').then((t) => /102/.test(t ?? '')), `the last value typed is shown: ${await cellText(page, 'f5')}`);
+      // a cell far off screen was drawn later, and shows the last value once scrolled to
+      // (f199 = sum(base.y) + 198, with 48 in row 1)
+      await page.locator('section[data-name="f199"]').scrollIntoViewIfNeeded();
+      await page.waitForFunction(
+        () => /296/.test(document.querySelector('furrow-app').shadowRoot.querySelector('section[data-name="f199"] furrow-formula-cell')?.shadowRoot?.querySelector('furrow-value')?.shadowRoot?.textContent ?? ''),
+        null,
+        { timeout: 5000 },
+      );
     },
   },
   {
