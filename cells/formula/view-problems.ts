@@ -30,8 +30,8 @@ export interface ParsedFormula {
 /**
  * Texts parsed, oldest first, up to KEEP_PARSED of them and KEEP_CHARACTERS in all: each
  * formula cell asks about its own text at every draw, and an edit draws every cell that
- * depends on it (2,000 of them in a long document). The characters are bounded too: every version of a long formula being
- * typed into is a text of its own.
+ * depends on it (2,000 of them in a long document). The characters are bounded too:
+ * every version of a long formula being typed into is a text of its own.
  */
 const parsed = new Map<string, ParsedFormula>();
 const KEEP_PARSED = 10_000;

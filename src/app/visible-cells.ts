@@ -21,6 +21,8 @@ export class VisibleCells implements ReactiveController {
   /** The cells whose sections were last looked for, in order. */
   private watchedIds: readonly string[] = [];
   private watchedSheet: Element | null = null;
+  /** The sections the observer watches. */
+  private watched = new WeakSet<Element>();
 
   /**
    * `latest` gives a cell's newest state; sections to watch carry `data-cell`; `cellIds`
@@ -71,15 +73,25 @@ export class VisibleCells implements ReactiveController {
     if (ids === null || (sheet === this.watchedSheet && sameIds(ids, this.watchedIds))) return;
     this.watchedIds = ids;
     this.watchedSheet = sheet;
-    for (const sec of root.querySelectorAll<HTMLElement>('section.cell:not([data-watched])')) {
-      sec.dataset.watched = '';
+    for (const sec of root.querySelectorAll<HTMLElement>('section.cell')) {
+      if (this.watched.has(sec)) continue;
+      this.watched.add(sec);
       this.observer.observe(sec);
     }
   }
 
+  hostConnected(): void {
+    // put back in the page: its sections are looked for again (hostUpdated)
+    this.host.requestUpdate();
+  }
+
   hostDisconnected(): void {
+    // the observer goes, and with it every section it watched
     this.observer?.disconnect();
     this.observer = null;
+    this.watched = new WeakSet();
+    this.watchedIds = [];
+    this.watchedSheet = null;
   }
 
   private scheduleCatchUp(): void {
