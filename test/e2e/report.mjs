@@ -222,11 +222,16 @@ async function savedText(page) {
         const req = indexedDB.open('furrow');
         req.onerror = () => reject(req.error);
         req.onsuccess = () => {
+          const db = req.result;
+          const done = (f) => {
+            db.close();
+            f();
+          };
           const key = localStorage.getItem('furrow-last');
-          if (key === null || !req.result.objectStoreNames.contains('documents')) return resolve(null);
-          const get = req.result.transaction('documents', 'readonly').objectStore('documents').get(key);
-          get.onsuccess = () => resolve(get.result?.text ?? null);
-          get.onerror = () => reject(get.error);
+          if (key === null || !db.objectStoreNames.contains('documents')) return done(() => resolve(null));
+          const get = db.transaction('documents', 'readonly').objectStore('documents').get(key);
+          get.onsuccess = () => done(() => resolve(get.result?.text ?? null));
+          get.onerror = () => done(() => reject(get.error));
         };
       }),
   );
@@ -269,11 +274,18 @@ const pageTests = [
         await openReport(page, base, html, title);
         const original = readFileSync(src, 'utf8');
         let kept = null;
+        // a read that fails is tried again, as one that finds the text not yet written is
+        // (Chromium has once dropped the page's promise of such a read: "Resulting promise
+        // was garbage collected")
+        let failed = null;
         for (let i = 0; i < 30 && kept !== original; i++) {
           await page.waitForTimeout(200);
-          kept = await savedText(page);
+          kept = await savedText(page).catch((err) => {
+            failed = err;
+            return null;
+          });
         }
-        check(kept === original, `${sample}: the page's document differs from the file (${kept?.length} vs ${original.length} characters)`);
+        check(kept === original, `${sample}: the page's document differs from the file (${kept?.length} vs ${original.length} characters)${failed === null ? '' : `; a read failed: ${failed.message}`}`);
         await page.screenshot({ path: `${out}/report-reopened-${sample.replace(/\.furrow$/, '')}.png` });
         // the page's own report carries the same document and draws the same charts
         const [download] = await Promise.all([page.waitForEvent('download'), page.locator('furrow-hand-off button.report').click()]);
