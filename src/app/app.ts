@@ -33,7 +33,7 @@ import { bannerView, type Banner } from './banner.ts';
 import { EvaluationBridge } from './bridge.ts';
 import { ArrivingFiles, type ArrivalsHost } from './arriving-files.ts';
 import { focusCell } from './cell-focus.ts';
-import { cellSection } from './cell-section.ts';
+import { cellSection, type CellPlace } from './cell-section.ts';
 import { HELP_CLOSE_EVENT, HELP_INSERT_EVENT, type FurrowHelp, type HelpInsertDetail } from './help/help-panel.ts';
 import './help/help-panel.ts';
 import { FileDrop } from './drop.ts';
@@ -456,7 +456,7 @@ export class FurrowApp extends LitElement {
     return guard([cell, index, count, state, renaming, catalogue], () => this.cellTemplate(cell, { index, count, state, renaming, catalogue }));
   }
 
-  private cellTemplate(cell: Cell, place: Parameters<typeof cellSection>[1]) {
+  private cellTemplate(cell: Cell, place: CellPlace) {
     return cellSection(
       cell,
       place,
