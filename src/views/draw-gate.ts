@@ -16,8 +16,14 @@
  * {@link afterHeldDrawing}.
  */
 
-/** The longest the page's own redraw waits for the worker's answer: under one frame. */
-export const DRAW_HOLD_MS = 10;
+/**
+ * The longest the page's own redraw waits for the worker's answer: under one frame. (It
+ * was 10 ms. In a chain of 2,000 cells the answer often came later than that, and the page
+ * drew the field alone, then the answer after a frame of its own: medians of 46 to 56 ms
+ * from Enter to the dependents drawn, against 34 to 38 ms in four of five runs at 16 ms;
+ * scripts/field-edit-clock.mjs --cells 2000.)
+ */
+export const DRAW_HOLD_MS = 16;
 
 let held: Promise<void> | null = null;
 /** Ends the hold in force at once. */
