@@ -18,6 +18,7 @@
 import {
   decimalAt,
   isTextRanges,
+  sameTexts,
   type Column,
   type DecimalTexts,
   type RecordValue,
@@ -86,11 +87,6 @@ function isWireColumn(v: unknown): v is WireColumn {
 
 const missingAt = (c: Column, i: number): number => (c.missing === null ? 0 : c.missing[i]!);
 
-function sameOrder(a: readonly string[] | undefined, b: readonly string[] | undefined): boolean {
-  if (a === b) return true;
-  if (a === undefined || b === undefined || a.length !== b.length) return false;
-  return a.every((x, i) => x === b[i]);
-}
 
 /** True when decimal text i is the same in a and b, without slicing ranges. */
 function sameDecimal(a: DecimalTexts, b: DecimalTexts, i: number): boolean {
@@ -112,7 +108,7 @@ function sameDecimal(a: DecimalTexts, b: DecimalTexts, i: number): boolean {
  * more than `limit` rows.
  */
 export function changedRows(base: Column, next: Column, limit: number): Int32Array | null {
-  if (base.type !== next.type || base.values.length !== next.values.length || base.name !== next.name || !sameOrder(base.order, next.order)) return null;
+  if (base.type !== next.type || base.values.length !== next.values.length || base.name !== next.name || !sameTexts(base.order ?? null, next.order ?? null)) return null;
   // an array an edit wrote in place for `next` (cells/table/model-rows.ts): what `base`
   // held is gone, so its rows cannot be compared
   if (base !== next && base.values === next.values && (isWrittenOver(base) || isWrittenOver(next))) return null;

@@ -5,6 +5,7 @@
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import type { CellViewState } from '../../cells/view-api.ts';
+import { sameTexts } from '../lang/values.ts';
 
 /** How far beyond the screen a cell counts as on it. */
 const NEAR = '300px 0px';
@@ -70,7 +71,7 @@ export class VisibleCells implements ReactiveController {
     const root = this.host.shadowRoot ?? this.host;
     // (and when the sheet itself was drawn afresh, its sections with it)
     const sheet = root.querySelector('main');
-    if (ids === null || (sheet === this.watchedSheet && sameIds(ids, this.watchedIds))) return;
+    if (ids === null || (sheet === this.watchedSheet && sameTexts(ids, this.watchedIds))) return;
     this.watchedIds = ids;
     this.watchedSheet = sheet;
     for (const sec of root.querySelectorAll<HTMLElement>('section.cell')) {
@@ -109,11 +110,4 @@ export class VisibleCells implements ReactiveController {
       }, 0),
     );
   }
-}
-
-function sameIds(a: readonly string[], b: readonly string[]): boolean {
-  if (a === b) return true;
-  if (a.length !== b.length) return false;
-  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
-  return true;
 }

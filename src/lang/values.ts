@@ -427,8 +427,10 @@ function sameMask(a: Uint8Array | null, b: Uint8Array | null): boolean {
   return true;
 }
 
-function sameTexts(a: readonly string[] | null, b: readonly string[] | null): boolean {
-  if (a === null || b === null) return a === b;
+/** True when two lists of texts hold the same texts in the same order (null only matches null). */
+export function sameTexts(a: readonly string[] | null, b: readonly string[] | null): boolean {
+  if (a === b) return true;
+  if (a === null || b === null) return false;
   if (a.length !== b.length) return false;
   for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
   return true;

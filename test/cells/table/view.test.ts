@@ -144,10 +144,13 @@ describe('<furrow-table-cell>', () => {
     expect(m.edits).toHaveLength(1);
   });
 
-  /** Mounts the trees table, has the shell hold drawing for 15 ms after each edit, and enters `text` in row 1's method. */
-  async function enteredWhileHeld(text: string): Promise<{ m: Mounted; grid: HTMLElement; ta: HTMLTextAreaElement }> {
+  /**
+   * Mounts the trees table, has the shell hold drawing for `holdMs` after each edit (none
+   * when null), and enters `text` in row 1's method.
+   */
+  async function enteredWhileHeld(text: string, holdMs: number | null = 15): Promise<{ m: Mounted; grid: HTMLElement; ta: HTMLTextAreaElement }> {
     const m = await mount({ id: 'c1', marker: 'table trees', eol: '\n', body: TREES });
-    m.el.addEventListener(EDIT_EVENT, () => holdDrawing(new Promise(() => {}), 15));
+    if (holdMs !== null) m.el.addEventListener(EDIT_EVENT, () => holdDrawing(new Promise(() => {}), holdMs));
     const grid = m.root.querySelector<HTMLElement>('.scroller')!;
     key(grid, 'ArrowRight');
     await m.el.updateComplete;
@@ -195,19 +198,11 @@ describe('<furrow-table-cell>', () => {
   });
 
   it('keeps the column widths when the shell hands back the body a field edit made', async () => {
-    const cell: Cell = { id: 'c1', marker: 'table trees', eol: '\n', body: TREES };
-    const m = await mount(cell);
-    const grid = m.root.querySelector<HTMLElement>('.scroller')!;
-    key(grid, 'ArrowRight');
-    await m.el.updateComplete;
-    key(grid, 'F2');
-    await m.el.updateComplete;
-    m.root.querySelector<HTMLTextAreaElement>('textarea.editor')!.value = 'a much wider method name';
-    key(m.root.querySelector('textarea.editor')!, 'Enter');
+    const { m } = await enteredWhileHeld('a much wider method name', null);
     await m.el.updateComplete;
     const widths = m.el.shown!.widths;
     // as the shell does: the store applies the splice, and the cell comes back made by it
-    const doc = applyEdit({ bom: false, firstLine: 'furrow 1', firstEol: '\n', header: '', cells: [cell] }, m.edits[0]!.edit).document;
+    const doc = applyEdit({ bom: false, firstLine: 'furrow 1', firstEol: '\n', header: '', cells: [m.el.cell] }, m.edits[0]!.edit).document;
     m.el.cell = doc.cells[0]!;
     await m.el.updateComplete;
     // the same rows: the widths are not measured again from a sample of the table
